@@ -1,0 +1,98 @@
+import type { Metadata } from "next";
+import { z } from "zod";
+import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { listCatalogCells } from "@/db/queries/catalog";
+import { getShopSettings } from "@/db/queries/shops";
+import { requireShopPage } from "@/lib/auth/context";
+import { formatMoney } from "@/lib/pricing";
+import { formatQuantity } from "@/lib/quantities";
+
+export const metadata: Metadata = { title: "Catalog" };
+
+const querySchema = z.object({
+  q: z.string().trim().max(100).optional().default(""),
+  technology: z.enum(["all", "edlc", "hybrid", "electrolytic", "film"]).optional().default("all"),
+  sort: z.enum(["sku", "capacitance", "voltage", "cost", "stock"]).optional().default("sku"),
+  dir: z.enum(["asc", "desc"]).optional().default("asc"),
+  page: z.coerce.number().int().min(1).optional().default(1),
+  size: z.coerce.number().int().min(5).max(100).optional().default(25),
+});
+
+const TECH = { edlc: "EDLC", hybrid: "Hybrid", electrolytic: "Electrolytic", film: "Film" } as const;
+
+export default async function CatalogPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
+  const { shop } = await params;
+  const ctx = await requireShopPage(shop, "catalog:read");
+  const parsed = querySchema.safeParse(await searchParams);
+  const q = parsed.success ? parsed.data : querySchema.parse({});
+  const [{ rows, total }, settings] = await Promise.all([listCatalogCells(ctx.shop.id, q), getShopSettings(ctx.shop.id)]);
+  const currency = settings?.currency ?? "EUR";
+  const base = `/desk/${shop}/catalog`;
+  const keep = { q: q.q, technology: q.technology === "all" ? undefined : q.technology, sort: q.sort, dir: q.dir };
+  const sortProps = { base, params: keep, sort: q.sort, dir: q.dir };
+  return (
+    <div className="space-y-6">
+      <div>
+        <h1 className="text-2xl font-semibold">Catalog</h1>
+        <p className="mt-1 text-sm text-ink-600">Cells the engine builds from. Editing and import arrive with the catalog tools; inactive cells are never offered.</p>
+      </div>
+      <form method="get" role="search" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100">
+        <div>
+          <label htmlFor="q" className="block text-xs font-medium text-ink-700">SKU, maker or family</label>
+          <input id="q" name="q" defaultValue={q.q} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm" />
+        </div>
+        <div>
+          <label htmlFor="technology" className="block text-xs font-medium text-ink-700">Technology</label>
+          <select id="technology" name="technology" defaultValue={q.technology} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
+            <option value="all">All</option>
+            {Object.entries(TECH).map(([k, v]) => (
+              <option key={k} value={k}>{v}</option>
+            ))}
+          </select>
+        </div>
+        <input type="hidden" name="sort" value={q.sort} />
+        <input type="hidden" name="dir" value={q.dir} />
+        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
+      </form>
+      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
+        <table className="w-full text-sm">
+          <thead className="bg-ink-50 text-ink-700">
+            <tr>
+              <SortHeader {...sortProps} sortKey="sku" label="SKU" />
+              <th scope="col" className="px-3 py-2 text-left font-medium">Maker · family</th>
+              <th scope="col" className="px-3 py-2 text-left font-medium">Technology</th>
+              <SortHeader {...sortProps} sortKey="capacitance" label="Capacitance" />
+              <SortHeader {...sortProps} sortKey="voltage" label="Rated" />
+              <th scope="col" className="px-3 py-2 text-left font-medium">ESR</th>
+              <SortHeader {...sortProps} sortKey="cost" label="Unit cost" />
+              <SortHeader {...sortProps} sortKey="stock" label="Stock" />
+              <th scope="col" className="px-3 py-2 text-left font-medium">Lead time</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.length === 0 ? (
+              <tr>
+                <td colSpan={9} className="px-3 py-6 text-center text-ink-500">No cells match.</td>
+              </tr>
+            ) : (
+              rows.map((c) => (
+                <tr key={c.id} className={`border-t border-ink-100 ${c.isActive ? "" : "text-ink-400"}`}>
+                  <td className="px-3 py-2 font-mono text-xs">{c.sku}{c.isActive ? "" : " (inactive)"}</td>
+                  <td className="px-3 py-2">{c.manufacturer} · {c.series}</td>
+                  <td className="px-3 py-2">{TECH[c.technology]}</td>
+                  <td className="px-3 py-2 num">{formatQuantity(c.capacitanceF, "F")} <span className="text-ink-400">−{c.toleranceMinusPct}/+{c.tolerancePlusPct} %</span></td>
+                  <td className="px-3 py-2 num">{formatQuantity(c.ratedVoltageV, "V")}</td>
+                  <td className="px-3 py-2 num">{formatQuantity(c.esrOhm, "Ω")}</td>
+                  <td className="px-3 py-2 num">{formatMoney(c.unitCost, currency)}</td>
+                  <td className="px-3 py-2 num">{c.stock}</td>
+                  <td className="px-3 py-2 num">{c.leadTimeDays} d</td>
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+      <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
+    </div>
+  );
+}

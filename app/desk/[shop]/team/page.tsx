@@ -1,0 +1,80 @@
+import type { Metadata } from "next";
+import { listMembers } from "@/db/queries/members";
+import { requireShopPage } from "@/lib/auth/context";
+import { ROLE_LABELS } from "@/lib/auth/permissions";
+import { memberListSchema } from "@/lib/validation/auth";
+import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { RoleSelect } from "./_components/role-select";
+
+export const metadata: Metadata = { title: "Team" };
+
+export default async function TeamPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
+  const { shop } = await params;
+  const ctx = await requireShopPage(shop, "team:read");
+  const parsed = memberListSchema.safeParse(await searchParams);
+  const q = parsed.success ? parsed.data : memberListSchema.parse({});
+  const { rows, total } = await listMembers(ctx.shop.id, q);
+  const base = `/desk/${shop}/team`;
+  const keep = { q: q.q, role: q.role === "all" ? undefined : q.role, sort: q.sort, dir: q.dir, size: q.size === 20 ? undefined : q.size };
+  return (
+    <div className="space-y-6">
+      <div>
+        <h1 className="text-2xl font-semibold">Team</h1>
+        <p className="mt-1 text-sm text-ink-600">Everyone with access to {ctx.shop.name}. You can move a member between estimator and customer.</p>
+      </div>
+      <form method="get" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100" role="search">
+        <div>
+          <label htmlFor="q" className="block text-xs font-medium text-ink-700">Name or e-mail</label>
+          <input id="q" name="q" defaultValue={q.q} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm" />
+        </div>
+        <div>
+          <label htmlFor="role" className="block text-xs font-medium text-ink-700">Role</label>
+          <select id="role" name="role" defaultValue={q.role} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
+            <option value="all">All roles</option>
+            <option value="manager">Managers</option>
+            <option value="estimator">Estimators</option>
+            <option value="customer">Customers</option>
+          </select>
+        </div>
+        <input type="hidden" name="sort" value={q.sort} />
+        <input type="hidden" name="dir" value={q.dir} />
+        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
+      </form>
+      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
+        <table className="w-full text-sm">
+          <thead className="bg-ink-50 text-ink-700">
+            <tr>
+              <SortHeader base={base} params={keep} sortKey="name" label="Name" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="email" label="E-mail" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="role" label="Role" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="joined" label="Joined" sort={q.sort} dir={q.dir} />
+            </tr>
+          </thead>
+          <tbody>
+            {rows.length === 0 ? (
+              <tr>
+                <td colSpan={4} className="px-3 py-6 text-center text-ink-500">No members match.</td>
+              </tr>
+            ) : (
+              rows.map((m) => (
+                <tr key={m.id} className="border-t border-ink-100" data-testid={`member-${m.email}`}>
+                  <td className="px-3 py-2 font-medium">{m.name}</td>
+                  <td className="px-3 py-2">{m.email}</td>
+                  <td className="px-3 py-2">
+                    {m.role === "manager" || m.userId === ctx.user.id ? (
+                      ROLE_LABELS[m.role]
+                    ) : (
+                      <RoleSelect shop={shop} memberId={m.id} name={m.name} role={m.role} />
+                    )}
+                  </td>
+                  <td className="px-3 py-2 num text-ink-600">{m.joinedAt.toISOString().slice(0, 10)}</td>
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+      <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
+    </div>
+  );
+}

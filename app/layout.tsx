@@ -1,0 +1,35 @@
+import type { Metadata } from "next";
+import localFont from "next/font/local";
+import "./globals.css";
+
+const plexSans = localFont({
+  src: [
+    { path: "./fonts/plex-sans-400.woff2", weight: "400" },
+    { path: "./fonts/plex-sans-500.woff2", weight: "500" },
+    { path: "./fonts/plex-sans-600.woff2", weight: "600" },
+    { path: "./fonts/plex-sans-700.woff2", weight: "700" },
+  ],
+  variable: "--font-plex-sans",
+  display: "swap",
+});
+const plexMono = localFont({
+  src: [
+    { path: "./fonts/plex-mono-400.woff2", weight: "400" },
+    { path: "./fonts/plex-mono-500.woff2", weight: "500" },
+  ],
+  variable: "--font-plex-mono",
+  display: "swap",
+});
+
+export const metadata: Metadata = {
+  title: { default: "Faradsmith — capacitor banks, designed and quoted", template: "%s · Faradsmith" },
+  description: "Custom capacitor banks designed from your shop's catalog, priced by your rules, quoted in minutes.",
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
+      <body className="min-h-screen font-sans">{children}</body>
+    </html>
+  );
+}

@@ -1,0 +1,45 @@
+import Link from "next/link";
+
+type Params = Record<string, string | number | undefined>;
+
+export function hrefWith(base: string, params: Params, change: Params) {
+  const merged = { ...params, ...change };
+  const qs = new URLSearchParams();
+  for (const [k, v] of Object.entries(merged)) if (v !== undefined && v !== "") qs.set(k, String(v));
+  const s = qs.toString();
+  return s ? `${base}?${s}` : base;
+}
+
+/** A column header that sorts by its key through the URL (server-rendered lists). */
+export function SortHeader({ base, params, sortKey, label, sort, dir }: { base: string; params: Params; sortKey: string; label: string; sort: string; dir: "asc" | "desc" }) {
+  const active = sort === sortKey;
+  const nextDir = active && dir === "asc" ? "desc" : "asc";
+  return (
+    <th scope="col" aria-sort={active ? (dir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-medium">
+      <Link href={hrefWith(base, params, { sort: sortKey, dir: nextDir, page: 1 })} className="inline-flex items-center gap-1 hover:underline">
+        {label}
+        <span aria-hidden className="text-ink-400">{active ? (dir === "asc" ? "▲" : "▼") : "↕"}</span>
+      </Link>
+    </th>
+  );
+}
+
+export function Pager({ base, params, page, size, total }: { base: string; params: Params; page: number; size: number; total: number }) {
+  const pages = Math.max(1, Math.ceil(total / size));
+  const from = total === 0 ? 0 : (page - 1) * size + 1;
+  const to = Math.min(total, page * size);
+  return (
+    <nav aria-label="Pages" className="flex items-center justify-between text-sm text-ink-600">
+      <span>
+        {from}–{to} of {total}
+      </span>
+      <span className="flex gap-2">
+        {page > 1 ? <Link className="rounded px-2 py-1 ring-1 ring-ink-200 hover:bg-ink-100" href={hrefWith(base, params, { page: page - 1 })}>Previous</Link> : null}
+        <span>
+          Page {page} of {pages}
+        </span>
+        {page < pages ? <Link className="rounded px-2 py-1 ring-1 ring-ink-200 hover:bg-ink-100" href={hrefWith(base, params, { page: page + 1 })}>Next</Link> : null}
+      </span>
+    </nav>
+  );
+}

@@ -1,0 +1,60 @@
+import "server-only";
+import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
+import { db } from "@/db";
+import { members, users } from "@/db/schema";
+import type { Role } from "@/lib/auth/permissions";
+import type { MemberListQuery } from "@/lib/validation/auth";
+
+export interface MemberRow {
+  id: string;
+  userId: string;
+  name: string;
+  email: string;
+  role: Role;
+  joinedAt: Date;
+}
+
+/** A page of the shop's members, filtered and sorted; `total` counts the filtered set. */
+export async function listMembers(shopId: string, q: MemberListQuery): Promise<{ rows: MemberRow[]; total: number }> {
+  const where: SQL[] = [eq(members.shopId, shopId)];
+  if (q.role !== "all") where.push(eq(members.role, q.role));
+  if (q.q) {
+    const like = `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
+    where.push(or(ilike(users.name, like), ilike(users.email, like))!);
+  }
+  const column = { name: users.name, email: users.email, role: members.role, joined: members.createdAt }[q.sort];
+  const order = q.dir === "asc" ? asc(column) : desc(column);
+  const rows = await db
+    .select({ id: members.id, userId: members.userId, name: users.name, email: users.email, role: members.role, joinedAt: members.createdAt })
+    .from(members)
+    .innerJoin(users, eq(users.id, members.userId))
+    .where(and(...where))
+    .orderBy(order, asc(members.id))
+    .limit(q.size)
+    .offset((q.page - 1) * q.size);
+  const [totalRow] = await db
+    .select({ n: count() })
+    .from(members)
+    .innerJoin(users, eq(users.id, members.userId))
+    .where(and(...where));
+  return { rows, total: totalRow?.n ?? 0 };
+}
+
+export async function getMember(shopId: string, memberId: string) {
+  const [row] = await db
+    .select({ id: members.id, userId: members.userId, role: members.role })
+    .from(members)
+    .where(and(eq(members.shopId, shopId), eq(members.id, memberId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Changes a member's role within the shop; another shop's member id is simply not found. */
+export async function updateMemberRole(shopId: string, memberId: string, role: Role) {
+  const [row] = await db
+    .update(members)
+    .set({ role })
+    .where(and(eq(members.shopId, shopId), eq(members.id, memberId)))
+    .returning({ id: members.id, role: members.role });
+  return row ?? null;
+}

@@ -1,0 +1,44 @@
+import "server-only";
+import { asc, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { shopSettings, shops, users } from "@/db/schema";
+import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
+import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
+
+export async function isSlugTaken(slug: string): Promise<boolean> {
+  const [row] = await db.select({ id: shops.id }).from(shops).where(eq(shops.slug, slug)).limit(1);
+  return Boolean(row);
+}
+
+/** Shops shown on the landing page: public storefront facts only. */
+export async function listPublicShops() {
+  return db
+    .select({ slug: shops.slug, name: shops.name, tagline: shopSettings.tagline, currency: shopSettings.currency })
+    .from(shops)
+    .leftJoin(shopSettings, eq(shopSettings.shopId, shops.id))
+    .orderBy(asc(shops.name))
+    .limit(50);
+}
+
+export async function getShopSettings(shopId: string) {
+  const [row] = await db.select().from(shopSettings).where(eq(shopSettings.shopId, shopId)).limit(1);
+  return row ?? null;
+}
+
+/** A new shop starts with the default design factors and pricing rules in its own currency. */
+export async function createShopSettings(shopId: string, currency: string) {
+  await db
+    .insert(shopSettings)
+    .values({ shopId, currency, designFactors: DEFAULT_DESIGN_FACTORS, pricingRules: { ...DEFAULT_PRICING_RULES, currency } })
+    .onConflictDoNothing();
+}
+
+export async function isEmailTaken(email: string): Promise<boolean> {
+  const [row] = await db.select({ id: users.id }).from(users).where(eq(users.email, email.toLowerCase())).limit(1);
+  return Boolean(row);
+}
+
+/** Removes an account created moments ago when the rest of a sign-up could not complete. */
+export async function deleteUserAccount(userId: string) {
+  await db.delete(users).where(eq(users.id, userId));
+}

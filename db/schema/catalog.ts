@@ -1,0 +1,99 @@
+import { sql } from "drizzle-orm";
+import {
+  boolean,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  numeric,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from "drizzle-orm/pg-core";
+import { shops } from "./auth";
+
+export const technologyEnum = pgEnum("technology", ["edlc", "hybrid", "electrolytic", "film"]);
+export const cellShapeEnum = pgEnum("cell_shape", ["cylinder", "box"]);
+export const componentKindEnum = pgEnum("component_kind", [
+  "balancing-board",
+  "interconnect",
+  "terminal",
+  "enclosure",
+]);
+
+/** Cells a shop can build banks from. Physics in SI units; money as numeric, read as strings. */
+export const catalogCells = pgTable(
+  "catalog_cells",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: text()
+      .notNull()
+      .references(() => shops.id, { onDelete: "cascade" }),
+    sku: text().notNull(),
+    manufacturer: text().notNull(),
+    series: text().notNull(),
+    technology: technologyEnum().notNull(),
+    capacitanceF: doublePrecision().notNull(),
+    toleranceMinusPct: doublePrecision().notNull(),
+    tolerancePlusPct: doublePrecision().notNull(),
+    ratedVoltageV: doublePrecision().notNull(),
+    surgeVoltageV: doublePrecision().notNull(),
+    esrOhm: doublePrecision().notNull(),
+    leakageCurrentA: doublePrecision().notNull(),
+    continuousCurrentA: doublePrecision().notNull(),
+    peakCurrentA: doublePrecision().notNull(),
+    massKg: doublePrecision().notNull(),
+    shape: cellShapeEnum().notNull(),
+    /** cylinder: diameter; box: length */
+    diameterMm: doublePrecision(),
+    lengthMm: doublePrecision(),
+    widthMm: doublePrecision(),
+    heightMm: doublePrecision().notNull(),
+    unitCost: numeric({ precision: 14, scale: 4 }).notNull(),
+    stock: integer().notNull().default(0),
+    leadTimeDays: integer().notNull().default(0),
+    isActive: boolean().notNull().default(true),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true })
+      .notNull()
+      .defaultNow()
+      .$onUpdate(() => sql`now()`),
+  },
+  (t) => [
+    uniqueIndex("catalog_cells_shop_sku_uq").on(t.shopId, t.sku),
+    index("catalog_cells_shop_active_idx").on(t.shopId, t.isActive, t.technology),
+  ],
+);
+
+/** Parts other than cells: active balancing boards, interconnects, terminals, enclosures. */
+export const catalogComponents = pgTable(
+  "catalog_components",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: text()
+      .notNull()
+      .references(() => shops.id, { onDelete: "cascade" }),
+    kind: componentKindEnum().notNull(),
+    sku: text().notNull(),
+    name: text().notNull(),
+    unitCost: numeric({ precision: 14, scale: 4 }).notNull(),
+    /** kind-specific figures, see lib/bank/types.ts (ComponentSpecs) */
+    specs: jsonb().$type<Record<string, number | string>>().notNull().default({}),
+    stock: integer().notNull().default(0),
+    leadTimeDays: integer().notNull().default(0),
+    isActive: boolean().notNull().default(true),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("catalog_components_shop_sku_uq").on(t.shopId, t.sku),
+    index("catalog_components_shop_kind_idx").on(t.shopId, t.kind),
+  ],
+);
+
+export type CatalogCellRow = typeof catalogCells.$inferSelect;
+export type NewCatalogCell = typeof catalogCells.$inferInsert;
+export type CatalogComponentRow = typeof catalogComponents.$inferSelect;
+export type NewCatalogComponent = typeof catalogComponents.$inferInsert;

@@ -1,0 +1,64 @@
+/**
+ * Demo data: two invented shops with their people, catalogs and settings. Loaded by the start
+ * command into an empty database and by tests that need it. Every name here is invented.
+ */
+import { randomUUID } from "node:crypto";
+import { hashPassword } from "better-auth/crypto";
+import { count } from "drizzle-orm";
+import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
+import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
+import type { Db } from "../client";
+import { accounts, catalogCells, catalogComponents, members, shopSettings, shops, users } from "../schema";
+import { kestrelCells, kestrelComponents } from "./catalog-kestrel";
+import { marlowCells, marlowComponents } from "./catalog-marlow";
+import { DEMO_PASSWORD, demoPeople, demoShops } from "./people";
+
+export { DEMO_PASSWORD, demoPeople, demoShops };
+
+const catalogs = {
+  "kestrel-bank-works": { cells: kestrelCells, components: kestrelComponents },
+  "marlow-pulse": { cells: marlowCells, components: marlowComponents },
+} as const;
+
+export async function isDatabaseEmpty(db: Db): Promise<boolean> {
+  const [row] = await db.select({ n: count() }).from(shops);
+  return (row?.n ?? 0) === 0;
+}
+
+async function createUser(db: Db, person: { name: string; email: string }, passwordHash: string) {
+  const id = randomUUID();
+  await db.insert(users).values({ id, name: person.name, email: person.email, emailVerified: true });
+  await db.insert(accounts).values({ id: randomUUID(), accountId: id, providerId: "credential", userId: id, password: passwordHash });
+  return id;
+}
+
+/** Loads both demo shops. Call only on an empty database (the start command checks). */
+export async function seedDemo(db: Db): Promise<void> {
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  for (const shop of demoShops) {
+    const slug = shop.slug as keyof typeof catalogs;
+    const shopId = randomUUID();
+    await db.insert(shops).values({ id: shopId, name: shop.name, slug });
+    await db.insert(shopSettings).values({
+      shopId,
+      currency: shop.currency,
+      tagline: shop.tagline,
+      description: shop.description,
+      designFactors: DEFAULT_DESIGN_FACTORS,
+      pricingRules: { ...DEFAULT_PRICING_RULES, currency: shop.currency },
+    });
+    const people = demoPeople[slug];
+    const staff: [typeof people.manager, "manager" | "estimator" | "customer"][] = [
+      [people.manager, "manager"],
+      [people.estimator, "estimator"],
+      ...people.customers.map((c) => [c, "customer"] as [typeof c, "customer"]),
+    ];
+    for (const [person, role] of staff) {
+      const userId = await createUser(db, person, passwordHash);
+      await db.insert(members).values({ id: randomUUID(), shopId, userId, role });
+    }
+    const { cells, components } = catalogs[slug];
+    await db.insert(catalogCells).values(cells.map((c) => ({ ...c, shopId })));
+    await db.insert(catalogComponents).values(components.map((c) => ({ ...c, shopId })));
+  }
+}

@@ -1,0 +1,33 @@
+import js from "@eslint/js";
+import tseslint from "typescript-eslint";
+
+const pureModules = ["lib/bank/**", "lib/pricing/**", "lib/quantities/**"];
+
+export default tseslint.config(
+  { ignores: [".next/**", "node_modules/**", ".data/**", "drizzle/**", "next-env.d.ts", "test-results/**", "playwright-report/**"] },
+  js.configs.recommended,
+  ...tseslint.configs.recommended,
+  {
+    languageOptions: {
+      globals: { process: "readonly", console: "readonly", URL: "readonly", fetch: "readonly", setTimeout: "readonly", clearTimeout: "readonly", Buffer: "readonly", Response: "readonly", Request: "readonly", Headers: "readonly", window: "readonly", document: "readonly", performance: "readonly" },
+    },
+    rules: {
+      "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+      "@typescript-eslint/no-explicit-any": "error",
+    },
+  },
+  {
+    // The engine, the money and the quantities stay pure (STYLE.md §6).
+    files: pureModules,
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        {
+          patterns: [
+            { group: ["next", "next/*", "react", "react-dom", "drizzle-orm", "drizzle-orm/*", "@/db", "@/db/*", "@/lib/env", "**/db/**", "**/lib/env"], message: "lib/bank, lib/pricing and lib/quantities are pure: no framework, database or environment imports." },
+          ],
+        },
+      ],
+    },
+  },
+);

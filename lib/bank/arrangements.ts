@@ -1,0 +1,612 @@
+import { formatQuantity } from '../quantities';
+import { sizeBalancing, sizeBleeder } from './balancing';
+import { constantPowerSeconds } from './discharge';
+import {
+  TECHNOLOGIES,
+  type BalancingBoard,
+  type DesignFactors,
+  type EngineCell,
+  type Requirement,
+  type Technology,
+  type Topology,
+} from './types';
+
+/** Most cells in one bank (the same bound as the network evaluator). */
+export const MAX_CELLS_PER_BANK = 20_000;
+
+/** Stored energy above which the burn and arc caution is shown (common practice: 10 J, from memory). */
+export const HIGH_ENERGY_CAUTION_J = 10;
+
+/** Lead time above which an option carries a warning (common practice for a quoting shop). */
+export const LONG_LEAD_TIME_DAYS = 28;
+
+export interface ArrangementCellFigures {
+  sku: string;
+  technology: Technology;
+  capacitance: number;
+  toleranceMinus: number;
+  tolerancePlus: number;
+  ratedVoltage: number;
+  surgeVoltage: number;
+  esr: number;
+  leakageCurrent: number;
+  peakCurrent: number;
+  mass: number;
+  volume: number;
+}
+
+export interface ArrangementOption {
+  cell: ArrangementCellFigures;
+  cellId: string;
+  topology: Topology;
+  seriesCount: number;
+  parallelCount: number;
+  cellCount: number;
+  /** N_s is one more than the voltage needs: cells run further below their rating */
+  longerLife: boolean;
+  /** nominal: N_p·C_n/N_s; design: with lower tolerance and end-of-life fade */
+  capacitance: { nominal: number; design: number };
+  /** N_s·V_r: the bank's rating with matched cells */
+  maxVoltage: number;
+  /** ½·C_nominal·V_max² (J) */
+  storedEnergy: number;
+  /** ½·C_design·(V_max² − V_min²) (J): guaranteed at end of life */
+  usableEnergy: number;
+  esr: { new: number; endOfLife: number };
+  /** voltage drop at the peak current with end-of-life ESR (V), null without a peak-current requirement */
+  peakDrop: number | null;
+  mass: number;
+  volume: number;
+  /** worst-case transient cell voltage while charging with matched cells (V) */
+  worstCellVoltage: number;
+  balancing: {
+    resistance: number | null;
+    power: number;
+    powerRating: number | null;
+    count: number;
+    standbyLoss: number;
+    timeConstant: number;
+    activeBoard: null | { sku: string; count: number };
+  };
+  discharge: {
+    /** worst case, with the upper capacitance tolerance (s) */
+    secondsToSafe: number;
+    bleeder: null | { resistance: number; power: number; powerRating: number | null; energy: number; switched: boolean };
+  };
+  /** constant-power backup time with design capacitance and end-of-life ESR (s) */
+  backupSeconds?: number;
+  /** cells·unitCost + boards·unitCost per bank: for ranking only, the caller prices exactly */
+  costEstimate: number;
+  leadTimeDays: number;
+  pareto: boolean;
+  warnings: string[];
+  cautions: string[];
+}
+
+export interface ArrangementSearchInput {
+  requirement: Requirement;
+  cells: EngineCell[];
+  factors: DesignFactors;
+  balancingBoards?: BalancingBoard[];
+  /** default 12 */
+  limit?: number;
+}
+
+export interface ArrangementSearchResult {
+  options: ArrangementOption[];
+  /** when no option fits: one line per technology family saying what ruled it out */
+  reasons: string[];
+}
+
+const TOPO_GROUPS = 0;
+const TOPO_STRINGS = 1;
+const TOPOLOGIES: readonly Topology[] = ['series-of-parallel-groups', 'parallel-of-series-strings'];
+
+type Driver = 'capacitance' | 'energy' | 'backup' | 'esr' | 'peak' | 'none';
+type Limit = 'mass' | 'volume' | 'count';
+
+interface TechnologyTally {
+  cells: number;
+  invalid: number;
+  surge: number;
+  board: number;
+  /** nearest sizing miss: ratio of needed to allowed (> 1) */
+  missRatio: number;
+  missDriver: Driver;
+  missLimit: Limit;
+}
+
+function isPositive(x: number): boolean {
+  return x > 0 && Number.isFinite(x);
+}
+
+function isNonNegative(x: number): boolean {
+  return x >= 0 && Number.isFinite(x);
+}
+
+function validCell(c: EngineCell): boolean {
+  return (
+    isPositive(c.capacitance) &&
+    isPositive(c.ratedVoltage) &&
+    isNonNegative(c.toleranceMinus) &&
+    c.toleranceMinus < 1 &&
+    isNonNegative(c.tolerancePlus) &&
+    isNonNegative(c.esr) &&
+    isNonNegative(c.leakageCurrent) &&
+    isNonNegative(c.mass) &&
+    isNonNegative(c.volume) &&
+    isNonNegative(c.unitCost) &&
+    Number.isFinite(c.surgeVoltage) &&
+    Number.isFinite(c.peakCurrent)
+  );
+}
+
+/** ceil that forgives floating-point noise just above an integer (48/2.4 = 20.000000000000004). */
+function ceilSafe(x: number): number {
+  return Math.ceil(x - 1e-9 * Math.max(1, Math.abs(x)));
+}
+
+function floorSafe(x: number): number {
+  return Math.floor(x + 1e-9 * Math.max(1, Math.abs(x)));
+}
+
+/**
+ * Requirement → buildable arrangements (DESIGN §3.2), ranked by estimated cost, with the Pareto
+ * flag over (cost, mass, volume) among every feasible candidate.
+ */
+export function searchArrangements(input: ArrangementSearchInput): ArrangementSearchResult {
+  const { requirement: req, cells, factors } = input;
+  const boards = input.balancingBoards ?? [];
+  const limit = Math.max(0, Math.floor(input.limit ?? 12));
+
+  const vMax = req.maxVoltage;
+  const vMin = req.minVoltage ?? 0;
+  if (!isPositive(vMax)) throw new RangeError('maxVoltage must be a positive number');
+  if (!(vMin >= 0 && vMin < vMax)) throw new RangeError('minVoltage must be at least 0 and below maxVoltage');
+  const dV2 = vMax * vMax - vMin * vMin;
+  const quantity = Math.max(1, Math.floor(req.quantity ?? 1));
+  const cReq = req.capacitance ?? 0;
+  const eReq = req.energy ?? 0;
+  const backupPower = req.backup?.power ?? 0;
+  const backupSeconds = req.backup?.seconds ?? 0;
+  const hasBackup = backupPower > 0 && backupSeconds > 0;
+  const peakI = req.peakCurrent?.current ?? 0;
+  const maxDrop = req.peakCurrent?.maxDrop ?? Infinity;
+  const maxMass = req.maxMass ?? Infinity;
+  const maxVolume = req.maxVolume ?? Infinity;
+  const m = factors.matchingTolerance;
+  const matchRatio = (1 - m) / (1 + m);
+  const derating = factors.voltageDerating > 0 ? factors.voltageDerating : 1;
+  const fade = factors.capacitanceFade;
+  const growth = factors.esrGrowth;
+
+  const tallies = new Map<Technology, TechnologyTally>();
+  for (const t of TECHNOLOGIES) {
+    tallies.set(t, { cells: 0, invalid: 0, surge: 0, board: 0, missRatio: Infinity, missDriver: 'none', missLimit: 'count' });
+  }
+
+  // Candidate store: one row per (cell, N_s, topology), structure of arrays, no per-candidate objects.
+  const capacity = cells.length * 4 + 4;
+  const cCell = new Int32Array(capacity);
+  const cNs = new Int32Array(capacity);
+  const cNp = new Int32Array(capacity);
+  const cTopo = new Uint8Array(capacity);
+  const cBoard = new Int32Array(capacity);
+  const cBoardCount = new Int32Array(capacity);
+  const cCost = new Float64Array(capacity);
+  const cMass = new Float64Array(capacity);
+  const cVolume = new Float64Array(capacity);
+  const cLead = new Float64Array(capacity);
+  let count = 0;
+
+  for (let ci = 0; ci < cells.length; ci++) {
+    const cell = cells[ci] as EngineCell;
+    if (req.technology !== undefined && cell.technology !== req.technology) continue;
+    const tally = tallies.get(cell.technology);
+    if (!tally) continue;
+    tally.cells++;
+    if (!validCell(cell)) {
+      tally.invalid++;
+      continue;
+    }
+    const cn = cell.capacitance;
+    const vr = cell.ratedVoltage;
+    const surge = Math.max(cell.surgeVoltage, vr);
+    const cd = cn * (1 - cell.toleranceMinus) * (1 - fade);
+    const esrEol = cell.esr * (1 + growth);
+    const nsBase = Math.max(1, ceilSafe(vMax / (derating * vr)));
+
+    for (let ns = nsBase; ns <= nsBase + 1; ns++) {
+      // worst-case transient cell voltage, one low cell among high ones
+      const vw = vMax / (1 + (ns - 1) * matchRatio);
+      if (vw > surge * (1 + 1e-12)) {
+        tally.surge++;
+        continue;
+      }
+      let board = -1;
+      let boardsPerString = 0;
+      if (vw > vr * (1 + 1e-12)) {
+        const vCell = vMax / ns;
+        let bestCost = Infinity;
+        for (let b = 0; b < boards.length; b++) {
+          const bd = boards[b] as BalancingBoard;
+          if (!(bd.channels >= 1) || bd.maxCellVoltage > vr || bd.maxCellVoltage < vCell) continue;
+          const per = Math.ceil(ns / Math.floor(bd.channels));
+          const cost = per * bd.unitCost;
+          if (cost < bestCost) {
+            bestCost = cost;
+            board = b;
+            boardsPerString = per;
+          }
+        }
+        if (board < 0) {
+          tally.board++;
+          continue;
+        }
+      }
+
+      // Lower bounds on N_p from closed forms; the largest one names the driving requirement.
+      let npNeed = 1;
+      let driver: Driver = 'none';
+      const consider = (bound: number, d: Driver): void => {
+        const n = ceilSafe(bound);
+        if (n > npNeed) {
+          npNeed = n;
+          driver = d;
+        }
+      };
+      if (cReq > 0) consider((cReq * ns) / cd, 'capacitance');
+      if (eReq > 0) consider((2 * eReq * ns) / (cd * dV2), 'energy');
+      // without ESR the constant-power backup lasts C·(V_max² − V_min²)/(2P): a lower bound
+      if (hasBackup) consider((2 * backupPower * backupSeconds * ns) / (cd * dV2), 'backup');
+      if (peakI > 0) {
+        consider((esrEol * ns * peakI) / maxDrop, 'esr');
+        consider(cell.peakCurrent > 0 ? peakI / cell.peakCurrent : Infinity, 'peak');
+      }
+
+      // Upper bounds on N_p from the mass, volume and cell-count limits.
+      let npMax = floorSafe(MAX_CELLS_PER_BANK / ns);
+      let limitBy: Limit = 'count';
+      if (Number.isFinite(maxMass) && cell.mass > 0) {
+        const n = floorSafe(maxMass / (ns * cell.mass));
+        if (n < npMax) {
+          npMax = n;
+          limitBy = 'mass';
+        }
+      }
+      if (Number.isFinite(maxVolume) && cell.volume > 0) {
+        const n = floorSafe(maxVolume / (ns * cell.volume));
+        if (n < npMax) {
+          npMax = n;
+          limitBy = 'volume';
+        }
+      }
+
+      if (!(npNeed <= npMax)) {
+        const ratio = npMax > 0 ? npNeed / npMax : Infinity;
+        if (ratio < tally.missRatio || tally.missDriver === 'none') {
+          tally.missRatio = ratio;
+          tally.missDriver = driver === 'none' ? 'capacitance' : driver;
+          tally.missLimit = limitBy;
+        }
+        continue;
+      }
+
+      let np = npNeed;
+      if (hasBackup) {
+        // With ESR the backup is shorter; the time rises with N_p: exponential then binary search.
+        const lasts = (n: number): number =>
+          constantPowerSeconds((n * cd) / ns, (esrEol * ns) / n, vMax, backupPower, vMin);
+        if (lasts(np) < backupSeconds) {
+          let lo = np; // fails
+          let step = 1;
+          let hi = -1;
+          while (true) {
+            const next = Math.min(lo + step, npMax);
+            if (lasts(next) >= backupSeconds) {
+              hi = next;
+              break;
+            }
+            if (next === npMax) break;
+            lo = next;
+            step *= 2;
+          }
+          if (hi < 0) {
+            const ratio = 1 + (backupSeconds - lasts(npMax)) / backupSeconds;
+            if (ratio < tally.missRatio || tally.missDriver === 'none') {
+              tally.missRatio = ratio;
+              tally.missDriver = 'backup';
+              tally.missLimit = limitBy;
+            }
+            continue;
+          }
+          while (hi - lo > 1) {
+            const mid = (lo + hi) >>> 1;
+            if (lasts(mid) >= backupSeconds) hi = mid;
+            else lo = mid;
+          }
+          np = hi;
+        }
+      }
+
+      const cellCount = ns * np;
+      const cellCost = cellCount * cell.unitCost;
+      const mass = cellCount * cell.mass;
+      const volume = cellCount * cell.volume;
+      const cellLead = cell.stock >= cellCount * quantity ? 0 : cell.leadTimeDays;
+      const bd = board >= 0 ? (boards[board] as BalancingBoard) : null;
+      const lead = bd ? Math.max(cellLead, bd.leadTimeDays) : cellLead;
+      // one topology when both are the same circuit (a single string or a single group)
+      const topologies = ns === 1 || np === 1 ? 1 : 2;
+      for (let t = 0; t < topologies; t++) {
+        const boardCount = bd ? (t === TOPO_STRINGS ? boardsPerString * np : boardsPerString) : 0;
+        cCell[count] = ci;
+        cNs[count] = ns;
+        cNp[count] = np;
+        cTopo[count] = t;
+        cBoard[count] = board;
+        cBoardCount[count] = boardCount;
+        cCost[count] = cellCost + (bd ? boardCount * bd.unitCost : 0);
+        cMass[count] = mass;
+        cVolume[count] = volume;
+        cLead[count] = lead;
+        count++;
+      }
+    }
+  }
+
+  // Best `limit` by (cost, mass, volume, lead time, sku, N_s, topology): a small sorted selection.
+  const compare = (a: number, b: number): number => {
+    const d =
+      (cCost[a] as number) - (cCost[b] as number) ||
+      (cMass[a] as number) - (cMass[b] as number) ||
+      (cVolume[a] as number) - (cVolume[b] as number) ||
+      (cLead[a] as number) - (cLead[b] as number);
+    if (d !== 0) return d;
+    const skuA = (cells[cCell[a] as number] as EngineCell).sku;
+    const skuB = (cells[cCell[b] as number] as EngineCell).sku;
+    if (skuA !== skuB) return skuA < skuB ? -1 : 1;
+    return (cNs[a] as number) - (cNs[b] as number) || (cTopo[a] as number) - (cTopo[b] as number) || a - b;
+  };
+  const best: number[] = [];
+  for (let i = 0; i < count && limit > 0; i++) {
+    if (best.length === limit && compare(i, best[limit - 1] as number) >= 0) continue;
+    let pos = best.length;
+    while (pos > 0 && compare(i, best[pos - 1] as number) < 0) pos--;
+    best.splice(pos, 0, i);
+    if (best.length > limit) best.pop();
+  }
+
+  const options = best.map((i) => {
+    // Pareto: no feasible candidate is at least as good in cost, mass and volume and better in one.
+    const cost = cCost[i] as number;
+    const mass = cMass[i] as number;
+    const volume = cVolume[i] as number;
+    let pareto = true;
+    for (let j = 0; j < count; j++) {
+      const cj = cCost[j] as number;
+      const mj = cMass[j] as number;
+      const vj = cVolume[j] as number;
+      if (cj <= cost && mj <= mass && vj <= volume && (cj < cost || mj < mass || vj < volume)) {
+        pareto = false;
+        break;
+      }
+    }
+    return buildOption({
+      cell: cells[cCell[i] as number] as EngineCell,
+      topology: TOPOLOGIES[cTopo[i] as number] as Topology,
+      ns: cNs[i] as number,
+      np: cNp[i] as number,
+      longerLife: (cNs[i] as number) > Math.max(1, ceilSafe(vMax / (derating * (cells[cCell[i] as number] as EngineCell).ratedVoltage))),
+      board: (cBoard[i] as number) >= 0 ? (boards[cBoard[i] as number] as BalancingBoard) : null,
+      boardCount: cBoardCount[i] as number,
+      cost,
+      lead: cLead[i] as number,
+      pareto,
+      req,
+      factors,
+      quantity,
+    });
+  });
+
+  const reasons: string[] = [];
+  if (options.length === 0) {
+    const families = req.technology ? [req.technology] : TECHNOLOGIES;
+    for (const tech of families) {
+      reasons.push(reasonFor(tech, tallies.get(tech) as TechnologyTally, req));
+    }
+  }
+  return { options, reasons };
+}
+
+function fmt(value: number, unit: string): string {
+  return formatQuantity(value, unit);
+}
+
+function reasonFor(tech: Technology, tally: TechnologyTally, req: Requirement): string {
+  if (tally.cells === 0) return `${tech}: no ${tech} cells in the catalog`;
+  if (tally.invalid === tally.cells) return `${tech}: no cell has complete electrical data`;
+  if (tally.missDriver !== 'none') {
+    let need: string;
+    switch (tally.missDriver) {
+      case 'capacitance':
+        need = `${fmt(req.capacitance ?? 0, 'F')}`;
+        break;
+      case 'energy':
+        need = `${fmt(req.energy ?? 0, 'J')} usable`;
+        break;
+      case 'backup':
+        need = `a ${fmt(req.backup?.power ?? 0, 'W')} backup for ${fmt(req.backup?.seconds ?? 0, 's')}`;
+        break;
+      case 'esr':
+        need = `a drop of at most ${fmt(req.peakCurrent?.maxDrop ?? 0, 'V')} at ${fmt(req.peakCurrent?.current ?? 0, 'A')}`;
+        break;
+      default:
+        need = `${fmt(req.peakCurrent?.current ?? 0, 'A')} peak current`;
+    }
+    const within =
+      tally.missLimit === 'mass'
+        ? fmt(req.maxMass ?? 0, 'kg')
+        : tally.missLimit === 'volume'
+          ? fmt(req.maxVolume ?? 0, 'm³')
+          : `${MAX_CELLS_PER_BANK} cells`;
+    return `${tech}: no cell reaches ${need} within ${within}`;
+  }
+  if (tally.board > 0) {
+    return `${tech}: at ${fmt(req.maxVoltage, 'V')} the cells need active balancing and no balancing board in the catalog clamps them`;
+  }
+  if (tally.surge > 0) {
+    return `${tech}: at ${fmt(req.maxVoltage, 'V')} the worst-case charging voltage exceeds every cell's surge rating`;
+  }
+  return `${tech}: no cell fits`;
+}
+
+function buildOption(a: {
+  cell: EngineCell;
+  topology: Topology;
+  ns: number;
+  np: number;
+  longerLife: boolean;
+  board: BalancingBoard | null;
+  boardCount: number;
+  cost: number;
+  lead: number;
+  pareto: boolean;
+  req: Requirement;
+  factors: DesignFactors;
+  quantity: number;
+}): ArrangementOption {
+  const { cell, ns, np, req, factors } = a;
+  const vMax = req.maxVoltage;
+  const vMin = req.minVoltage ?? 0;
+  const cellCount = ns * np;
+  const cd = cell.capacitance * (1 - cell.toleranceMinus) * (1 - factors.capacitanceFade);
+  const cNominal = (np * cell.capacitance) / ns;
+  const cDesign = (np * cd) / ns;
+  const esrNew = (cell.esr * ns) / np;
+  const esrEol = esrNew * (1 + factors.esrGrowth);
+  const m = factors.matchingTolerance;
+  const worstCellVoltage = vMax / (1 + (ns - 1) * ((1 - m) / (1 + m)));
+  const storedEnergy = 0.5 * cNominal * vMax * vMax;
+
+  const balancing = sizeBalancing({
+    topology: a.topology,
+    maxVoltage: vMax,
+    seriesCount: ns,
+    parallelCount: np,
+    cellCapacitance: cell.capacitance,
+    leakageCurrent: cell.leakageCurrent,
+    balancingFactor: factors.balancingFactor,
+    resistorSeries: factors.resistorSeries,
+  });
+  const discharge = sizeBleeder({
+    capacitance: cNominal * (1 + cell.tolerancePlus),
+    maxVoltage: vMax,
+    chainResistance: balancing.chainResistance,
+    safeVoltage: factors.safeVoltage,
+    safeTime: factors.safeTime,
+    resistorSeries: factors.resistorSeries,
+  });
+
+  const warnings: string[] = [];
+  const needed = cellCount * a.quantity;
+  if (cell.stock < needed) {
+    warnings.push(
+      `Stock covers ${Math.max(0, cell.stock)} of the ${needed} cells needed for ${a.quantity} bank${a.quantity === 1 ? '' : 's'}; the rest take ${cell.leadTimeDays} days.`,
+    );
+  }
+  if (a.lead > LONG_LEAD_TIME_DAYS) warnings.push(`Long lead time: ${a.lead} days.`);
+  if (a.board) {
+    warnings.push(
+      `Balancing needed: while charging a cell can reach ${fmt(worstCellVoltage, 'V')}, above its ${fmt(cell.ratedVoltage, 'V')} rating; ${a.boardCount} active balancing board${a.boardCount === 1 ? '' : 's'} ${a.board.sku} clamp each cell at ${fmt(a.board.maxCellVoltage, 'V')}.`,
+    );
+  }
+  if (balancing.count > 0 && balancing.powerRating === null) {
+    warnings.push(`Each balancing resistor dissipates ${fmt(balancing.power, 'W')}, beyond standard resistor ratings.`);
+  }
+  if (discharge.bleeder?.switched) {
+    warnings.push(
+      `A continuous bleeder would dissipate ${fmt(discharge.bleeder.power, 'W')}: a switched discharge circuit is needed instead.`,
+    );
+  }
+
+  let backupSeconds: number | undefined;
+  if (req.backup && req.backup.power > 0) {
+    backupSeconds = constantPowerSeconds(cDesign, esrEol, vMax, req.backup.power, vMin);
+    // current at the end of the backup, per string of cells
+    const vEnd = Math.max(vMin, Math.sqrt(req.backup.power * esrEol));
+    const perCell = vEnd > 0 ? req.backup.power / vEnd / np : Infinity;
+    if (!Number.isFinite(perCell)) {
+      warnings.push('A constant-power backup down to 0 V draws unbounded current: state a minimum voltage.');
+    } else if (cell.continuousCurrent > 0 && perCell > cell.continuousCurrent) {
+      warnings.push(
+        `Backup current reaches ${fmt(perCell, 'A')} per cell, above the ${fmt(cell.continuousCurrent, 'A')} continuous rating.`,
+      );
+    }
+  }
+
+  const cautions: string[] = [];
+  if (vMax > factors.safeVoltage) {
+    cautions.push(`Shock hazard: the bank works at up to ${fmt(vMax, 'V')}, above the ${fmt(factors.safeVoltage, 'V')} safe voltage.`);
+  }
+  if (storedEnergy > HIGH_ENERGY_CAUTION_J) {
+    cautions.push(`Burn and arc hazard: the bank stores about ${fmt(storedEnergy, 'J')} at ${fmt(vMax, 'V')}.`);
+  }
+  cautions.push(
+    'A charged bank keeps its energy after the supply is removed: discharge it and short its terminals before handling.',
+    'Ship discharged, with a shorting link fitted across the terminals.',
+    'These figures are an engineering estimate; local electrical codes and licensed practice decide.',
+  );
+
+  const option: ArrangementOption = {
+    cell: {
+      sku: cell.sku,
+      technology: cell.technology,
+      capacitance: cell.capacitance,
+      toleranceMinus: cell.toleranceMinus,
+      tolerancePlus: cell.tolerancePlus,
+      ratedVoltage: cell.ratedVoltage,
+      surgeVoltage: cell.surgeVoltage,
+      esr: cell.esr,
+      leakageCurrent: cell.leakageCurrent,
+      peakCurrent: cell.peakCurrent,
+      mass: cell.mass,
+      volume: cell.volume,
+    },
+    cellId: cell.id,
+    topology: a.topology,
+    seriesCount: ns,
+    parallelCount: np,
+    cellCount,
+    longerLife: a.longerLife,
+    capacitance: { nominal: cNominal, design: cDesign },
+    maxVoltage: ns * cell.ratedVoltage,
+    storedEnergy,
+    usableEnergy: 0.5 * cDesign * (vMax * vMax - vMin * vMin),
+    esr: { new: esrNew, endOfLife: esrEol },
+    peakDrop: req.peakCurrent ? req.peakCurrent.current * esrEol : null,
+    mass: cellCount * cell.mass,
+    volume: cellCount * cell.volume,
+    worstCellVoltage,
+    balancing: {
+      resistance: balancing.resistance,
+      power: balancing.power,
+      powerRating: balancing.powerRating,
+      count: balancing.count,
+      standbyLoss: balancing.standbyLoss,
+      timeConstant: balancing.timeConstant,
+      activeBoard: a.board ? { sku: a.board.sku, count: a.boardCount } : null,
+    },
+    discharge: {
+      secondsToSafe: discharge.secondsToSafe,
+      bleeder: discharge.bleeder,
+    },
+    costEstimate: a.cost,
+    leadTimeDays: a.lead,
+    pareto: a.pareto,
+    warnings,
+    cautions,
+  };
+  if (backupSeconds !== undefined) option.backupSeconds = backupSeconds;
+  return option;
+}

@@ -1,0 +1,6 @@
+export * from './types';
+export * from './network';
+export * from './discharge';
+export * from './preferred-values';
+export * from './balancing';
+export * from './arrangements';

@@ -1,0 +1,119 @@
+/** Engine types. Physics in SI units as plain numbers (F, V, Ω, A, J, W, s, kg, m³). */
+
+export type Technology = 'edlc' | 'hybrid' | 'electrolytic' | 'film';
+
+export const TECHNOLOGIES: readonly Technology[] = ['edlc', 'hybrid', 'electrolytic', 'film'];
+
+export type NetworkNode =
+  | { kind: 'cell'; id: string; capacitance: number; ratedVoltage: number; esr?: number; leakage?: number }
+  | { kind: 'series' | 'parallel'; children: NetworkNode[] };
+
+/** A catalog cell as the engine sees it. */
+export interface EngineCell {
+  id: string;
+  sku: string;
+  technology: Technology;
+  capacitance: number;
+  /** fractions (0.1 = 10 %) */
+  toleranceMinus: number;
+  tolerancePlus: number;
+  ratedVoltage: number;
+  surgeVoltage: number;
+  esr: number;
+  leakageCurrent: number;
+  continuousCurrent: number;
+  peakCurrent: number;
+  /** kg */
+  mass: number;
+  /** m³ */
+  volume: number;
+  /** float, ONLY for ranking and estimates; exact money is priced by the caller */
+  unitCost: number;
+  stock: number;
+  leadTimeDays: number;
+}
+
+/** Active balancing board: clamps each channel (one series position) at or below maxCellVoltage. */
+export interface BalancingBoard {
+  id: string;
+  sku: string;
+  channels: number;
+  maxCellVoltage: number;
+  unitCost: number;
+  leadTimeDays: number;
+}
+
+export type ResistorSeries = 'E12' | 'E24' | 'E48' | 'E96';
+
+export interface DesignFactors {
+  /** end-of-life capacitance fade f_C (fraction) */
+  capacitanceFade: number;
+  /** end-of-life ESR growth g (fraction: 1.0 = +100 %) */
+  esrGrowth: number;
+  /** cell voltage derating d (≤ 1) */
+  voltageDerating: number;
+  /** cell matching tolerance m after incoming grading (fraction) */
+  matchingTolerance: number;
+  /** balancing factor k: balancing current ≥ k × leakage */
+  balancingFactor: number;
+  resistorSeries: ResistorSeries;
+  /** V_safe */
+  safeVoltage: number;
+  /** t_safe (s) */
+  safeTime: number;
+}
+
+export const DEFAULT_DESIGN_FACTORS: DesignFactors = {
+  capacitanceFade: 0.2,
+  esrGrowth: 1.0,
+  voltageDerating: 1.0,
+  matchingTolerance: 0.05,
+  balancingFactor: 10,
+  resistorSeries: 'E24',
+  safeVoltage: 60,
+  safeTime: 5,
+};
+
+export interface Requirement {
+  maxVoltage: number;
+  minVoltage?: number;
+  capacitance?: number;
+  /** usable energy between maxVoltage and minVoltage (J) */
+  energy?: number;
+  /** constant-power backup: power (W) for seconds down to minVoltage */
+  backup?: { power: number; seconds: number };
+  /** peak current (A) with the allowed voltage drop (V) */
+  peakCurrent?: { current: number; maxDrop: number };
+  maxMass?: number;
+  maxVolume?: number;
+  quantity?: number;
+  technology?: Technology;
+}
+
+export type Topology = 'series-of-parallel-groups' | 'parallel-of-series-strings';
+
+/**
+ * Bounding-box volume of a cell in m³. Cylinders pack on a square grid, so each takes d²·h
+ * (common practice for bank layout estimates).
+ */
+export function cellVolume(input: {
+  shape: 'cylinder' | 'box';
+  diameterMm?: number;
+  lengthMm?: number;
+  widthMm?: number;
+  heightMm: number;
+}): number {
+  const mm3ToM3 = 1e-9;
+  if (input.shape === 'cylinder') {
+    const d = input.diameterMm;
+    if (d === undefined || !(d > 0) || !(input.heightMm > 0)) {
+      throw new RangeError('a cylinder needs a positive diameter and height');
+    }
+    return d * d * input.heightMm * mm3ToM3;
+  }
+  const { lengthMm: l, widthMm: w, heightMm: h } = input;
+  if (l === undefined || w === undefined || !(l > 0) || !(w > 0) || !(h > 0)) {
+    throw new RangeError('a box needs a positive length, width and height');
+  }
+  return l * w * h * mm3ToM3;
+}

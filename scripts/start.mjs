@@ -1,0 +1,74 @@
+// `npm start`: installs what is missing, starts PostgreSQL and the mail stand-in on loopback,
+// migrates, loads the demo data into an empty database, builds and serves the app on
+// http://127.0.0.1:3000. `npm run dev` does the same with hot reload instead of a build.
+// Ctrl-C stops everything this command started.
+import { spawnSync } from "node:child_process";
+import path from "node:path";
+import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, root, spawnService, startMaildev, stopAll, waitForPort } from "./services.mjs";
+
+const dev = process.argv.includes("--dev");
+const PORT = Number(process.env.PORT ?? 3000);
+const PG_PORT = 54329;
+const SMTP_PORT = 1025;
+const INBOX_PORT = 1080;
+
+ensureDebianPackages(["postgresql"]);
+ensureNpmPackages();
+
+const pg = await ensurePostgres({ name: "pg", port: PG_PORT });
+const databaseUrl = await pg.ensureDatabase("faradsmith");
+const appUrl = `http://127.0.0.1:${PORT}`;
+const env = {
+  ...process.env,
+  DATABASE_URL: databaseUrl,
+  APP_URL: appUrl,
+  BETTER_AUTH_URL: appUrl,
+  SMTP_HOST: "127.0.0.1",
+  SMTP_PORT: String(SMTP_PORT),
+  MAIL_INBOX_URL: `http://127.0.0.1:${INBOX_PORT}`,
+  NEXT_TELEMETRY_DISABLED: "1",
+};
+
+let shuttingDown = false;
+function shutdown(code = 0) {
+  if (shuttingDown) return;
+  shuttingDown = true;
+  log("stopping");
+  stopAll();
+  setTimeout(() => {
+    pg.stop();
+    process.exit(code);
+  }, 500);
+}
+process.on("SIGINT", () => shutdown(0));
+process.on("SIGTERM", () => shutdown(0));
+
+const bin = (name) => path.join(root, "node_modules", ".bin", name);
+const step = (label, cmd, args) => {
+  log(label);
+  const r = spawnSync(cmd, args, { cwd: root, env, stdio: "inherit" });
+  if (r.status !== 0) {
+    log(`${label} failed`);
+    shutdown(1);
+    return false;
+  }
+  return true;
+};
+
+if (step("applying migrations and demo data", bin("tsx"), ["scripts/db.ts", "setup"])) {
+  await startMaildev({ smtpPort: SMTP_PORT, webPort: INBOX_PORT, name: "maildev" });
+  if (dev) {
+    spawnService("next dev", bin("next"), ["dev", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
+  } else if (step("building the app", bin("next"), ["build"])) {
+    spawnService("next start", bin("next"), ["start", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
+  }
+  if (!shuttingDown) {
+    await waitForPort(PORT, "the app", 180_000);
+    const { demoSignIns } = await import("./demo-sign-ins.mjs");
+    log(`Faradsmith is running at ${appUrl}`);
+    log(`mail inbox (local stand-in): http://127.0.0.1:${INBOX_PORT}`);
+    log("demo sign-ins (password for all: see README):");
+    for (const line of demoSignIns()) log(`  ${line}`);
+    log("press Ctrl-C to stop");
+  }
+}

@@ -1,0 +1,119 @@
+// `npm test`: sets up what the tests need (Debian postgresql, chromium, ngspice; npm packages;
+// a test PostgreSQL cluster and database; the mail stand-in), then runs typecheck, lint, unit,
+// integration and browser tests. Its last line is the total over all layers: `N passed, N failed`.
+import { spawnSync } from "node:child_process";
+import fs from "node:fs";
+import path from "node:path";
+import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, root, startMaildev, stopAll } from "./services.mjs";
+
+const PG_PORT = 54339;
+const SMTP_PORT = 1125;
+const INBOX_PORT = 1180;
+const APP_PORT = 3100;
+const only = process.argv.slice(2); // e.g. `npm test -- unit integration`
+const wants = (layer) => only.length === 0 || only.includes(layer);
+
+const started = Date.now();
+ensureDebianPackages(["postgresql", "chromium", "ngspice", "poppler-utils"]);
+ensureNpmPackages();
+
+const out = path.join(root, ".data", "test-results");
+fs.mkdirSync(out, { recursive: true });
+
+const pg = await ensurePostgres({ name: "pg-test", port: PG_PORT, fast: true });
+const databaseUrl = await pg.ensureDatabase("faradsmith_test", { recreate: true });
+const appUrl = `http://127.0.0.1:${APP_PORT}`;
+const env = {
+  ...process.env,
+  NODE_ENV: undefined,
+  DATABASE_URL: databaseUrl,
+  APP_URL: appUrl,
+  BETTER_AUTH_URL: appUrl,
+  APP_PORT: String(APP_PORT),
+  SMTP_HOST: "127.0.0.1",
+  SMTP_PORT: String(SMTP_PORT),
+  MAIL_INBOX_URL: `http://127.0.0.1:${INBOX_PORT}`,
+  AUTH_RATE_LIMIT_MAX: "1000",
+  API_RATE_LIMIT_PER_MINUTE: "100000",
+  UPLOAD_DIR: path.join(".data", "uploads-test"),
+  NEXT_TELEMETRY_DISABLED: "1",
+  FORCE_COLOR: "0",
+};
+delete env.NODE_ENV;
+
+let passed = 0;
+let failed = 0;
+const summary = [];
+const bin = (name) => path.join(root, "node_modules", ".bin", name);
+function run(label, cmd, args, extraEnv = {}) {
+  log(`— ${label}`);
+  const t0 = Date.now();
+  const r = spawnSync(cmd, args, { cwd: root, env: { ...env, ...extraEnv }, stdio: "inherit" });
+  const seconds = ((Date.now() - t0) / 1000).toFixed(1);
+  return { ok: r.status === 0, seconds };
+}
+function check(label, cmd, args) {
+  const r = run(label, cmd, args);
+  if (r.ok) passed += 1;
+  else failed += 1;
+  summary.push(`${label}: ${r.ok ? "ok" : "FAILED"} (${r.seconds} s)`);
+}
+function readJson(file) {
+  try {
+    return JSON.parse(fs.readFileSync(file, "utf8"));
+  } catch {
+    return null;
+  }
+}
+
+try {
+  const setup = run("migrations and demo data", bin("tsx"), ["scripts/db.ts", "setup"]);
+  if (!setup.ok) {
+    failed += 1;
+    summary.push("database set-up: FAILED");
+  }
+  await startMaildev({ smtpPort: SMTP_PORT, webPort: INBOX_PORT, name: "maildev-test" });
+
+  if (wants("typecheck")) check("typecheck", bin("tsc"), ["--noEmit", "-p", "."]);
+  if (wants("lint")) check("lint", bin("eslint"), [".", "--max-warnings=0"]);
+
+  for (const project of ["unit", "integration"]) {
+    if (!wants(project)) continue;
+    const file = path.join(out, `vitest-${project}.json`);
+    fs.rmSync(file, { force: true });
+    const r = run(`${project} tests`, bin("vitest"), ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${file}`]);
+    const j = readJson(file);
+    const p = j?.numPassedTests ?? 0;
+    // A file that fails to load has no failed test but fails the run: count it as one failure.
+    const f = (j?.numFailedTests ?? 0) + (j == null || (!r.ok && (j?.numFailedTests ?? 0) === 0) ? 1 : 0);
+    passed += p;
+    failed += f;
+    summary.push(`${project}: ${p} passed, ${f} failed (${r.seconds} s)`);
+  }
+
+  if (wants("e2e")) {
+    const build = run("building the app for browser tests", bin("next"), ["build"]);
+    if (!build.ok) {
+      failed += 1;
+      summary.push(`next build: FAILED (${build.seconds} s)`);
+    } else {
+      const file = path.join(out, "playwright.json");
+      fs.rmSync(file, { force: true });
+      const r = run("browser tests", bin("playwright"), ["test", "--reporter=list,json"], { PLAYWRIGHT_JSON_OUTPUT_NAME: file });
+      const j = readJson(file);
+      const p = (j?.stats?.expected ?? 0) + (j?.stats?.flaky ?? 0);
+      const f = (j?.stats?.unexpected ?? 0) + (j == null || (!r.ok && (j?.stats?.unexpected ?? 0) === 0) ? 1 : 0);
+      passed += p;
+      failed += f;
+      summary.push(`browser: ${p} passed, ${f} failed (${r.seconds} s, build ${build.seconds} s)`);
+    }
+  }
+} finally {
+  stopAll();
+  pg.stop();
+}
+
+log(`summary after ${((Date.now() - started) / 1000).toFixed(0)} s:`);
+for (const line of summary) log(`  ${line}`);
+console.log(`${passed} passed, ${failed} failed`);
+process.exit(failed > 0 || passed === 0 ? 1 : 0);
