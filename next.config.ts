@@ -2,6 +2,8 @@ import type { NextConfig } from "next";
 
 const nextConfig: NextConfig = {
   poweredByHeader: false,
+  // `npm test` typechecks the whole project as its own step; the build need not do it again.
+  typescript: { ignoreBuildErrors: true },
   serverExternalPackages: ["pg", "pg-boss", "nodemailer"],
   experimental: {
     serverActions: { bodySizeLimit: "12mb" },

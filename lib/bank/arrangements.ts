@@ -98,8 +98,7 @@ export interface ArrangementSearchResult {
   reasons: string[];
 }
 
-const TOPO_GROUPS = 0;
-const TOPO_STRINGS = 1;
+const TOPO_STRINGS = 1; // index in TOPOLOGIES (0 is series-of-parallel-groups)
 const TOPOLOGIES: readonly Topology[] = ['series-of-parallel-groups', 'parallel-of-series-strings'];
 
 type Driver = 'capacitance' | 'energy' | 'backup' | 'esr' | 'peak' | 'none';

@@ -171,7 +171,8 @@ describe('searchArrangements: warnings, cautions and reasons', () => {
     });
     expect(options).toEqual([]);
     expect(reasons).toContain('film: no cell reaches 20 kJ usable within 50 kg');
-    expect(reasons).toContain('edlc: no cell reaches 20 kJ usable within 50 kg');
+    // 260 EDLC cells in series: with 5 % matching the worst-case cell reaches 2.97 V, above its 2.85 V surge
+    expect(reasons).toContain("edlc: at 700 V the worst-case charging voltage exceeds every cell's surge rating");
     expect(reasons).toContain('electrolytic: no electrolytic cells in the catalog');
   });
 
@@ -216,7 +217,7 @@ const arbCell: fc.Arbitrary<EngineCell> = fc
     unitCost: fc.double({ min: 0.1, max: 100, noNaN: true }),
     stock: fc.integer({ min: 0, max: 1000 }),
   })
-  .map((c, ) => ({
+  .map((c) => ({
     id: `cell-${Math.round(c.capacitance * 1e6)}-${Math.round(c.ratedVoltage * 100)}`,
     sku: `TS-${Math.round(c.capacitance * 1e3)}-${Math.round(c.ratedVoltage * 10)}`,
     technology: c.technology,
@@ -239,7 +240,8 @@ const arbCell: fc.Arbitrary<EngineCell> = fc
 const arbRequirement: fc.Arbitrary<Requirement> = fc
   .record({
     maxVoltage: fc.double({ min: 3, max: 800, noNaN: true }),
-    minFraction: fc.double({ min: 0, max: 0.8, noNaN: true }),
+    // V_min ≥ 0.1·V_max keeps the RK4 reference away from the singular end at V → 0
+    minFraction: fc.double({ min: 0.1, max: 0.8, noNaN: true }),
     capacitance: fc.option(fc.double({ min: 1e-4, max: 500, noNaN: true }), { nil: undefined }),
     energy: fc.option(fc.double({ min: 1, max: 1e5, noNaN: true }), { nil: undefined }),
     backup: fc.option(fc.record({ power: fc.double({ min: 1, max: 2e4, noNaN: true }), seconds: fc.double({ min: 0.1, max: 60, noNaN: true }) }), {
@@ -256,7 +258,7 @@ const arbRequirement: fc.Arbitrary<Requirement> = fc
   .map(({ minFraction, ...r }) => {
     const out: Requirement = { maxVoltage: r.maxVoltage, minVoltage: r.maxVoltage * minFraction };
     for (const key of ['capacitance', 'energy', 'backup', 'peakCurrent', 'maxMass', 'maxVolume', 'technology'] as const) {
-      if (r[key] !== undefined) (out as Record<string, unknown>)[key] = r[key];
+      if (r[key] !== undefined) (out as unknown as Record<string, unknown>)[key] = r[key];
     }
     return out;
   });
@@ -340,7 +342,7 @@ describe('searchArrangements properties (fast-check)', () => {
             const { power, seconds } = req.backup;
             // independent RK4 integration (see discharge.test.ts), 1e-3 tolerance either way
             backupMet = (n, slack) => {
-              const t = rk4ConstantPower(cDesign(n), esrEol(n), req.maxVoltage, power, vMin, seconds / 4000);
+              const t = rk4ConstantPower(cDesign(n), esrEol(n), req.maxVoltage, power, vMin, seconds / 4000, 2 * seconds);
               return t >= seconds * slack;
             };
             expect(backupMet(np, 1 - 1e-3)).toBe(true);
@@ -349,7 +351,7 @@ describe('searchArrangements properties (fast-check)', () => {
           if (np > 1) expect(meets(o, np - 1, req, factors, cell) && backupMet(np - 1, 1 + 1e-3)).toBe(false);
         }
       }),
-      { numRuns: 150 },
+      { numRuns: 400 },
     );
   });
 });

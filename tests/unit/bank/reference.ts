@@ -1,14 +1,15 @@
 /** Test helper: independent numerical references for the engine's closed forms. */
 
 /** Independent RK4 integration of dV_C/dt = −I(V_C)/C under constant power, I from P = (V_C − I·R)·I. */
-export function rk4ConstantPower(c: number, r: number, v0: number, power: number, vEnd: number, dt: number): number {
+/** Returns the time to vEnd, or tMax when the bank lasts at least that long. */
+export function rk4ConstantPower(c: number, r: number, v0: number, power: number, vEnd: number, dt: number, tMax = Infinity): number {
   const current = (vc: number): number => (r === 0 ? power / vc : (vc - Math.sqrt(vc * vc - 4 * power * r)) / (2 * r));
   const terminal = (vc: number): number => vc - current(vc) * r;
   const canDeliver = (vc: number): boolean => vc * vc >= 4 * power * r;
   let vc = v0;
   let t = 0;
   const f = (v: number): number => -current(v) / c;
-  while (true) {
+  while (t < tMax) {
     const k1 = f(vc);
     const v2 = vc + (dt / 2) * k1;
     const v3Ok = canDeliver(v2);

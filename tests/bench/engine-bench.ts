@@ -1,0 +1,99 @@
+/**
+ * Engine benchmark: network evaluation of 10,000 cells and an arrangement search over a generated
+ * catalog of 10,000 invented cells with a constant-power backup requirement.
+ * Run: npx tsx tests/bench/engine-bench.ts
+ */
+import { DEFAULT_DESIGN_FACTORS, evaluateNetwork, searchArrangements, type NetworkNode } from '../../lib/bank';
+import { generateCatalog } from '../unit/bank/catalog-fixture';
+
+const EVALUATION_TARGET_MS = 5;
+const SEARCH_MEDIAN_TARGET_MS = 25;
+
+function stats(samples: number[]): { median: number; p95: number } {
+  const s = [...samples].sort((a, b) => a - b);
+  const at = (q: number): number => s[Math.min(s.length - 1, Math.floor(q * s.length))] as number;
+  return { median: at(0.5), p95: at(0.95) };
+}
+
+function time(fn: () => unknown, runs: number, warmup: number): number[] {
+  for (let i = 0; i < warmup; i++) fn();
+  const out: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    fn();
+    out.push(performance.now() - t0);
+  }
+  return out;
+}
+
+function stringsOfCells(strings: number, perString: number): NetworkNode {
+  return {
+    kind: 'parallel',
+    children: Array.from({ length: strings }, (_, s) => ({
+      kind: 'series' as const,
+      children: Array.from({ length: perString }, (_, i) => ({
+        kind: 'cell' as const,
+        id: `s${s}-c${i}`,
+        capacitance: 350 * (1 + 0.01 * Math.sin(s * 131 + i)),
+        ratedVoltage: 2.7,
+        esr: 0.0032,
+      })),
+    })),
+  };
+}
+
+function groupsInSeries(groups: number, perGroup: number): NetworkNode {
+  return {
+    kind: 'series',
+    children: Array.from({ length: groups }, (_, g) => ({
+      kind: 'parallel' as const,
+      children: Array.from({ length: perGroup }, (_, i) => ({
+        kind: 'cell' as const,
+        id: `g${g}-c${i}`,
+        capacitance: 350 * (1 + 0.01 * Math.cos(g * 17 + i)),
+        ratedVoltage: 2.7,
+        esr: 0.0032,
+      })),
+    })),
+  };
+}
+
+const ms = (x: number): string => x.toFixed(3);
+
+export async function runEngineBench(): Promise<string[]> {
+  const lines: string[] = [];
+  const runs = 50;
+
+  for (const [name, tree] of [
+    ['100 strings of 100 cells in series, in parallel', stringsOfCells(100, 100)],
+    ['100 groups of 100 parallel cells, in series', groupsInSeries(100, 100)],
+  ] as const) {
+    const s = stats(time(() => evaluateNetwork(tree), runs, 20));
+    lines.push(
+      `evaluateNetwork, 10,000 cells (${name}): median ${ms(s.median)} ms, p95 ${ms(s.p95)} ms — target < ${EVALUATION_TARGET_MS} ms: ${s.median < EVALUATION_TARGET_MS ? 'holds' : 'MISSED'}`,
+    );
+  }
+
+  const cells = generateCatalog(10_000, 42);
+  const requirement = { maxVoltage: 48, minVoltage: 24, backup: { power: 5000, seconds: 10 }, peakCurrent: { current: 400, maxDrop: 4 } };
+  let optionCount = 0;
+  const s = stats(
+    time(
+      () => {
+        optionCount = searchArrangements({ requirement, cells, factors: DEFAULT_DESIGN_FACTORS, limit: 12 }).options.length;
+      },
+      runs,
+      10,
+    ),
+  );
+  lines.push(
+    `searchArrangements, 10,000-cell catalog, 48 V → 24 V, 5 kW for 10 s backup (${optionCount} options): median ${ms(s.median)} ms, p95 ${ms(s.p95)} ms — target median < ${SEARCH_MEDIAN_TARGET_MS} ms: ${s.median < SEARCH_MEDIAN_TARGET_MS ? 'holds' : 'MISSED'}`,
+  );
+  return lines;
+}
+
+if (process.argv[1]?.replace(/\\/g, '/').endsWith('tests/bench/engine-bench.ts')) {
+  void runEngineBench().then((lines) => {
+    for (const line of lines) console.log(line);
+  });
+}
