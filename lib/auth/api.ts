@@ -1,10 +1,9 @@
 import "server-only";
+import { jsonError } from "@/lib/http/json-error";
 import { can, type Permission } from "./permissions";
 import { resolveShopContext, type ShopContext } from "./context";
 
-export function jsonError(status: number, error: string, issues?: { path: string; message: string }[]) {
-  return Response.json(issues ? { error, issues } : { error }, { status });
-}
+export { jsonError };
 
 /**
  * For route handlers: resolves the shop context from the request itself and answers 404 (no such

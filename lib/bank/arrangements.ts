@@ -75,7 +75,7 @@ export interface ArrangementOption {
   };
   /** constant-power backup time with design capacitance and end-of-life ESR (s) */
   backupSeconds?: number;
-  /** cells·unitCost + boards·unitCost per bank: for ranking only, the caller prices exactly */
+  /** cells·unitCost + boards·unitCost (+ the cost model) per bank: for ranking only, the caller prices exactly */
   costEstimate: number;
   leadTimeDays: number;
   pareto: boolean;
@@ -90,6 +90,11 @@ export interface ArrangementSearchInput {
   balancingBoards?: BalancingBoard[];
   /** default 12 */
   limit?: number;
+  /**
+   * Float costs per cell (interconnect, assembly labour), per bank (setup, test, terminals) and per
+   * balancing resistor, so that ranking follows the shop's price closely; exact money stays with the caller.
+   */
+  costModel?: { perCell: number; perBank: number; perBalancingResistor: number };
 }
 
 export interface ArrangementSearchResult {
@@ -157,6 +162,9 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const { requirement: req, cells, factors } = input;
   const boards = input.balancingBoards ?? [];
   const limit = Math.max(0, Math.floor(input.limit ?? 12));
+  const perCellCost = input.costModel?.perCell ?? 0;
+  const perBankCost = input.costModel?.perBank ?? 0;
+  const perResistorCost = input.costModel?.perBalancingResistor ?? 0;
 
   const vMax = req.maxVoltage;
   const vMin = req.minVoltage ?? 0;
@@ -345,7 +353,8 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
         cTopo[count] = t;
         cBoard[count] = board;
         cBoardCount[count] = boardCount;
-        cCost[count] = cellCost + (bd ? boardCount * bd.unitCost : 0);
+        const resistors = bd ? 0 : t === TOPO_STRINGS ? cellCount : ns;
+        cCost[count] = cellCost + (bd ? boardCount * bd.unitCost : 0) + cellCount * perCellCost + perBankCost + resistors * perResistorCost;
         cMass[count] = mass;
         cVolume[count] = volume;
         cLead[count] = lead;

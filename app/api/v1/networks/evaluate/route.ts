@@ -1,0 +1,30 @@
+import { jsonError } from "@/lib/http/json-error";
+import { evaluateNetwork } from "@/lib/bank";
+import { readJsonBody } from "@/lib/http/read-json";
+import { parseEvaluateRequest } from "@/lib/validation/bank";
+
+/**
+ * POST /api/v1/networks/evaluate — public. Body `{ appliedVoltage?, network }` (DESIGN.md §3.1);
+ * answer `{ capacitance, esr?, maxVoltage, energy, charge, cells }`. Any bad input is a 400 with
+ * `{ error, issues: [{ path, message }] }`; depth, cell count and body size are bounded.
+ */
+export async function POST(request: Request) {
+  const body = await readJsonBody(request);
+  if (!body.ok) return body.response;
+  const parsed = parseEvaluateRequest(body.value);
+  if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
+  try {
+    const r = evaluateNetwork(parsed.data.network, parsed.data.appliedVoltage);
+    return Response.json({
+      capacitance: r.capacitance,
+      ...(r.esr !== undefined ? { esr: r.esr } : {}),
+      maxVoltage: r.maxVoltage,
+      energy: r.energy,
+      charge: r.charge,
+      cells: r.cells,
+    });
+  } catch (error) {
+    if (error instanceof RangeError) return jsonError(400, error.message, [{ path: "network", message: error.message }]);
+    throw error;
+  }
+}

@@ -1,0 +1,35 @@
+import { jsonError } from "@/lib/http/json-error";
+
+export const MAX_BODY_BYTES = 1024 * 1024;
+
+/**
+ * Reads a JSON body of at most `limit` bytes without trusting Content-Length: the stream is
+ * cut off as soon as it passes the limit. Answers a 400 JSON error for anything unreadable.
+ */
+export async function readJsonBody(request: Request, limit = MAX_BODY_BYTES): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
+  const tooLarge = () => ({ ok: false as const, response: jsonError(400, `The body is larger than ${limit / 1024 / 1024} MB.`, [{ path: "", message: "Body too large" }]) });
+  const declared = Number(request.headers.get("content-length") ?? "0");
+  if (declared > limit) return tooLarge();
+  if (!request.body) return { ok: false, response: jsonError(400, "The body is empty; send a JSON object.", [{ path: "", message: "Empty body" }]) };
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limit) {
+      await reader.cancel().catch(() => undefined);
+      return tooLarge();
+    }
+    chunks.push(value);
+  }
+  const text = Buffer.concat(chunks).toString("utf8");
+  if (text.trim() === "") return { ok: false, response: jsonError(400, "The body is empty; send a JSON object.", [{ path: "", message: "Empty body" }]) };
+  try {
+    return { ok: true, value: JSON.parse(text) };
+  } catch (error) {
+    const message = error instanceof Error ? error.message : "not JSON";
+    return { ok: false, response: jsonError(400, "The body is not valid JSON.", [{ path: "", message }]) };
+  }
+}

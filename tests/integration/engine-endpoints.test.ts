@@ -1,0 +1,135 @@
+import { describe, expect, it } from "vitest";
+import { POST as evaluate } from "@/app/api/v1/networks/evaluate/route";
+import { POST as arrangements } from "@/app/api/v1/shops/[shop]/arrangements/route";
+import { listActiveCells } from "@/db/queries/catalog";
+import { shopBySlug } from "./helpers";
+
+const post = (path: string, body: unknown, raw = false) =>
+  new Request(`http://127.0.0.1:3100${path}`, { method: "POST", headers: { "content-type": "application/json" }, body: raw ? (body as string) : JSON.stringify(body) });
+const params = (shop: string) => ({ params: Promise.resolve({ shop }) });
+const cell = (id: string, capacitance: number, ratedVoltage: number, esr?: number) => ({ kind: "cell", id, capacitance, ratedVoltage, ...(esr ? { esr } : {}) });
+
+describe("POST /api/v1/networks/evaluate", () => {
+  it("evaluates two mismatched cells in series at an applied voltage", async () => {
+    // Series: 1/C = 1/100 + 1/50 → C = 33.33 F; Q = C·V; V₁ = Q/100, V₂ = Q/50 (DESIGN.md §3.1, charge sharing).
+    const res = await evaluate(post("/api/v1/networks/evaluate", { appliedVoltage: 3, network: { kind: "series", children: [cell("a", 100, 2.7, 0.01), cell("b", 50, 2.7, 0.02)] } }));
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body.capacitance).toBeCloseTo(100 / 3, 9);
+    expect(body.esr).toBeCloseTo(0.03, 12);
+    expect(body.charge).toBeCloseTo(100, 9);
+    expect(body.cells).toEqual([
+      { id: "a", voltage: expect.closeTo(1, 9), charge: expect.closeTo(100, 9), energy: expect.closeTo(50, 9) },
+      { id: "b", voltage: expect.closeTo(2, 9), charge: expect.closeTo(100, 9), energy: expect.closeTo(100, 9) },
+    ]);
+    // the 50 F cell reaches 2.7 V first: V_max = 2.7 · 3/2
+    expect(body.maxVoltage).toBeCloseTo(4.05, 9);
+    expect(Object.keys(body).sort()).toEqual(["capacitance", "cells", "charge", "energy", "esr", "maxVoltage"]);
+  });
+
+  it("evaluates at the maximum voltage when none is applied", async () => {
+    const res = await evaluate(post("/api/v1/networks/evaluate", { network: { kind: "parallel", children: [cell("a", 1, 2.7), cell("b", 2, 3)] } }));
+    const body = await res.json();
+    expect(body.maxVoltage).toBeCloseTo(2.7, 12);
+    expect(body.energy).toBeCloseTo(0.5 * 3 * 2.7 ** 2, 9);
+    expect(body).not.toHaveProperty("esr");
+  });
+
+  const deep = (n: number) => {
+    let node: unknown = cell("x", 1, 2.7);
+    for (let i = 0; i < n; i++) node = { kind: "series", children: [node] };
+    return node;
+  };
+  const bad: [string, string | object, RegExp][] = [
+    ["negative capacitance", { network: cell("a", -1, 2.7) }, /network/],
+    ["zero voltage", { network: cell("a", 1, 0) }, /network/],
+    ["a string for a number", { network: cell("a", "1" as unknown as number, 2.7) }, /network/],
+    ["NaN written as a string", '{"network":{"kind":"cell","id":"a","capacitance":"NaN","ratedVoltage":2.7}}', /network/],
+    ["an unknown kind", { network: { kind: "ring", children: [cell("a", 1, 2.7)] } }, /network/],
+    ["an empty group", { network: { kind: "series", children: [] } }, /network/],
+    ["a negative applied voltage", { appliedVoltage: -5, network: cell("a", 1, 2.7) }, /appliedVoltage/],
+    ["a missing network", { appliedVoltage: 5 }, /network/],
+    ["an array body", [1, 2], /^$/],
+    ["malformed JSON", '{"network": {', /^$/],
+    ["an empty body", "", /^$/],
+    ["depth 65", { network: deep(65) }, /network/],
+  ];
+  it.each(bad)("answers 400 with issues for %s", async (_name, body, pathPattern) => {
+    const res = await evaluate(post("/api/v1/networks/evaluate", body, typeof body === "string"));
+    expect(res.status).toBe(400);
+    const json = await res.json();
+    expect(typeof json.error).toBe("string");
+    expect(json.issues.length).toBeGreaterThan(0);
+    expect(json.issues[0].path).toMatch(pathPattern);
+  });
+
+  it("answers 400, not a crash, for a 100,000-deep network", async () => {
+    const text = '{"network":' + '{"kind":"series","children":['.repeat(100_000) + '{"kind":"cell","id":"x","capacitance":1,"ratedVoltage":1}' + "]}".repeat(100_000) + "}";
+    const res = await evaluate(post("/api/v1/networks/evaluate", text, true));
+    expect(res.status).toBe(400);
+  });
+
+  it("answers 400 for more than 20,000 cells and for a body over 1 MB", async () => {
+    const many = { network: { kind: "parallel", children: Array.from({ length: 20_001 }, (_, i) => cell(`c${i}`, 1, 2.7)) } };
+    const res = await evaluate(post("/api/v1/networks/evaluate", many));
+    expect(res.status).toBe(400);
+    const big = await evaluate(post("/api/v1/networks/evaluate", JSON.stringify({ network: cell("a", 1, 2.7), pad: "x".repeat(1_100_000) }), true));
+    expect(big.status).toBe(400);
+    expect((await big.json()).error).toMatch(/larger than 1 MB/);
+  });
+
+  it("accepts 15,000 cells in a body under 1 MB (20,000 cells do not fit in 1 MB of JSON)", async () => {
+    const ok = { appliedVoltage: 2, network: { kind: "parallel", children: Array.from({ length: 15_000 }, (_, i) => cell(`c${i}`, 1, 2.7)) } };
+    const res = await evaluate(post("/api/v1/networks/evaluate", ok));
+    expect(res.status).toBe(200);
+    expect((await res.json()).capacitance).toBeCloseTo(15_000, 6);
+  });
+});
+
+describe("POST /api/v1/shops/{shop}/arrangements", () => {
+  it("finds priced 48 V options with 20 kJ usable down to 24 V from Kestrel's own catalog", async () => {
+    const requirement = { maxVoltage: 48, minVoltage: 24, energy: 20_000, quantity: 2 };
+    const res = await arrangements(post("/api/v1/shops/kestrel-bank-works/arrangements", requirement), params("kestrel-bank-works"));
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body.designFactors).toMatchObject({ capacitanceFade: 0.2, resistorSeries: "E24", safeVoltage: 60 });
+    expect(body.options.length).toBeGreaterThan(0);
+    expect(body.options.length).toBeLessThanOrEqual(12);
+    const shop = await shopBySlug("kestrel-bank-works");
+    const skus = new Set((await listActiveCells(shop.id)).map((c) => c.sku));
+    for (const o of body.options) {
+      expect(skus.has(o.cell.sku)).toBe(true);
+      expect(o.maxVoltage).toBeGreaterThanOrEqual(48);
+      expect(o.usableEnergy).toBeGreaterThanOrEqual(20_000);
+      // usable energy between 48 V and 24 V with the design capacitance: ½·C·(48² − 24²)
+      expect(o.usableEnergy).toBeCloseTo(0.5 * o.capacitance.design * (48 ** 2 - 24 ** 2), 6);
+      expect(o.topology).toMatch(/^(series-of-parallel-groups|parallel-of-series-strings)$/);
+      expect(o.cellCount).toBe(o.seriesCount * o.parallelCount);
+      expect(o.price.currency).toBe("EUR");
+      expect(o.price.amount).toMatch(/^\d+\.\d{2}$/);
+      expect(o.price.quantity).toBe(2);
+      expect(typeof o.pareto).toBe("boolean");
+      expect(o.cautions.length).toBeGreaterThan(0);
+    }
+    // ranked by price: never a dearer option before a cheaper one
+    const prices = body.options.map((o: { price: { perBank: string } }) => Number(o.price.perBank));
+    expect([...prices].sort((a, b) => a - b)).toEqual(prices);
+    expect(body.options.some((o: { pareto: boolean }) => o.pareto)).toBe(true);
+  });
+
+  it("answers options: [] with reasons when nothing in the catalog can do it", async () => {
+    const res = await arrangements(post("/api/v1/shops/marlow-pulse/arrangements", { maxVoltage: 800, energy: 5e9, maxMass: 10 }), params("marlow-pulse"));
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body.options).toEqual([]);
+    expect(body.reasons.length).toBeGreaterThan(0);
+  });
+
+  it("answers 400 for a requirement with nothing to size for, and 404 for an unknown shop", async () => {
+    const res = await arrangements(post("/api/v1/shops/kestrel-bank-works/arrangements", { maxVoltage: 48 }), params("kestrel-bank-works"));
+    expect(res.status).toBe(400);
+    expect((await res.json()).issues.length).toBeGreaterThan(0);
+    const missing = await arrangements(post("/api/v1/shops/nowhere/arrangements", { maxVoltage: 48, energy: 1 }), params("nowhere"));
+    expect(missing.status).toBe(404);
+  });
+});
