@@ -4,7 +4,7 @@ import tseslint from "typescript-eslint";
 const pureModules = ["lib/bank/**", "lib/pricing/**", "lib/quantities/**"];
 
 export default tseslint.config(
-  { ignores: [".next/**", "node_modules/**", ".data/**", "drizzle/**", "next-env.d.ts", "test-results/**", "playwright-report/**"] },
+  { ignores: [".next/**", "node_modules/**", ".data/**", "drizzle/**", "next-env.d.ts", "test-results/**", "playwright-report/**", ".next-slot-*/**"] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

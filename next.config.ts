@@ -2,6 +2,8 @@ import type { NextConfig } from "next";
 
 const nextConfig: NextConfig = {
   poweredByHeader: false,
+  // parallel test runs build into folders of their own (scripts/test.mjs TEST_SLOT)
+  distDir: process.env.NEXT_DIST_DIR || ".next",
   // `npm test` typechecks the whole project as its own step; the build need not do it again.
   typescript: { ignoreBuildErrors: true },
   serverExternalPackages: ["pg", "pg-boss", "nodemailer"],

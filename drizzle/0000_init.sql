@@ -2,6 +2,10 @@ CREATE TYPE "public"."member_role" AS ENUM('manager', 'estimator', 'customer');-
 CREATE TYPE "public"."cell_shape" AS ENUM('cylinder', 'box');--> statement-breakpoint
 CREATE TYPE "public"."component_kind" AS ENUM('balancing-board', 'interconnect', 'terminal', 'enclosure');--> statement-breakpoint
 CREATE TYPE "public"."technology" AS ENUM('edlc', 'hybrid', 'electrolytic', 'film');--> statement-breakpoint
+CREATE TYPE "public"."price_line_kind" AS ENUM('material', 'labour', 'overhead');--> statement-breakpoint
+CREATE TYPE "public"."quote_status" AS ENUM('issued', 'accepted', 'expired', 'withdrawn');--> statement-breakpoint
+CREATE TYPE "public"."request_status" AS ENUM('quoted', 'needs-review', 'closed');--> statement-breakpoint
+CREATE TYPE "public"."email_status" AS ENUM('waiting', 'sent', 'failed');--> statement-breakpoint
 CREATE TABLE "accounts" (
 	"id" text PRIMARY KEY NOT NULL,
 	"account_id" text NOT NULL,
@@ -131,6 +135,104 @@ CREATE TABLE "shop_settings" (
 	"description" text DEFAULT '' NOT NULL,
 	"design_factors" jsonb NOT NULL,
 	"pricing_rules" jsonb NOT NULL,
+	"auto_quote_limits" jsonb DEFAULT '{"maxVoltage":1000,"maxStoredEnergy":2000000,"maxCellCount":400}'::jsonb NOT NULL,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "bank_requests" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"shop_id" text NOT NULL,
+	"customer_user_id" text NOT NULL,
+	"status" "request_status" NOT NULL,
+	"requirement" jsonb NOT NULL,
+	"notes" text DEFAULT '' NOT NULL,
+	"review_reasons" jsonb DEFAULT '[]'::jsonb NOT NULL,
+	"chosen_option" jsonb,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "quote_lines" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"shop_id" text NOT NULL,
+	"revision_id" uuid NOT NULL,
+	"position" integer NOT NULL,
+	"code" text NOT NULL,
+	"kind" "price_line_kind" NOT NULL,
+	"description" text NOT NULL,
+	"quantity" numeric(16, 4) NOT NULL,
+	"unit" text NOT NULL,
+	"unit_price" numeric(16, 4) NOT NULL,
+	"amount" numeric(16, 4) NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "quote_revisions" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"shop_id" text NOT NULL,
+	"quote_id" uuid NOT NULL,
+	"revision" integer NOT NULL,
+	"requirement" jsonb NOT NULL,
+	"arrangement" jsonb NOT NULL,
+	"cell" jsonb NOT NULL,
+	"pricing" jsonb NOT NULL,
+	"currency" text NOT NULL,
+	"quantity" integer NOT NULL,
+	"subtotal" numeric(16, 4) NOT NULL,
+	"tax" numeric(16, 4) NOT NULL,
+	"total" numeric(16, 4) NOT NULL,
+	"valid_until" date NOT NULL,
+	"created_by_user_id" text,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "quotes" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"shop_id" text NOT NULL,
+	"request_id" uuid NOT NULL,
+	"customer_user_id" text NOT NULL,
+	"number" text NOT NULL,
+	"status" "quote_status" DEFAULT 'issued' NOT NULL,
+	"current_revision" integer DEFAULT 1 NOT NULL,
+	"idempotency_key" text NOT NULL,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "request_attachments" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"shop_id" text NOT NULL,
+	"uploaded_by_user_id" text NOT NULL,
+	"request_id" uuid,
+	"file_name" text NOT NULL,
+	"content_type" text NOT NULL,
+	"size_bytes" integer NOT NULL,
+	"sha256" text NOT NULL,
+	"storage_key" text NOT NULL,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "shop_counters" (
+	"shop_id" text NOT NULL,
+	"kind" text NOT NULL,
+	"year" integer NOT NULL,
+	"value" integer DEFAULT 0 NOT NULL,
+	CONSTRAINT "shop_counters_shop_id_kind_year_pk" PRIMARY KEY("shop_id","kind","year")
+);
+--> statement-breakpoint
+CREATE TABLE "email_outbox" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"shop_id" text NOT NULL,
+	"kind" text NOT NULL,
+	"dedupe_key" text NOT NULL,
+	"to_email" text NOT NULL,
+	"subject" text NOT NULL,
+	"quote_revision_id" uuid,
+	"status" "email_status" DEFAULT 'waiting' NOT NULL,
+	"attempts" integer DEFAULT 0 NOT NULL,
+	"last_error" text,
+	"message_id" text,
+	"sent_at" timestamp with time zone,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
@@ -144,6 +246,22 @@ ALTER TABLE "sessions" ADD CONSTRAINT "sessions_user_id_users_id_fk" FOREIGN KEY
 ALTER TABLE "catalog_cells" ADD CONSTRAINT "catalog_cells_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "catalog_components" ADD CONSTRAINT "catalog_components_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "shop_settings" ADD CONSTRAINT "shop_settings_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "bank_requests" ADD CONSTRAINT "bank_requests_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "bank_requests" ADD CONSTRAINT "bank_requests_customer_user_id_users_id_fk" FOREIGN KEY ("customer_user_id") REFERENCES "public"."users"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "quote_lines" ADD CONSTRAINT "quote_lines_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "quote_lines" ADD CONSTRAINT "quote_lines_revision_id_quote_revisions_id_fk" FOREIGN KEY ("revision_id") REFERENCES "public"."quote_revisions"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "quote_revisions" ADD CONSTRAINT "quote_revisions_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "quote_revisions" ADD CONSTRAINT "quote_revisions_quote_id_quotes_id_fk" FOREIGN KEY ("quote_id") REFERENCES "public"."quotes"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "quote_revisions" ADD CONSTRAINT "quote_revisions_created_by_user_id_users_id_fk" FOREIGN KEY ("created_by_user_id") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "quotes" ADD CONSTRAINT "quotes_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "quotes" ADD CONSTRAINT "quotes_request_id_bank_requests_id_fk" FOREIGN KEY ("request_id") REFERENCES "public"."bank_requests"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "quotes" ADD CONSTRAINT "quotes_customer_user_id_users_id_fk" FOREIGN KEY ("customer_user_id") REFERENCES "public"."users"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "request_attachments" ADD CONSTRAINT "request_attachments_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "request_attachments" ADD CONSTRAINT "request_attachments_uploaded_by_user_id_users_id_fk" FOREIGN KEY ("uploaded_by_user_id") REFERENCES "public"."users"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "request_attachments" ADD CONSTRAINT "request_attachments_request_id_bank_requests_id_fk" FOREIGN KEY ("request_id") REFERENCES "public"."bank_requests"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "shop_counters" ADD CONSTRAINT "shop_counters_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "email_outbox" ADD CONSTRAINT "email_outbox_shop_id_shops_id_fk" FOREIGN KEY ("shop_id") REFERENCES "public"."shops"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "email_outbox" ADD CONSTRAINT "email_outbox_quote_revision_id_quote_revisions_id_fk" FOREIGN KEY ("quote_revision_id") REFERENCES "public"."quote_revisions"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "accounts_user_idx" ON "accounts" USING btree ("user_id");--> statement-breakpoint
 CREATE INDEX "invitations_shop_email_idx" ON "invitations" USING btree ("shop_id","email");--> statement-breakpoint
 CREATE UNIQUE INDEX "members_shop_user_uq" ON "members" USING btree ("shop_id","user_id");--> statement-breakpoint
@@ -153,4 +271,16 @@ CREATE INDEX "verifications_identifier_idx" ON "verifications" USING btree ("ide
 CREATE UNIQUE INDEX "catalog_cells_shop_sku_uq" ON "catalog_cells" USING btree ("shop_id","sku");--> statement-breakpoint
 CREATE INDEX "catalog_cells_shop_active_idx" ON "catalog_cells" USING btree ("shop_id","is_active","technology");--> statement-breakpoint
 CREATE UNIQUE INDEX "catalog_components_shop_sku_uq" ON "catalog_components" USING btree ("shop_id","sku");--> statement-breakpoint
-CREATE INDEX "catalog_components_shop_kind_idx" ON "catalog_components" USING btree ("shop_id","kind");
+CREATE INDEX "catalog_components_shop_kind_idx" ON "catalog_components" USING btree ("shop_id","kind");--> statement-breakpoint
+CREATE INDEX "bank_requests_shop_status_idx" ON "bank_requests" USING btree ("shop_id","status","created_at");--> statement-breakpoint
+CREATE INDEX "bank_requests_shop_customer_idx" ON "bank_requests" USING btree ("shop_id","customer_user_id");--> statement-breakpoint
+CREATE UNIQUE INDEX "quote_lines_shop_revision_pos_uq" ON "quote_lines" USING btree ("shop_id","revision_id","position");--> statement-breakpoint
+CREATE UNIQUE INDEX "quote_revisions_shop_quote_rev_uq" ON "quote_revisions" USING btree ("shop_id","quote_id","revision");--> statement-breakpoint
+CREATE UNIQUE INDEX "quotes_shop_number_uq" ON "quotes" USING btree ("shop_id","number");--> statement-breakpoint
+CREATE UNIQUE INDEX "quotes_shop_idempotency_uq" ON "quotes" USING btree ("shop_id","idempotency_key");--> statement-breakpoint
+CREATE INDEX "quotes_shop_customer_idx" ON "quotes" USING btree ("shop_id","customer_user_id","created_at");--> statement-breakpoint
+CREATE INDEX "quotes_shop_created_idx" ON "quotes" USING btree ("shop_id","created_at");--> statement-breakpoint
+CREATE INDEX "request_attachments_shop_request_idx" ON "request_attachments" USING btree ("shop_id","request_id");--> statement-breakpoint
+CREATE INDEX "request_attachments_shop_uploader_idx" ON "request_attachments" USING btree ("shop_id","uploaded_by_user_id");--> statement-breakpoint
+CREATE UNIQUE INDEX "email_outbox_shop_dedupe_uq" ON "email_outbox" USING btree ("shop_id","dedupe_key");--> statement-breakpoint
+CREATE INDEX "email_outbox_shop_status_idx" ON "email_outbox" USING btree ("shop_id","status","created_at");

@@ -6,10 +6,14 @@ import fs from "node:fs";
 import path from "node:path";
 import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, root, startMaildev, stopAll } from "./services.mjs";
 
+// TEST_SLOT=n lets several runs share the machine: each gets its own database, ports and build folder.
+const SLOT = Number(process.env.TEST_SLOT ?? 0);
 const PG_PORT = 54339;
-const SMTP_PORT = 1125;
-const INBOX_PORT = 1180;
-const APP_PORT = 3100;
+const SMTP_PORT = 1125 + SLOT * 10;
+const INBOX_PORT = 1180 + SLOT * 10;
+const APP_PORT = 3100 + SLOT;
+const DB_NAME = SLOT ? `faradsmith_test_${SLOT}` : "faradsmith_test";
+const DIST_DIR = SLOT ? `.next-slot-${SLOT}` : ".next";
 const only = process.argv.slice(2); // e.g. `npm test -- unit integration`
 const wants = (layer) => only.length === 0 || only.includes(layer);
 
@@ -21,7 +25,7 @@ const out = path.join(root, ".data", "test-results");
 fs.mkdirSync(out, { recursive: true });
 
 const pg = await ensurePostgres({ name: "pg-test", port: PG_PORT, fast: true });
-const databaseUrl = await pg.ensureDatabase("faradsmith_test", { recreate: true });
+const databaseUrl = await pg.ensureDatabase(DB_NAME, { recreate: true });
 const appUrl = `http://127.0.0.1:${APP_PORT}`;
 const env = {
   ...process.env,
@@ -35,8 +39,9 @@ const env = {
   MAIL_INBOX_URL: `http://127.0.0.1:${INBOX_PORT}`,
   AUTH_RATE_LIMIT_MAX: "1000",
   API_RATE_LIMIT_PER_MINUTE: "100000",
-  UPLOAD_DIR: path.join(".data", "uploads-test"),
+  UPLOAD_DIR: path.join(".data", `uploads-test-${SLOT}`),
   NEXT_TELEMETRY_DISABLED: "1",
+  NEXT_DIST_DIR: DIST_DIR,
   FORCE_COLOR: "0",
 };
 delete env.NODE_ENV;
@@ -72,7 +77,7 @@ try {
     failed += 1;
     summary.push("database set-up: FAILED");
   }
-  await startMaildev({ smtpPort: SMTP_PORT, webPort: INBOX_PORT, name: "maildev-test" });
+  await startMaildev({ smtpPort: SMTP_PORT, webPort: INBOX_PORT, name: `maildev-test-${SLOT}` });
 
   if (wants("typecheck")) check("typecheck", bin("tsc"), ["--noEmit", "-p", "."]);
   if (wants("lint")) check("lint", bin("eslint"), [".", "--max-warnings=0"]);
@@ -110,7 +115,7 @@ try {
   }
 } finally {
   stopAll();
-  pg.stop();
+  if (!SLOT) pg.stop();
 }
 
 log(`summary after ${((Date.now() - started) / 1000).toFixed(0)} s:`);

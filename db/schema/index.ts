@@ -1,3 +1,5 @@
 export * from "./auth";
 export * from "./catalog";
 export * from "./settings";
+export * from "./quotes";
+export * from "./mail";

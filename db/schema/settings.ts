@@ -3,6 +3,17 @@ import type { DesignFactors } from "@/lib/bank/types";
 import type { PricingRules } from "@/lib/pricing/types";
 import { shops } from "./auth";
 
+export interface AutoQuoteLimits {
+  /** V */
+  maxVoltage: number;
+  /** J, stored at V_max */
+  maxStoredEnergy: number;
+  maxCellCount: number;
+}
+
+/** Common practice for a small shop: larger banks get an engineer's eye before a price. */
+export const DEFAULT_AUTO_QUOTE_LIMITS: AutoQuoteLimits = { maxVoltage: 1000, maxStoredEnergy: 2_000_000, maxCellCount: 400 };
+
 /** One row per shop: its design factors (DESIGN.md §3.2), pricing rules (§4) and storefront text. */
 export const shopSettings = pgTable("shop_settings", {
   shopId: text()
@@ -13,6 +24,8 @@ export const shopSettings = pgTable("shop_settings", {
   description: text().notNull().default(""),
   designFactors: jsonb().$type<DesignFactors>().notNull(),
   pricingRules: jsonb().$type<PricingRules>().notNull(),
+  /** beyond any of these a request goes to the estimators instead of being quoted at once */
+  autoQuoteLimits: jsonb().$type<AutoQuoteLimits>().notNull().default(DEFAULT_AUTO_QUOTE_LIMITS),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });

@@ -6,7 +6,7 @@ import { isDatabaseEmpty, seedDemo } from "@/db/seed";
 /** Once per run: the test database is migrated and holds the demo shops. */
 export default async function setup() {
   const url = process.env.DATABASE_URL;
-  if (!url || !/_test\b/.test(url)) throw new Error(`integration tests need DATABASE_URL pointing at a *_test database (got ${url ?? "nothing"}); run them with npm test`);
+  if (!url || !/_test(_\d+)?$/.test(url)) throw new Error(`integration tests need DATABASE_URL pointing at a *_test database (got ${url ?? "nothing"}); run them with npm test`);
   const { db, pool } = createDb(url, 2);
   try {
     await migrate(db, { migrationsFolder: path.resolve("drizzle") });

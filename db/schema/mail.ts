@@ -1,0 +1,32 @@
+import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { shops } from "./auth";
+import { quoteRevisions } from "./quotes";
+
+export const emailStatusEnum = pgEnum("email_status", ["waiting", "sent", "failed"]);
+
+/**
+ * The shop's e-mail outbox. A row is written in the same transaction as what it announces; a
+ * pg-boss job delivers it with retries and back-off. `dedupeKey` makes a message one per event.
+ */
+export const emailOutbox = pgTable(
+  "email_outbox",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    shopId: text().notNull().references(() => shops.id, { onDelete: "cascade" }),
+    kind: text().notNull(),
+    dedupeKey: text().notNull(),
+    toEmail: text().notNull(),
+    subject: text().notNull(),
+    quoteRevisionId: uuid().references(() => quoteRevisions.id, { onDelete: "set null" }),
+    status: emailStatusEnum().notNull().default("waiting"),
+    attempts: integer().notNull().default(0),
+    lastError: text(),
+    messageId: text(),
+    sentAt: timestamp({ withTimezone: true }),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("email_outbox_shop_dedupe_uq").on(t.shopId, t.dedupeKey), index("email_outbox_shop_status_idx").on(t.shopId, t.status, t.createdAt)],
+);
+
+export type EmailOutboxRow = typeof emailOutbox.$inferSelect;
