@@ -4,13 +4,18 @@
 // Ctrl-C stops everything this command started.
 import { spawnSync } from "node:child_process";
 import path from "node:path";
-import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, root, spawnService, startMaildev, stopAll, waitForPort } from "./services.mjs";
+import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, portOpen, root, spawnService, startMaildev, stopAll, waitForPort } from "./services.mjs";
 
 const dev = process.argv.includes("--dev");
 const PORT = Number(process.env.PORT ?? 3000);
 const PG_PORT = 54329;
 const SMTP_PORT = 1025;
 const INBOX_PORT = 1080;
+
+if (await portOpen(PORT)) {
+  log(`port ${PORT} is already in use (another Faradsmith still running?); stop it or set PORT=…`);
+  process.exit(1);
+}
 
 ensureDebianPackages(["postgresql"]);
 ensureNpmPackages();

@@ -8,7 +8,7 @@ import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, root, sta
 
 // TEST_SLOT=n lets several runs share the machine: each gets its own database, ports and build folder.
 const SLOT = Number(process.env.TEST_SLOT ?? 0);
-const PG_PORT = 54339;
+const PG_PORT = Number(process.env.TEST_PG_PORT ?? 54339);
 const SMTP_PORT = 1125 + SLOT * 10;
 const INBOX_PORT = 1180 + SLOT * 10;
 const APP_PORT = 3100 + SLOT;
