@@ -11,7 +11,13 @@ const schema = z.object({
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(120),
   SMTP_HOST: z.string().default("127.0.0.1"),
   SMTP_PORT: z.coerce.number().int().positive().default(1025),
+  /** production SMTP: TLS from the first byte ("true", port 465) and credentials; none on loopback */
+  SMTP_SECURE: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+  SMTP_USER: z.string().min(1).optional(),
+  SMTP_PASSWORD: z.string().min(1).optional(),
   MAIL_FROM: z.string().default("Faradsmith <quotes@faradsmith.example>"),
+  /** "off" keeps the e-mail worker out of this server (another process runs it, or none is wanted) */
+  MAIL_WORKER: z.enum(["on", "off"]).default("on"),
   MAIL_INBOX_URL: z.string().url().default("http://127.0.0.1:1080"),
   UPLOAD_DIR: z.string().default(".data/uploads"),
 });

@@ -1,6 +1,8 @@
 import "server-only";
 import type { Db } from "@/db/client";
+import { listWaitingOutboxIds } from "@/db/queries/outbox";
 import { emailOutbox } from "@/db/schema";
+import { getBoss, MAIL_QUEUE, type MailJob } from "./queue";
 
 /** A transaction handle or the client: outbox rows are written with what they announce. */
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0] | Db;
@@ -32,5 +34,19 @@ export async function enqueueQuoteReady(tx: Tx, m: QuoteReadyMessage): Promise<v
     .onConflictDoNothing();
 }
 
-/** Hands waiting outbox rows to the job queue. (Filled in by the mail queue.) */
-export async function dispatchOutbox(): Promise<void> {}
+/**
+ * Hands every waiting outbox row to the job queue, in one statement. The job's id is the row's id
+ * (and so is its singleton key), so a row already queued, retrying or in hand is not queued again:
+ * calling this twice, or from two servers at once, sends nothing twice.
+ */
+export async function dispatchOutbox(): Promise<void> {
+  const rows = await listWaitingOutboxIds();
+  if (rows.length === 0) return;
+  const boss = await getBoss();
+  await boss.insert(
+    rows.map((row) => {
+      const data: MailJob = { outboxId: row.id, shopId: row.shopId };
+      return { id: row.id, name: MAIL_QUEUE, data, singletonKey: row.id };
+    }),
+  );
+}

@@ -1,10 +1,93 @@
-import { SectionPlaceholder } from "../_components/section-placeholder";
+import type { Metadata } from "next";
+import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { countOutboxByStatus, listOutbox } from "@/db/queries/outbox";
+import { requireShopPage } from "@/lib/auth/context";
+import { outboxListSchema } from "@/lib/validation/outbox";
+import { OutboxStatus } from "./_components/outbox-status";
 
-export default async function Page({ params }: { params: Promise<{ shop: string }> }) {
+export const metadata: Metadata = { title: "Outbox" };
+
+function when(d: Date | null): string {
+  return d ? `${d.toISOString().slice(0, 16).replace("T", " ")} UTC` : "—";
+}
+
+export default async function OutboxPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
   const { shop } = await params;
+  const ctx = await requireShopPage(shop, "outbox:read");
+  const parsed = outboxListSchema.safeParse(await searchParams);
+  const q = parsed.success ? parsed.data : outboxListSchema.parse({});
+  const [{ rows, total }, counts] = await Promise.all([listOutbox(ctx.shop.id, q), countOutboxByStatus(ctx.shop.id)]);
+  const base = `/desk/${shop}/outbox`;
+  const keep = { q: q.q, status: q.status === "all" ? undefined : q.status, sort: q.sort, dir: q.dir, size: q.size === 20 ? undefined : q.size };
   return (
-    <SectionPlaceholder shop={shop} path="outbox">
-      <p>Every e-mail the shop sends — quotes, receipts, status changes — with its state: sent, waiting to retry, or failed with the reason.</p>
-    </SectionPlaceholder>
+    <div className="space-y-6">
+      <div>
+        <h1 className="text-2xl font-semibold">Outbox</h1>
+        <p className="mt-1 text-sm text-ink-600">
+          Every e-mail {ctx.shop.name} sends. A message that cannot be delivered waits and is tried again with growing pauses; after the last try it is marked failed with the reason.
+        </p>
+      </div>
+      <dl className="flex flex-wrap gap-3 text-sm" aria-label="Messages by state">
+        {(["waiting", "sent", "failed"] as const).map((s) => (
+          <div key={s} className="rounded-lg bg-white px-4 py-2 ring-1 ring-ink-100">
+            <dt className="text-xs text-ink-600">{s === "waiting" ? "Waiting" : s === "sent" ? "Sent" : "Failed"}</dt>
+            <dd className="num text-lg font-semibold" data-testid={`outbox-count-${s}`}>{counts[s]}</dd>
+          </div>
+        ))}
+      </dl>
+      <form method="get" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100" role="search">
+        <div>
+          <label htmlFor="q" className="block text-xs font-medium text-ink-700">Recipient or subject</label>
+          <input id="q" name="q" defaultValue={q.q} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm" />
+        </div>
+        <div>
+          <label htmlFor="status" className="block text-xs font-medium text-ink-700">State</label>
+          <select id="status" name="status" defaultValue={q.status} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
+            <option value="all">All states</option>
+            <option value="waiting">Waiting</option>
+            <option value="sent">Sent</option>
+            <option value="failed">Failed</option>
+          </select>
+        </div>
+        <input type="hidden" name="sort" value={q.sort} />
+        <input type="hidden" name="dir" value={q.dir} />
+        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
+      </form>
+      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
+        <table className="w-full text-sm">
+          <thead className="bg-ink-50 text-ink-700">
+            <tr>
+              <SortHeader base={base} params={keep} sortKey="created" label="Created" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="to" label="To" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="subject" label="Subject" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="status" label="State" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="attempts" label="Attempts" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="sent" label="Sent at" sort={q.sort} dir={q.dir} />
+            </tr>
+          </thead>
+          <tbody>
+            {rows.length === 0 ? (
+              <tr>
+                <td colSpan={6} className="px-3 py-6 text-center text-ink-500">{total === 0 && !q.q && q.status === "all" ? "No e-mail yet: messages appear here when the shop issues a quote." : "No messages match."}</td>
+              </tr>
+            ) : (
+              rows.map((m) => (
+                <tr key={m.id} className="border-t border-ink-100 align-top" data-testid={`outbox-${m.id}`}>
+                  <td className="num whitespace-nowrap px-3 py-2 text-ink-600">{when(m.createdAt)}</td>
+                  <td className="px-3 py-2">{m.toEmail}</td>
+                  <td className="px-3 py-2">{m.subject}</td>
+                  <td className="px-3 py-2">
+                    <OutboxStatus status={m.status} attempts={m.attempts} lastError={m.lastError} />
+                  </td>
+                  <td className="num px-3 py-2 text-right">{m.attempts}</td>
+                  <td className="num whitespace-nowrap px-3 py-2 text-ink-600">{when(m.sentAt)}</td>
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+      <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
+    </div>
   );
 }

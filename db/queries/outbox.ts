@@ -1,0 +1,113 @@
+import "server-only";
+import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
+import { db } from "@/db";
+import { emailOutbox, quoteRevisions, quotes, shops } from "@/db/schema";
+import type { OutboxListQuery } from "@/lib/validation/outbox";
+
+export interface OutboxListRow {
+  id: string;
+  kind: string;
+  toEmail: string;
+  subject: string;
+  status: "waiting" | "sent" | "failed";
+  attempts: number;
+  lastError: string | null;
+  createdAt: Date;
+  sentAt: Date | null;
+}
+
+/** A page of the shop's outbox, filtered and sorted; `total` counts the filtered set. */
+export async function listOutbox(shopId: string, q: OutboxListQuery): Promise<{ rows: OutboxListRow[]; total: number }> {
+  const where: SQL[] = [eq(emailOutbox.shopId, shopId)];
+  if (q.status !== "all") where.push(eq(emailOutbox.status, q.status));
+  if (q.q) {
+    const like = `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
+    where.push(or(ilike(emailOutbox.toEmail, like), ilike(emailOutbox.subject, like))!);
+  }
+  const column = {
+    created: emailOutbox.createdAt,
+    to: emailOutbox.toEmail,
+    subject: emailOutbox.subject,
+    status: emailOutbox.status,
+    attempts: emailOutbox.attempts,
+    sent: emailOutbox.sentAt,
+  }[q.sort];
+  const order = q.dir === "asc" ? asc(column) : desc(column);
+  const rows = await db
+    .select({
+      id: emailOutbox.id,
+      kind: emailOutbox.kind,
+      toEmail: emailOutbox.toEmail,
+      subject: emailOutbox.subject,
+      status: emailOutbox.status,
+      attempts: emailOutbox.attempts,
+      lastError: emailOutbox.lastError,
+      createdAt: emailOutbox.createdAt,
+      sentAt: emailOutbox.sentAt,
+    })
+    .from(emailOutbox)
+    .where(and(...where))
+    .orderBy(order, desc(emailOutbox.createdAt), asc(emailOutbox.id))
+    .limit(q.size)
+    .offset((q.page - 1) * q.size);
+  const [totalRow] = await db
+    .select({ n: count() })
+    .from(emailOutbox)
+    .where(and(...where));
+  return { rows, total: totalRow?.n ?? 0 };
+}
+
+export async function getOutboxRow(shopId: string, id: string) {
+  const [row] = await db
+    .select()
+    .from(emailOutbox)
+    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, id)))
+    .limit(1);
+  return row ?? null;
+}
+
+/**
+ * Waiting rows of every shop, oldest first, for the job queue's dispatcher. The one read across
+ * shops: it runs for the queue, never for a member, and hands out only ids.
+ */
+export async function listWaitingOutboxIds(limit = 500): Promise<{ id: string; shopId: string }[]> {
+  return db
+    .select({ id: emailOutbox.id, shopId: emailOutbox.shopId })
+    .from(emailOutbox)
+    .where(eq(emailOutbox.status, "waiting"))
+    .orderBy(asc(emailOutbox.createdAt))
+    .limit(limit);
+}
+
+/** What the "quote ready" message says, read from the frozen revision (never the live catalog). */
+export async function getQuoteReadyFacts(shopId: string, quoteRevisionId: string) {
+  const [row] = await db
+    .select({
+      shopName: shops.name,
+      shopSlug: shops.slug,
+      quoteNumber: quotes.number,
+      revision: quoteRevisions.revision,
+      currency: quoteRevisions.currency,
+      quantity: quoteRevisions.quantity,
+      total: quoteRevisions.total,
+      validUntil: quoteRevisions.validUntil,
+    })
+    .from(quoteRevisions)
+    .innerJoin(quotes, and(eq(quotes.shopId, quoteRevisions.shopId), eq(quotes.id, quoteRevisions.quoteId)))
+    .innerJoin(shops, eq(shops.id, quoteRevisions.shopId))
+    .where(and(eq(quoteRevisions.shopId, shopId), eq(quoteRevisions.id, quoteRevisionId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/** How many of the shop's messages are in each state. */
+export async function countOutboxByStatus(shopId: string): Promise<Record<"waiting" | "sent" | "failed", number>> {
+  const rows = await db
+    .select({ status: emailOutbox.status, n: count() })
+    .from(emailOutbox)
+    .where(eq(emailOutbox.shopId, shopId))
+    .groupBy(emailOutbox.status);
+  const counts = { waiting: 0, sent: 0, failed: 0 };
+  for (const r of rows) counts[r.status] = r.n;
+  return counts;
+}

@@ -1,0 +1,68 @@
+import "server-only";
+import { and, eq, sql } from "drizzle-orm";
+import { db } from "@/db";
+import { getOutboxRow } from "@/db/queries/outbox";
+import { emailOutbox } from "@/db/schema";
+import { buildOutboxMessage } from "./messages";
+import { sendMessage } from "./transport";
+
+export type DeliveryOutcome = "sent" | "skipped";
+
+function reasonOf(error: unknown): string {
+  const e = error as { code?: unknown; message?: unknown };
+  const message = typeof e?.message === "string" ? e.message : String(error);
+  const code = typeof e?.code === "string" && !message.includes(e.code) ? `${e.code}: ` : "";
+  return `${code}${message}`.slice(0, 1000);
+}
+
+/** Counts a failed attempt on a row that is still waiting; on the last attempt marks it failed. */
+async function recordFailure(shopId: string, outboxId: string, error: unknown, final: boolean, tx: Pick<typeof db, "update"> = db) {
+  await tx
+    .update(emailOutbox)
+    .set({ attempts: sql`${emailOutbox.attempts} + 1`, lastError: reasonOf(error), status: final ? "failed" : "waiting", updatedAt: new Date() })
+    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "waiting")));
+}
+
+/**
+ * Delivers one outbox row at most once in the normal path: the row is locked (`FOR UPDATE SKIP
+ * LOCKED`) and re-checked as still waiting while the SMTP conversation runs, and marked sent in
+ * the same transaction; a second job for the same row finds it locked or sent and does nothing.
+ * Only a crash between the server's "250 OK" and the commit can send it again, and then with the
+ * same Message-ID. A failure counts the attempt, keeps the reason and throws, so the queue retries
+ * with back-off; on the `final` attempt the row becomes `failed`.
+ */
+export async function deliverOutboxRow(shopId: string, outboxId: string, { final = false }: { final?: boolean } = {}): Promise<DeliveryOutcome> {
+  const row = await getOutboxRow(shopId, outboxId);
+  if (!row || row.status !== "waiting") return "skipped";
+
+  let message;
+  try {
+    message = await buildOutboxMessage(row);
+  } catch (error) {
+    await recordFailure(shopId, outboxId, error, final);
+    throw error;
+  }
+
+  const result = await db.transaction(async (tx) => {
+    const [locked] = await tx
+      .select({ id: emailOutbox.id })
+      .from(emailOutbox)
+      .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "waiting")))
+      .for("update", { skipLocked: true });
+    if (!locked) return { outcome: "skipped" as const };
+    try {
+      const info = await sendMessage(message);
+      await tx
+        .update(emailOutbox)
+        .set({ status: "sent", attempts: sql`${emailOutbox.attempts} + 1`, messageId: info.messageId, sentAt: new Date(), lastError: null, updatedAt: new Date() })
+        .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId)));
+      return { outcome: "sent" as const };
+    } catch (error) {
+      // recorded in this transaction (it commits), thrown after it
+      await recordFailure(shopId, outboxId, error, final, tx);
+      return { outcome: "failed" as const, error };
+    }
+  });
+  if (result.outcome === "failed") throw result.error;
+  return result.outcome;
+}

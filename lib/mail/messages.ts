@@ -1,0 +1,39 @@
+import "server-only";
+import { render } from "@react-email/render";
+import { createElement } from "react";
+import { getQuoteReadyFacts } from "@/db/queries/outbox";
+import type { EmailOutboxRow } from "@/db/schema";
+import { QuoteReadyEmail } from "@/emails/quote-ready";
+import { renderQuotePdf } from "@/lib/quoting/quote-pdf";
+import { formatMoney } from "@/lib/pricing";
+import { mailSettings } from "./config";
+import { formatValidity, outboxMessageId, quotePageUrl } from "./format";
+import type { OutgoingMessage } from "./transport";
+
+/** Builds the message an outbox row announces, from the records it points at. */
+export async function buildOutboxMessage(row: EmailOutboxRow): Promise<OutgoingMessage> {
+  if (row.kind !== "quote-ready") throw new Error(`no message template for outbox kind "${row.kind}"`);
+  if (!row.quoteRevisionId) throw new Error("the quote revision of this message no longer exists");
+  const facts = await getQuoteReadyFacts(row.shopId, row.quoteRevisionId);
+  if (!facts) throw new Error("the quote revision of this message no longer exists");
+  const settings = mailSettings();
+  const quoteUrl = quotePageUrl(settings.appUrl, facts.shopSlug, facts.quoteNumber);
+  const email = createElement(QuoteReadyEmail, {
+    shopName: facts.shopName,
+    quoteNumber: facts.quoteNumber,
+    revision: facts.revision,
+    total: formatMoney(facts.total, facts.currency),
+    quantity: facts.quantity,
+    validUntil: formatValidity(facts.validUntil),
+    quoteUrl,
+  });
+  const [html, text, pdf] = await Promise.all([render(email), render(email, { plainText: true }), renderQuotePdf(row.shopId, row.quoteRevisionId)]);
+  return {
+    to: row.toEmail,
+    subject: row.subject,
+    html,
+    text,
+    messageId: outboxMessageId(row.id, settings.from),
+    attachments: [{ filename: pdf.fileName, content: pdf.buffer, contentType: "application/pdf" }],
+  };
+}

@@ -1,0 +1,270 @@
+import { spawn, type ChildProcess } from "node:child_process";
+import { randomUUID } from "node:crypto";
+import fs from "node:fs";
+import net from "node:net";
+import os from "node:os";
+import path from "node:path";
+import { and, eq, sql } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db";
+import { getOutboxRow, listOutbox } from "@/db/queries/outbox";
+import { emailOutbox, quoteRevisions, quotes, users } from "@/db/schema";
+import type { ShopContext } from "@/lib/auth/context";
+import { configureMail, mailSettings } from "@/lib/mail/config";
+import { deliverOutboxRow } from "@/lib/mail/deliver";
+import { outboxMessageId } from "@/lib/mail/format";
+import { dispatchOutbox } from "@/lib/mail/outbox";
+import { MAIL_QUEUE, PGBOSS_SCHEMA } from "@/lib/mail/queue";
+import { startMailWorker, stopMailWorker } from "@/lib/mail/worker";
+import { findArrangements } from "@/lib/quoting/arrangements";
+import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
+import { chooseArrangementSchema } from "@/lib/validation/quote";
+import { outboxListSchema } from "@/lib/validation/outbox";
+import { shopBySlug } from "./helpers";
+
+// The SMTP stand-in here is maildev (npm), started by this file on ports of its own so that it
+// can be stopped and started again; its REST API (GET /api/email) lists what it received.
+
+const K = "kestrel-bank-works";
+const M = "marlow-pulse";
+const CUSTOMER = "renske.haddow@tollmere-tramways.example";
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.once("error", reject);
+    server.listen(0, "127.0.0.1", () => {
+      const address = server.address();
+      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
+    });
+  });
+}
+
+function portOpen(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const s = net.connect({ port, host: "127.0.0.1" });
+    s.once("connect", () => {
+      s.destroy();
+      resolve(true);
+    });
+    s.once("error", () => resolve(false));
+  });
+}
+
+/** Polls until `check` holds; the limit only bounds a broken run, it measures nothing. */
+async function waitFor<T>(what: string, read: () => Promise<T>, check: (value: T) => boolean, limitMs = 45_000): Promise<T> {
+  const until = Date.now() + limitMs;
+  for (;;) {
+    const value = await read();
+    if (check(value)) return value;
+    if (Date.now() > until) throw new Error(`gave up waiting for ${what}; last seen ${JSON.stringify(value)}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+interface MaildevEmail {
+  id: string;
+  subject: string;
+  to: { address: string }[];
+  headers: Record<string, string>;
+  attachments?: { filename?: string; generatedFileName: string; contentType: string; size: number }[];
+}
+
+let smtpPort = 0;
+let webPort = 0;
+let mailDir = "";
+let maildev: ChildProcess | null = null;
+
+async function startMaildev() {
+  maildev = spawn(path.resolve("node_modules/.bin/maildev"), ["--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "--smtp", String(smtpPort), "--web", String(webPort), "--mail-directory", mailDir, "--silent"], { stdio: "ignore" });
+  await waitFor("maildev to listen", async () => (await portOpen(smtpPort)) && (await portOpen(webPort)), (up) => up, 20_000);
+}
+
+async function stopMaildev() {
+  const child = maildev;
+  maildev = null;
+  if (!child || child.exitCode !== null) return;
+  const exited = new Promise((r) => child.once("exit", r));
+  child.kill("SIGTERM");
+  await exited;
+}
+
+async function inbox(): Promise<MaildevEmail[]> {
+  const res = await fetch(`http://127.0.0.1:${webPort}/api/email`);
+  if (!res.ok) throw new Error(`maildev answered ${res.status}`);
+  return (await res.json()) as MaildevEmail[];
+}
+
+const messagesFor = async (quoteNumber: string) => (await inbox()).filter((m) => m.subject.includes(`${quoteNumber} `));
+
+async function customerContext(): Promise<ShopContext> {
+  const shop = await shopBySlug(K);
+  const [user] = await db.select({ id: users.id, name: users.name, email: users.email }).from(users).where(eq(users.email, CUSTOMER));
+  if (!user) throw new Error(`no user ${CUSTOMER}`);
+  return { user, shop: { id: shop.id, slug: shop.slug, name: shop.name }, role: "customer" };
+}
+
+/** A real quote through the quoting path: 48 V, 20 kJ usable down to 24 V, the cheapest option. */
+async function makeQuote(): Promise<{ shopId: string; outboxId: string; quoteNumber: string }> {
+  const ctx = await customerContext();
+  const requirement = { maxVoltage: 48, minVoltage: 24, energy: 20_000, quantity: 1 };
+  const found = await findArrangements(ctx.shop.id, requirement);
+  const option = found.options[0];
+  if (!option) throw new Error("Kestrel's catalog offers no option for the test requirement");
+  const input = chooseArrangementSchema.parse({
+    idempotencyKey: randomUUID(),
+    requirement,
+    option: { cellSku: option.cell.sku, topology: option.topology, seriesCount: option.seriesCount, parallelCount: option.parallelCount },
+  });
+  const result = await createQuoteFromChoice(ctx, input);
+  if (!result.ok || result.data.kind !== "quote") throw new Error(`expected a quote, got ${JSON.stringify(result)}`);
+  const quoteNumber = result.data.quoteNumber;
+  const [row] = await db
+    .select({ id: emailOutbox.id })
+    .from(emailOutbox)
+    .innerJoin(quoteRevisions, eq(quoteRevisions.id, emailOutbox.quoteRevisionId))
+    .innerJoin(quotes, eq(quotes.id, quoteRevisions.quoteId))
+    .where(and(eq(emailOutbox.shopId, ctx.shop.id), eq(quotes.shopId, ctx.shop.id), eq(quotes.number, quoteNumber)));
+  if (!row) throw new Error(`no outbox row for ${quoteNumber}`);
+  return { shopId: ctx.shop.id, outboxId: row.id, quoteNumber };
+}
+
+async function outboxRow(shopId: string, id: string) {
+  const row = await getOutboxRow(shopId, id);
+  if (!row) throw new Error(`outbox row ${id} vanished`);
+  return row;
+}
+
+/** Every job the queue holds for an outbox row (the dispatcher keys them by the row's id). */
+async function jobsFor(outboxId: string): Promise<{ state: string }[]> {
+  const result = await db.execute<{ state: string }>(sql`SELECT state::text AS state FROM ${sql.identifier(PGBOSS_SCHEMA)}.job WHERE name = ${MAIL_QUEUE} AND singleton_key = ${outboxId}`);
+  return result.rows;
+}
+
+beforeAll(async () => {
+  smtpPort = await freePort();
+  webPort = await freePort();
+  mailDir = fs.mkdtempSync(path.join(os.tmpdir(), "faradsmith-mail-test-"));
+  // short waits so an outage of a few seconds is retried several times within the test
+  configureMail({ smtpHost: "127.0.0.1", smtpPort, smtpTimeoutSeconds: 5, retryLimit: 8, retryDelaySeconds: 1, retryBackoff: true, pollingIntervalSeconds: 0.5 });
+});
+
+afterAll(async () => {
+  await stopMailWorker();
+  await stopMaildev();
+  fs.rmSync(mailDir, { recursive: true, force: true });
+});
+
+describe("e-mail through the outbox and the job queue", () => {
+  it("waits while the SMTP server is down, then delivers exactly once when it is back", { timeout: 120_000 }, async () => {
+    expect(await portOpen(smtpPort)).toBe(false);
+    await startMailWorker({ retryOnFailure: false });
+    const { shopId, outboxId, quoteNumber } = await makeQuote();
+
+    // down: attempts grow, the row keeps waiting with the reason, nothing is lost
+    const waiting = await waitFor("two failed attempts", () => outboxRow(shopId, outboxId), (r) => r.attempts >= 2);
+    expect(waiting.status).toBe("waiting");
+    expect(waiting.sentAt).toBeNull();
+    expect(waiting.lastError).toMatch(/ECONNREFUSED/);
+    expect(await jobsFor(outboxId)).toEqual([{ state: "retry" }]);
+
+    // back up: the next retry delivers it
+    await startMaildev();
+    const sent = await waitFor("the row to be sent", () => outboxRow(shopId, outboxId), (r) => r.status === "sent");
+    expect(sent.attempts).toBeGreaterThanOrEqual(3);
+    expect(sent.sentAt).not.toBeNull();
+    expect(sent.messageId).toBe(outboxMessageId(outboxId, mailSettings().from));
+
+    // more dispatches and a late delivery attempt change nothing
+    await dispatchOutbox();
+    expect(await deliverOutboxRow(shopId, outboxId)).toBe("skipped");
+    await waitFor("the job to complete", () => jobsFor(outboxId), (jobs) => jobs.length === 1 && jobs[0]?.state === "completed");
+
+    const mails = await messagesFor(quoteNumber);
+    expect(mails).toHaveLength(1);
+    const mail = mails[0]!;
+    expect(mail.to.map((t) => t.address)).toEqual([CUSTOMER]);
+    expect(mail.subject).toBe(`Your quote ${quoteNumber} (revision 1) is ready`);
+    expect(mail.headers["message-id"]).toBe(sent.messageId);
+    const pdfs = (mail.attachments ?? []).filter((a) => a.contentType === "application/pdf");
+    expect(pdfs).toHaveLength(1);
+    expect(pdfs[0]!.filename).toContain(quoteNumber);
+    // the attachment is a PDF file (ISO 32000-1 §7.5.2: a PDF starts with the header "%PDF-")
+    const res = await fetch(`http://127.0.0.1:${webPort}/api/email/${mail.id}/attachment/${pdfs[0]!.generatedFileName}`);
+    expect(res.status).toBe(200);
+    const bytes = Buffer.from(await res.arrayBuffer());
+    expect(bytes.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    expect(bytes.length).toBeGreaterThan(1000);
+  });
+
+  it("queues a row once however often it is dispatched, and two racing deliveries send it once", { timeout: 120_000 }, async () => {
+    await stopMailWorker();
+    if (!maildev) await startMaildev();
+    const { shopId, outboxId, quoteNumber } = await makeQuote(); // dispatches once
+    await dispatchOutbox();
+    await Promise.all([dispatchOutbox(), dispatchOutbox()]);
+    expect(await jobsFor(outboxId)).toEqual([{ state: "created" }]);
+
+    const outcomes = await Promise.all([deliverOutboxRow(shopId, outboxId), deliverOutboxRow(shopId, outboxId)]);
+    expect(outcomes.sort()).toEqual(["sent", "skipped"]);
+    const row = await outboxRow(shopId, outboxId);
+    expect(row.status).toBe("sent");
+    expect(row.attempts).toBe(1);
+
+    // the queued job, when a worker takes it, finds the row sent and sends nothing
+    await startMailWorker({ retryOnFailure: false });
+    await waitFor("the job to complete", () => jobsFor(outboxId), (jobs) => jobs[0]?.state === "completed");
+    expect(await messagesFor(quoteNumber)).toHaveLength(1);
+  });
+
+  it("after the last attempt the row is failed with the reason, and is not sent later", { timeout: 60_000 }, async () => {
+    await stopMailWorker();
+    const closed = await freePort();
+    configureMail({ smtpPort: closed });
+    try {
+      const { shopId, outboxId, quoteNumber } = await makeQuote();
+      await expect(deliverOutboxRow(shopId, outboxId)).rejects.toThrow(/ECONNREFUSED/);
+      expect(await outboxRow(shopId, outboxId)).toMatchObject({ status: "waiting", attempts: 1 });
+      await expect(deliverOutboxRow(shopId, outboxId, { final: true })).rejects.toThrow(/ECONNREFUSED/);
+      const failed = await outboxRow(shopId, outboxId);
+      expect(failed).toMatchObject({ status: "failed", attempts: 2, sentAt: null });
+      expect(failed.lastError).toMatch(/ECONNREFUSED/);
+
+      configureMail({ smtpPort });
+      expect(await deliverOutboxRow(shopId, outboxId)).toBe("skipped");
+      expect(await messagesFor(quoteNumber)).toHaveLength(0);
+    } finally {
+      configureMail({ smtpPort });
+    }
+  });
+});
+
+describe("the desk's outbox list", () => {
+  it("shows a shop only its own messages; another shop's row is not found", async () => {
+    const kestrel = await shopBySlug(K);
+    const marlow = await shopBySlug(M);
+    const mine = await listOutbox(kestrel.id, outboxListSchema.parse({ size: 100 }));
+    expect(mine.total).toBeGreaterThanOrEqual(3);
+    const theirs = await listOutbox(marlow.id, outboxListSchema.parse({ size: 100 }));
+    const mineIds = new Set(mine.rows.map((r) => r.id));
+    expect(theirs.rows.some((r) => mineIds.has(r.id))).toBe(false);
+    const someRow = mine.rows[0]!;
+    expect(await getOutboxRow(marlow.id, someRow.id)).toBeNull();
+    expect(await getOutboxRow(kestrel.id, someRow.id)).not.toBeNull();
+  });
+
+  it("filters by state and by recipient or subject, and sorts by attempts", async () => {
+    const kestrel = await shopBySlug(K);
+    const failed = await listOutbox(kestrel.id, outboxListSchema.parse({ status: "failed", size: 100 }));
+    expect(failed.total).toBeGreaterThanOrEqual(1);
+    expect(failed.rows.every((r) => r.status === "failed" && r.lastError)).toBe(true);
+    const bySearch = await listOutbox(kestrel.id, outboxListSchema.parse({ q: "TOLLMERE-TRAMWAYS", size: 100 }));
+    expect(bySearch.total).toBeGreaterThanOrEqual(3);
+    expect(bySearch.rows.every((r) => r.toEmail === CUSTOMER)).toBe(true);
+    const none = await listOutbox(kestrel.id, outboxListSchema.parse({ q: "100%_no-such", size: 100 }));
+    expect(none.total).toBe(0);
+    const sorted = await listOutbox(kestrel.id, outboxListSchema.parse({ sort: "attempts", dir: "desc", size: 100 }));
+    const attempts = sorted.rows.map((r) => r.attempts);
+    expect([...attempts].sort((a, b) => b - a)).toEqual(attempts);
+  });
+});
