@@ -149,6 +149,7 @@ CREATE TABLE "bank_requests" (
 	"notes" text DEFAULT '' NOT NULL,
 	"review_reasons" jsonb DEFAULT '[]'::jsonb NOT NULL,
 	"chosen_option" jsonb,
+	"idempotency_key" text,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
@@ -274,6 +275,7 @@ CREATE UNIQUE INDEX "catalog_components_shop_sku_uq" ON "catalog_components" USI
 CREATE INDEX "catalog_components_shop_kind_idx" ON "catalog_components" USING btree ("shop_id","kind");--> statement-breakpoint
 CREATE INDEX "bank_requests_shop_status_idx" ON "bank_requests" USING btree ("shop_id","status","created_at");--> statement-breakpoint
 CREATE INDEX "bank_requests_shop_customer_idx" ON "bank_requests" USING btree ("shop_id","customer_user_id");--> statement-breakpoint
+CREATE UNIQUE INDEX "bank_requests_shop_idempotency_uq" ON "bank_requests" USING btree ("shop_id","idempotency_key");--> statement-breakpoint
 CREATE UNIQUE INDEX "quote_lines_shop_revision_pos_uq" ON "quote_lines" USING btree ("shop_id","revision_id","position");--> statement-breakpoint
 CREATE UNIQUE INDEX "quote_revisions_shop_quote_rev_uq" ON "quote_revisions" USING btree ("shop_id","quote_id","revision");--> statement-breakpoint
 CREATE UNIQUE INDEX "quotes_shop_number_uq" ON "quotes" USING btree ("shop_id","number");--> statement-breakpoint

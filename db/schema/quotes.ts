@@ -21,10 +21,16 @@ export const bankRequests = pgTable(
     reviewReasons: jsonb().$type<string[]>().notNull().default([]),
     /** the option the customer chose, as the engine answered it (when it went to review) */
     chosenOption: jsonb().$type<Record<string, unknown>>(),
+    /** the client's token for one submit: a double submit finds the same request */
+    idempotencyKey: text(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow().$onUpdate(() => sql`now()`),
   },
-  (t) => [index("bank_requests_shop_status_idx").on(t.shopId, t.status, t.createdAt), index("bank_requests_shop_customer_idx").on(t.shopId, t.customerUserId)],
+  (t) => [
+    index("bank_requests_shop_status_idx").on(t.shopId, t.status, t.createdAt),
+    index("bank_requests_shop_customer_idx").on(t.shopId, t.customerUserId),
+    uniqueIndex("bank_requests_shop_idempotency_uq").on(t.shopId, t.idempotencyKey),
+  ],
 );
 
 /** Drawings and specifications uploaded with a request; the bytes live outside public/ (UPLOAD_DIR). */

@@ -50,7 +50,11 @@ export function billFor(option: ArrangementOption, cell: CatalogCellRow, boards:
       option.balancing.resistance !== null && option.balancing.count > 0
         ? { count: option.balancing.count, resistance: option.balancing.resistance, powerRating: option.balancing.powerRating ?? 0.25 }
         : null,
-    bleeder: option.discharge.bleeder ? { resistance: option.discharge.bleeder.resistance, power: option.discharge.bleeder.powerRating ?? option.discharge.bleeder.power } : null,
+    // A switched discharge circuit is engineered and priced by the shop, not by the watt (see SWITCHED_DISCHARGE_NOTE).
+    bleeder:
+      option.discharge.bleeder && !option.discharge.bleeder.switched
+        ? { resistance: option.discharge.bleeder.resistance, power: option.discharge.bleeder.powerRating ?? option.discharge.bleeder.power }
+        : null,
     activeBoards: option.balancing.activeBoard ? { sku: option.balancing.activeBoard.sku, count: option.balancing.activeBoard.count, unitCost: board?.unitCost ?? "" } : null,
     volumeM3: option.volume,
     quantity,
@@ -69,6 +73,8 @@ export function costModelOf(rules: PricingRules) {
     perBalancingResistor: Number(rules.balancingResistorCost),
   };
 }
+
+export const SWITCHED_DISCHARGE_NOTE = "The switched discharge circuit this bank needs is not in this price; the shop prices it separately.";
 
 export interface PricedOption extends Omit<ArrangementOption, "cellId"> {
   price: null | { amount: string; currency: string; perBank: string; quantity: number; tax: string; subtotal: string };
@@ -97,6 +103,7 @@ export async function findArrangements(shopId: string, requirement: Requirement)
       return { ...option, price: null, warnings: [...option.warnings, `Not priced automatically: ${priced.message}`] };
     }
     const p = priced.data;
+    if (option.discharge.bleeder?.switched) option = { ...option, warnings: [...option.warnings, SWITCHED_DISCHARGE_NOTE] };
     return { ...option, price: { amount: p.total, currency: p.currency, perBank: p.unitPrice, quantity: p.quantity, tax: p.tax, subtotal: p.subtotal } };
   });
   // Exact prices decide the order; the Pareto mark is over (price, mass, volume) of the options priced.

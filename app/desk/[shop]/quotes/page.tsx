@@ -1,10 +1,88 @@
-import { SectionPlaceholder } from "../_components/section-placeholder";
+import type { Metadata } from "next";
+import Link from "next/link";
+import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { listQuotes } from "@/db/queries/quotes";
+import { requireShopPage } from "@/lib/auth/context";
+import { formatMoney } from "@/lib/pricing";
+import { quoteListQuerySchema } from "@/lib/validation/quote";
 
-export default async function Page({ params }: { params: Promise<{ shop: string }> }) {
+export const metadata: Metadata = { title: "Quotes" };
+
+const STATUS_LABELS = { issued: "Issued", accepted: "Accepted", expired: "Expired", withdrawn: "Withdrawn" } as const;
+
+export default async function DeskQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
   const { shop } = await params;
+  const ctx = await requireShopPage(shop, "quote:read-all");
+  const q = quoteListQuerySchema.parse(await searchParams);
+  const { rows, total } = await listQuotes(ctx.shop.id, q);
+  const base = `/desk/${shop}/quotes`;
+  const keep = { q: q.q, status: q.status === "all" ? undefined : q.status, sort: q.sort, dir: q.dir, size: q.size === 20 ? undefined : q.size };
   return (
-    <SectionPlaceholder shop={shop} path="quotes">
-      <p>Every quote by number and revision (Q-2026-0001 r1…), its customer, total, validity and state, with its PDF; issuing a new revision freezes its figures and prices.</p>
-    </SectionPlaceholder>
+    <div className="space-y-6">
+      <div>
+        <h1 className="text-2xl font-semibold">Quotes</h1>
+        <p className="mt-1 text-sm text-ink-600">Every quote {ctx.shop.name} has issued, with its current revision, total and validity.</p>
+      </div>
+      <form method="get" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100" role="search">
+        <div>
+          <label htmlFor="q" className="block text-xs font-medium text-ink-700">Number or customer</label>
+          <input id="q" name="q" defaultValue={q.q} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm" />
+        </div>
+        <div>
+          <label htmlFor="status" className="block text-xs font-medium text-ink-700">Status</label>
+          <select id="status" name="status" defaultValue={q.status} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
+            <option value="all">All</option>
+            <option value="issued">Issued</option>
+            <option value="accepted">Accepted</option>
+            <option value="expired">Expired</option>
+            <option value="withdrawn">Withdrawn</option>
+          </select>
+        </div>
+        <input type="hidden" name="sort" value={q.sort} />
+        <input type="hidden" name="dir" value={q.dir} />
+        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
+      </form>
+      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
+        <table className="w-full text-sm">
+          <thead className="bg-ink-50 text-ink-700">
+            <tr>
+              <SortHeader base={base} params={keep} sortKey="number" label="Quote" sort={q.sort} dir={q.dir} />
+              <th scope="col" className="px-3 py-2 text-left font-medium">Customer</th>
+              <th scope="col" className="px-3 py-2 text-left font-medium">Status</th>
+              <th scope="col" className="px-3 py-2 text-right font-medium">Banks</th>
+              <SortHeader base={base} params={keep} sortKey="total" label="Total" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="validUntil" label="Valid until" sort={q.sort} dir={q.dir} />
+              <SortHeader base={base} params={keep} sortKey="created" label="Issued" sort={q.sort} dir={q.dir} />
+            </tr>
+          </thead>
+          <tbody>
+            {rows.length === 0 ? (
+              <tr>
+                <td colSpan={7} className="px-3 py-6 text-center text-ink-500">No quotes match.</td>
+              </tr>
+            ) : (
+              rows.map((r) => (
+                <tr key={r.id} className="border-t border-ink-100" data-testid={`desk-quote-${r.number}`}>
+                  <td className="px-3 py-2">
+                    <Link href={`/s/${shop}/quotes/${r.number}`} className="font-medium text-copper-700 hover:underline">{r.number}</Link>
+                    <span className="ml-1 text-ink-500">r{r.revision}</span>
+                  </td>
+                  <td className="px-3 py-2">
+                    {r.customerName}
+                    <span className="block text-xs text-ink-500">{r.customerEmail}</span>
+                  </td>
+                  <td className="px-3 py-2">{STATUS_LABELS[r.status]}</td>
+                  <td className="num px-3 py-2 text-right">{r.quantity}</td>
+                  <td className="num px-3 py-2">{formatMoney(r.total, r.currency)}</td>
+                  <td className="num px-3 py-2">{r.validUntil}</td>
+                  <td className="num px-3 py-2 text-ink-600">{r.createdAt.toISOString().slice(0, 10)}</td>
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+      <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
+    </div>
   );
 }

@@ -1,10 +1,94 @@
-import { SectionPlaceholder } from "../_components/section-placeholder";
+import type { Metadata } from "next";
+import Link from "next/link";
+import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { listRequests } from "@/db/queries/requests";
+import { requireShopPage } from "@/lib/auth/context";
+import { formatQuantity } from "@/lib/quantities";
+import { requestListQuerySchema } from "@/lib/validation/quote";
 
-export default async function Page({ params }: { params: Promise<{ shop: string }> }) {
+export const metadata: Metadata = { title: "Requests" };
+
+function StatusBadge({ status }: { status: "quoted" | "needs-review" | "closed" }) {
+  if (status === "needs-review") return <span className="inline-flex whitespace-nowrap rounded-full bg-hazard-100 px-2 py-0.5 text-xs font-semibold text-hazard-700 ring-1 ring-hazard-500">Needs review</span>;
+  if (status === "quoted") return <span className="inline-flex rounded-full bg-charge-100 px-2 py-0.5 text-xs font-medium text-charge-700">Quoted</span>;
+  return <span className="inline-flex rounded-full bg-ink-100 px-2 py-0.5 text-xs font-medium text-ink-700">Closed</span>;
+}
+
+export default async function DeskRequestsPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
   const { shop } = await params;
+  const ctx = await requireShopPage(shop, "request:read-all");
+  const q = requestListQuerySchema.parse(await searchParams);
+  const { rows, total } = await listRequests(ctx.shop.id, q);
+  const base = `/desk/${shop}/requests`;
+  const keep = { status: q.status === "all" ? undefined : q.status, sort: q.sort, dir: q.dir, size: q.size === 20 ? undefined : q.size };
   return (
-    <SectionPlaceholder shop={shop} path="requests">
-      <p>A sortable, filterable list of bank requests: the customer, the requirement in brief, the options the engine found, and a &ldquo;needs review&rdquo; mark for requests beyond the auto-quote limits. Estimators open one to adjust the arrangement and issue a quote.</p>
-    </SectionPlaceholder>
+    <div className="space-y-6">
+      <div>
+        <h1 className="text-2xl font-semibold">Requests</h1>
+        <p className="mt-1 text-sm text-ink-600">Customers&apos; bank requests. Those beyond the shop&apos;s auto-quote limits, or with no option that fits, wait here for an estimator.</p>
+      </div>
+      <form method="get" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100" role="search">
+        <div>
+          <label htmlFor="status" className="block text-xs font-medium text-ink-700">Status</label>
+          <select id="status" name="status" defaultValue={q.status} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
+            <option value="all">All</option>
+            <option value="needs-review">Needs review</option>
+            <option value="quoted">Quoted</option>
+            <option value="closed">Closed</option>
+          </select>
+        </div>
+        <input type="hidden" name="sort" value={q.sort} />
+        <input type="hidden" name="dir" value={q.dir} />
+        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
+      </form>
+      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
+        <table className="w-full text-sm">
+          <thead className="bg-ink-50 text-ink-700">
+            <tr>
+              <SortHeader base={base} params={keep} sortKey="created" label="Received" sort={q.sort} dir={q.dir} />
+              <th scope="col" className="px-3 py-2 text-left font-medium">Customer</th>
+              <SortHeader base={base} params={keep} sortKey="voltage" label="Voltage" sort={q.sort} dir={q.dir} />
+              <th scope="col" className="px-3 py-2 text-right font-medium">Banks</th>
+              <SortHeader base={base} params={keep} sortKey="status" label="Status" sort={q.sort} dir={q.dir} />
+              <th scope="col" className="px-3 py-2 text-left font-medium">Quote or reasons</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.length === 0 ? (
+              <tr>
+                <td colSpan={6} className="px-3 py-6 text-center text-ink-500">No requests match.</td>
+              </tr>
+            ) : (
+              rows.map((r) => (
+                <tr key={r.id} className={`border-t border-ink-100 align-top ${r.status === "needs-review" ? "bg-hazard-100/40" : ""}`} data-testid={`request-${r.id}`} data-status={r.status}>
+                  <td className="num whitespace-nowrap px-3 py-2 text-ink-600">{r.createdAt.toISOString().slice(0, 16).replace("T", " ")}</td>
+                  <td className="px-3 py-2">
+                    {r.customerName}
+                    <span className="block text-xs text-ink-500">{r.customerEmail}</span>
+                  </td>
+                  <td className="num px-3 py-2">{formatQuantity(r.maxVoltage, "V")}</td>
+                  <td className="num px-3 py-2 text-right">{r.quantity}</td>
+                  <td className="px-3 py-2"><StatusBadge status={r.status} /></td>
+                  <td className="px-3 py-2">
+                    {r.quoteNumber ? (
+                      <Link href={`/s/${shop}/quotes/${r.quoteNumber}`} className="font-medium text-copper-700 hover:underline">{r.quoteNumber}</Link>
+                    ) : r.reviewReasons.length > 0 ? (
+                      <ul className="list-disc space-y-0.5 pl-4 text-ink-700">
+                        {r.reviewReasons.map((reason) => (
+                          <li key={reason}>{reason}</li>
+                        ))}
+                      </ul>
+                    ) : (
+                      <span className="text-ink-500">—</span>
+                    )}
+                  </td>
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+      <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
+    </div>
   );
 }

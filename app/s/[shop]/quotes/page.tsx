@@ -1,19 +1,36 @@
 import type { Metadata } from "next";
-import { Placeholder } from "@/components/ui/placeholder";
+import { notFound } from "next/navigation";
+import { Suspense } from "react";
+import { QueryProvider } from "@/components/providers/query-provider";
+import { QuoteTable } from "@/components/quotes/quote-table";
+import { listCustomerQuotes, listQuotes } from "@/db/queries/quotes";
 import { requireShopPage } from "@/lib/auth/context";
+import { quoteScope } from "@/lib/quoting/access";
+import { quoteListQuerySchema } from "@/lib/validation/quote";
 
 export const metadata: Metadata = { title: "My quotes" };
 
-export default async function MyQuotesPage({ params }: { params: Promise<{ shop: string }> }) {
+export default async function MyQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
   const { shop } = await params;
-  const ctx = await requireShopPage(shop, "quote:read-own", `/s/${shop}/quotes`);
+  const ctx = await requireShopPage(shop, undefined, `/s/${shop}/quotes`);
+  const scope = quoteScope(ctx);
+  if (!scope) notFound();
+  const q = quoteListQuerySchema.parse(await searchParams);
+  const first = scope.all ? await listQuotes(ctx.shop.id, q) : await listCustomerQuotes(ctx.shop.id, scope.userId, q);
+  const initial = { total: first.total, rows: first.rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })) };
   return (
     <div className="space-y-6">
-      <h1 className="text-2xl font-semibold">My quotes</h1>
-      <p className="text-sm text-ink-600">Signed in as {ctx.user.email}.</p>
-      <Placeholder title="Your quotes and orders">
-        <p>Every quote {ctx.shop.name} sends you will be listed here — number, revision, arrangement, total and validity — with its PDF, and the orders you placed with their build status.</p>
-      </Placeholder>
+      <div>
+        <h1 className="text-2xl font-semibold">{scope.all ? "Quotes" : "My quotes"}</h1>
+        <p className="mt-1 text-sm text-ink-600">
+          {scope.all ? `Every quote ${ctx.shop.name} has issued.` : `Every quote ${ctx.shop.name} has sent you, with its PDF. Signed in as ${ctx.user.email}.`}
+        </p>
+      </div>
+      <QueryProvider>
+        <Suspense>
+          <QuoteTable shop={shop} initial={initial} initialQuery={q} showCustomer={scope.all} />
+        </Suspense>
+      </QueryProvider>
     </div>
   );
 }

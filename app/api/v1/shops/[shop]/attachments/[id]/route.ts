@@ -1,0 +1,28 @@
+import { getAttachment } from "@/db/queries/attachments";
+import { jsonError } from "@/lib/auth/api";
+import { maySeeOwned, withQuoteReader } from "@/lib/quoting/access";
+import { attachmentStream } from "@/lib/quoting/attachment-store";
+import { contentDisposition } from "@/lib/quoting/attachment-type";
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/**
+ * GET /api/v1/shops/{shop}/attachments/{id} — the file, to the customer who uploaded it and to the
+ * shop's staff; 404 to anyone else in the shop (ids cannot be probed).
+ */
+export async function GET(request: Request, { params }: { params: Promise<{ shop: string; id: string }> }) {
+  const { shop, id } = await params;
+  return withQuoteReader(request, shop, async (ctx) => {
+    const row = UUID.test(id) ? await getAttachment(ctx.shop.id, id) : null;
+    if (!row || !maySeeOwned(ctx, row.uploadedByUserId, "request:read-all")) return jsonError(404, "No such attachment.");
+    return new Response(attachmentStream(row.storageKey), {
+      headers: {
+        "content-type": row.contentType,
+        "content-length": String(row.sizeBytes),
+        "content-disposition": contentDisposition(row.fileName),
+        "x-content-type-options": "nosniff",
+        "cache-control": "private, no-store",
+      },
+    });
+  });
+}

@@ -1,0 +1,68 @@
+import { createAttachment } from "@/db/queries/attachments";
+import { jsonError, withShopApi } from "@/lib/auth/api";
+import { storeAttachmentBytes } from "@/lib/quoting/attachment-store";
+import { MAX_ATTACHMENT_BYTES, cleanFileName, detectAttachmentType } from "@/lib/quoting/attachment-type";
+
+/** Room for the multipart boundaries and part headers around one file. */
+const MULTIPART_OVERHEAD = 64 * 1024;
+
+const tooLarge = () => jsonError(400, "A file may be at most 10 MB.", [{ path: "file", message: "The file is larger than 10 MB." }]);
+
+/** Reads the body up to a limit without trusting Content-Length; null when it is larger. */
+async function readLimited(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer> | null> {
+  if (Number(request.headers.get("content-length") ?? "0") > limit) return null;
+  if (!request.body) return new Uint8Array();
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limit) {
+      await reader.cancel().catch(() => undefined);
+      return null;
+    }
+    chunks.push(value);
+  }
+  return new Uint8Array(Buffer.concat(chunks));
+}
+
+/**
+ * POST /api/v1/shops/{shop}/attachments — multipart `file`: a drawing or specification (PDF, PNG,
+ * JPEG, DXF; at most 10 MB; judged by content) → 201 { id, fileName, sizeBytes, contentType }.
+ */
+export async function POST(request: Request, { params }: { params: Promise<{ shop: string }> }) {
+  const { shop } = await params;
+  return withShopApi(request, shop, "request:create", async (ctx) => {
+    const contentType = request.headers.get("content-type") ?? "";
+    if (!contentType.toLowerCase().startsWith("multipart/form-data")) {
+      return jsonError(400, "Send the file as multipart/form-data in a field named file.", [{ path: "file", message: "Expected multipart/form-data" }]);
+    }
+    const body = await readLimited(request, MAX_ATTACHMENT_BYTES + MULTIPART_OVERHEAD);
+    if (body === null) return tooLarge();
+    let form: FormData;
+    try {
+      form = await new Response(body, { headers: { "content-type": contentType } }).formData();
+    } catch {
+      return jsonError(400, "The upload could not be read.", [{ path: "file", message: "Malformed multipart body" }]);
+    }
+    const file = form.get("file");
+    if (!(file instanceof File)) return jsonError(400, "Choose a file to attach.", [{ path: "file", message: "No file" }]);
+    if (file.size > MAX_ATTACHMENT_BYTES) return tooLarge();
+    const bytes = new Uint8Array(await file.arrayBuffer());
+    const type = await detectAttachmentType(bytes);
+    if (!type.ok) return jsonError(400, type.reason, [{ path: "file", message: type.reason }]);
+    const stored = await storeAttachmentBytes(ctx.shop.id, bytes);
+    const row = await createAttachment(ctx.shop.id, {
+      id: stored.id,
+      uploadedByUserId: ctx.user.id,
+      fileName: cleanFileName(file.name, type.extension),
+      contentType: type.contentType,
+      sizeBytes: bytes.byteLength,
+      sha256: stored.sha256,
+      storageKey: stored.storageKey,
+    });
+    return Response.json(row, { status: 201 });
+  });
+}

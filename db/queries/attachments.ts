@@ -1,0 +1,41 @@
+import "server-only";
+import { and, asc, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { requestAttachments } from "@/db/schema";
+
+export interface NewAttachment {
+  id: string;
+  uploadedByUserId: string;
+  fileName: string;
+  contentType: string;
+  sizeBytes: number;
+  sha256: string;
+  storageKey: string;
+}
+
+export async function createAttachment(shopId: string, a: NewAttachment) {
+  const [row] = await db
+    .insert(requestAttachments)
+    .values({ shopId, ...a })
+    .returning({ id: requestAttachments.id, fileName: requestAttachments.fileName, sizeBytes: requestAttachments.sizeBytes, contentType: requestAttachments.contentType });
+  if (!row) throw new Error("attachment insert returned no row");
+  return row;
+}
+
+/** One attachment of the shop; null when it is another shop's or does not exist. */
+export async function getAttachment(shopId: string, attachmentId: string) {
+  const [row] = await db
+    .select()
+    .from(requestAttachments)
+    .where(and(eq(requestAttachments.shopId, shopId), eq(requestAttachments.id, attachmentId)))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function listRequestAttachments(shopId: string, requestId: string) {
+  return db
+    .select({ id: requestAttachments.id, fileName: requestAttachments.fileName, sizeBytes: requestAttachments.sizeBytes, contentType: requestAttachments.contentType })
+    .from(requestAttachments)
+    .where(and(eq(requestAttachments.shopId, shopId), eq(requestAttachments.requestId, requestId)))
+    .orderBy(asc(requestAttachments.createdAt));
+}

@@ -1,0 +1,67 @@
+import "server-only";
+import { and, asc, count, desc, eq, sql, type SQL } from "drizzle-orm";
+import { db } from "@/db";
+import { bankRequests, quotes, users } from "@/db/schema";
+import type { RequestListQuery } from "@/lib/validation/quote";
+
+export interface RequestListRow {
+  id: string;
+  status: "quoted" | "needs-review" | "closed";
+  customerName: string;
+  customerEmail: string;
+  maxVoltage: number;
+  quantity: number;
+  reviewReasons: string[];
+  quoteNumber: string | null;
+  createdAt: Date;
+}
+
+const voltage = sql<number>`(${bankRequests.requirement}->>'maxVoltage')::float8`;
+
+/** A page of the shop's requests with the customer and the quote made from each, if any. */
+export async function listRequests(shopId: string, q: RequestListQuery): Promise<{ rows: RequestListRow[]; total: number }> {
+  const where: SQL[] = [eq(bankRequests.shopId, shopId)];
+  if (q.status !== "all") where.push(eq(bankRequests.status, q.status));
+  const column = { created: bankRequests.createdAt, status: bankRequests.status, voltage }[q.sort];
+  const rows = await db
+    .select({
+      id: bankRequests.id,
+      status: bankRequests.status,
+      customerName: users.name,
+      customerEmail: users.email,
+      requirement: bankRequests.requirement,
+      reviewReasons: bankRequests.reviewReasons,
+      quoteNumber: quotes.number,
+      createdAt: bankRequests.createdAt,
+    })
+    .from(bankRequests)
+    .innerJoin(users, eq(users.id, bankRequests.customerUserId))
+    .leftJoin(quotes, and(eq(quotes.shopId, bankRequests.shopId), eq(quotes.requestId, bankRequests.id)))
+    .where(and(...where))
+    .orderBy(q.dir === "asc" ? asc(column) : desc(column), desc(bankRequests.createdAt), asc(bankRequests.id))
+    .limit(q.size)
+    .offset((q.page - 1) * q.size);
+  const [t] = await db.select({ n: count() }).from(bankRequests).where(and(...where));
+  return {
+    rows: rows.map(({ requirement, ...r }) => ({ ...r, maxVoltage: requirement.maxVoltage, quantity: requirement.quantity ?? 1 })),
+    total: t?.n ?? 0,
+  };
+}
+
+/** Requests waiting for an estimator, counted for the desk. */
+export async function countRequestsNeedingReview(shopId: string): Promise<number> {
+  const [t] = await db
+    .select({ n: count() })
+    .from(bankRequests)
+    .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.status, "needs-review")));
+  return t?.n ?? 0;
+}
+
+export async function getRequest(shopId: string, requestId: string) {
+  const [row] = await db
+    .select()
+    .from(bankRequests)
+    .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.id, requestId)))
+    .limit(1);
+  return row ?? null;
+}

@@ -1,0 +1,171 @@
+import type { RevisionWithLines } from "@/db/queries/quotes";
+import type { Requirement } from "@/lib/bank";
+import { formatMoney, type BankPrice } from "@/lib/pricing";
+import { formatQuantity } from "@/lib/quantities";
+import type { PricedOption } from "./arrangements";
+
+export interface LabelledValue {
+  label: string;
+  value: string;
+}
+
+export interface QuoteDocumentLine {
+  position: number;
+  description: string;
+  quantity: string;
+  unit: string;
+  unitPrice: string;
+  amount: string;
+}
+
+/**
+ * Everything a quote shows, already worded and formatted, from one frozen revision. The quote page
+ * and the PDF both render this, so they say the same thing. Pure: no database, no framework.
+ */
+export interface QuoteDocument {
+  shopName: string;
+  number: string;
+  revision: number;
+  issuedOn: string;
+  validUntil: string;
+  customerName: string;
+  customerEmail: string;
+  currency: string;
+  quantity: number;
+  requirement: LabelledValue[];
+  arrangement: LabelledValue[];
+  cell: LabelledValue[];
+  figures: LabelledValue[];
+  lines: QuoteDocumentLine[];
+  totals: LabelledValue[];
+  /** the order total, formatted (the last row of totals) */
+  total: string;
+  cautions: string[];
+  notes: string[];
+  /** the frozen option, for the diagram on the page */
+  option: PricedOption;
+}
+
+const TOPOLOGY_LABELS: Record<string, string> = {
+  "series-of-parallel-groups": "Series string of parallel groups",
+  "parallel-of-series-strings": "Parallel strings of series cells",
+};
+
+const TECHNOLOGY_LABELS: Record<string, string> = { edlc: "Supercapacitor (EDLC)", hybrid: "Hybrid capacitor", electrolytic: "Aluminium electrolytic", film: "Film" };
+
+const q = (value: number, unit: string) => formatQuantity(value, unit);
+const pct = (fraction: number) => `${String(Math.round(fraction * 1000) / 10)} %`;
+
+export function describeRequirement(r: Requirement): LabelledValue[] {
+  const out: LabelledValue[] = [{ label: "Maximum voltage", value: q(r.maxVoltage, "V") }];
+  if (r.minVoltage !== undefined) out.push({ label: "Minimum voltage", value: q(r.minVoltage, "V") });
+  if (r.capacitance !== undefined) out.push({ label: "Capacitance", value: q(r.capacitance, "F") });
+  if (r.energy !== undefined) out.push({ label: "Usable energy", value: q(r.energy, "J") });
+  if (r.backup) out.push({ label: "Backup", value: `${q(r.backup.power, "W")} for ${q(r.backup.seconds, "s")}` });
+  if (r.peakCurrent) out.push({ label: "Peak current", value: `${q(r.peakCurrent.current, "A")} with at most ${q(r.peakCurrent.maxDrop, "V")} drop` });
+  if (r.maxMass !== undefined) out.push({ label: "Mass limit", value: q(r.maxMass, "kg") });
+  if (r.maxVolume !== undefined) out.push({ label: "Volume limit", value: q(r.maxVolume, "m³") });
+  if (r.technology) out.push({ label: "Technology", value: TECHNOLOGY_LABELS[r.technology] ?? r.technology });
+  out.push({ label: "Quantity", value: `${r.quantity ?? 1} bank${(r.quantity ?? 1) === 1 ? "" : "s"}` });
+  return out;
+}
+
+function describeArrangement(o: PricedOption): LabelledValue[] {
+  const rows: LabelledValue[] = [
+    { label: "Topology", value: TOPOLOGY_LABELS[o.topology] ?? o.topology },
+    { label: "Cells in series", value: String(o.seriesCount) },
+    { label: "Cells in parallel", value: String(o.parallelCount) },
+    { label: "Cells per bank", value: String(o.cellCount) },
+  ];
+  const b = o.balancing;
+  if (b.activeBoard) rows.push({ label: "Balancing", value: `${b.activeBoard.count} × active board ${b.activeBoard.sku}` });
+  else if (b.resistance !== null && b.count > 0) rows.push({ label: "Balancing", value: `${b.count} × ${q(b.resistance, "ohm")} resistor${b.powerRating ? `, ${q(b.powerRating, "W")} rated` : ""}` });
+  else rows.push({ label: "Balancing", value: "None needed" });
+  const bl = o.discharge.bleeder;
+  rows.push({ label: "Bleeder", value: bl ? `${q(bl.resistance, "ohm")}${bl.powerRating ? `, ${q(bl.powerRating, "W")} rated` : ""}${bl.switched ? ", switched" : ""}` : "None" });
+  return rows;
+}
+
+function describeFigures(o: PricedOption): LabelledValue[] {
+  const rows: LabelledValue[] = [
+    { label: "Rated voltage", value: q(o.maxVoltage, "V") },
+    { label: "Capacitance (nominal)", value: q(o.capacitance.nominal, "F") },
+    { label: "Capacitance (end of life, worst case)", value: q(o.capacitance.design, "F") },
+    { label: "Stored energy at rating", value: q(o.storedEnergy, "J") },
+    { label: "Usable energy (end of life)", value: q(o.usableEnergy, "J") },
+    { label: "ESR (new / end of life)", value: `${q(o.esr.new, "ohm")} / ${q(o.esr.endOfLife, "ohm")}` },
+  ];
+  if (o.peakDrop !== null) rows.push({ label: "Drop at peak current", value: q(o.peakDrop, "V") });
+  if (o.backupSeconds !== undefined) rows.push({ label: "Backup time (end of life)", value: q(o.backupSeconds, "s") });
+  rows.push(
+    { label: "Worst-case cell voltage while charging", value: q(o.worstCellVoltage, "V") },
+    { label: "Time to safe voltage (worst case)", value: o.discharge.secondsToSafe > 0 ? q(o.discharge.secondsToSafe, "s") : "Works below the safe voltage" },
+    { label: "Mass", value: q(o.mass, "kg") },
+    { label: "Cell volume", value: q(o.volume, "m³") },
+    { label: "Lead time", value: `${o.leadTimeDays} days` },
+  );
+  return rows;
+}
+
+function describeCell(cell: Record<string, unknown>, o: PricedOption): LabelledValue[] {
+  const c = o.cell;
+  const text = (k: string) => (typeof cell[k] === "string" ? (cell[k] as string) : "");
+  return [
+    { label: "Part", value: c.sku },
+    { label: "Maker and series", value: `${text("manufacturer")} ${text("series")}`.trim() || "—" },
+    { label: "Technology", value: TECHNOLOGY_LABELS[c.technology] ?? c.technology },
+    { label: "Capacitance", value: `${q(c.capacitance, "F")} (−${pct(c.toleranceMinus)} / +${pct(c.tolerancePlus)})` },
+    { label: "Rated / surge voltage", value: `${q(c.ratedVoltage, "V")} / ${q(c.surgeVoltage, "V")}` },
+    { label: "ESR", value: q(c.esr, "ohm") },
+    { label: "Leakage current", value: q(c.leakageCurrent, "A") },
+    { label: "Mass", value: q(c.mass, "kg") },
+  ];
+}
+
+function describeTotals(p: BankPrice): LabelledValue[] {
+  const m = (a: string) => formatMoney(a, p.currency);
+  const rows: LabelledValue[] = [
+    { label: "Price per bank", value: m(p.unitPrice) },
+    { label: "Quantity", value: String(p.quantity) },
+  ];
+  if (p.discount !== "" && Number(p.discountPct) > 0) rows.push({ label: `Quantity discount (${p.discountPct} %)`, value: `−${m(p.discount)}` });
+  rows.push({ label: "Subtotal", value: m(p.subtotal) }, { label: `Tax (${p.taxPct} %)`, value: m(p.tax) }, { label: "Total", value: m(p.total) });
+  return rows;
+}
+
+/** The worded quote from a revision and its lines as stored. */
+export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
+  const r = rev.revision;
+  const option = r.arrangement as unknown as PricedOption;
+  const price = r.pricing as unknown as BankPrice;
+  const money = (a: string) => formatMoney(a, r.currency);
+  const totals = describeTotals(price);
+  return {
+    shopName: rev.shopName,
+    number: rev.quoteNumber,
+    revision: r.revision,
+    issuedOn: r.createdAt.toISOString().slice(0, 10),
+    validUntil: r.validUntil,
+    customerName: rev.customerName,
+    customerEmail: rev.customerEmail,
+    currency: r.currency,
+    quantity: r.quantity,
+    requirement: describeRequirement(r.requirement),
+    arrangement: describeArrangement(option),
+    cell: describeCell(r.cell, option),
+    figures: describeFigures(option),
+    lines: rev.lines.map((l) => ({
+      position: l.position,
+      description: l.description,
+      quantity: String(Number(l.quantity)),
+      unit: l.unit,
+      unitPrice: money(l.unitPrice),
+      amount: money(l.amount),
+    })),
+    totals,
+    total: money(r.total),
+    cautions: option.cautions ?? [],
+    notes: option.warnings ?? [],
+    option,
+  };
+}
