@@ -124,9 +124,10 @@ test.describe("each role reaches its own pages and is refused the others'", () =
     expect(await api.json()).toHaveProperty("error");
   });
 
-  test("staff are refused the customer's quotes page", async ({ page }) => {
+  test("staff see the shop's quotes where a customer sees only their own", async ({ page }) => {
     await signIn(page, kestrel.estimator);
     await page.goto(`/s/${K}/quotes`);
-    await expect(page.getByRole("heading", { name: "This page is not open to your role" })).toBeVisible();
+    await expect(page.getByRole("heading", { name: "Quotes", exact: true })).toBeVisible();
+    await expect(page.getByRole("heading", { name: "My quotes" })).toHaveCount(0);
   });
 });

@@ -1,17 +1,27 @@
 import { count, eq, and } from "drizzle-orm";
 import { notFound } from "next/navigation";
-import { Placeholder } from "@/components/ui/placeholder";
 import { db } from "@/db";
 import { catalogCells } from "@/db/schema";
 import { getShopSettings } from "@/db/queries/shops";
-import { getShopBySlug } from "@/lib/auth/context";
+import { getShopContext } from "@/lib/auth/context";
+import { TECH_LABELS } from "./_components/labels";
+import { StorefrontJourney } from "./_components/storefront-journey";
+import type { Viewer } from "./_components/viewer";
 
-const TECH_LABELS = { edlc: "Supercapacitor (EDLC)", hybrid: "Hybrid lithium-ion capacitor", electrolytic: "Aluminium electrolytic", film: "Film" } as const;
-
-export default async function StorefrontPage({ params }: { params: Promise<{ shop: string }> }) {
+export default async function StorefrontPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<{ resume?: string }> }) {
   const { shop: slug } = await params;
-  const shop = await getShopBySlug(slug);
-  if (!shop) notFound();
+  const sp = await searchParams;
+  const r = await getShopContext(slug);
+  if (r.status === "no-shop") notFound();
+  const shop = r.status === "ok" ? r.ctx.shop : r.shop;
+  const viewer: Viewer =
+    r.status === "ok"
+      ? r.ctx.role === "customer"
+        ? { kind: "customer", email: r.ctx.user.email }
+        : { kind: "staff", email: r.ctx.user.email }
+      : r.status === "not-member"
+        ? { kind: "not-member", email: r.user.email }
+        : { kind: "visitor" };
   const settings = await getShopSettings(shop.id);
   const families = await db
     .select({ technology: catalogCells.technology, n: count() })
@@ -36,16 +46,7 @@ export default async function StorefrontPage({ params }: { params: Promise<{ sho
           ))}
         </ul>
       </section>
-      <Placeholder title="Describe your bank">
-        <p>
-          Here you will state what the bank must do — working and minimum voltage; capacitance, usable energy or backup power for a
-          time; peak current and allowed voltage drop; size and mass limits; quantity — and compare the arrangements this shop can
-          build, with charts, cautions and prices. Exploring needs no account; choosing an arrangement asks you to sign in.
-        </p>
-        <p>
-          Until then the arrangement engine answers at <code className="font-mono text-xs">POST /api/v1/shops/{slug}/arrangements</code>.
-        </p>
-      </Placeholder>
+      <StorefrontJourney slug={slug} shopName={shop.name} viewer={viewer} resume={sp.resume === "1"} />
     </div>
   );
 }

@@ -9,7 +9,7 @@ import { FormMessage, TextField } from "@/components/ui/field";
 import { joinShopSchema, type JoinShopInput } from "@/lib/validation/auth";
 import { joinShop } from "../actions";
 
-export function JoinShopForm({ slug, signedInAs }: { slug: string; signedInAs: string | null }) {
+export function JoinShopForm({ slug, signedInAs, next }: { slug: string; signedInAs: string | null; next?: string }) {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -22,7 +22,7 @@ export function JoinShopForm({ slug, signedInAs }: { slug: string; signedInAs: s
     setMessage(null);
     const result = await joinShop(slug, values);
     if (result.ok) {
-      router.push(`/s/${slug}`);
+      router.push(next ?? `/s/${slug}`);
       router.refresh();
       return;
     }
@@ -62,7 +62,7 @@ export function JoinShopForm({ slug, signedInAs }: { slug: string; signedInAs: s
         {formState.isSubmitting ? "Creating your account…" : "Create my account"}
       </Button>
       <p className="text-center text-sm text-ink-600">
-        Have an account? <Link href={`/sign-in?shop=${slug}&next=/s/${slug}/join`} className="font-medium text-copper-700 hover:underline">Sign in</Link>
+        Have an account? <Link href={`/sign-in?shop=${slug}&next=${encodeURIComponent(next ?? `/s/${slug}/join`)}`} className="font-medium text-copper-700 hover:underline">Sign in</Link>
       </p>
     </form>
   );

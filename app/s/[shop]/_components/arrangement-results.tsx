@@ -1,0 +1,149 @@
+"use client";
+import { useDeferredValue } from "react";
+import { BankDiagram } from "@/components/bank-diagram/bank-diagram";
+import { CellVoltageChart } from "@/components/charts/cell-voltage-chart";
+import { DischargeChart } from "@/components/charts/discharge-chart";
+import { PriceMassChart } from "@/components/charts/price-mass-chart";
+import { formatQuantity as q } from "@/lib/quantities";
+import type { ExploreResult } from "../actions";
+import { ChoosePanel } from "./choose-panel";
+import { arrangementLabel, optionId, TECH_LABELS, TOPOLOGY_LABELS } from "./labels";
+import { OptionCautions, OptionFigures } from "./option-figures";
+import { OptionTable } from "./option-table";
+import type { Viewer } from "./viewer";
+
+function describeRequirement(r: ExploreResult["requirement"]): string {
+  const parts = [`${q(r.maxVoltage, "V")}`];
+  if (r.capacitance !== undefined) parts.push(`${q(r.capacitance, "F")}`);
+  if (r.energy !== undefined) parts.push(`${q(r.energy, "J")} usable`);
+  if (r.backup) parts.push(`${q(r.backup.power, "W")} for ${q(r.backup.seconds, "s")}`);
+  if (r.minVoltage) parts.push(`down to ${q(r.minVoltage, "V")}`);
+  if (r.peakCurrent) parts.push(`${q(r.peakCurrent.current, "A")} peak with at most ${q(r.peakCurrent.maxDrop, "V")} drop`);
+  if (r.technology) parts.push(TECH_LABELS[r.technology].toLowerCase());
+  parts.push(`quantity ${r.quantity}`);
+  return parts.join(", ");
+}
+
+export function ArrangementResults({
+  slug,
+  viewer,
+  result,
+  focus,
+  attachmentIds,
+  onFocus,
+  onBeforeSignIn,
+  onQuoted,
+}: {
+  slug: string;
+  viewer: Viewer;
+  result: ExploreResult;
+  focus: string | null;
+  attachmentIds: string[];
+  onFocus: (id: string) => void;
+  onBeforeSignIn: (focus: string | null) => void;
+  onQuoted: () => void;
+}) {
+  const { options, requirement, currency, designFactors } = result;
+  const focused = options.find((o) => optionId(o) === focus) ?? options[0] ?? null;
+  // The table shows first; the diagram and charts render just after, at lower priority.
+  const shown = useDeferredValue(focused, null);
+
+  if (!focused) {
+    return (
+      <section aria-labelledby="results" className="space-y-4 rounded-lg bg-white p-5 shadow-sm ring-1 ring-ink-100">
+        <h2 id="results" className="text-xl font-semibold">
+          No arrangement from stock fits
+        </h2>
+        <p className="text-sm text-ink-600">For {describeRequirement(requirement)}:</p>
+        <ul className="list-disc space-y-1 pl-5 text-sm text-ink-800" data-testid="no-fit-reasons">
+          {result.reasons.map((r) => (
+            <li key={r}>{r}</li>
+          ))}
+        </ul>
+        <p className="text-sm text-ink-600">The shop&apos;s estimators can look at it: they may order other cells or suggest a change.</p>
+        <ChoosePanel
+          slug={slug}
+          viewer={viewer}
+          choiceId="review"
+          option={null}
+          requirement={requirement}
+          notes={result.notes}
+          attachmentIds={attachmentIds}
+          onBeforeSignIn={() => onBeforeSignIn(null)}
+          onQuoted={onQuoted}
+        />
+      </section>
+    );
+  }
+
+  const id = optionId(focused);
+  const shownId = shown ? optionId(shown) : id;
+  return (
+    <section aria-labelledby="results" className="space-y-6">
+      <div>
+        <h2 id="results" className="text-xl font-semibold">
+          {options.length} arrangement{options.length === 1 ? "" : "s"} from stock
+        </h2>
+        <p className="text-sm text-ink-600">For {describeRequirement(requirement)}. Ranked by price; choose a row to see it drawn and charted.</p>
+      </div>
+      <OptionTable options={options} currency={currency} focus={id} onFocus={onFocus} />
+
+      {shown === null ? (
+        <div className="h-96 animate-pulse rounded-lg bg-white ring-1 ring-ink-100" aria-hidden="true" />
+      ) : (
+        <>
+          <article aria-labelledby="focused" className="space-y-6 rounded-lg bg-white p-5 shadow-sm ring-1 ring-ink-100 sm:p-6" data-testid="focused-option">
+            <div className="flex flex-wrap items-start justify-between gap-4">
+              <div>
+                <h3 id="focused" className="text-lg font-semibold">
+                  {shown.cell.sku}: {arrangementLabel(shown)}, {TOPOLOGY_LABELS[shown.topology]}
+                </h3>
+                <p className="text-sm text-ink-600">
+                  {shown.cellCount} cells · {q(shown.capacitance.design, "F")} design · {q(shown.usableEnergy, "J")} usable
+                  {shown.longerLife ? " · one extra cell in series for a longer life" : ""}
+                </p>
+              </div>
+              <ChoosePanel
+                key={shownId}
+                slug={slug}
+                viewer={viewer}
+                choiceId={shownId}
+                option={{ cellSku: shown.cell.sku, topology: shown.topology, seriesCount: shown.seriesCount, parallelCount: shown.parallelCount }}
+                requirement={requirement}
+                notes={result.notes}
+                attachmentIds={attachmentIds}
+                onBeforeSignIn={() => onBeforeSignIn(shownId)}
+                onQuoted={onQuoted}
+              />
+            </div>
+            <OptionCautions option={shown} />
+            <BankDiagram
+              topology={shown.topology}
+              seriesCount={shown.seriesCount}
+              parallelCount={shown.parallelCount}
+              cellLabel={shown.cell.sku}
+              balancing={shown.balancing}
+              bleeder={shown.discharge.bleeder}
+            />
+            <div className="grid gap-6 lg:grid-cols-2">
+              <CellVoltageChart option={shown} maxVoltage={requirement.maxVoltage} />
+              <DischargeChart option={shown} requirement={requirement} safeVoltage={designFactors.safeVoltage} />
+            </div>
+            <OptionFigures option={shown} requirement={requirement} factors={designFactors} currency={currency} />
+          </article>
+
+          <section aria-label="Price against mass" className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-ink-100 sm:p-6">
+            <PriceMassChart
+              currency={currency}
+              focusedId={id}
+              onSelect={onFocus}
+              points={options
+                .filter((o) => o.price !== null)
+                .map((o) => ({ id: optionId(o), label: `${o.cell.sku} ${arrangementLabel(o)}`, massKg: o.mass, price: o.price?.perBank ?? "0", pareto: o.pareto }))}
+            />
+          </section>
+        </>
+      )}
+    </section>
+  );
+}

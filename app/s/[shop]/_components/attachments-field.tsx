@@ -1,0 +1,114 @@
+"use client";
+import Link from "next/link";
+import { useId, useState } from "react";
+import type { UploadedFile } from "./saved-request";
+import type { Viewer } from "./viewer";
+
+const MAX_FILES = 10;
+
+function size(bytes: number): string {
+  if (bytes >= 1024 * 1024) return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
+  if (bytes >= 1024) return `${Math.round(bytes / 1024)} kB`;
+  return `${bytes} B`;
+}
+
+/** Drawings and specifications for signed-in customers, uploaded as they are picked. */
+export function AttachmentsField({ slug, viewer, files, onChange }: { slug: string; viewer: Viewer; files: UploadedFile[]; onChange: (next: UploadedFile[]) => void }) {
+  const id = useId();
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  if (viewer.kind !== "customer") {
+    return (
+      <div className="space-y-1">
+        <p className="text-sm font-medium text-ink-800">Drawings and specifications</p>
+        <p className="text-sm text-ink-600">
+          {viewer.kind === "staff" ? (
+            "Attachments are for customers' requests."
+          ) : (
+            <>
+              <Link className="font-medium text-copper-700 hover:underline" href={`/sign-in?shop=${slug}&next=${encodeURIComponent(`/s/${slug}`)}`}>
+                Sign in
+              </Link>{" "}
+              to attach drawings (PDF, PNG, JPEG or DXF, up to 10 MB each). What you typed here is kept.
+            </>
+          )}
+        </p>
+      </div>
+    );
+  }
+
+  async function upload(list: FileList | null) {
+    if (!list || list.length === 0) return;
+    setError(null);
+    setBusy(true);
+    const added: UploadedFile[] = [];
+    try {
+      for (const file of Array.from(list)) {
+        if (files.length + added.length >= MAX_FILES) {
+          setError(`At most ${MAX_FILES} files per request.`);
+          break;
+        }
+        const body = new FormData();
+        body.append("file", file);
+        const res = await fetch(`/api/v1/shops/${slug}/attachments`, { method: "POST", body });
+        const json = (await res.json().catch(() => null)) as { id?: string; fileName?: string; sizeBytes?: number; error?: string } | null;
+        if (!res.ok || !json?.id) {
+          setError(`${file.name}: ${json?.error ?? `upload refused (${res.status})`}`);
+          continue;
+        }
+        added.push({ id: json.id, fileName: json.fileName ?? file.name, sizeBytes: json.sizeBytes ?? file.size });
+      }
+    } catch {
+      setError("The upload failed; check your connection and try again.");
+    } finally {
+      setBusy(false);
+      if (added.length > 0) onChange([...files, ...added]);
+    }
+  }
+
+  return (
+    <div className="space-y-2">
+      <label htmlFor={id} className="block text-sm font-medium text-ink-800">
+        Drawings and specifications (optional)
+      </label>
+      <input
+        id={id}
+        type="file"
+        multiple
+        accept=".pdf,.png,.jpg,.jpeg,.dxf,application/pdf,image/png,image/jpeg"
+        disabled={busy}
+        aria-describedby={`${id}-hint`}
+        className="block w-full text-sm text-ink-700 file:mr-3 file:rounded-md file:border-0 file:bg-ink-100 file:px-3 file:py-2 file:text-sm file:font-medium"
+        onChange={(e) => {
+          void upload(e.target.files);
+          e.target.value = "";
+        }}
+      />
+      <p id={`${id}-hint`} className="text-xs text-ink-500">
+        PDF, PNG, JPEG or DXF, up to 10 MB each; checked by content. Only you and the shop&apos;s staff can open them.
+      </p>
+      {busy ? <p className="text-xs text-ink-600">Uploading…</p> : null}
+      {error ? (
+        <p role="alert" className="text-xs font-medium text-danger-700">
+          {error}
+        </p>
+      ) : null}
+      {files.length > 0 ? (
+        <ul className="divide-y divide-ink-100 rounded-md ring-1 ring-ink-100" aria-label="Attached files">
+          {files.map((f) => (
+            <li key={f.id} className="flex items-center justify-between gap-2 px-3 py-1.5 text-sm">
+              <span className="truncate">{f.fileName}</span>
+              <span className="flex shrink-0 items-center gap-3 text-xs text-ink-500">
+                {size(f.sizeBytes)}
+                <button type="button" className="text-danger-700 hover:underline" onClick={() => onChange(files.filter((x) => x.id !== f.id))} aria-label={`Remove ${f.fileName}`}>
+                  Remove
+                </button>
+              </span>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,75 @@
+"use client";
+import { createColumnHelper, type SortingFn } from "@tanstack/react-table";
+import { Decimal } from "decimal.js";
+import type { PricedOption } from "@/lib/quoting/arrangements";
+import { formatMoney } from "@/lib/pricing/currency";
+import { formatQuantity } from "@/lib/quantities";
+import { arrangementLabel, TECH_LABELS, TECH_SHORT, TOPOLOGY_LABELS } from "./labels";
+
+const col = createColumnHelper<PricedOption>();
+
+/** Exact comparison of decimal strings; options without a price go last. */
+const byPrice: SortingFn<PricedOption> = (a, b) => {
+  const pa = a.original.price?.perBank;
+  const pb = b.original.price?.perBank;
+  if (!pa || !pb) return pa ? -1 : pb ? 1 : 0;
+  return new Decimal(pa).cmp(new Decimal(pb));
+};
+
+export function optionColumns(currency: string) {
+  return [
+    col.accessor((o) => o.cell.sku, {
+      id: "cell",
+      header: "Cell",
+      cell: (c) => (
+        <span>
+          <span className="whitespace-nowrap font-mono text-xs font-medium">{c.row.original.cell.sku}</span>
+          <span className="block text-xs text-ink-500" title={TECH_LABELS[c.row.original.cell.technology]}>
+            {TECH_SHORT[c.row.original.cell.technology]}
+          </span>
+        </span>
+      ),
+    }),
+    col.accessor((o) => o.seriesCount * 1e6 + o.parallelCount, {
+      id: "arrangement",
+      header: "Arrangement",
+      cell: (c) => (
+        <span>
+          <span className="num whitespace-nowrap font-medium">{arrangementLabel(c.row.original)}</span>
+          <span className="block text-xs text-ink-500">{TOPOLOGY_LABELS[c.row.original.topology]}</span>
+        </span>
+      ),
+    }),
+    col.accessor("cellCount", { header: "Cells", cell: (c) => <span className="num">{c.getValue()}</span> }),
+    col.accessor((o) => o.capacitance.design, { id: "capacitance", header: "C design", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "F")}</span> }),
+    col.accessor("usableEnergy", { header: "Usable energy", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "J")}</span> }),
+    col.accessor((o) => o.esr.endOfLife, { id: "esr", header: "ESR end of life", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "Ω")}</span> }),
+    col.accessor("mass", { header: "Mass", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "kg")}</span> }),
+    col.accessor("volume", { header: "Volume", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "m³")}</span> }),
+    col.accessor("leadTimeDays", { header: "Lead time", cell: (c) => <span className="num whitespace-nowrap">{c.getValue() === 0 ? "stock" : `${c.getValue()} d`}</span> }),
+    col.accessor((o) => o.price?.perBank ?? null, {
+      id: "price",
+      header: "Price / bank",
+      sortingFn: byPrice,
+      cell: (c) => {
+        const p = c.row.original.price;
+        if (!p) return <span className="text-xs text-ink-500">on request</span>;
+        return (
+          <span className="num whitespace-nowrap font-medium">
+            {formatMoney(p.perBank, currency)}
+            {p.quantity > 1 ? <span className="block text-xs font-normal text-ink-500">{formatMoney(p.amount, currency)} for {p.quantity}</span> : null}
+          </span>
+        );
+      },
+    }),
+    col.accessor("pareto", {
+      header: "Pareto",
+      cell: (c) =>
+        c.getValue() ? (
+          <span title="No other option is cheaper, lighter and smaller at once" className="text-charge-700">
+            ◆<span className="sr-only">on the Pareto set</span>
+          </span>
+        ) : null,
+    }),
+  ];
+}

@@ -1,0 +1,67 @@
+"use client";
+import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { useMemo, useState } from "react";
+import type { PricedOption } from "@/lib/quoting/arrangements";
+import { arrangementLabel, optionId } from "./labels";
+import { optionColumns } from "./option-columns";
+
+/** The options as a sortable table; a row's radio (or a click on the row) puts it in focus. */
+export function OptionTable({ options, currency, focus, onFocus }: { options: PricedOption[]; currency: string; focus: string | null; onFocus: (id: string) => void }) {
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const columns = useMemo(() => optionColumns(currency), [currency]);
+  const table = useReactTable({ data: options, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel(), getRowId: optionId });
+  return (
+    <div className="relative overflow-x-auto rounded-lg bg-white shadow-sm ring-1 ring-ink-100">
+      <table className="min-w-full text-left text-sm" data-testid="options-table">
+        <caption className="sr-only">Arrangements; sort by a column heading, choose a row to see its diagram and charts</caption>
+        <thead className="border-b border-ink-100 bg-ink-50 text-[11px] uppercase tracking-wide text-ink-600">
+          {table.getHeaderGroups().map((hg) => (
+            <tr key={hg.id}>
+              <th scope="col" className="px-2 py-2">
+                <span className="sr-only">Focus</span>
+              </th>
+              {hg.headers.map((h) => {
+                const dir = h.column.getIsSorted();
+                return (
+                  <th key={h.id} scope="col" aria-sort={dir === "asc" ? "ascending" : dir === "desc" ? "descending" : "none"} className="px-2 py-2 font-medium">
+                    <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 text-left uppercase hover:text-ink-900">
+                      {flexRender(h.column.columnDef.header, h.getContext())}
+                      <span aria-hidden="true" className="text-ink-400">
+                        {dir === "asc" ? "▲" : dir === "desc" ? "▼" : "↕"}
+                      </span>
+                    </button>
+                  </th>
+                );
+              })}
+            </tr>
+          ))}
+        </thead>
+        <tbody className="divide-y divide-ink-100">
+          {table.getRowModel().rows.map((row) => {
+            const focused = row.id === focus;
+            const o = row.original;
+            return (
+              <tr key={row.id} onClick={() => onFocus(row.id)} className={`cursor-pointer ${focused ? "bg-copper-50" : "hover:bg-ink-50"}`} aria-selected={focused} data-option={row.id}>
+                <td className="px-2 py-2">
+                  <input
+                    type="radio"
+                    name="focused-option"
+                    checked={focused}
+                    onChange={() => onFocus(row.id)}
+                    aria-label={`Focus ${o.cell.sku} ${arrangementLabel(o)}`}
+                    className="accent-copper-500"
+                  />
+                </td>
+                {row.getVisibleCells().map((cell) => (
+                  <td key={cell.id} className="px-2 py-2 align-top">
+                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                  </td>
+                ))}
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,144 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useCallback, useEffect, useRef, useState, useTransition } from "react";
+import { useForm } from "react-hook-form";
+import { FormMessage } from "@/components/ui/field";
+import { EMPTY_REQUEST_FORM, requestFormSchema, type RequestFormField, type RequestFormOutput, type RequestFormValues } from "@/lib/validation/request-form";
+import { exploreArrangements, type ExploreResult } from "../actions";
+import { optionId } from "./labels";
+import { ArrangementResults } from "./arrangement-results";
+import { RequestForm } from "./request-form";
+import { clearSavedRequest, loadSavedRequest, saveRequest, type UploadedFile } from "./saved-request";
+import type { Viewer } from "./viewer";
+
+/**
+ * The storefront's request → arrangements journey. What is entered is kept in sessionStorage, so
+ * it survives sign-in and sign-up; `resume` (back from signing in) re-runs the search with the
+ * chosen option in focus.
+ */
+export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: string; shopName: string; viewer: Viewer; resume: boolean }) {
+  const form = useForm<RequestFormValues, unknown, RequestFormOutput>({
+    resolver: zodResolver(requestFormSchema),
+    defaultValues: EMPTY_REQUEST_FORM,
+    mode: "onTouched",
+  });
+  const [attachments, setAttachments] = useState<UploadedFile[]>([]);
+  const [result, setResult] = useState<ExploreResult | null>(null);
+  const [focus, setFocus] = useState<string | null>(null);
+  const [message, setMessage] = useState<string | null>(null);
+  const [searching, startSearch] = useTransition();
+  const restored = useRef(false);
+  const resultsRef = useRef<HTMLDivElement>(null);
+  const focusRef = useRef<string | null>(null);
+  focusRef.current = focus;
+  const attachmentsRef = useRef<UploadedFile[]>(attachments);
+  attachmentsRef.current = attachments;
+
+  const persist = useCallback(
+    (over: { focus?: string | null; attachments?: UploadedFile[] } = {}) => {
+      saveRequest(slug, { values: form.getValues(), attachments: over.attachments ?? attachmentsRef.current, focus: over.focus === undefined ? focusRef.current : over.focus });
+    },
+    [slug, form],
+  );
+
+  const search = useCallback(
+    (values: RequestFormValues, wantFocus: string | null) => {
+      setMessage(null);
+      startSearch(async () => {
+        const r = await exploreArrangements(slug, values);
+        if (!r.ok) {
+          for (const [field, messages] of Object.entries(r.fieldErrors ?? {})) {
+            const name = field.split(".")[0] as RequestFormField;
+            if (name in EMPTY_REQUEST_FORM) form.setError(name, { message: messages[0] });
+          }
+          setMessage(r.message ?? "The search failed; try again.");
+          return;
+        }
+        setResult(r.data);
+        const ids = r.data.options.map(optionId);
+        const next = wantFocus && ids.includes(wantFocus) ? wantFocus : (ids[0] ?? null);
+        setFocus(next);
+        saveRequest(slug, { values, attachments: attachmentsRef.current, focus: next });
+        requestAnimationFrame(() => resultsRef.current?.scrollIntoView({ behavior: "smooth", block: "start" }));
+      });
+    },
+    [slug, form],
+  );
+
+  // Restore once on arrival; back from signing in, run the saved search again.
+  useEffect(() => {
+    if (restored.current) return;
+    restored.current = true;
+    const saved = loadSavedRequest(slug);
+    if (!saved) return;
+    form.reset(saved.values);
+    setAttachments(saved.attachments);
+    attachmentsRef.current = saved.attachments;
+    if (resume) {
+      const parsed = requestFormSchema.safeParse(saved.values);
+      if (parsed.success) search(saved.values, saved.focus);
+      window.history.replaceState(null, "", `/s/${slug}`);
+    }
+  }, [slug, resume, form, search]);
+
+  // Keep what is typed.
+  useEffect(() => {
+    const sub = form.watch(() => persist());
+    return () => sub.unsubscribe();
+  }, [form, persist]);
+
+  const onSubmit = form.handleSubmit(() => search(form.getValues(), focusRef.current));
+
+  return (
+    <div className="space-y-10">
+      <section aria-labelledby="describe" className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-ink-100 sm:p-6">
+        <h2 id="describe" className="text-xl font-semibold">Describe your bank</h2>
+        <p className="mt-1 max-w-3xl text-sm text-ink-600">
+          Say what the bank must do and compare the arrangements {shopName} can build from its stock, with their figures, cautions and prices. Exploring needs no account; choosing an
+          arrangement asks you to sign in. Type values with their units: <span className="font-mono">48 V</span>, <span className="font-mono">20 kJ</span>,{" "}
+          <span className="font-mono">470 µF</span>, <span className="font-mono">5 kW</span>, <span className="font-mono">30 s</span>, <span className="font-mono">25 kg</span>,{" "}
+          <span className="font-mono">12 L</span>.
+        </p>
+        <RequestForm
+          form={form}
+          slug={slug}
+          viewer={viewer}
+          attachments={attachments}
+          onAttachmentsChange={(next) => {
+            setAttachments(next);
+            persist({ attachments: next });
+          }}
+          onSubmit={onSubmit}
+          searching={searching}
+          onClear={() => {
+            form.reset(EMPTY_REQUEST_FORM);
+            setAttachments([]);
+            setResult(null);
+            setFocus(null);
+            clearSavedRequest(slug);
+          }}
+        />
+        <div className="mt-4">
+          <FormMessage>{message}</FormMessage>
+        </div>
+      </section>
+      <div ref={resultsRef} className="scroll-mt-4">
+        {result ? (
+          <ArrangementResults
+            slug={slug}
+            viewer={viewer}
+            result={result}
+            focus={focus}
+            attachmentIds={attachments.map((a) => a.id)}
+            onFocus={(id) => {
+              setFocus(id);
+              persist({ focus: id });
+            }}
+            onBeforeSignIn={(id) => persist({ focus: id })}
+            onQuoted={() => clearSavedRequest(slug)}
+          />
+        ) : null}
+      </div>
+    </div>
+  );
+}

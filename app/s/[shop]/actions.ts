@@ -1,0 +1,69 @@
+"use server";
+import { headers } from "next/headers";
+import { getShopBySlug } from "@/lib/auth/context";
+import { fieldErrorsOf, shopAction, type ActionResult } from "@/lib/auth/shop-action";
+import type { DesignFactors, Requirement } from "@/lib/bank";
+import { env } from "@/lib/env";
+import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
+import { findArrangements, type PricedOption } from "@/lib/quoting/arrangements";
+import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
+import { arrangementRequestSchema } from "@/lib/validation/bank";
+import { chooseArrangementSchema } from "@/lib/validation/quote";
+import { requestFormSchema } from "@/lib/validation/request-form";
+
+export interface ExploreResult {
+  /** the requirement in SI units, as the server read the form */
+  requirement: Requirement & { quantity: number };
+  notes: string;
+  currency: string;
+  designFactors: DesignFactors;
+  options: PricedOption[];
+  /** when no option fits: what ruled each family out */
+  reasons: string[];
+}
+
+// The same budget per client as the public arrangements endpoint: a search is not free.
+const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, windowMs: 60_000 });
+
+/**
+ * Open to visitors (no sign-in): the request form's values, read with the form's own schema,
+ * searched against the shop's active catalog and priced by its rules.
+ */
+export async function exploreArrangements(shopSlug: string, input: unknown): Promise<ActionResult<ExploreResult>> {
+  const gate = limiter.hit(clientKey(await headers()));
+  if (!gate.allowed) return { ok: false, code: "conflict", message: `Too many searches; try again in ${gate.retryAfterSeconds} s.` };
+  const shop = await getShopBySlug(String(shopSlug));
+  if (!shop) return { ok: false, code: "not-found", message: "No such shop." };
+  const parsed = requestFormSchema.safeParse(input);
+  if (!parsed.success) {
+    return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(parsed.error) };
+  }
+  // the engine's request schema is the last word on what a requirement may be
+  const checked = arrangementRequestSchema.safeParse(parsed.data.requirement);
+  if (!checked.success) {
+    return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(checked.error) };
+  }
+  const requirement = { ...parsed.data.requirement, quantity: checked.data.quantity };
+  const result = await findArrangements(shop.id, requirement);
+  return {
+    ok: true,
+    data: {
+      requirement,
+      notes: parsed.data.notes,
+      currency: result.currency,
+      designFactors: result.designFactors,
+      options: result.options,
+      reasons: result.options.length === 0 ? result.reasons : [],
+    },
+  };
+}
+
+/**
+ * A signed-in customer chooses an arrangement: the server re-runs the search and either issues a
+ * quote or sends the request to the shop's estimators (no option, or beyond the auto-quote limits).
+ */
+export async function chooseArrangement(shopSlug: string, input: unknown) {
+  return choose(shopSlug, input);
+}
+
+const choose = shopAction(chooseArrangementSchema, "request:create", (ctx, input) => createQuoteFromChoice(ctx, input));

@@ -1,0 +1,54 @@
+"use client";
+import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { formatQuantity } from "@/lib/quantities";
+import { cellVoltageBars, MAX_BARS, type ChartOption } from "./chart-data";
+import { CHART_COLORS as C } from "./colors";
+
+/** Each series position's worst-case voltage at the end of charging, against the cell's rating and surge. */
+export function CellVoltageChart({ option, maxVoltage }: { option: ChartOption; maxVoltage: number }) {
+  const bars = cellVoltageBars(option, maxVoltage);
+  const { ratedVoltage, surgeVoltage } = option.cell;
+  const top = Math.max(surgeVoltage, option.worstCellVoltage) * 1.1;
+  const balanced = maxVoltage / option.seriesCount;
+  return (
+    <figure>
+      <figcaption className="text-sm font-medium text-ink-800">Worst-case cell voltage while charging to {formatQuantity(maxVoltage, "V")}</figcaption>
+      <p className="mt-1 flex flex-wrap gap-x-4 text-xs text-ink-600">
+        <span>
+          <span aria-hidden="true" style={{ color: C.hazard }}>
+            ╌╌
+          </span>{" "}
+          cell rating {formatQuantity(ratedVoltage, "V")}
+        </span>
+        <span>
+          <span aria-hidden="true" style={{ color: C.danger }}>
+            ┈┈
+          </span>{" "}
+          surge {formatQuantity(surgeVoltage, "V")}
+        </span>
+      </p>
+      <div className="mt-2 h-56 w-full" data-testid="cell-voltage-chart">
+        <ResponsiveContainer width="100%" height="100%">
+          <BarChart data={bars} margin={{ top: 8, right: 16, bottom: 16, left: 0 }}>
+            <CartesianGrid stroke={C.grid} vertical={false} />
+            <XAxis dataKey="position" tick={{ fontSize: 11 }} label={{ value: "series position", position: "insideBottom", offset: -8, fontSize: 11 }} />
+            <YAxis domain={[0, Number(top.toPrecision(2))]} tick={{ fontSize: 11 }} width={44} unit=" V" />
+            <Tooltip formatter={(v) => formatQuantity(Number(v), "V")} labelFormatter={(l) => `position ${String(l)}`} />
+            <ReferenceLine y={ratedVoltage} stroke={C.hazard} strokeDasharray="6 3" strokeWidth={1.5} />
+            <ReferenceLine y={surgeVoltage} stroke={C.danger} strokeDasharray="2 2" strokeWidth={1.5} />
+            <Bar dataKey="voltage" isAnimationActive={false}>
+              {bars.map((b) => (
+                <Cell key={b.position} fill={b.voltage > ratedVoltage ? C.danger : b.worst ? C.copper : C.charge} />
+              ))}
+            </Bar>
+          </BarChart>
+        </ResponsiveContainer>
+      </div>
+      <p className="mt-1 text-xs text-ink-600">
+        Position 1 is the weakest (lowest capacitance within the matching tolerance): it reaches {formatQuantity(option.worstCellVoltage, "V")}; the others{" "}
+        {option.seriesCount > 1 ? formatQuantity(bars[1]?.voltage ?? balanced, "V") : ""} (perfectly balanced: {formatQuantity(balanced, "V")}).
+        {option.seriesCount > MAX_BARS ? ` Positions ${MAX_BARS + 1}–${option.seriesCount} are the same as position ${MAX_BARS}.` : ""}
+      </p>
+    </figure>
+  );
+}

@@ -1,0 +1,50 @@
+"use client";
+import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import type { Requirement } from "@/lib/bank";
+import { formatQuantity } from "@/lib/quantities";
+import { dischargeCurve, formatDuration, type ChartOption } from "./chart-data";
+import { CHART_COLORS as C } from "./colors";
+
+/** Time axis in s, min or h, whichever reads best for the span. */
+function timeScale(seconds: number): { unit: string; div: number } {
+  if (seconds >= 3 * 86400) return { unit: "days", div: 86400 };
+  if (seconds >= 3 * 3600) return { unit: "h", div: 3600 };
+  if (seconds >= 180) return { unit: "min", div: 60 };
+  return { unit: "s", div: 1 };
+}
+
+/** The discharge curve for the stated requirement, with V_min (and V_safe, the backup time) marked. */
+export function DischargeChart({ option, requirement, safeVoltage }: { option: ChartOption; requirement: Requirement; safeVoltage: number }) {
+  const curve = dischargeCurve(option, requirement, safeVoltage);
+  if (!curve) return <p className="text-sm text-ink-600">No discharge path to chart for this option.</p>;
+  const span = curve.points.at(-1)?.t ?? 0;
+  const { unit, div } = timeScale(Math.max(span, curve.requiredSeconds ?? 0));
+  const data = curve.points.map((p) => ({ t: p.t / div, v: p.v }));
+  const vMin = requirement.minVoltage ?? 0;
+  return (
+    <figure>
+      <figcaption className="text-sm font-medium text-ink-800">{curve.title}</figcaption>
+      <div className="mt-2 h-56 w-full" data-testid="discharge-chart">
+        <ResponsiveContainer width="100%" height="100%">
+          <LineChart data={data} margin={{ top: 8, right: 56, bottom: 16, left: 0 }}>
+            <CartesianGrid stroke={C.grid} />
+            <XAxis dataKey="t" type="number" domain={[0, "dataMax"]} tick={{ fontSize: 11 }} tickFormatter={(t: number) => String(Number(t.toPrecision(3)))} label={{ value: `time (${unit})`, position: "insideBottom", offset: -8, fontSize: 11 }} />
+            <YAxis domain={[0, "auto"]} tick={{ fontSize: 11 }} width={44} unit=" V" />
+            <Tooltip formatter={(v) => formatQuantity(Number(v), "V")} labelFormatter={(t) => `${Number(Number(t).toPrecision(3))} ${unit}`} />
+            {vMin > 0 ? <ReferenceLine y={vMin} stroke={C.danger} strokeDasharray="5 3" label={{ value: `V min ${formatQuantity(vMin, "V")}`, position: "right", fontSize: 10, fill: C.danger }} /> : null}
+            {curve.kind === "resistive" && safeVoltage < requirement.maxVoltage ? (
+              <ReferenceLine y={safeVoltage} stroke={C.hazard} strokeDasharray="2 2" label={{ value: `safe ${formatQuantity(safeVoltage, "V")}`, position: "right", fontSize: 10, fill: C.hazard }} />
+            ) : null}
+            {curve.requiredSeconds !== null ? <ReferenceLine x={curve.requiredSeconds / div} stroke={C.ink} strokeDasharray="4 4" label={{ value: "required", position: "top", fontSize: 10 }} /> : null}
+            <Line type="monotone" dataKey="v" stroke={C.copper} dot={false} strokeWidth={2} isAnimationActive={false} />
+          </LineChart>
+        </ResponsiveContainer>
+      </div>
+      <p className="mt-1 text-xs text-ink-600">
+        {curve.kind === "resistive"
+          ? `Reaches ${formatQuantity(curve.points.at(-1)?.v ?? 0, "V")} after ${formatDuration(curve.seconds)}; design capacitance, balancing${option.discharge.bleeder ? " and bleeder" : ""} resistors only.`
+          : `Lasts ${formatDuration(curve.seconds)} down to ${formatQuantity(vMin, "V")} with end-of-life capacitance and ESR${curve.requiredSeconds !== null ? ` (asked: ${formatDuration(curve.requiredSeconds)})` : ""}.`}
+      </p>
+    </figure>
+  );
+}

@@ -1,0 +1,252 @@
+import { z } from 'zod';
+import type { Requirement, Technology } from '../bank/types';
+import { parseQuantity, type QuantityUnit } from '../quantities';
+import { technologySchema } from './bank';
+
+/**
+ * The storefront's request form: what people type (`48 V`, `20 kJ`, `470 µF`, `5 kW`, `30 s`,
+ * `25 kg`, `12 L`) checked field by field and turned into the engine's SI `Requirement`.
+ * The same schema runs in the browser (react-hook-form) and in the server action.
+ */
+
+export const SIZE_FOR = ['capacitance', 'energy', 'backup'] as const;
+export type SizeFor = (typeof SIZE_FOR)[number];
+
+/** Most banks one request may ask for (the arrangement request's bound). */
+export const MAX_QUANTITY = 100_000;
+export const MAX_NOTES = 4000;
+
+const text = z.string().max(60, 'Keep this under 60 characters');
+
+export const requestFormFieldsSchema = z.object({
+  maxVoltage: text,
+  minVoltage: text,
+  sizeFor: z.enum(SIZE_FOR, { message: 'Choose what to size the bank for' }),
+  capacitance: text,
+  energy: text,
+  backupPower: text,
+  backupTime: text,
+  peakCurrent: text,
+  maxDrop: text,
+  maxMass: text,
+  maxVolume: text,
+  quantity: text,
+  technology: z.union([z.literal(''), technologySchema], { message: 'Choose a technology from the list' }),
+  notes: z.string().max(MAX_NOTES, `Keep the notes under ${MAX_NOTES} characters`),
+});
+
+export type RequestFormValues = z.infer<typeof requestFormFieldsSchema>;
+export type RequestFormField = keyof RequestFormValues;
+
+export const EMPTY_REQUEST_FORM: RequestFormValues = {
+  maxVoltage: '',
+  minVoltage: '',
+  sizeFor: 'energy',
+  capacitance: '',
+  energy: '',
+  backupPower: '',
+  backupTime: '',
+  peakCurrent: '',
+  maxDrop: '',
+  maxMass: '',
+  maxVolume: '',
+  quantity: '1',
+  technology: '',
+  notes: '',
+};
+
+export interface RequestFormResult {
+  requirement: Requirement & { quantity: number };
+  notes: string;
+}
+
+type Issue = { field: RequestFormField; message: string };
+
+/** Label words used in messages, so each message names what it is about. */
+const WHAT: Record<string, string> = {
+  maxVoltage: 'maximum voltage',
+  minVoltage: 'minimum voltage',
+  capacitance: 'capacitance',
+  energy: 'usable energy',
+  backupPower: 'backup power',
+  backupTime: 'backup time',
+  peakCurrent: 'peak current',
+  maxDrop: 'allowed voltage drop',
+  maxMass: 'mass limit',
+  maxVolume: 'volume limit',
+};
+
+const EXAMPLES: Record<QuantityUnit, string> = {
+  V: '48 V',
+  F: '470 µF or 58 F',
+  J: '20 kJ (or 5.5 Wh)',
+  W: '5 kW',
+  s: '30 s or 2 min',
+  A: '200 A',
+  kg: '25 kg',
+  'm³': '12 L',
+  Ω: '10 mΩ',
+  Wh: '5.5 Wh',
+};
+
+/**
+ * Reads one quantity field. Empty → undefined (the caller decides whether it is required).
+ * Energy also accepts watt-hours (1 Wh = 3600 J).
+ */
+function readQuantity(raw: string, field: RequestFormField, unit: QuantityUnit, issues: Issue[], allowZero = false): number | undefined {
+  if (raw.trim() === '') return undefined;
+  let parsed = parseQuantity(raw, unit, { allowZero });
+  if (!parsed.ok && unit === 'J') {
+    const wh = parseQuantity(raw, 'Wh', { allowZero });
+    if (wh.ok && wh.unit === 'Wh') parsed = { ok: true, value: wh.value * 3600, unit: 'J' };
+  }
+  if (!parsed.ok) {
+    issues.push({ field, message: `${parsed.message}; write the ${WHAT[field] ?? field} like ${EXAMPLES[unit]}` });
+    return undefined;
+  }
+  return parsed.value;
+}
+
+function required(value: number | undefined, raw: string, field: RequestFormField, unit: QuantityUnit, issues: Issue[]): void {
+  if (value === undefined && raw.trim() === '') {
+    issues.push({ field, message: `Enter the ${WHAT[field] ?? field}, e.g. ${EXAMPLES[unit]}` });
+  }
+}
+
+/**
+ * Checks every field and builds the requirement. Returns the issues (one per field at most, the
+ * first found) or the SI requirement.
+ */
+export function readRequestForm(values: RequestFormValues): { ok: true; data: RequestFormResult } | { ok: false; issues: Issue[] } {
+  const issues: Issue[] = [];
+  const maxVoltage = readQuantity(values.maxVoltage, 'maxVoltage', 'V', issues);
+  required(maxVoltage, values.maxVoltage, 'maxVoltage', 'V', issues);
+  const minVoltage = readQuantity(values.minVoltage, 'minVoltage', 'V', issues, true);
+  if (maxVoltage !== undefined && minVoltage !== undefined && !(minVoltage < maxVoltage)) {
+    issues.push({ field: 'minVoltage', message: 'The minimum voltage must be below the maximum voltage' });
+  }
+
+  const requirement: Requirement & { quantity: number } = { maxVoltage: maxVoltage ?? 0, quantity: 1 };
+  if (minVoltage !== undefined) requirement.minVoltage = minVoltage;
+
+  if (values.sizeFor === 'capacitance') {
+    const c = readQuantity(values.capacitance, 'capacitance', 'F', issues);
+    required(c, values.capacitance, 'capacitance', 'F', issues);
+    if (c !== undefined) requirement.capacitance = c;
+  } else if (values.sizeFor === 'energy') {
+    const e = readQuantity(values.energy, 'energy', 'J', issues);
+    required(e, values.energy, 'energy', 'J', issues);
+    if (e !== undefined) requirement.energy = e;
+  } else {
+    const p = readQuantity(values.backupPower, 'backupPower', 'W', issues);
+    required(p, values.backupPower, 'backupPower', 'W', issues);
+    const t = readQuantity(values.backupTime, 'backupTime', 's', issues);
+    required(t, values.backupTime, 'backupTime', 's', issues);
+    if (p !== undefined && t !== undefined) requirement.backup = { power: p, seconds: t };
+  }
+
+  const current = readQuantity(values.peakCurrent, 'peakCurrent', 'A', issues);
+  const drop = readQuantity(values.maxDrop, 'maxDrop', 'V', issues);
+  if (current !== undefined && drop === undefined && values.maxDrop.trim() === '') {
+    issues.push({ field: 'maxDrop', message: 'With a peak current, say how far the voltage may drop, e.g. 4 V' });
+  }
+  if (drop !== undefined && current === undefined && values.peakCurrent.trim() === '') {
+    issues.push({ field: 'peakCurrent', message: 'Say the peak current this drop is allowed at, e.g. 200 A' });
+  }
+  if (current !== undefined && drop !== undefined) {
+    if (maxVoltage !== undefined && !(drop < maxVoltage)) {
+      issues.push({ field: 'maxDrop', message: 'The allowed drop must be below the maximum voltage' });
+    } else {
+      requirement.peakCurrent = { current, maxDrop: drop };
+    }
+  }
+
+  const mass = readQuantity(values.maxMass, 'maxMass', 'kg', issues);
+  if (mass !== undefined) requirement.maxMass = mass;
+  const volume = readQuantity(values.maxVolume, 'maxVolume', 'm³', issues);
+  if (volume !== undefined) requirement.maxVolume = volume;
+
+  const q = values.quantity.trim();
+  if (q === '') {
+    requirement.quantity = 1;
+  } else if (!/^\d+$/.test(q) || Number(q) < 1 || Number(q) > MAX_QUANTITY) {
+    issues.push({ field: 'quantity', message: `Enter a whole number of banks from 1 to ${MAX_QUANTITY.toLocaleString('en-GB')}` });
+  } else {
+    requirement.quantity = Number(q);
+  }
+  if (values.technology !== '') requirement.technology = values.technology as Technology;
+
+  return issues.length > 0 ? { ok: false, issues } : { ok: true, data: { requirement, notes: values.notes.trim() } };
+}
+
+/** The form schema: the fields' shapes, then every value read as a quantity; outputs the SI requirement. */
+export const requestFormSchema = requestFormFieldsSchema
+  .superRefine((values, ctx) => {
+    const r = readRequestForm(values);
+    if (!r.ok) for (const issue of r.issues) ctx.addIssue({ code: 'custom', path: [issue.field], message: issue.message });
+  })
+  .transform((values): RequestFormResult => {
+    const r = readRequestForm(values);
+    // superRefine has refused every failing input before the transform runs
+    if (!r.ok) throw new Error('unreachable: request form refused after refinement');
+    return r.data;
+  });
+
+export type RequestFormOutput = z.output<typeof requestFormSchema>;
+
+/** Figures derived live as people type (ideal capacitor, ESR neglected). */
+export interface DerivedFigures {
+  /** V_max² − V_min² is positive */
+  voltages: { max: number; min: number } | null;
+  /** capacitance needed (F) for the stated energy or backup, or the stated one */
+  capacitance: number | null;
+  /** usable energy between the voltages (J) */
+  usableEnergy: number | null;
+  /** stored energy at V_max (J) */
+  storedEnergy: number | null;
+  /** ESR the bank may have at most: ΔV / I (Ω) */
+  maxEsr: number | null;
+}
+
+function quiet(raw: string, unit: QuantityUnit, allowZero = false): number | null {
+  if (raw.trim() === '') return null;
+  const r = parseQuantity(raw, unit, { allowZero });
+  if (r.ok) return r.value;
+  if (unit === 'J') {
+    const wh = parseQuantity(raw, 'Wh', { allowZero });
+    if (wh.ok && wh.unit === 'Wh') return wh.value * 3600;
+  }
+  return null;
+}
+
+/**
+ * From whatever is readable so far: the capacitance the stated energy needs,
+ * C = 2E / (V_max² − V_min²); a backup of P for t needs at least E = P·t; from a capacitance, the
+ * usable energy ½·C·(V_max² − V_min²) and the stored energy ½·C·V_max²; and ESR_max = ΔV / I_pk.
+ */
+export function deriveFigures(values: RequestFormValues): DerivedFigures {
+  const vmax = quiet(values.maxVoltage, 'V');
+  const vmin = quiet(values.minVoltage, 'V', true) ?? (values.minVoltage.trim() === '' ? 0 : null);
+  const voltages = vmax !== null && vmin !== null && vmin < vmax ? { max: vmax, min: vmin } : null;
+  const span = voltages ? voltages.max ** 2 - voltages.min ** 2 : null;
+
+  let capacitance: number | null = null;
+  let usableEnergy: number | null = null;
+  if (values.sizeFor === 'capacitance') {
+    capacitance = quiet(values.capacitance, 'F');
+    if (capacitance !== null && span !== null) usableEnergy = 0.5 * capacitance * span;
+  } else if (values.sizeFor === 'energy') {
+    usableEnergy = quiet(values.energy, 'J');
+    if (usableEnergy !== null && span !== null) capacitance = (2 * usableEnergy) / span;
+  } else {
+    const p = quiet(values.backupPower, 'W');
+    const t = quiet(values.backupTime, 's');
+    if (p !== null && t !== null) usableEnergy = p * t;
+    if (usableEnergy !== null && span !== null) capacitance = (2 * usableEnergy) / span;
+  }
+  const storedEnergy = capacitance !== null && voltages ? 0.5 * capacitance * voltages.max ** 2 : null;
+  const current = quiet(values.peakCurrent, 'A');
+  const drop = quiet(values.maxDrop, 'V');
+  const maxEsr = current !== null && drop !== null ? drop / current : null;
+  return { voltages, capacitance, usableEnergy, storedEnergy, maxEsr };
+}
