@@ -43,3 +43,33 @@ export function Pager({ base, params, page, size, total }: { base: string; param
     </nav>
   );
 }
+
+export type FilterField =
+  | { name: string; label: string; value: string }
+  | { name: string; label: string; value: string; options: { value: string; label: string }[] };
+
+/** The filter bar of a server-rendered list: a GET form that keeps the current sort. */
+export function FilterForm({ fields, sort, dir }: { fields: FilterField[]; sort: string; dir: string }) {
+  const control = "mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm";
+  return (
+    <form method="get" role="search" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100">
+      {fields.map((f) => (
+        <div key={f.name}>
+          <label htmlFor={f.name} className="block text-xs font-medium text-ink-700">{f.label}</label>
+          {"options" in f ? (
+            <select id={f.name} name={f.name} defaultValue={f.value} className={control}>
+              {f.options.map((o) => (
+                <option key={o.value} value={o.value}>{o.label}</option>
+              ))}
+            </select>
+          ) : (
+            <input id={f.name} name={f.name} defaultValue={f.value} className={control} />
+          )}
+        </div>
+      ))}
+      <input type="hidden" name="sort" value={sort} />
+      <input type="hidden" name="dir" value={dir} />
+      <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
+    </form>
+  );
+}

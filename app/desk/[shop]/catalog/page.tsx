@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { z } from "zod";
-import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { FilterForm, Pager, SortHeader } from "@/components/ui/list-controls";
 import { listCatalogCells } from "@/db/queries/catalog";
 import { getShopSettings } from "@/db/queries/shops";
 import { requireShopPage } from "@/lib/auth/context";
@@ -36,24 +36,14 @@ export default async function CatalogPage({ params, searchParams }: { params: Pr
         <h1 className="text-2xl font-semibold">Catalog</h1>
         <p className="mt-1 text-sm text-ink-600">Cells the engine builds from. Editing and import arrive with the catalog tools; inactive cells are never offered.</p>
       </div>
-      <form method="get" role="search" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100">
-        <div>
-          <label htmlFor="q" className="block text-xs font-medium text-ink-700">SKU, maker or family</label>
-          <input id="q" name="q" defaultValue={q.q} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm" />
-        </div>
-        <div>
-          <label htmlFor="technology" className="block text-xs font-medium text-ink-700">Technology</label>
-          <select id="technology" name="technology" defaultValue={q.technology} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
-            <option value="all">All</option>
-            {Object.entries(TECH).map(([k, v]) => (
-              <option key={k} value={k}>{v}</option>
-            ))}
-          </select>
-        </div>
-        <input type="hidden" name="sort" value={q.sort} />
-        <input type="hidden" name="dir" value={q.dir} />
-        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
-      </form>
+      <FilterForm
+        fields={[
+          { name: "q", label: "SKU, maker or family", value: q.q },
+          { name: "technology", label: "Technology", value: q.technology, options: [{ value: "all", label: "All" }, ...Object.entries(TECH).map(([value, label]) => ({ value, label }))] },
+        ]}
+        sort={q.sort}
+        dir={q.dir}
+      />
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
         <table className="w-full text-sm">
           <thead className="bg-ink-50 text-ink-700">

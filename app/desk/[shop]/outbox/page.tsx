@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { Pager, SortHeader, FilterForm } from "@/components/ui/list-controls";
 import { countOutboxByStatus, listOutbox } from "@/db/queries/outbox";
 import { requireShopPage } from "@/lib/auth/context";
 import { outboxListSchema } from "@/lib/validation/outbox";
@@ -35,24 +35,14 @@ export default async function OutboxPage({ params, searchParams }: { params: Pro
           </div>
         ))}
       </dl>
-      <form method="get" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100" role="search">
-        <div>
-          <label htmlFor="q" className="block text-xs font-medium text-ink-700">Recipient or subject</label>
-          <input id="q" name="q" defaultValue={q.q} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm" />
-        </div>
-        <div>
-          <label htmlFor="status" className="block text-xs font-medium text-ink-700">State</label>
-          <select id="status" name="status" defaultValue={q.status} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
-            <option value="all">All states</option>
-            <option value="waiting">Waiting</option>
-            <option value="sent">Sent</option>
-            <option value="failed">Failed</option>
-          </select>
-        </div>
-        <input type="hidden" name="sort" value={q.sort} />
-        <input type="hidden" name="dir" value={q.dir} />
-        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
-      </form>
+      <FilterForm
+        fields={[
+          { name: "q", label: "Recipient or subject", value: q.q },
+          { name: "status", label: "State", value: q.status, options: [{ value: "all", label: "All states" }, { value: "waiting", label: "Waiting" }, { value: "sent", label: "Sent" }, { value: "failed", label: "Failed" }] }
+        ]}
+        sort={q.sort}
+        dir={q.dir}
+      />
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
         <table className="w-full text-sm">
           <thead className="bg-ink-50 text-ink-700">

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { Pager, SortHeader, FilterForm } from "@/components/ui/list-controls";
 import { listQuotes } from "@/db/queries/quotes";
 import { requireShopPage } from "@/lib/auth/context";
 import { formatMoney } from "@/lib/pricing";
@@ -23,25 +23,14 @@ export default async function DeskQuotesPage({ params, searchParams }: { params:
         <h1 className="text-2xl font-semibold">Quotes</h1>
         <p className="mt-1 text-sm text-ink-600">Every quote {ctx.shop.name} has issued, with its current revision, total and validity.</p>
       </div>
-      <form method="get" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100" role="search">
-        <div>
-          <label htmlFor="q" className="block text-xs font-medium text-ink-700">Number or customer</label>
-          <input id="q" name="q" defaultValue={q.q} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm" />
-        </div>
-        <div>
-          <label htmlFor="status" className="block text-xs font-medium text-ink-700">Status</label>
-          <select id="status" name="status" defaultValue={q.status} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
-            <option value="all">All</option>
-            <option value="issued">Issued</option>
-            <option value="accepted">Accepted</option>
-            <option value="expired">Expired</option>
-            <option value="withdrawn">Withdrawn</option>
-          </select>
-        </div>
-        <input type="hidden" name="sort" value={q.sort} />
-        <input type="hidden" name="dir" value={q.dir} />
-        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
-      </form>
+      <FilterForm
+        fields={[
+          { name: "q", label: "Number or customer", value: q.q },
+          { name: "status", label: "Status", value: q.status, options: [{ value: "all", label: "All" }, { value: "issued", label: "Issued" }, { value: "accepted", label: "Accepted" }, { value: "expired", label: "Expired" }, { value: "withdrawn", label: "Withdrawn" }] }
+        ]}
+        sort={q.sort}
+        dir={q.dir}
+      />
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
         <table className="w-full text-sm">
           <thead className="bg-ink-50 text-ink-700">

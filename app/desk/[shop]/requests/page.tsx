@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { Pager, SortHeader, FilterForm } from "@/components/ui/list-controls";
 import { listRequests } from "@/db/queries/requests";
 import { requireShopPage } from "@/lib/auth/context";
 import { formatQuantity } from "@/lib/quantities";
@@ -27,20 +27,13 @@ export default async function DeskRequestsPage({ params, searchParams }: { param
         <h1 className="text-2xl font-semibold">Requests</h1>
         <p className="mt-1 text-sm text-ink-600">Customers&apos; bank requests. Those beyond the shop&apos;s auto-quote limits, or with no option that fits, wait here for an estimator.</p>
       </div>
-      <form method="get" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100" role="search">
-        <div>
-          <label htmlFor="status" className="block text-xs font-medium text-ink-700">Status</label>
-          <select id="status" name="status" defaultValue={q.status} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
-            <option value="all">All</option>
-            <option value="needs-review">Needs review</option>
-            <option value="quoted">Quoted</option>
-            <option value="closed">Closed</option>
-          </select>
-        </div>
-        <input type="hidden" name="sort" value={q.sort} />
-        <input type="hidden" name="dir" value={q.dir} />
-        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
-      </form>
+      <FilterForm
+        fields={[
+          { name: "status", label: "Status", value: q.status, options: [{ value: "all", label: "All" }, { value: "needs-review", label: "Needs review" }, { value: "quoted", label: "Quoted" }, { value: "closed", label: "Closed" }] }
+        ]}
+        sort={q.sort}
+        dir={q.dir}
+      />
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
         <table className="w-full text-sm">
           <thead className="bg-ink-50 text-ink-700">

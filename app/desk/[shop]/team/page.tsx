@@ -3,7 +3,7 @@ import { listMembers } from "@/db/queries/members";
 import { requireShopPage } from "@/lib/auth/context";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
 import { memberListSchema } from "@/lib/validation/auth";
-import { Pager, SortHeader } from "@/components/ui/list-controls";
+import { Pager, SortHeader, FilterForm } from "@/components/ui/list-controls";
 import { RoleSelect } from "./_components/role-select";
 
 export const metadata: Metadata = { title: "Team" };
@@ -22,24 +22,14 @@ export default async function TeamPage({ params, searchParams }: { params: Promi
         <h1 className="text-2xl font-semibold">Team</h1>
         <p className="mt-1 text-sm text-ink-600">Everyone with access to {ctx.shop.name}. You can move a member between estimator and customer.</p>
       </div>
-      <form method="get" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100" role="search">
-        <div>
-          <label htmlFor="q" className="block text-xs font-medium text-ink-700">Name or e-mail</label>
-          <input id="q" name="q" defaultValue={q.q} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm" />
-        </div>
-        <div>
-          <label htmlFor="role" className="block text-xs font-medium text-ink-700">Role</label>
-          <select id="role" name="role" defaultValue={q.role} className="mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm">
-            <option value="all">All roles</option>
-            <option value="manager">Managers</option>
-            <option value="estimator">Estimators</option>
-            <option value="customer">Customers</option>
-          </select>
-        </div>
-        <input type="hidden" name="sort" value={q.sort} />
-        <input type="hidden" name="dir" value={q.dir} />
-        <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
-      </form>
+      <FilterForm
+        fields={[
+          { name: "q", label: "Name or e-mail", value: q.q },
+          { name: "role", label: "Role", value: q.role, options: [{ value: "all", label: "All roles" }, { value: "manager", label: "Managers" }, { value: "estimator", label: "Estimators" }, { value: "customer", label: "Customers" }] }
+        ]}
+        sort={q.sort}
+        dir={q.dir}
+      />
       <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
         <table className="w-full text-sm">
           <thead className="bg-ink-50 text-ink-700">
