@@ -70,12 +70,12 @@ export default async function CatalogPage({ params, searchParams }: { params: Pr
                   <td className="px-3 py-2 font-mono text-xs">{c.sku}{c.isActive ? "" : " (inactive)"}</td>
                   <td className="px-3 py-2">{c.manufacturer} · {c.series}</td>
                   <td className="px-3 py-2">{TECH[c.technology]}</td>
-                  <td className="px-3 py-2 num">{formatQuantity(c.capacitanceF, "F")} <span className="text-ink-400">−{c.toleranceMinusPct}/+{c.tolerancePlusPct} %</span></td>
-                  <td className="px-3 py-2 num">{formatQuantity(c.ratedVoltageV, "V")}</td>
-                  <td className="px-3 py-2 num">{formatQuantity(c.esrOhm, "Ω")}</td>
-                  <td className="px-3 py-2 num">{formatMoney(c.unitCost, currency)}</td>
-                  <td className="px-3 py-2 num">{c.stock}</td>
-                  <td className="px-3 py-2 num">{c.leadTimeDays} d</td>
+                  <td className="whitespace-nowrap px-3 py-2 num">{formatQuantity(c.capacitanceF, "F")} <span className="text-ink-400">−{c.toleranceMinusPct}/+{c.tolerancePlusPct} %</span></td>
+                  <td className="whitespace-nowrap px-3 py-2 num">{formatQuantity(c.ratedVoltageV, "V")}</td>
+                  <td className="whitespace-nowrap px-3 py-2 num">{formatQuantity(c.esrOhm, "Ω")}</td>
+                  <td className="whitespace-nowrap px-3 py-2 num">{formatMoney(c.unitCost, currency)}</td>
+                  <td className="whitespace-nowrap px-3 py-2 num">{c.stock}</td>
+                  <td className="whitespace-nowrap px-3 py-2 num">{c.leadTimeDays} d</td>
                 </tr>
               ))
             )}
