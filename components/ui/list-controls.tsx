@@ -73,3 +73,34 @@ export function FilterForm({ fields, sort, dir }: { fields: FilterField[]; sort:
     </form>
   );
 }
+
+export interface ListColumn {
+  label: string;
+  /** present when the list can be sorted by this column */
+  sortKey?: string;
+  align?: "left" | "right";
+}
+
+/** The table of a server-rendered list: headers that sort through the URL, rows as children. */
+export function ListTable({ base, params, sort, dir, columns, children }: { base: string; params: Params; sort: string; dir: "asc" | "desc"; columns: ListColumn[]; children: React.ReactNode }) {
+  return (
+    <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
+      <table className="w-full text-sm">
+        <thead className="bg-ink-50 text-ink-700">
+          <tr>
+            {columns.map((c) =>
+              c.sortKey ? (
+                <SortHeader key={c.label} base={base} params={params} sortKey={c.sortKey} label={c.label} sort={sort} dir={dir} />
+              ) : (
+                <th key={c.label} scope="col" className={`px-3 py-2 font-medium ${c.align === "right" ? "text-right" : "text-left"}`}>
+                  {c.label}
+                </th>
+              ),
+            )}
+          </tr>
+        </thead>
+        <tbody>{children}</tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { z } from "zod";
-import { FilterForm, Pager, SortHeader } from "@/components/ui/list-controls";
+import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { listCatalogCells } from "@/db/queries/catalog";
 import { getShopSettings } from "@/db/queries/shops";
 import { requireShopPage } from "@/lib/auth/context";
@@ -29,7 +29,6 @@ export default async function CatalogPage({ params, searchParams }: { params: Pr
   const currency = settings?.currency ?? "EUR";
   const base = `/desk/${shop}/catalog`;
   const keep = { q: q.q, technology: q.technology === "all" ? undefined : q.technology, sort: q.sort, dir: q.dir };
-  const sortProps = { base, params: keep, sort: q.sort, dir: q.dir };
   return (
     <div className="space-y-6">
       <div>
@@ -44,22 +43,20 @@ export default async function CatalogPage({ params, searchParams }: { params: Pr
         sort={q.sort}
         dir={q.dir}
       />
-      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
-        <table className="w-full text-sm">
-          <thead className="bg-ink-50 text-ink-700">
-            <tr>
-              <SortHeader {...sortProps} sortKey="sku" label="SKU" />
-              <th scope="col" className="px-3 py-2 text-left font-medium">Maker · family</th>
-              <th scope="col" className="px-3 py-2 text-left font-medium">Technology</th>
-              <SortHeader {...sortProps} sortKey="capacitance" label="Capacitance" />
-              <SortHeader {...sortProps} sortKey="voltage" label="Rated" />
-              <th scope="col" className="px-3 py-2 text-left font-medium">ESR</th>
-              <SortHeader {...sortProps} sortKey="cost" label="Unit cost" />
-              <SortHeader {...sortProps} sortKey="stock" label="Stock" />
-              <th scope="col" className="px-3 py-2 text-left font-medium">Lead time</th>
-            </tr>
-          </thead>
-          <tbody>
+      <ListTable
+        base={base} params={keep} sort={q.sort} dir={q.dir}
+        columns={[
+          { label: "SKU", sortKey: "sku" },
+          { label: "Maker · family" },
+          { label: "Technology" },
+          { label: "Capacitance", sortKey: "capacitance" },
+          { label: "Rated", sortKey: "voltage" },
+          { label: "ESR" },
+          { label: "Unit cost", sortKey: "cost" },
+          { label: "Stock", sortKey: "stock" },
+          { label: "Lead time" },
+        ]}
+      >
             {rows.length === 0 ? (
               <tr>
                 <td colSpan={9} className="px-3 py-6 text-center text-ink-500">No cells match.</td>
@@ -79,9 +76,7 @@ export default async function CatalogPage({ params, searchParams }: { params: Pr
                 </tr>
               ))
             )}
-          </tbody>
-        </table>
-      </div>
+          </ListTable>
       <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
     </div>
   );

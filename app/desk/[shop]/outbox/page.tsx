@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { Pager, SortHeader, FilterForm } from "@/components/ui/list-controls";
+import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { countOutboxByStatus, listOutbox } from "@/db/queries/outbox";
 import { requireShopPage } from "@/lib/auth/context";
 import { outboxListSchema } from "@/lib/validation/outbox";
@@ -43,19 +43,17 @@ export default async function OutboxPage({ params, searchParams }: { params: Pro
         sort={q.sort}
         dir={q.dir}
       />
-      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
-        <table className="w-full text-sm">
-          <thead className="bg-ink-50 text-ink-700">
-            <tr>
-              <SortHeader base={base} params={keep} sortKey="created" label="Created" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="to" label="To" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="subject" label="Subject" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="status" label="State" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="attempts" label="Attempts" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="sent" label="Sent at" sort={q.sort} dir={q.dir} />
-            </tr>
-          </thead>
-          <tbody>
+      <ListTable
+        base={base} params={keep} sort={q.sort} dir={q.dir}
+        columns={[
+          { label: "Created", sortKey: "created" },
+          { label: "To", sortKey: "to" },
+          { label: "Subject", sortKey: "subject" },
+          { label: "State", sortKey: "status" },
+          { label: "Attempts", sortKey: "attempts" },
+          { label: "Sent at", sortKey: "sent" },
+        ]}
+      >
             {rows.length === 0 ? (
               <tr>
                 <td colSpan={6} className="px-3 py-6 text-center text-ink-500">{total === 0 && !q.q && q.status === "all" ? "No e-mail yet: messages appear here when the shop issues a quote." : "No messages match."}</td>
@@ -74,9 +72,7 @@ export default async function OutboxPage({ params, searchParams }: { params: Pro
                 </tr>
               ))
             )}
-          </tbody>
-        </table>
-      </div>
+          </ListTable>
       <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
     </div>
   );

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { Pager, SortHeader, FilterForm } from "@/components/ui/list-controls";
+import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { listQuotes } from "@/db/queries/quotes";
 import { requireShopPage } from "@/lib/auth/context";
 import { formatMoney } from "@/lib/pricing";
@@ -31,20 +31,18 @@ export default async function DeskQuotesPage({ params, searchParams }: { params:
         sort={q.sort}
         dir={q.dir}
       />
-      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
-        <table className="w-full text-sm">
-          <thead className="bg-ink-50 text-ink-700">
-            <tr>
-              <SortHeader base={base} params={keep} sortKey="number" label="Quote" sort={q.sort} dir={q.dir} />
-              <th scope="col" className="px-3 py-2 text-left font-medium">Customer</th>
-              <th scope="col" className="px-3 py-2 text-left font-medium">Status</th>
-              <th scope="col" className="px-3 py-2 text-right font-medium">Banks</th>
-              <SortHeader base={base} params={keep} sortKey="total" label="Total" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="validUntil" label="Valid until" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="created" label="Issued" sort={q.sort} dir={q.dir} />
-            </tr>
-          </thead>
-          <tbody>
+      <ListTable
+        base={base} params={keep} sort={q.sort} dir={q.dir}
+        columns={[
+          { label: "Quote", sortKey: "number" },
+          { label: "Customer" },
+          { label: "Status" },
+          { label: "Banks", align: "right" },
+          { label: "Total", sortKey: "total" },
+          { label: "Valid until", sortKey: "validUntil" },
+          { label: "Issued", sortKey: "created" },
+        ]}
+      >
             {rows.length === 0 ? (
               <tr>
                 <td colSpan={7} className="px-3 py-6 text-center text-ink-500">No quotes match.</td>
@@ -68,9 +66,7 @@ export default async function DeskQuotesPage({ params, searchParams }: { params:
                 </tr>
               ))
             )}
-          </tbody>
-        </table>
-      </div>
+          </ListTable>
       <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
     </div>
   );

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { Pager, SortHeader, FilterForm } from "@/components/ui/list-controls";
+import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { listRequests } from "@/db/queries/requests";
 import { requireShopPage } from "@/lib/auth/context";
 import { formatQuantity } from "@/lib/quantities";
@@ -34,19 +34,17 @@ export default async function DeskRequestsPage({ params, searchParams }: { param
         sort={q.sort}
         dir={q.dir}
       />
-      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
-        <table className="w-full text-sm">
-          <thead className="bg-ink-50 text-ink-700">
-            <tr>
-              <SortHeader base={base} params={keep} sortKey="created" label="Received" sort={q.sort} dir={q.dir} />
-              <th scope="col" className="px-3 py-2 text-left font-medium">Customer</th>
-              <SortHeader base={base} params={keep} sortKey="voltage" label="Voltage" sort={q.sort} dir={q.dir} />
-              <th scope="col" className="px-3 py-2 text-right font-medium">Banks</th>
-              <SortHeader base={base} params={keep} sortKey="status" label="Status" sort={q.sort} dir={q.dir} />
-              <th scope="col" className="px-3 py-2 text-left font-medium">Quote or reasons</th>
-            </tr>
-          </thead>
-          <tbody>
+      <ListTable
+        base={base} params={keep} sort={q.sort} dir={q.dir}
+        columns={[
+          { label: "Received", sortKey: "created" },
+          { label: "Customer" },
+          { label: "Voltage", sortKey: "voltage" },
+          { label: "Banks", align: "right" },
+          { label: "Status", sortKey: "status" },
+          { label: "Quote or reasons" },
+        ]}
+      >
             {rows.length === 0 ? (
               <tr>
                 <td colSpan={6} className="px-3 py-6 text-center text-ink-500">No requests match.</td>
@@ -78,9 +76,7 @@ export default async function DeskRequestsPage({ params, searchParams }: { param
                 </tr>
               ))
             )}
-          </tbody>
-        </table>
-      </div>
+          </ListTable>
       <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
     </div>
   );

@@ -3,7 +3,7 @@ import { listMembers } from "@/db/queries/members";
 import { requireShopPage } from "@/lib/auth/context";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
 import { memberListSchema } from "@/lib/validation/auth";
-import { Pager, SortHeader, FilterForm } from "@/components/ui/list-controls";
+import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { RoleSelect } from "./_components/role-select";
 
 export const metadata: Metadata = { title: "Team" };
@@ -30,17 +30,15 @@ export default async function TeamPage({ params, searchParams }: { params: Promi
         sort={q.sort}
         dir={q.dir}
       />
-      <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
-        <table className="w-full text-sm">
-          <thead className="bg-ink-50 text-ink-700">
-            <tr>
-              <SortHeader base={base} params={keep} sortKey="name" label="Name" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="email" label="E-mail" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="role" label="Role" sort={q.sort} dir={q.dir} />
-              <SortHeader base={base} params={keep} sortKey="joined" label="Joined" sort={q.sort} dir={q.dir} />
-            </tr>
-          </thead>
-          <tbody>
+      <ListTable
+        base={base} params={keep} sort={q.sort} dir={q.dir}
+        columns={[
+          { label: "Name", sortKey: "name" },
+          { label: "E-mail", sortKey: "email" },
+          { label: "Role", sortKey: "role" },
+          { label: "Joined", sortKey: "joined" },
+        ]}
+      >
             {rows.length === 0 ? (
               <tr>
                 <td colSpan={4} className="px-3 py-6 text-center text-ink-500">No members match.</td>
@@ -61,9 +59,7 @@ export default async function TeamPage({ params, searchParams }: { params: Promi
                 </tr>
               ))
             )}
-          </tbody>
-        </table>
-      </div>
+          </ListTable>
       <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
     </div>
   );
