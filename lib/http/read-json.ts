@@ -3,14 +3,12 @@ import { jsonError } from "@/lib/http/json-error";
 export const MAX_BODY_BYTES = 1024 * 1024;
 
 /**
- * Reads a JSON body of at most `limit` bytes without trusting Content-Length: the stream is
- * cut off as soon as it passes the limit. Answers a 400 JSON error for anything unreadable.
+ * Reads a request body of at most `limit` bytes without trusting Content-Length: the stream is
+ * cut off as soon as it passes the limit. Null when the body is larger.
  */
-export async function readJsonBody(request: Request, limit = MAX_BODY_BYTES): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
-  const tooLarge = () => ({ ok: false as const, response: jsonError(400, `The body is larger than ${limit / 1024 / 1024} MB.`, [{ path: "", message: "Body too large" }]) });
-  const declared = Number(request.headers.get("content-length") ?? "0");
-  if (declared > limit) return tooLarge();
-  if (!request.body) return { ok: false, response: jsonError(400, "The body is empty; send a JSON object.", [{ path: "", message: "Empty body" }]) };
+export async function readBodyLimited(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer> | null> {
+  if (Number(request.headers.get("content-length") ?? "0") > limit) return null;
+  if (!request.body) return new Uint8Array();
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
@@ -20,11 +18,20 @@ export async function readJsonBody(request: Request, limit = MAX_BODY_BYTES): Pr
     size += value.byteLength;
     if (size > limit) {
       await reader.cancel().catch(() => undefined);
-      return tooLarge();
+      return null;
     }
     chunks.push(value);
   }
-  const text = Buffer.concat(chunks).toString("utf8");
+  return new Uint8Array(Buffer.concat(chunks));
+}
+
+/** Reads a JSON body of at most `limit` bytes; answers a 400 JSON error for anything unreadable. */
+export async function readJsonBody(request: Request, limit = MAX_BODY_BYTES): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
+  const bytes = await readBodyLimited(request, limit);
+  if (bytes === null) {
+    return { ok: false, response: jsonError(400, `The body is larger than ${limit / 1024 / 1024} MB.`, [{ path: "", message: "Body too large" }]) };
+  }
+  const text = Buffer.from(bytes).toString("utf8");
   if (text.trim() === "") return { ok: false, response: jsonError(400, "The body is empty; send a JSON object.", [{ path: "", message: "Empty body" }]) };
   try {
     return { ok: true, value: JSON.parse(text) };

@@ -1,5 +1,6 @@
 import { createAttachment } from "@/db/queries/attachments";
 import { jsonError, withShopApi } from "@/lib/auth/api";
+import { readBodyLimited } from "@/lib/http/read-json";
 import { storeAttachmentBytes } from "@/lib/quoting/attachment-store";
 import { MAX_ATTACHMENT_BYTES, cleanFileName, detectAttachmentType } from "@/lib/quoting/attachment-type";
 
@@ -7,26 +8,6 @@ import { MAX_ATTACHMENT_BYTES, cleanFileName, detectAttachmentType } from "@/lib
 const MULTIPART_OVERHEAD = 64 * 1024;
 
 const tooLarge = () => jsonError(400, "A file may be at most 10 MB.", [{ path: "file", message: "The file is larger than 10 MB." }]);
-
-/** Reads the body up to a limit without trusting Content-Length; null when it is larger. */
-async function readLimited(request: Request, limit: number): Promise<Uint8Array<ArrayBuffer> | null> {
-  if (Number(request.headers.get("content-length") ?? "0") > limit) return null;
-  if (!request.body) return new Uint8Array();
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.byteLength;
-    if (size > limit) {
-      await reader.cancel().catch(() => undefined);
-      return null;
-    }
-    chunks.push(value);
-  }
-  return new Uint8Array(Buffer.concat(chunks));
-}
 
 /**
  * POST /api/v1/shops/{shop}/attachments — multipart `file`: a drawing or specification (PDF, PNG,
@@ -39,7 +20,7 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
     if (!contentType.toLowerCase().startsWith("multipart/form-data")) {
       return jsonError(400, "Send the file as multipart/form-data in a field named file.", [{ path: "file", message: "Expected multipart/form-data" }]);
     }
-    const body = await readLimited(request, MAX_ATTACHMENT_BYTES + MULTIPART_OVERHEAD);
+    const body = await readBodyLimited(request, MAX_ATTACHMENT_BYTES + MULTIPART_OVERHEAD);
     if (body === null) return tooLarge();
     let form: FormData;
     try {
