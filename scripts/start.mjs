@@ -8,9 +8,10 @@ import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, portOpen,
 
 const dev = process.argv.includes("--dev");
 const PORT = Number(process.env.PORT ?? 3000);
-const PG_PORT = 54329;
-const SMTP_PORT = 1025;
-const INBOX_PORT = 1080;
+// Ports can be moved (two checkouts on one machine); the defaults are the README's.
+const PG_PORT = Number(process.env.START_PG_PORT ?? 54329);
+const SMTP_PORT = Number(process.env.START_SMTP_PORT ?? 1025);
+const INBOX_PORT = Number(process.env.START_INBOX_PORT ?? 1080);
 
 if (await portOpen(PORT)) {
   log(`port ${PORT} is already in use (another Faradsmith still running?); stop it or set PORT=…`);
