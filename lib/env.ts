@@ -8,6 +8,8 @@ const schema = z.object({
   BETTER_AUTH_URL: z.string().url().optional(),
   BETTER_AUTH_SECRET: z.string().min(16).default("faradsmith-local-secret-change-me-in-production"),
   AUTH_RATE_LIMIT_MAX: z.coerce.number().int().positive().default(30),
+  /** sign-in and sign-up attempts per client per 10 s */
+  AUTH_SIGN_IN_LIMIT: z.coerce.number().int().positive().default(3),
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(120),
   SMTP_HOST: z.string().default("127.0.0.1"),
   SMTP_PORT: z.coerce.number().int().positive().default(1025),

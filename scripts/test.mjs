@@ -38,6 +38,7 @@ const env = {
   SMTP_PORT: String(SMTP_PORT),
   MAIL_INBOX_URL: `http://127.0.0.1:${INBOX_PORT}`,
   AUTH_RATE_LIMIT_MAX: "1000",
+  AUTH_SIGN_IN_LIMIT: "1000",
   API_RATE_LIMIT_PER_MINUTE: "100000",
   UPLOAD_DIR: path.join(".data", `uploads-test-${SLOT}`),
   NEXT_TELEMETRY_DISABLED: "1",
