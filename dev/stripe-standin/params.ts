@@ -72,7 +72,7 @@ export function coerce(value: FormValue, schema: Schema, path: Path): ParamValue
   switch (schema.type) {
     case "string": {
       if (isTree(value)) throw paramError(`Invalid string: ${name} must be a string, not a hash`, name);
-      if (schema.enum && !schema["x-stripeBypassValidation"] && !schema.enum.includes(value)) {
+      if (schema.enum && !schema.enum.includes(value)) {
         throw paramError(`Invalid ${name}: must be one of ${oneOfList(schema.enum)}`, name);
       }
       if (schema.maxLength !== undefined && value.length > schema.maxLength) {

@@ -35,6 +35,11 @@ export interface StandinOptions {
   /** How often open sessions past `expires_at` are expired. */
   sweepIntervalMs?: number;
   log?: (line: string) => void;
+  /**
+   * Called with every API answer as sent (for contract tests: the operation in Stripe's
+   * description, e.g. "get /v1/refunds/{refund}", or null for an address the API does not have).
+   */
+  onApiAnswer?: (answer: { op: string | null; status: number; body: string }) => void;
 }
 
 export interface Standin {
@@ -220,6 +225,8 @@ interface Reply {
   status: number;
   body: string;
   headers?: Record<string, string>;
+  /** The API operation that answered, when one did. */
+  op?: string;
 }
 
 function jsonReply(status: number, value: unknown): Reply {
@@ -335,7 +342,12 @@ export async function startStandin(options: StandinOptions): Promise<Standin> {
     if (!match) {
       return errorReply(new StripeApiError(404, { type: "invalid_request_error", message: `Unrecognized request URL (${method}: ${url.pathname}).` }));
     }
-    const { route: r, path } = match;
+    return { ...answerRoute(req, url, bodyText, requestId, key, match.route, match.path), op: match.route.op };
+  }
+
+  /** One matched API call: parameters, idempotency, the operation itself, expansion. */
+  function answerRoute(req: http.IncomingMessage, url: URL, bodyText: string, requestId: string, key: string, r: Route, path: Record<string, string>): Reply {
+    const method = r.method;
 
     let tree: FormTree;
     try {
@@ -508,7 +520,11 @@ export async function startStandin(options: StandinOptions): Promise<Standin> {
     if (isApi) res.setHeader("stripe-version", SPEC_API_VERSION);
     readBody(req)
       .then(async (bodyText) => {
-        if (isApi) return send(res, api(req, url, bodyText, requestId));
+        if (isApi) {
+          const reply = api(req, url, bodyText, requestId);
+          options.onApiAnswer?.({ op: reply.op ?? null, status: reply.status, body: reply.body });
+          return send(res, reply);
+        }
         if (url.pathname === "/_standin" || url.pathname.startsWith("/_standin/")) return send(res, await control(req, url, bodyText));
         if (isPage) {
           const out = page(req, url, bodyText);

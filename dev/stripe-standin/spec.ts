@@ -20,7 +20,6 @@ export interface Schema {
   items?: Schema;
   anyOf?: Schema[];
   format?: string;
-  "x-stripeBypassValidation"?: boolean;
 }
 
 interface SpecParameter {
@@ -69,7 +68,8 @@ function stripDescriptions(schema: Schema): Schema {
   if (schema.items) out.items = stripDescriptions(schema.items);
   if (schema.anyOf) out.anyOf = schema.anyOf.map(stripDescriptions);
   if (schema.format) out.format = schema.format;
-  if (schema["x-stripeBypassValidation"]) out["x-stripeBypassValidation"] = true;
+  // `x-stripeBypassValidation` tells SDK generators not to check an enum client-side; the API
+  // itself still refuses values it does not know (for example `locale=xx`), so enums are enforced.
   return out;
 }
 
