@@ -62,7 +62,7 @@ export const EMBEDDED_LIST_LIMIT = 10;
 const DECLINE = { code: "card_declined", declineCode: "generic_decline", message: "Your card was declined." } as const;
 
 function metadataOf(value: ParamValue | undefined): Metadata {
-  const out: Metadata = {};
+  const out = Object.create(null) as Metadata; // a key named __proto__ stays a key
   if (value && typeof value === "object" && !Array.isArray(value)) {
     for (const [k, v] of Object.entries(value)) if (typeof v === "string" && v !== "") out[k] = v;
   }
