@@ -36,6 +36,12 @@ const STYLE = `
   .error { color: var(--bad); border: 2px solid var(--bad); background: #fff; padding: .75rem; margin-top: 1rem; }
   .hint { font-size: .875rem; color: var(--muted); }
   a { color: var(--accent); }
+  .each { display: none; }
+  @media (max-width: 30rem) {
+    th, td { padding: .5rem .3rem; }
+    .unit { display: none; }
+    .each { display: block; font-size: .875rem; color: var(--muted); }
+  }
 `;
 
 function layout(title: string, body: string): string {
@@ -59,16 +65,20 @@ ${body}
 function itemsTable(s: SessionRecord, unitAmount: (priceId: string) => number): string {
   const rows = s.lineItems
     .map(
-      (li) => `<tr><td>${escapeHtml(li.description)}</td><td class="num">${li.quantity}</td><td class="num">${escapeHtml(formatMinor(unitAmount(li.priceId), li.currency))}</td><td class="num">${escapeHtml(formatMinor(li.amount, li.currency))}</td></tr>`,
+      (li) => {
+        const unit = escapeHtml(formatMinor(unitAmount(li.priceId), li.currency));
+        // On narrow screens the unit-price column gives way to a line under the item's name.
+        return `<tr><td>${escapeHtml(li.description)}<span class="each">${li.quantity} × ${unit}</span></td><td class="num">${li.quantity}</td><td class="num unit">${unit}</td><td class="num">${escapeHtml(formatMinor(li.amount, li.currency))}</td></tr>`;
+      },
     )
     .join("\n");
   return `<table>
 <caption>What you are paying for</caption>
-<thead><tr><th scope="col">Item</th><th scope="col" class="num">Quantity</th><th scope="col" class="num">Unit price</th><th scope="col" class="num">Amount</th></tr></thead>
+<thead><tr><th scope="col">Item</th><th scope="col" class="num">Quantity</th><th scope="col" class="num unit">Unit price</th><th scope="col" class="num">Amount</th></tr></thead>
 <tbody>
 ${rows}
 </tbody>
-<tfoot><tr><th scope="row" colspan="3">Total (${escapeHtml(s.currency.toUpperCase())})</th><td class="num" data-testid="total">${escapeHtml(formatMinor(s.amountTotal, s.currency))}</td></tr></tfoot>
+<tfoot><tr><th scope="row" colspan="2">Total (${escapeHtml(s.currency.toUpperCase())})</th><td class="unit"></td><td class="num" data-testid="total">${escapeHtml(formatMinor(s.amountTotal, s.currency))}</td></tr></tfoot>
 </table>`;
 }
 
