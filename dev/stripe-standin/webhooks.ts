@@ -178,9 +178,9 @@ export class WebhookDispatcher {
     const copies = this.config.duplicates;
     this.pending += events.length * (copies + 1);
     for (const event of events) {
-      this.chain = this.chain.then(() =>
-        Promise.all(Array.from({ length: copies + 1 }, (_, copy) => this.attempt(event, copy, 1, generation))),
-      );
+      this.chain = this.chain
+        .then(() => Promise.all(Array.from({ length: copies + 1 }, (_, copy) => this.attempt(event, copy, 1, generation))))
+        .catch(() => undefined); // one broken attempt must not stop the events after it
     }
   }
 
