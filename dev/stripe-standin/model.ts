@@ -155,6 +155,9 @@ export class StripeModel {
 
   /** Newest first, filtered as `GET /v1/events` filters. */
   listEvents(params: Params): EventRecord[] {
+    if (params.type !== undefined && params.types !== undefined) {
+      throw paramError("You may only specify one of these parameters: type, types.", "types", "parameters_exclusive");
+    }
     const types = params.type !== undefined ? [params.type as string] : ((params.types as string[] | undefined) ?? null);
     if (types && types.length > 20) throw paramError("Invalid types: at most 20 types may be given", "types");
     const matchers = types?.map((t) => (t.endsWith(".*") ? (x: string) => x.startsWith(t.slice(0, -1)) : (x: string) => x === t));

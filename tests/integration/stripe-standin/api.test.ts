@@ -6,11 +6,11 @@
 // too. Error codes and messages not in the description (parameter_unknown, resource_missing…)
 // are the real API's as recalled from its answers.
 import Stripe from "stripe";
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { afterEach, describe, expect, it } from "vitest";
 import { env } from "@/lib/env";
 import type { Standin } from "@/dev/stripe-standin/server";
 import type { Verdict } from "@/tests/support/stripe-openapi";
-import { answerProblems, control, pay, sdkFor, sessionParams, startTestStandin, stripeSpec, type Answer } from "./helpers";
+import { answerProblems, control, pay, sdkFor, sessionParams, startTestStandin, stripeSpec, useTestStandin, type Answer } from "./helpers";
 
 let standin: Standin;
 let stripe: Stripe;
@@ -53,20 +53,14 @@ async function paidSession(params = sessionParams()) {
   return stripe.checkout.sessions.retrieve(created.id);
 }
 
-beforeAll(async () => {
-  standin = await startTestStandin({ onApiAnswer: (a) => answers.push(a) });
-  stripe = sdkFor(standin);
-});
+useTestStandin((s, sdk) => {
+  standin = s;
+  stripe = sdk;
+}, { onApiAnswer: (a) => answers.push(a) });
 afterEach(() => {
   const sent = answers.splice(0);
   for (const a of sent) if (a.op && a.status === 200) answeredOps.add(a.op);
   expect(sent.flatMap(answerProblems)).toEqual([]);
-});
-afterAll(async () => {
-  await standin.close();
-});
-beforeEach(async () => {
-  await control(standin, "POST", "/_standin/reset");
 });
 
 describe("the description the checks use", () => {
@@ -421,6 +415,7 @@ describe("events", () => {
     const rest = await stripe.events.list({ limit: 4, starting_after: page.data[3]?.id });
     expect(rest.data.map((e) => e.type)).toEqual(["charge.succeeded", "payment_intent.created"]);
     expect((await refusal(stripe.events.list({ limit: 101 }))).param).toBe("limit");
+    expect((await refusal(stripe.events.list({ type: "refund.created", types: ["charge.refunded"] }))).code).toBe("parameters_exclusive");
   });
 
   it("keeps the event's object as it was when the event happened", async () => {

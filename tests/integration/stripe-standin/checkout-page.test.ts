@@ -3,9 +3,9 @@
 // with the currency's ISO 4217 minor unit (JPY 0 digits, EUR 2, KWD 3: ISO 4217 list one).
 // In a real browser: tests/e2e/stripe-standin.spec.ts.
 import Stripe from "stripe";
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import type { Standin } from "@/dev/stripe-standin/server";
-import { control, sdkFor, sessionParams, startTestStandin } from "./helpers";
+import { sessionParams, useTestStandin } from "./helpers";
 
 let standin: Standin;
 let stripe: Stripe;
@@ -24,15 +24,9 @@ function oneLine(currency: string, unitAmount: number, quantity = 1, name = "Fil
   return sessionParams({ line_items: [{ quantity, price_data: { currency, unit_amount: unitAmount, product_data: { name } } }] });
 }
 
-beforeAll(async () => {
-  standin = await startTestStandin();
-  stripe = sdkFor(standin);
-});
-afterAll(async () => {
-  await standin.close();
-});
-beforeEach(async () => {
-  await control(standin, "POST", "/_standin/reset");
+useTestStandin((s, sdk) => {
+  standin = s;
+  stripe = sdk;
 });
 
 describe("the hosted payment page", () => {

@@ -1,6 +1,7 @@
 import http from "node:http";
 import type { AddressInfo } from "node:net";
 import Stripe from "stripe";
+import { afterAll, beforeAll, beforeEach } from "vitest";
 import { env } from "@/lib/env";
 import { startStandin, type Standin, type StandinOptions } from "@/dev/stripe-standin/server";
 import { StripeOpenApi } from "@/tests/support/stripe-openapi";
@@ -60,6 +61,24 @@ export function startTestStandin(options: Partial<StandinOptions> = {}): Promise
     webhookSecret: env.STRIPE_WEBHOOK_SECRET,
     ...options,
     webhook: { ...options.webhook, retry: { maxAttempts: 4, initialDelayMs: 20, maxDelayMs: 200, timeoutMs: 2_000, ...options.webhook?.retry } },
+  });
+}
+
+/**
+ * Registers the file's hooks: a stand-in of its own for the whole file (handed over with an SDK
+ * client through `onStart`), reset before every test, closed at the end.
+ */
+export function useTestStandin(onStart: (standin: Standin, stripe: Stripe) => void, options: Partial<StandinOptions> = {}): void {
+  let standin: Standin | null = null;
+  beforeAll(async () => {
+    standin = await startTestStandin(options);
+    onStart(standin, sdkFor(standin));
+  });
+  afterAll(async () => {
+    await standin?.close();
+  });
+  beforeEach(async () => {
+    if (standin) await control(standin, "POST", "/_standin/reset");
   });
 }
 

@@ -4,11 +4,11 @@
 // event's object). Retries, duplicates and reordering are driven through the `/_standin/…`
 // control endpoints the app's tests will use.
 import Stripe from "stripe";
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { afterEach, describe, expect, it } from "vitest";
 import { env } from "@/lib/env";
 import type { Standin } from "@/dev/stripe-standin/server";
 import type { DeliveryAttempt } from "@/dev/stripe-standin/webhooks";
-import { control, eventProblems, pay, sdkFor, sessionParams, settle, startReceiver, startTestStandin } from "./helpers";
+import { control, eventProblems, pay, sessionParams, settle, startReceiver, useTestStandin } from "./helpers";
 
 let standin: Standin;
 let stripe: Stripe;
@@ -37,15 +37,9 @@ async function paidSession() {
 /** A port with nothing listening: the app is down. */
 const DOWN = "http://127.0.0.1:9/api/webhooks/stripe";
 
-beforeAll(async () => {
-  standin = await startTestStandin();
-  stripe = sdkFor(standin);
-});
-afterAll(async () => {
-  await standin.close();
-});
-beforeEach(async () => {
-  await control(standin, "POST", "/_standin/reset");
+useTestStandin((s, sdk) => {
+  standin = s;
+  stripe = sdk;
 });
 afterEach(async () => {
   await control(standin, "POST", "/_standin/reset");
