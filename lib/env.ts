@@ -22,6 +22,21 @@ const schema = z.object({
   MAIL_WORKER: z.enum(["on", "off"]).default("on"),
   MAIL_INBOX_URL: z.string().url().default("http://127.0.0.1:1080"),
   UPLOAD_DIR: z.string().default(".data/uploads"),
+  /**
+   * Stripe. The defaults point at the local stand-in (dev/stripe-standin) with its fixed test key
+   * and webhook secret, which guard nothing real (the stand-in runs on loopback only). For the
+   * real service set STRIPE_API_BASE=https://api.stripe.com and the account's key and secret.
+   */
+  STRIPE_API_BASE: z
+    .string()
+    .url()
+    .refine((u) => /^https?:\/\//.test(u), "must be an http(s) URL")
+    .default("http://127.0.0.1:12111"),
+  STRIPE_SECRET_KEY: z
+    .string()
+    .regex(/^(sk|rk)_(test|live)_[A-Za-z0-9_]+$/, "must be a Stripe secret key (sk_test_…, sk_live_…)")
+    .default("sk_test_faradsmith_local_standin_key"),
+  STRIPE_WEBHOOK_SECRET: z.string().startsWith("whsec_").default("whsec_faradsmith_local_standin_secret"),
 });
 
 const parsed = schema.safeParse(process.env);
@@ -29,8 +44,16 @@ if (!parsed.success) {
   throw new Error(`Invalid environment: ${parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`);
 }
 
+const stripeBase = new URL(parsed.data.STRIPE_API_BASE);
+
 export const env = {
   ...parsed.data,
   BETTER_AUTH_URL: parsed.data.BETTER_AUTH_URL ?? parsed.data.APP_URL,
+  /** STRIPE_API_BASE as the SDK takes it: `new Stripe(key, { ...env.STRIPE_API })`. */
+  STRIPE_API: {
+    host: stripeBase.hostname,
+    port: Number(stripeBase.port || (stripeBase.protocol === "https:" ? 443 : 80)),
+    protocol: stripeBase.protocol === "https:" ? ("https" as const) : ("http" as const),
+  },
 };
 export type Env = typeof env;

@@ -182,3 +182,39 @@ export async function startMaildev({ smtpPort, webPort, name }) {
   return child;
 }
 
+/**
+ * The local Stripe stand-in (dev/stripe-standin) on the loopback port of `apiBase`, delivering
+ * webhooks to `webhookUrl`. Not started when STRIPE_API_BASE points elsewhere (the real service).
+ * `env` carries STRIPE_API_BASE and any STANDIN_* settings; the key and webhook secret come from
+ * lib/env.ts, as in the app.
+ */
+export async function startStripeStandin({ apiBase, webhookUrl, env }) {
+  const base = new URL(apiBase);
+  if (!["127.0.0.1", "localhost"].includes(base.hostname) || base.protocol !== "http:") {
+    log(`STRIPE_API_BASE is ${apiBase}: not starting the local Stripe stand-in`);
+    return null;
+  }
+  const port = Number(base.port || 80);
+  if (await portOpen(port)) {
+    log(`Stripe stand-in already listening on ${port}; reusing it`);
+    return null;
+  }
+  const bin = path.join(root, "node_modules", ".bin", "tsx");
+  let exited;
+  const early = new Promise((_, reject) => {
+    exited = (code) => reject(new Error(`the Stripe stand-in exited (${code}) before opening port ${port}; see its message above`));
+  });
+  early.catch(() => undefined); // a late exit is reported by onExit, not as an unhandled rejection
+  let up = false;
+  const child = spawnService("Stripe stand-in", bin, ["dev/stripe-standin/main.ts"], {
+    env: { ...env, STRIPE_API_BASE: apiBase, STANDIN_WEBHOOK_URL: webhookUrl },
+    stdio: ["ignore", "ignore", "inherit"],
+    onExit: (code, signal) => {
+      if (!up) exited(code ?? signal);
+      else if (!stopping && code !== 0) log(`Stripe stand-in exited (${code ?? signal})`);
+    },
+  });
+  await Promise.race([waitForPort(port, "Stripe stand-in"), early]);
+  up = true;
+  return child;
+}

@@ -4,7 +4,7 @@
 // Ctrl-C stops everything this command started.
 import { spawnSync } from "node:child_process";
 import path from "node:path";
-import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, portOpen, root, spawnService, startMaildev, stopAll, waitForPort } from "./services.mjs";
+import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, portOpen, root, spawnService, startMaildev, startStripeStandin, stopAll, waitForPort } from "./services.mjs";
 
 const dev = process.argv.includes("--dev");
 const PORT = Number(process.env.PORT ?? 3000);
@@ -12,6 +12,7 @@ const PORT = Number(process.env.PORT ?? 3000);
 const PG_PORT = Number(process.env.START_PG_PORT ?? 54329);
 const SMTP_PORT = Number(process.env.START_SMTP_PORT ?? 1025);
 const INBOX_PORT = Number(process.env.START_INBOX_PORT ?? 1080);
+const STRIPE_PORT = Number(process.env.START_STRIPE_PORT ?? 12111);
 
 if (await portOpen(PORT)) {
   log(`port ${PORT} is already in use (another Faradsmith still running?); stop it or set PORT=…`);
@@ -32,6 +33,8 @@ const env = {
   SMTP_HOST: "127.0.0.1",
   SMTP_PORT: String(SMTP_PORT),
   MAIL_INBOX_URL: `http://127.0.0.1:${INBOX_PORT}`,
+  // The local Stripe stand-in unless STRIPE_API_BASE is set (to the real service, for example).
+  STRIPE_API_BASE: process.env.STRIPE_API_BASE ?? `http://127.0.0.1:${STRIPE_PORT}`,
   NEXT_TELEMETRY_DISABLED: "1",
 };
 
@@ -63,6 +66,7 @@ const step = (label, cmd, args) => {
 
 if (step("applying migrations and demo data", bin("tsx"), ["scripts/db.ts", "setup"])) {
   await startMaildev({ smtpPort: SMTP_PORT, webPort: INBOX_PORT, name: "maildev" });
+  await startStripeStandin({ apiBase: env.STRIPE_API_BASE, webhookUrl: `${appUrl}/api/webhooks/stripe`, env });
   if (dev) {
     spawnService("next dev", bin("next"), ["dev", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
   } else if (step("building the app", bin("next"), ["build"])) {
@@ -73,6 +77,7 @@ if (step("applying migrations and demo data", bin("tsx"), ["scripts/db.ts", "set
     const { demoSignIns } = await import("./demo-sign-ins.mjs");
     log(`Faradsmith is running at ${appUrl}`);
     log(`mail inbox (local stand-in): http://127.0.0.1:${INBOX_PORT}`);
+    log(`payments: ${env.STRIPE_API_BASE}${env.STRIPE_API_BASE.startsWith("http://127.0.0.1") ? " (local Stripe stand-in, test cards only)" : ""}`);
     log("demo sign-ins (password for all: see README):");
     for (const line of demoSignIns()) log(`  ${line}`);
     log("press Ctrl-C to stop");

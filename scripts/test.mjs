@@ -4,7 +4,7 @@
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
-import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, root, startMaildev, stopAll } from "./services.mjs";
+import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, root, startMaildev, startStripeStandin, stopAll } from "./services.mjs";
 
 // TEST_SLOT=n lets several runs share the machine: each gets its own database, ports and build folder.
 const SLOT = Number(process.env.TEST_SLOT ?? 0);
@@ -12,6 +12,7 @@ const PG_PORT = Number(process.env.TEST_PG_PORT ?? 54339);
 const SMTP_PORT = 1125 + SLOT * 10;
 const INBOX_PORT = 1180 + SLOT * 10;
 const APP_PORT = 3100 + SLOT;
+const STRIPE_PORT = 12111 + 10 * (SLOT + 1);
 const DB_NAME = SLOT ? `faradsmith_test_${SLOT}` : "faradsmith_test";
 const DIST_DIR = SLOT ? `.next-slot-${SLOT}` : ".next";
 const only = process.argv.slice(2); // e.g. `npm test -- unit integration`
@@ -41,11 +42,21 @@ const env = {
   AUTH_SIGN_IN_LIMIT: "1000",
   API_RATE_LIMIT_PER_MINUTE: "100000",
   UPLOAD_DIR: path.join(".data", `uploads-test-${SLOT}`),
+  // The local Stripe stand-in; the key and webhook secret are lib/env.ts's fixed local values.
+  STRIPE_API_BASE: `http://127.0.0.1:${STRIPE_PORT}`,
+  // Test runs retry failed webhooks quickly: four attempts within about a second.
+  STANDIN_WEBHOOK_MAX_ATTEMPTS: "4",
+  STANDIN_WEBHOOK_RETRY_MS: "100",
+  STANDIN_WEBHOOK_RETRY_MAX_MS: "1000",
+  STANDIN_WEBHOOK_TIMEOUT_MS: "5000",
   NEXT_TELEMETRY_DISABLED: "1",
   NEXT_DIST_DIR: DIST_DIR,
   FORCE_COLOR: "0",
 };
 delete env.NODE_ENV;
+// Tests always use lib/env.ts's fixed local Stripe key and webhook secret, whatever the shell has.
+delete env.STRIPE_SECRET_KEY;
+delete env.STRIPE_WEBHOOK_SECRET;
 
 let passed = 0;
 let failed = 0;
@@ -79,6 +90,7 @@ try {
     summary.push("database set-up: FAILED");
   }
   await startMaildev({ smtpPort: SMTP_PORT, webPort: INBOX_PORT, name: `maildev-test-${SLOT}` });
+  await startStripeStandin({ apiBase: env.STRIPE_API_BASE, webhookUrl: `${appUrl}/api/webhooks/stripe`, env });
 
   if (wants("typecheck")) check("typecheck", bin("tsc"), ["--noEmit", "-p", "."]);
   if (wants("lint")) check("lint", bin("eslint"), [".", "--max-warnings=0"]);
