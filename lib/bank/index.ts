@@ -4,3 +4,7 @@ export * from './discharge';
 export * from './preferred-values';
 export * from './balancing';
 export * from './arrangements';
+export * from './failures';
+export * from './tolerance';
+export * from './life';
+export { MersenneTwister, normalCdf, normalQuantile } from './random';
