@@ -24,7 +24,13 @@ export interface SpiceNetlist {
  */
 export function networkToNetlist(
   tree: NetworkNode,
-  opts: { sourceVoltage: number; chargeResistance: number; equivalentCapacitance: number },
+  opts: {
+    sourceVoltage: number;
+    chargeResistance: number;
+    equivalentCapacitance: number;
+    /** failed cells: a short becomes a 1 mΩ resistor, an open is left out */
+    faults?: ReadonlyMap<string, 'short' | 'open'>;
+  },
 ): SpiceNetlist {
   const lines: string[] = ['* network charged through a resistor', `V1 src 0 DC ${opts.sourceVoltage}`, `R1 src top ${opts.chargeResistance}`];
   const cellNodes = new Map<string, { top: string; bottom: string }>();
@@ -36,7 +42,9 @@ export function networkToNetlist(
     const { node, top, bottom } = work.pop()!;
     if (node.kind === 'cell') {
       capCounter++;
-      lines.push(`C${capCounter} ${top} ${bottom} ${node.capacitance} IC=0`);
+      const fault = opts.faults?.get(node.id);
+      if (fault === 'short') lines.push(`Rshort${capCounter} ${top} ${bottom} 1e-3`);
+      else if (fault !== 'open') lines.push(`C${capCounter} ${top} ${bottom} ${node.capacitance} IC=0`);
       cellNodes.set(node.id, { top, bottom });
     } else if (node.kind === 'parallel') {
       for (const child of node.children) work.push({ node: child, top, bottom });
