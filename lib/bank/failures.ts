@@ -1,5 +1,5 @@
 import { formatQuantity } from '../quantities';
-import { evaluateFlat, flattenNetwork, FLAT_PARALLEL, FLAT_SERIES, type FlatNetwork } from './flat-network';
+import { evaluateFlat, flattenNetwork, type FlatNetwork } from './flat-network';
 import type { NetworkNode, Topology } from './types';
 
 /**
@@ -212,7 +212,7 @@ class FaultPaths {
   len = 0;
 
   constructor(private readonly flat: FlatNetwork) {
-    const { size: n, kind, parent, cells } = flat;
+    const { size: n, parent, parentSeries, cells } = flat;
     const cellCap = new Float64Array(cells.length);
     for (let x = 0; x < cells.length; x++) cellCap[x] = (cells[x] as { capacitance: number }).capacitance;
     this.cap = new Float64Array(n);
@@ -224,7 +224,7 @@ class FaultPaths {
     this.accRest = new Float64Array(n);
     for (let i = 1; i < n; i++) {
       const p = parent[i] as number;
-      this.contrib[i] = kind[p] === FLAT_SERIES ? 1 / (this.cap[i] as number) : (this.cap[i] as number);
+      this.contrib[i] = parentSeries[i] ? 1 / (this.cap[i] as number) : (this.cap[i] as number);
       const d = this.dominant[p] as number;
       if (d < 0 || (this.contrib[i] as number) > (this.contrib[d] as number)) this.dominant[p] = i;
     }
@@ -241,7 +241,7 @@ class FaultPaths {
 
   /** Trace one fault of cell x (document order); answers the capacitance after it, Infinity on a short circuit. */
   trace(x: number, mode: FailureMode): number {
-    const { kind, parent, cellNode } = this.flat;
+    const { parent, parentSeries, cellNode } = this.flat;
     const { pathNode, pathCap, pathFraction, scale, fraction, cap, acc, contrib, dominant, accRest } = this;
     // bottom-up: a short takes no voltage (infinite capacitance), an open carries no charge (zero)
     let len = 0;
@@ -252,7 +252,7 @@ class FaultPaths {
     while ((parent[node] as number) >= 0) {
       const a = parent[node] as number;
       const base = dominant[a] === node ? (accRest[a] as number) : Math.max(0, (acc[a] as number) - (contrib[node] as number));
-      if (kind[a] === FLAT_SERIES) {
+      if (parentSeries[node]) {
         const sum = base + (newCap === Infinity ? 0 : newCap === 0 ? Infinity : 1 / newCap);
         newCap = sum === Infinity ? 0 : sum === 0 ? Infinity : 1 / sum;
       } else {
@@ -275,7 +275,7 @@ class FaultPaths {
       const fa = pathFraction[k + 1] as number;
       const capA = pathCap[k + 1] as number;
       const capC = pathCap[k] as number;
-      if (kind[a] === FLAT_PARALLEL) {
+      if (!parentSeries[pathNode[k] as number]) {
         pathFraction[k] = fa;
         scale[k] = fa / (fraction[a] as number);
       } else {
@@ -565,7 +565,7 @@ interface SiblingAggregates {
  * suffix sweeps over each group's children; ties keep the earlier cell.
  */
 function siblingAggregates(flat: FlatNetwork, cellFraction: Float64Array, room: Float64Array): SiblingAggregates {
-  const { size: n, kind, parent, subtreeSize, cellOf } = flat;
+  const { size: n, parent, subtreeSize, cellOf } = flat;
   const subMaxF = new Float64Array(n);
   const subMin = new Float64Array(n).fill(Infinity);
   const subMinCell = new Int32Array(n).fill(-1);
@@ -590,7 +590,7 @@ function siblingAggregates(flat: FlatNetwork, cellFraction: Float64Array, room: 
   const minRoomCell = new Int32Array(n).fill(-1);
   const children: number[] = [];
   for (let g = 0; g < n; g++) {
-    if (kind[g] !== FLAT_PARALLEL && kind[g] !== FLAT_SERIES) continue;
+    if ((cellOf[g] as number) >= 0) continue;
     children.length = 0;
     for (let c = g + 1; c < g + (subtreeSize[g] as number); c += subtreeSize[c] as number) children.push(c);
     let f = 0;

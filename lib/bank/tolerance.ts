@@ -1,5 +1,10 @@
-import { evaluateFlat, flattenNetwork, type FlatNetwork } from './flat-network';
+import { evaluateFlat, flattenNetwork, FLAT_CELL, FLAT_SERIES, type FlatNetwork } from './flat-network';
 import { MersenneTwister, normalCdf, normalQuantile } from './random';
+
+// Module-local copies for the per-sample loops: bundlers read imported bindings through accessors.
+const CELL = FLAT_CELL;
+const SERIES = FLAT_SERIES;
+const quantile = normalQuantile;
 import type { NetworkNode } from './types';
 
 /**
@@ -143,26 +148,26 @@ function prepareSpread(tolerances: readonly { minus: number; plus: number }[], d
   return spread;
 }
 
-/** Uniform numbers in (0, 1) → relative deviations, one per cell; no allocation. */
-function drawDeviations(spread: CellSpread, distribution: ToleranceDistribution, u: Float64Array, out: Float64Array): void {
+/** Uniform numbers in (0, 1) → relative deviations, one per cell, uniform over each band; no allocation. */
+function drawUniform(spread: CellSpread, u: Float64Array, out: Float64Array): void {
   const { lo, hi } = spread;
-  const k = out.length;
-  if (distribution === 'uniform') {
-    for (let x = 0; x < k; x++) {
-      const l = lo[x] as number;
-      out[x] = l + (u[x] as number) * ((hi[x] as number) - l);
-    }
-    return;
+  for (let x = 0; x < out.length; x++) {
+    const l = lo[x] as number;
+    out[x] = l + (u[x] as number) * ((hi[x] as number) - l);
   }
-  const { mu, sigma, pLo, pSpan } = spread;
-  for (let x = 0; x < k; x++) {
+}
+
+/** Uniform numbers in (0, 1) → relative deviations, truncated normal by inversion; no allocation. */
+function drawNormal(spread: CellSpread, u: Float64Array, out: Float64Array): void {
+  const { lo, hi, mu, sigma, pLo, pSpan } = spread;
+  for (let x = 0; x < out.length; x++) {
     const l = lo[x] as number;
     const h = hi[x] as number;
     if (!(h > l)) {
       out[x] = l;
       continue;
     }
-    const d = (mu[x] as number) + (sigma[x] as number) * normalQuantile((pLo[x] as number) + (u[x] as number) * (pSpan[x] as number));
+    const d = (mu[x] as number) + (sigma[x] as number) * quantile((pLo[x] as number) + (u[x] as number) * (pSpan[x] as number));
     out[x] = d < l ? l : d > h ? h : d;
   }
 }
@@ -183,7 +188,8 @@ export function sampleCellDeviations(
   const out = new Float64Array(count);
   for (let i = 0; i < count; i++) {
     rng.fillOpenUnit(u);
-    drawDeviations(spread, opts.distribution, u, d);
+    if (opts.distribution === 'uniform') drawUniform(spread, u, d);
+    else drawNormal(spread, u, d);
     out[i] = d[0] as number;
   }
   return out;
@@ -231,6 +237,98 @@ export function histogram(values: Float64Array, bins: number, min: number, max: 
   return counts.map((count, b) => ({ from: min + b * width, to: b === bins - 1 ? max : min + (b + 1) * width, count }));
 }
 
+interface SampleScratch {
+  cap: Float64Array;
+  acc: Float64Array;
+  fraction: Float64Array;
+  elastance: Float64Array;
+  nominalCap: Float64Array;
+  dev: Float64Array;
+  ratedLimit: Float64Array;
+  surgeLimit: Float64Array;
+  /** out: [every cell within rating, every cell within surge] as 0/1 */
+  flags: Uint8Array;
+}
+
+/**
+ * One sample: the network with each cell at nominal·(1 + deviation), as evaluateFlat does, fused
+ * with the cell checks. Answers the highest cell share of V. Kept small so the engine optimizes it.
+ */
+function evaluateSample(flat: FlatNetwork, w: SampleScratch): number {
+  const { size, kind, parent, parentSeries, cellOf } = flat;
+  const { cap, acc, fraction, elastance, nominalCap, dev, ratedLimit, surgeLimit } = w;
+  acc.fill(0);
+  // children before parents: each subtree's capacitance
+  for (let i = size - 1; i > 0; i--) {
+    const kd = kind[i];
+    const x = cellOf[i] as number;
+    const c = kd === CELL ? (nominalCap[x] as number) * (1 + (dev[x] as number)) : kd === SERIES ? 1 / (acc[i] as number) : (acc[i] as number);
+    cap[i] = c;
+    const p = parent[i] as number;
+    if (parentSeries[i]) {
+      const e = 1 / c;
+      elastance[i] = e;
+      acc[p] = (acc[p] as number) + e;
+    } else {
+      acc[p] = (acc[p] as number) + c;
+    }
+  }
+  const k0 = kind[0];
+  cap[0] = k0 === CELL ? (nominalCap[0] as number) * (1 + (dev[0] as number)) : k0 === SERIES ? 1 / (acc[0] as number) : (acc[0] as number);
+  // parents before children: each node's share of V, each cell against its limits
+  let f = k0 === CELL ? 1 : 0;
+  let ratedOk = k0 === CELL ? 1 <= (ratedLimit[0] as number) : true;
+  let surgeOk = k0 === CELL ? 1 <= (surgeLimit[0] as number) : true;
+  fraction[0] = 1;
+  for (let i = 1; i < size; i++) {
+    const p = parent[i] as number;
+    const v = parentSeries[i] ? (fraction[p] as number) * (cap[p] as number) * (elastance[i] as number) : (fraction[p] as number);
+    fraction[i] = v;
+    if (kind[i] === CELL) {
+      if (v > f) f = v;
+      if (v > (ratedLimit[i] as number)) {
+        ratedOk = false;
+        if (v > (surgeLimit[i] as number)) surgeOk = false;
+      }
+    }
+  }
+  w.flags[0] = ratedOk ? 1 : 0;
+  w.flags[1] = surgeOk ? 1 : 0;
+  return f;
+}
+
+/** The sample loop, apart from the set-up so that it is optimized on its own. */
+function sampleAll(
+  flat: FlatNetwork,
+  scratch: SampleScratch,
+  rng: MersenneTwister,
+  spread: CellSpread,
+  distribution: ToleranceDistribution,
+  u: Float64Array,
+  V: number,
+  threshold: number,
+  capSamples: Float64Array,
+  voltSamples: Float64Array,
+): { withinRating: number; withinSurge: number; meeting: number } {
+  let withinRating = 0;
+  let withinSurge = 0;
+  let meeting = 0;
+  const { cap, dev, flags } = scratch;
+  for (let s = 0; s < capSamples.length; s++) {
+    rng.fillOpenUnit(u);
+    if (distribution === 'uniform') drawUniform(spread, u, dev);
+    else drawNormal(spread, u, dev);
+    const f = evaluateSample(flat, scratch);
+    const c = cap[0] as number;
+    capSamples[s] = c;
+    voltSamples[s] = f * V;
+    withinRating += flags[0] as number;
+    withinSurge += flags[1] as number;
+    if (c >= threshold) meeting++;
+  }
+  return { withinRating, withinSurge, meeting };
+}
+
 /**
  * Run the Monte-Carlo. Bounded by construction: samples ≤ MAX_TOLERANCE_SAMPLES and
  * samples × nodes ≤ MAX_TOLERANCE_WORK, else RangeError (as for a malformed network, a
@@ -260,61 +358,32 @@ export function runToleranceYield(input: ToleranceInput): ToleranceResult {
     input.matchingTolerance,
   );
   const nominalCap = new Float64Array(k);
-  const ratedLimit = new Float64Array(k);
-  const surgeLimit = new Float64Array(k);
+  // per node, the limits of a cell as shares of V (with a margin for rounding); infinite for a group
+  const ratedLimit = new Float64Array(size).fill(Infinity);
+  const surgeLimit = new Float64Array(size).fill(Infinity);
   for (let x = 0; x < k; x++) {
     const c = cells[x] as (typeof cells)[number];
     nominalCap[x] = c.capacitance;
-    // compare shares of V with limits as shares of V, with a margin for rounding
-    ratedLimit[x] = (c.ratedVoltage / V) * (1 + EPS);
-    surgeLimit[x] = (Math.max(c.ratedVoltage, c.surgeVoltage ?? c.ratedVoltage) / V) * (1 + EPS);
+    const i = cellNode[x] as number;
+    ratedLimit[i] = (c.ratedVoltage / V) * (1 + EPS);
+    surgeLimit[i] = (Math.max(c.ratedVoltage, c.surgeVoltage ?? c.ratedVoltage) / V) * (1 + EPS);
   }
   const cap = new Float64Array(size);
   const acc = new Float64Array(size);
   const fraction = new Float64Array(size);
-  const maxShare = (): number => {
-    let f = 0;
-    for (let x = 0; x < k; x++) {
-      const v = fraction[cellNode[x] as number] as number;
-      if (v > f) f = v;
-    }
-    return f;
-  };
   evaluateFlat(flat, nominalCap, cap, acc, fraction);
-  const nominal = { capacitance: cap[0] as number, maxCellVoltage: maxShare() * V };
+  let nominalShare = 0;
+  for (let x = 0; x < k; x++) nominalShare = Math.max(nominalShare, fraction[cellNode[x] as number] as number);
+  const nominal = { capacitance: cap[0] as number, maxCellVoltage: nominalShare * V };
 
   const u = new Float64Array(k);
   const dev = new Float64Array(k);
-  const cellCap = new Float64Array(k);
+  const elastance = new Float64Array(size);
   const capSamples = new Float64Array(S);
   const voltSamples = new Float64Array(S);
-  let withinSurge = 0;
-  let withinRating = 0;
-  let meeting = 0;
   const threshold = requiredCapacitance === null ? 0 : requiredCapacitance * (1 - EPS);
-  for (let s = 0; s < S; s++) {
-    rng.fillOpenUnit(u);
-    drawDeviations(spread, distribution, u, dev);
-    for (let x = 0; x < k; x++) cellCap[x] = (nominalCap[x] as number) * (1 + (dev[x] as number));
-    evaluateFlat(flat, cellCap, cap, acc, fraction);
-    let f = 0;
-    let surgeOk = true;
-    let ratedOk = true;
-    for (let x = 0; x < k; x++) {
-      const v = fraction[cellNode[x] as number] as number;
-      if (v > f) f = v;
-      if (v > (ratedLimit[x] as number)) {
-        ratedOk = false;
-        if (v > (surgeLimit[x] as number)) surgeOk = false;
-      }
-    }
-    const c = cap[0] as number;
-    capSamples[s] = c;
-    voltSamples[s] = f * V;
-    if (surgeOk) withinSurge++;
-    if (ratedOk) withinRating++;
-    if (c >= threshold) meeting++;
-  }
+  const scratch: SampleScratch = { cap, acc, fraction, elastance, nominalCap, dev, ratedLimit, surgeLimit, flags: new Uint8Array(2) };
+  const tally = sampleAll(flat, scratch, rng, spread, distribution, u, V, threshold, capSamples, voltSamples);
 
   const capacitance = summarizeSamples(capSamples);
   const maxCellVoltage = summarizeSamples(voltSamples);
@@ -329,7 +398,7 @@ export function runToleranceYield(input: ToleranceInput): ToleranceResult {
       capacitance: histogram(capSamples, bins, capacitance.min, capacitance.max),
       maxCellVoltage: histogram(voltSamples, bins, maxCellVoltage.min, maxCellVoltage.max),
     },
-    shares: { withinSurge: withinSurge / S, withinRating: withinRating / S, meetingRequirement: requiredCapacitance === null ? null : meeting / S },
+    shares: { withinSurge: tally.withinSurge / S, withinRating: tally.withinRating / S, meetingRequirement: requiredCapacitance === null ? null : tally.meeting / S },
     requiredCapacitance,
   };
 }

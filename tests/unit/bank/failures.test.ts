@@ -179,7 +179,7 @@ const arbTree: fc.Arbitrary<NetworkNode> = fc
   });
 
 describe('failures agree with a plain re-evaluation of each faulted network', () => {
-  it('capacitance, highest voltage, cells past rated and surge, short circuit', () => {
+  it('capacitance, highest voltage, cells past rated and surge, short circuit', { timeout: 60_000 }, () => {
     fc.assert(
       fc.property(arbTree, fc.double({ min: 0.3, max: 1.3, noNaN: true }), (tree, load) => {
         const V = evaluateNetwork(tree).maxVoltage * load;
@@ -212,7 +212,7 @@ describe('failures agree with a plain re-evaluation of each faulted network', ()
     );
   });
 
-  it('every remaining cell voltage of one fault (analyzeFault)', () => {
+  it('every remaining cell voltage of one fault (analyzeFault)', { timeout: 60_000 }, () => {
     fc.assert(
       fc.property(arbTree, fc.nat(), fc.constantFrom<FailureMode>('short', 'open'), (tree, pick, mode) => {
         const cells = cellsOf(tree);
@@ -228,7 +228,7 @@ describe('failures agree with a plain re-evaluation of each faulted network', ()
 });
 
 describe('failure properties', () => {
-  it('an open never raises the capacitance; a short never lowers it', () => {
+  it('an open never raises the capacitance; a short never lowers it', { timeout: 60_000 }, () => {
     fc.assert(
       fc.property(arbTree, (tree) => {
         const r = analyzeNetworkFailures(tree, 1);
@@ -243,7 +243,7 @@ describe('failure properties', () => {
 
   // For the two topologies a shop builds (and so for a lone string or group); the nested
   // counter-example above shows why the property is stated for these shapes only.
-  it('in either topology a short never lowers the voltage of any cell it does not short with it', () => {
+  it('in either topology a short never lowers the voltage of any cell it does not short with it', { timeout: 60_000 }, () => {
     fc.assert(
       fc.property(
         fc.constantFrom<Topology>('series-of-parallel-groups', 'parallel-of-series-strings'),

@@ -40,7 +40,7 @@ function cellMoments(c: Cell, distribution: ToleranceDistribution): { mean: numb
   return { mean: c.capacitance * (1 + (b - a) / 2), variance: (c.capacitance * sigma) ** 2 * (1 - (6 * phi3) / Z) };
 }
 
-describe('tolerance yield against closed forms', () => {
+describe('tolerance yield against closed forms', { timeout: 60_000 }, () => {
   const cells = [cell('a', 100, 0.1, 0.1), cell('b', 100, 0.1, 0.3), cell('c', 47, 0.2, 0.2), cell('d', 220, 0.05, 0.1), cell('e', 3.3, 0.2, 0.8)];
 
   for (const distribution of ['uniform', 'normal'] as const) {
@@ -168,7 +168,7 @@ const arbTree: fc.Arbitrary<NetworkNode> = fc.letrec<{ node: NetworkNode }>((tie
 })).node;
 
 describe('tolerance properties', () => {
-  it('with zero tolerance every sample is the nominal bank: the yield is 0 % or 100 %', () => {
+  it('with zero tolerance every sample is the nominal bank: the yield is 0 % or 100 %', { timeout: 60_000 }, () => {
     fc.assert(
       fc.property(arbTree, fc.double({ min: 0.2, max: 2, noNaN: true }), fc.constantFrom<ToleranceDistribution>('uniform', 'normal'), (tree, load, distribution) => {
         const healthy = evaluateNetwork(tree);
