@@ -633,7 +633,7 @@ function describeFailureMode(summary: FailureModeSummary, healthyCapacitance: nu
   const lead = summary.mode === 'short' ? 'Survives one shorted cell' : 'Survives one open cell';
   const w = summary.worst;
   if (!w) return `${lead}: yes — there is no cell to fail.`;
-  const fault = w.cellId === null ? (summary.mode === 'short' ? 'a shorted cell' : 'an open cell') : `${summary.mode === 'short' ? 'a short in' : 'an open'} cell ${w.cellId}`;
+  const fault = w.cellId === null ? (summary.mode === 'short' ? 'a shorted cell' : 'an open cell') : `${summary.mode === 'short' ? 'a short in' : 'an open in'} cell ${w.cellId}`;
   if (w.shortCircuit) return `${lead}: no — ${fault} shorts the whole ${scope}.`;
   if (w.capacitance === 0) return `${lead}: no — ${fault} disconnects the whole ${scope}: no capacitance is left.`;
   const context = w.cellId === null ? '' : `with cell ${w.cellId} ${summary.mode === 'short' ? 'shorted' : 'open'}, `;

@@ -84,7 +84,7 @@ describe('hand-worked one-cell faults', () => {
     expect(r.summary.short.survives).toBe(false);
     expect(r.summary.short.text).toBe('Survives one shorted cell: no — with cell a shorted, cell b reaches 3.33 V, surge 2.85 V (3 cells past surge).');
     expect(r.summary.open.survives).toBe(false);
-    expect(r.summary.open.text).toBe('Survives one open cell: no — an open cell a disconnects the whole network: no capacitance is left.');
+    expect(r.summary.open.text).toBe('Survives one open cell: no — an open in cell a disconnects the whole network: no capacitance is left.');
   });
 
   it('three cells in parallel: a short shorts the whole network, an open leaves two', () => {
