@@ -79,6 +79,11 @@ export interface NetworkFailureAnalysis {
 /** Most listed cell ids over a whole analysis; each list keeps at least MIN_LIST_LIMIT. */
 export const FAILURE_LIST_BUDGET = 100_000;
 export const MIN_LIST_LIMIT = 4;
+/**
+ * Most path steps (cells × their depth) in one analysis: 20,000 cells at the validator's depth of
+ * 64. Each step costs O(log² cells) at worst, so an analysis stays near a second here.
+ */
+export const MAX_FAILURE_PATH_STEPS = 20_000 * 64;
 /** relative margin so that a cell exactly at its limit is not "past" it through rounding */
 const EPS = 1e-9;
 
@@ -346,6 +351,11 @@ export function analyzeNetworkFailures(network: NetworkNode, appliedVoltage: num
   const flat = flattenNetwork(network);
   const { cellStart, cellCount, cellNode, cells } = flat;
   const cellTotal = cells.length;
+  let steps = 0;
+  for (let x = 0; x < cellTotal; x++) steps += flat.depth[cellNode[x] as number] as number;
+  if (steps > MAX_FAILURE_PATH_STEPS) {
+    throw new RangeError(`the network is too large to analyse: its cells sit ${steps} levels deep in all, at most ${MAX_FAILURE_PATH_STEPS} are analysed`);
+  }
   const V = appliedVoltage;
   const listLimit = Math.max(
     1,

@@ -142,6 +142,13 @@ describe('hand-worked one-cell faults', () => {
     expect(r.listLimit).toBe(5);
   });
 
+  it('refuses a network whose cells sit deeper in all than the bound', () => {
+    // 20,001 cells, each 65 levels down: 1,300,065 path steps, past 20,000 × 64
+    let deep: NetworkNode = parallel(...Array.from({ length: 20_001 }, (_, i) => cell(`d${i}`, 1)));
+    for (let i = 0; i < 64; i++) deep = series(deep);
+    expect(() => analyzeNetworkFailures(deep, 1)).toThrow(/too large to analyse/);
+  });
+
   it('refuses a non-positive applied voltage and an unknown cell id', () => {
     expect(() => analyzeNetworkFailures(cell('a', 1), 0)).toThrow(RangeError);
     expect(() => analyzeFault(cell('a', 1), 1, 'zz', 'short')).toThrow(RangeError);
