@@ -459,14 +459,8 @@ export function analyzeNetworkFailures(network: NetworkNode, appliedVoltage: num
       const stress = (c.pastSurgeCount > 0 ? caseSurge[worst] : caseRated[worst]) as Stress;
       const sc = stress.cell >= 0 ? (cells[stress.cell] as (typeof cells)[number]) : null;
       const limit = sc ? (c.pastSurgeCount > 0 ? surgeLimit(sc) : sc.ratedVoltage) : 0;
-      summary.worst = {
-        cellId: c.cellId,
-        shortCircuit: c.shortCircuit,
-        capacitance: c.capacitance,
-        stressed: sc && stress.ratio > 0 ? { cells: `cell ${sc.id}`, count: 1, voltage: stress.ratio * limit, ratedVoltage: sc.ratedVoltage, surgeVoltage: sc.surgeVoltage ?? null } : null,
-        overstressedCount: c.overstressedCount,
-        pastSurgeCount: c.pastSurgeCount,
-      };
+      const stressed = sc && stress.ratio > 0 ? { cells: `cell ${sc.id}`, count: 1, voltage: stress.ratio * limit, ratedVoltage: sc.ratedVoltage, surgeVoltage: sc.surgeVoltage ?? null } : null;
+      return completeSummary(summary, c, c.cellId, stressed, healthyCapacitance, 'network');
     }
     summary.text = describeFailureMode(summary, healthyCapacitance, 'network');
     return summary;
@@ -525,7 +519,7 @@ function rankAbove(a: number[], b: number[]): boolean {
 }
 
 /** survives / withinRating / capacitance range over the cases of one mode (worst and text filled by the caller) */
-function summarizeCases(mode: FailureMode, cases: readonly Pick<FailureCase, 'capacitance' | 'shortCircuit' | 'pastSurgeCount' | 'overstressedCount'>[]): FailureModeSummary {
+function summarizeCases(mode: FailureMode, cases: readonly CaseFigures[]): FailureModeSummary {
   let minCap: number | null = null;
   let maxCap: number | null = null;
   let survives = true;
@@ -636,6 +630,22 @@ function siblingAggregates(flat: FlatNetwork, cellFraction: Float64Array, room: 
     }
   }
   return { maxFraction, minRoom, minRoomCell };
+}
+
+type CaseFigures = Pick<FailureCase, 'capacitance' | 'shortCircuit' | 'pastSurgeCount' | 'overstressedCount'>;
+
+/** Fill in a mode's worst case and its verdict in words. */
+function completeSummary(
+  summary: FailureModeSummary,
+  c: CaseFigures,
+  cellId: string | null,
+  stressed: FailureWorstCase['stressed'],
+  healthyCapacitance: number,
+  scope: 'network' | 'bank',
+): FailureModeSummary {
+  summary.worst = { cellId, shortCircuit: c.shortCircuit, capacitance: c.capacitance, stressed, overstressedCount: c.overstressedCount, pastSurgeCount: c.pastSurgeCount };
+  summary.text = describeFailureMode(summary, healthyCapacitance, scope);
+  return summary;
 }
 
 /** The verdict for one failure mode in plain words, from its summary and worst case. */
@@ -795,16 +805,8 @@ export function analyzeOptionFailures(input: OptionFailureInput): OptionFailureA
     const summary = summarizeCases(c.mode, [c]);
     let top: OptionCellClass | null = null;
     for (const k of c.classes) if (k.voltage > 0 && (!top || k.voltage > top.voltage)) top = k;
-    summary.worst = {
-      cellId: null,
-      shortCircuit: c.shortCircuit,
-      capacitance: c.capacitance,
-      stressed: top ? { cells: top.cells, count: top.count, voltage: top.voltage, ratedVoltage: cell.ratedVoltage, surgeVoltage } : null,
-      overstressedCount: c.overstressedCount,
-      pastSurgeCount: c.pastSurgeCount,
-    };
-    summary.text = describeFailureMode(summary, healthyCapacitance, 'bank');
-    return summary;
+    const stressed = top ? { cells: top.cells, count: top.count, voltage: top.voltage, ratedVoltage: cell.ratedVoltage, surgeVoltage } : null;
+    return completeSummary(summary, c, null, stressed, healthyCapacitance, 'bank');
   };
   return {
     appliedVoltage: V,

@@ -8,7 +8,7 @@
 import { spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { analyzeFault, analyzeNetworkFailures, type NetworkNode } from '@/lib/bank';
-import { networkToNetlist, runNgspice } from './spice';
+import { cellVoltageFrom, networkToNetlist, runNgspice } from './spice';
 
 const cell = (id: string, microfarads: number): NetworkNode => ({ kind: 'cell', id, capacitance: microfarads * 1e-6, ratedVoltage: 100 });
 const series = (...children: NetworkNode[]): NetworkNode => ({ kind: 'series', children });
@@ -52,15 +52,8 @@ describe('one-cell failures against ngspice transient simulation', () => {
           faults: new Map([[c.cellId, c.mode]]),
         });
         const spice = runNgspice(netlist.text);
-        const nodeVoltage = (node: string): number => {
-          if (node === '0') return 0;
-          const v = spice.get(`v_${node}`);
-          if (v === undefined) throw new Error(`ngspice did not report v(${node})`);
-          return v;
-        };
         for (const cellState of detail.cells) {
-          const nodes = netlist.cellNodes.get(cellState.id)!;
-          const spiceVoltage = nodeVoltage(nodes.top) - nodeVoltage(nodes.bottom);
+          const spiceVoltage = cellVoltageFrom(spice, netlist.cellNodes.get(cellState.id)!);
           expect(Math.abs(spiceVoltage - cellState.voltage), `cell ${cellState.id}`).toBeLessThan(1e-3 * Math.max(Math.abs(cellState.voltage), 1e-3 * sourceVoltage));
         }
         if (!c.shortCircuit) {

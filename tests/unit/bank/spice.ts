@@ -90,3 +90,14 @@ export function runNgspice(netlist: string): Map<string, number> {
     rmSync(dir, { recursive: true, force: true });
   }
 }
+
+/** A cell's voltage, v(top) − v(bottom), from a run's `.meas` results (node "0" is ground). */
+export function cellVoltageFrom(spice: Map<string, number>, nodes: { top: string; bottom: string }): number {
+  const at = (node: string): number => {
+    if (node === '0') return 0;
+    const v = spice.get(`v_${node}`);
+    if (v === undefined) throw new Error(`ngspice did not report v(${node})`);
+    return v;
+  };
+  return at(nodes.top) - at(nodes.bottom);
+}
