@@ -8,3 +8,4 @@ export * from './failures';
 export * from './tolerance';
 export * from './life';
 export { MersenneTwister, normalCdf, normalQuantile } from './random';
+export * from './option-network';

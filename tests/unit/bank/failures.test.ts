@@ -5,6 +5,7 @@ import {
   analyzeNetworkFailures,
   analyzeOptionFailures,
   evaluateNetwork,
+  optionNetwork,
   type FailureMode,
   type NetworkNode,
   type Topology,
@@ -351,5 +352,22 @@ describe('arrangement option failures in closed form', () => {
   it('refuses counts below one and a surge voltage below the rating', () => {
     expect(() => analyzeOptionFailures({ cell: { capacitance: 1, ratedVoltage: 2.7 }, topology: 'series-of-parallel-groups', seriesCount: 0, parallelCount: 1, appliedVoltage: 1 })).toThrow(RangeError);
     expect(() => analyzeOptionFailures({ cell: { capacitance: 1, ratedVoltage: 2.7, surgeVoltage: 2 }, topology: 'series-of-parallel-groups', seriesCount: 1, parallelCount: 1, appliedVoltage: 1 })).toThrow(RangeError);
+  });
+});
+
+describe('optionNetwork', () => {
+  it('builds either topology with ids that name each place, and the same figures as the closed forms', () => {
+    const figures = { capacitance: 350, ratedVoltage: 2.7, surgeVoltage: 2.85, toleranceMinus: 0.1, tolerancePlus: 0.2 };
+    for (const topology of ['series-of-parallel-groups', 'parallel-of-series-strings'] as const) {
+      const tree = optionNetwork({ cell: figures, topology, seriesCount: 5, parallelCount: 3 });
+      const cells = cellsOf(tree);
+      expect(cells).toHaveLength(15);
+      expect(new Set(cells.map((c) => c.id)).size).toBe(15);
+      expect(cells[0]).toEqual({ kind: 'cell', id: topology === 'series-of-parallel-groups' ? 'g1-c1' : 's1-c1', ...figures });
+      expect(evaluateNetwork(tree).capacitance).toBeCloseTo((3 * 350) / 5, 9);
+      const o = analyzeOptionFailures({ cell: figures, topology, seriesCount: 5, parallelCount: 3, appliedVoltage: 13 });
+      expect(analyzeNetworkFailures(tree, 13).summary.short.survives).toBe(o.summary.short.survives);
+    }
+    expect(() => optionNetwork({ cell: figures, topology: 'parallel-of-series-strings', seriesCount: 200, parallelCount: 101 })).toThrow(RangeError);
   });
 });
