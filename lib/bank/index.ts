@@ -7,5 +7,5 @@ export * from './arrangements';
 export * from './failures';
 export * from './tolerance';
 export * from './life';
-export { MersenneTwister, normalCdf, normalQuantile } from './random';
+export { normalCdf, normalQuantile, splitMix64, Xoshiro128 } from './random';
 export * from './option-network';

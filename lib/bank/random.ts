@@ -1,80 +1,92 @@
 /**
  * Seeded random numbers for the engine's Monte-Carlo work. Same seed, same numbers, on every
- * platform: only 32-bit integer arithmetic decides the stream.
+ * platform: only integer arithmetic decides the stream.
  */
 
-const N = 624;
-const M = 397;
-const UPPER = 0x80000000;
-const LOWER = 0x7fffffff;
-const MATRIX_A = 0x9908b0df;
+const MASK64 = (1n << 64n) - 1n;
 
 /**
- * MT19937, the 32-bit Mersenne Twister (M. Matsumoto and T. Nishimura, ACM TOMACS 8(1), 1998),
- * seeded as their reference `init_genrand`. Its stream is the one ISO C++ specifies for
- * `std::mt19937` (checked in tests/unit/bank/random.test.ts).
+ * SplitMix64 (G. L. Steele, D. Lea and C. H. Flood, OOPSLA 2014; S. Vigna's splitmix64.c): the
+ * generator the xoshiro authors recommend for filling a state from a seed. BigInt, seeding only.
  */
-export class MersenneTwister {
-  private readonly state = new Int32Array(N);
-  private index = N;
+export function splitMix64(seed: bigint, count: number): bigint[] {
+  let x = seed & MASK64;
+  const out: bigint[] = [];
+  for (let i = 0; i < count; i++) {
+    x = (x + 0x9e3779b97f4a7c15n) & MASK64;
+    let z = x;
+    z = ((z ^ (z >> 30n)) * 0xbf58476d1ce4e5b9n) & MASK64;
+    z = ((z ^ (z >> 27n)) * 0x94d049bb133111ebn) & MASK64;
+    out.push(z ^ (z >> 31n));
+  }
+  return out;
+}
 
-  constructor(seed: number) {
+/**
+ * xoshiro128** 1.1 (D. Blackman and S. Vigna, "Scrambled linear pseudorandom number generators",
+ * ACM TOMS 47(4), 2021): 128 bits of state, 32-bit outputs, period 2¹²⁸ − 1. Checked against
+ * published reference outputs in tests/unit/bank/random.test.ts.
+ */
+export class Xoshiro128 {
+  private s0: number;
+  private s1: number;
+  private s2: number;
+  private s3: number;
+
+  /** from four 32-bit state words, not all zero */
+  constructor(state: readonly [number, number, number, number]) {
+    if (state.every((w) => (w | 0) === 0)) throw new RangeError('the state must not be all zero');
+    [this.s0, this.s1, this.s2, this.s3] = state.map((w) => w | 0) as [number, number, number, number];
+  }
+
+  /**
+   * From a 32-bit seed: two SplitMix64 outputs of the seed fill the state, each as its low then
+   * its high 32 bits. Any seed gives a valid (non-zero) state.
+   */
+  static fromSeed(seed: number): Xoshiro128 {
     if (!Number.isInteger(seed) || seed < 0 || seed > 0xffffffff) throw new RangeError('seed must be a whole number from 0 to 4294967295');
-    const mt = this.state;
-    mt[0] = seed >>> 0;
-    for (let i = 1; i < N; i++) {
-      const prev = (mt[i - 1] as number) ^ ((mt[i - 1] as number) >>> 30);
-      // 1812433253 · prev + i, modulo 2³²
-      mt[i] = Math.imul(prev, 1812433253) + i;
-    }
+    const [a, b] = splitMix64(BigInt(seed), 2) as [bigint, bigint];
+    const word = (x: bigint, shift: bigint) => Number((x >> shift) & 0xffffffffn);
+    return new Xoshiro128([word(a, 0n), word(a, 32n), word(b, 0n), word(b, 32n)]);
   }
 
-  private twist(): void {
-    const mt = this.state;
-    let k = 0;
-    for (; k < N - M; k++) {
-      const y = ((mt[k] as number) & UPPER) | ((mt[k + 1] as number) & LOWER);
-      mt[k] = (mt[k + M] as number) ^ (y >>> 1) ^ (y & 1 ? MATRIX_A : 0);
-    }
-    for (; k < N - 1; k++) {
-      const y = ((mt[k] as number) & UPPER) | ((mt[k + 1] as number) & LOWER);
-      mt[k] = (mt[k + M - N] as number) ^ (y >>> 1) ^ (y & 1 ? MATRIX_A : 0);
-    }
-    const y = ((mt[N - 1] as number) & UPPER) | ((mt[0] as number) & LOWER);
-    mt[N - 1] = (mt[M - 1] as number) ^ (y >>> 1) ^ (y & 1 ? MATRIX_A : 0);
-    this.index = 0;
-  }
-
-  /** the next 32-bit output (genrand_int32) */
+  /** the next 32-bit output */
   nextUint32(): number {
-    if (this.index >= N) this.twist();
-    let y = this.state[this.index++] as number;
-    y ^= y >>> 11;
-    y ^= (y << 7) & 0x9d2c5680;
-    y ^= (y << 15) & 0xefc60000;
-    y ^= y >>> 18;
-    return y >>> 0;
+    const s1 = this.s1;
+    const m = Math.imul(s1, 5);
+    const result = Math.imul((m << 7) | (m >>> 25), 9) >>> 0;
+    const t = s1 << 9;
+    this.s2 ^= this.s0;
+    this.s3 ^= s1;
+    this.s1 ^= this.s2;
+    this.s0 ^= this.s3;
+    this.s2 ^= t;
+    this.s3 = (this.s3 << 11) | (this.s3 >>> 21);
+    return result;
   }
 
-  /** fill `out` with uniform numbers strictly inside (0, 1): (k + ½)/2³² */
+  /** fill `out` with uniform numbers strictly inside (0, 1): (k + ½)/2³² for each output k */
   fillOpenUnit(out: Float64Array): void {
-    const mt = this.state;
-    const n = out.length;
-    let i = 0;
-    while (i < n) {
-      if (this.index >= N) this.twist();
-      const start = this.index;
-      const end = Math.min(N, start + n - i);
-      for (let j = start; j < end; j++) {
-        let y = mt[j] as number;
-        y ^= y >>> 11;
-        y ^= (y << 7) & 0x9d2c5680;
-        y ^= (y << 15) & 0xefc60000;
-        y ^= y >>> 18;
-        out[i++] = ((y >>> 0) + 0.5) * 2.3283064365386963e-10;
-      }
-      this.index = end;
+    let s0 = this.s0;
+    let s1 = this.s1;
+    let s2 = this.s2;
+    let s3 = this.s3;
+    for (let i = 0; i < out.length; i++) {
+      const m = Math.imul(s1, 5);
+      const r = Math.imul((m << 7) | (m >>> 25), 9) >>> 0;
+      const t = s1 << 9;
+      s2 ^= s0;
+      s3 ^= s1;
+      s1 ^= s2;
+      s0 ^= s3;
+      s2 ^= t;
+      s3 = (s3 << 11) | (s3 >>> 21);
+      out[i] = (r + 0.5) * 2.3283064365386963e-10;
     }
+    this.s0 = s0;
+    this.s1 = s1;
+    this.s2 = s2;
+    this.s3 = s3;
   }
 }
 

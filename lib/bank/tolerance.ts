@@ -1,5 +1,5 @@
 import { evaluateFlat, flattenNetwork, FLAT_CELL, FLAT_SERIES, type FlatNetwork } from './flat-network';
-import { MersenneTwister, normalCdf, normalQuantile } from './random';
+import { normalCdf, normalQuantile, Xoshiro128 } from './random';
 
 // Module-local copies for the per-sample loops: bundlers read imported bindings through accessors.
 const CELL = FLAT_CELL;
@@ -182,7 +182,7 @@ export function sampleCellDeviations(
   count: number,
 ): Float64Array {
   const spread = prepareSpread([tolerance], opts.distribution, opts.matchingTolerance);
-  const rng = new MersenneTwister(opts.seed);
+  const rng = Xoshiro128.fromSeed(opts.seed);
   const u = new Float64Array(1);
   const d = new Float64Array(1);
   const out = new Float64Array(count);
@@ -301,7 +301,7 @@ function evaluateSample(flat: FlatNetwork, w: SampleScratch): number {
 function sampleAll(
   flat: FlatNetwork,
   scratch: SampleScratch,
-  rng: MersenneTwister,
+  rng: Xoshiro128,
   spread: CellSpread,
   distribution: ToleranceDistribution,
   u: Float64Array,
@@ -346,7 +346,7 @@ export function runToleranceYield(input: ToleranceInput): ToleranceResult {
       `samples × network size (cells and groups) must be at most ${MAX_TOLERANCE_WORK.toLocaleString('en')}; here ${S.toLocaleString('en')} × ${flat.size.toLocaleString('en')}`,
     );
   }
-  const rng = new MersenneTwister(seed);
+  const rng = Xoshiro128.fromSeed(seed);
   const requiredCapacitance = requiredCapacitanceOf(input.requirement, V);
 
   const { cells, cellNode, size } = flat;

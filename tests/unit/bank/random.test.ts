@@ -2,28 +2,39 @@ import normalCdfReference from '@stdlib/stats-base-dists-normal-cdf';
 import normalQuantileReference from '@stdlib/stats-base-dists-normal-quantile';
 import kstest from '@stdlib/stats-kstest';
 import { describe, expect, it } from 'vitest';
-import { MersenneTwister, normalCdf, normalQuantile, sampleCellDeviations } from '@/lib/bank';
+import { normalCdf, normalQuantile, sampleCellDeviations, splitMix64, Xoshiro128 } from '@/lib/bank';
 
-describe('MT19937 stream', () => {
-  // Source: ISO/IEC 14882:2011 (C++), [rand.predef]: "The 10000th consecutive invocation of a
-  // default-constructed object of type mt19937 shall produce the value 4123659995" (default seed 5489).
-  it('gives 4123659995 as the 10,000th output for seed 5489, as the C++ standard requires', () => {
-    const g = new MersenneTwister(5489);
-    let v = 0;
-    for (let i = 0; i < 10_000; i++) v = g.nextUint32();
-    expect(v).toBe(4123659995);
+describe('seeded stream', () => {
+  // Source: the reference test of the rand_xoshiro crate (the Rust rand project), whose expected
+  // values "were produced with the reference implementation (v1.1)" of xoshiro128** by Blackman and
+  // Vigna: from the state {1, 2, 3, 4}.
+  it('xoshiro128** from the state {1, 2, 3, 4} gives the reference outputs', () => {
+    const g = new Xoshiro128([1, 2, 3, 4]);
+    const expected = [11520, 0, 5927040, 70819200, 2031721883, 1637235492, 1287239034, 3734860849, 3729100597, 4258142804];
+    expect(expected.map(() => g.nextUint32())).toEqual(expected);
+  });
+
+  // Source: SplitMix64 (Steele, Lea and Flood 2014) as in Vigna's splitmix64.c; its first outputs
+  // for seed 0 are published widely as 0xE220A8397B1DCDAF, 0x6E789E6AA1B965F4, 0x06C45D188009454F.
+  it('SplitMix64 from seed 0 gives its published first outputs, and fills the state from them', () => {
+    expect(splitMix64(0n, 3)).toEqual([0xe220a8397b1dcdafn, 0x6e789e6aa1b965f4n, 0x06c45d188009454fn]);
+    const fromSeed = Xoshiro128.fromSeed(0);
+    const fromWords = new Xoshiro128([0x7b1dcdaf, 0xe220a839, 0xa1b965f4, 0x6e789e6a]);
+    for (let i = 0; i < 100; i++) expect(fromSeed.nextUint32()).toBe(fromWords.nextUint32());
   });
 
   it('fills (0, 1) from the same stream: (k + ½)/2³²', () => {
-    const a = new MersenneTwister(42);
-    const b = new MersenneTwister(42);
-    const u = new Float64Array(1500); // crosses two refills of the 624-word state
+    const a = Xoshiro128.fromSeed(42);
+    const b = Xoshiro128.fromSeed(42);
+    const u = new Float64Array(1500);
     a.fillOpenUnit(u);
     for (let i = 0; i < u.length; i++) expect(u[i]).toBe((b.nextUint32() + 0.5) / 2 ** 32);
+    expect(a.nextUint32()).toBe(b.nextUint32());
   });
 
-  it('refuses a seed that is not a 32-bit whole number', () => {
-    for (const s of [-1, 1.5, 2 ** 32, Number.NaN]) expect(() => new MersenneTwister(s)).toThrow(RangeError);
+  it('refuses a seed that is not a 32-bit whole number, and an all-zero state', () => {
+    for (const s of [-1, 1.5, 2 ** 32, Number.NaN]) expect(() => Xoshiro128.fromSeed(s)).toThrow(RangeError);
+    expect(() => new Xoshiro128([0, 0, 0, 0])).toThrow(RangeError);
   });
 });
 
