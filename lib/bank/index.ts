@@ -4,3 +4,8 @@ export * from './discharge';
 export * from './preferred-values';
 export * from './balancing';
 export * from './arrangements';
+export * from './failures';
+export * from './tolerance';
+export * from './life';
+export { normalCdf, normalQuantile, splitMix64, Xoshiro128 } from './random';
+export * from './option-network';

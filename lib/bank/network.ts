@@ -1,4 +1,8 @@
-import type { NetworkNode } from './types';
+import { evaluateFlat, flattenNetwork, FLAT_SERIES } from './flat-network';
+import type { NetworkCell, NetworkNode } from './types';
+
+// a module-local copy for the per-node loop: bundlers read imported bindings through accessors
+const SERIES = FLAT_SERIES;
 
 export interface CellState {
   id: string;
@@ -24,118 +28,53 @@ export interface NetworkEvaluation {
   cells: CellState[];
 }
 
-const KIND_CELL = 0;
-const KIND_SERIES = 1;
-const KIND_PARALLEL = 2;
-
 /**
  * Evaluate an ideal series/parallel network charged from zero (DESIGN §3.1).
  * Iterative (no recursion), so any depth is safe; linear in the number of nodes.
- * Throws RangeError on an empty group or a non-positive capacitance or rated voltage
- * (validate input first with lib/validation/bank.ts).
+ * Throws RangeError on an empty group, a non-positive capacitance or rated voltage, or a surge
+ * voltage below the rated voltage (validate input first with lib/validation/bank.ts).
  */
 export function evaluateNetwork(network: NetworkNode, appliedVoltage?: number): NetworkEvaluation {
-  // Pass 1: pre-order flattening. Parents get smaller indices than their children.
-  const nodes: NetworkNode[] = [];
-  const parent: number[] = [];
-  const stackNode: NetworkNode[] = [network];
-  const stackParent: number[] = [-1];
-  while (stackNode.length > 0) {
-    const node = stackNode.pop() as NetworkNode;
-    const p = stackParent.pop() as number;
-    const index = nodes.length;
-    nodes.push(node);
-    parent.push(p);
-    if (node.kind !== 'cell') {
-      const children = node.children;
-      if (!Array.isArray(children) || children.length === 0) {
-        throw new RangeError(`a ${String(node.kind)} group must have at least one child`);
-      }
-      // push in reverse so the first child is visited first (document order)
-      for (let c = children.length - 1; c >= 0; c--) {
-        stackNode.push(children[c] as NetworkNode);
-        stackParent.push(index);
-      }
-    }
-  }
+  // Parents before children in typed arrays; capacitances and each node's share of V from them.
+  const flat = flattenNetwork(network);
+  const { size: n, parent, parentSeries, cellOf, cells, cellNode } = flat;
+  const cellCapacitance = new Float64Array(cells.length);
+  for (let x = 0; x < cells.length; x++) cellCapacitance[x] = (cells[x] as NetworkCell).capacitance;
+  const cap = new Float64Array(n);
+  const fraction = new Float64Array(n);
+  evaluateFlat(flat, cellCapacitance, cap, new Float64Array(n), fraction);
 
-  const n = nodes.length;
-  const kind = new Uint8Array(n);
-  const cap = new Float64Array(n); // equivalent capacitance of the subtree
-  const acc = new Float64Array(n); // series: Σ1/Cᵢ, parallel: ΣCᵢ
+  // ESR: series adds, parallel combines reciprocally; children before parents.
   const esr = new Float64Array(n); // equivalent ESR of the subtree
   const esrAcc = new Float64Array(n); // series: ΣRᵢ, parallel: Σ1/Rᵢ
   let everyCellHasEsr = true;
-  let cellCount = 0;
-
-  for (let i = 0; i < n; i++) {
-    const node = nodes[i] as NetworkNode;
-    kind[i] = node.kind === 'cell' ? KIND_CELL : node.kind === 'series' ? KIND_SERIES : KIND_PARALLEL;
-  }
-
-  // Pass 2: reverse pre-order = every child before its parent.
   for (let i = n - 1; i >= 0; i--) {
-    const k = kind[i];
-    if (k === KIND_CELL) {
-      const cell = nodes[i] as Extract<NetworkNode, { kind: 'cell' }>;
-      if (!(cell.capacitance > 0) || !Number.isFinite(cell.capacitance)) {
-        throw new RangeError(`cell ${cell.id}: capacitance must be a positive number`);
-      }
-      if (!(cell.ratedVoltage > 0) || !Number.isFinite(cell.ratedVoltage)) {
-        throw new RangeError(`cell ${cell.id}: rated voltage must be a positive number`);
-      }
-      cap[i] = cell.capacitance;
-      if (cell.esr === undefined) everyCellHasEsr = false;
-      else esr[i] = cell.esr;
-      cellCount++;
-    } else if (k === KIND_SERIES) {
-      cap[i] = 1 / (acc[i] as number);
-      esr[i] = esrAcc[i] as number;
+    const x = cellOf[i] as number;
+    if (x >= 0) {
+      const cellEsr = (cells[x] as NetworkCell).esr;
+      if (cellEsr === undefined) everyCellHasEsr = false;
+      else esr[i] = cellEsr;
     } else {
-      cap[i] = acc[i] as number;
-      esr[i] = 1 / (esrAcc[i] as number); // 1/∞ = 0 when a child has zero ESR
+      esr[i] = flat.kind[i] === SERIES ? (esrAcc[i] as number) : 1 / (esrAcc[i] as number); // 1/∞ = 0 when a child has zero ESR
     }
     const p = parent[i] as number;
-    if (p >= 0) {
-      if (kind[p] === KIND_SERIES) {
-        acc[p] = (acc[p] as number) + 1 / (cap[i] as number);
-        esrAcc[p] = (esrAcc[p] as number) + (esr[i] as number);
-      } else {
-        acc[p] = (acc[p] as number) + (cap[i] as number);
-        esrAcc[p] = (esrAcc[p] as number) + 1 / (esr[i] as number);
-      }
-    }
+    if (p >= 0) esrAcc[p] = (esrAcc[p] as number) + (parentSeries[i] ? (esr[i] as number) : 1 / (esr[i] as number));
   }
 
-  // Pass 3: pre-order. fraction = node voltage / applied voltage.
-  // Series children share the parent's charge: V_child = V_parent · C_parent / C_child.
-  const fraction = new Float64Array(n);
-  fraction[0] = 1;
+  // The largest V at which no cell passes its rated voltage.
   let maxVoltage = Infinity;
-  for (let i = 1; i < n; i++) {
-    const p = parent[i] as number;
-    fraction[i] =
-      kind[p] === KIND_SERIES
-        ? ((fraction[p] as number) * (cap[p] as number)) / (cap[i] as number)
-        : (fraction[p] as number);
-  }
-  for (let i = 0; i < n; i++) {
-    if (kind[i] === KIND_CELL) {
-      const cell = nodes[i] as Extract<NetworkNode, { kind: 'cell' }>;
-      const limit = cell.ratedVoltage / (fraction[i] as number);
-      if (limit < maxVoltage) maxVoltage = limit;
-    }
+  for (let x = 0; x < cells.length; x++) {
+    const limit = (cells[x] as NetworkCell).ratedVoltage / (fraction[cellNode[x] as number] as number);
+    if (limit < maxVoltage) maxVoltage = limit;
   }
 
   const v = appliedVoltage ?? maxVoltage;
-  const cells: CellState[] = new Array<CellState>(cellCount);
-  let c = 0;
-  for (let i = 0; i < n; i++) {
-    if (kind[i] !== KIND_CELL) continue;
-    const cell = nodes[i] as Extract<NetworkNode, { kind: 'cell' }>;
+  const states: CellState[] = new Array<CellState>(cells.length);
+  for (let x = 0; x < cells.length; x++) {
+    const i = cellNode[x] as number;
     const vi = (fraction[i] as number) * v;
     const ci = cap[i] as number;
-    cells[c++] = { id: cell.id, voltage: vi, charge: ci * vi, energy: 0.5 * ci * vi * vi };
+    states[x] = { id: (cells[x] as NetworkCell).id, voltage: vi, charge: ci * vi, energy: 0.5 * ci * vi * vi };
   }
 
   const capacitance = cap[0] as number;
@@ -145,7 +84,7 @@ export function evaluateNetwork(network: NetworkNode, appliedVoltage?: number): 
     appliedVoltage: v,
     energy: 0.5 * capacitance * v * v,
     charge: capacitance * v,
-    cells,
+    cells: states,
   };
   if (everyCellHasEsr) result.esr = esr[0] as number;
   return result;

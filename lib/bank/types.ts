@@ -5,8 +5,23 @@ export type Technology = 'edlc' | 'hybrid' | 'electrolytic' | 'film';
 export const TECHNOLOGIES: readonly Technology[] = ['edlc', 'hybrid', 'electrolytic', 'film'];
 
 export type NetworkNode =
-  | { kind: 'cell'; id: string; capacitance: number; ratedVoltage: number; esr?: number; leakage?: number }
+  | {
+      kind: 'cell';
+      id: string;
+      capacitance: number;
+      ratedVoltage: number;
+      esr?: number;
+      leakage?: number;
+      /** surge voltage (V), at least the rated voltage: one-cell failures and tolerance yield */
+      surgeVoltage?: number;
+      /** capacitance tolerance as fractions (0.1 = 10 %): tolerance yield */
+      toleranceMinus?: number;
+      tolerancePlus?: number;
+    }
   | { kind: 'series' | 'parallel'; children: NetworkNode[] };
+
+/** A cell of a network tree. */
+export type NetworkCell = Extract<NetworkNode, { kind: 'cell' }>;
 
 /** A catalog cell as the engine sees it. */
 export interface EngineCell {

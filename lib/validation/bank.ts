@@ -18,6 +18,10 @@ const cellSchema = z.strictObject({
   ratedVoltage: positive,
   esr: nonNegative.optional(),
   leakage: nonNegative.optional(),
+  // read by the failure and tolerance analyses (lib/validation/network-analysis.ts); others ignore them
+  surgeVoltage: positive.optional(),
+  toleranceMinus: z.number().min(0).max(0.99).optional(),
+  tolerancePlus: z.number().min(0).max(1).optional(),
 });
 
 export const networkNodeSchema: z.ZodType<NetworkNode> = z.lazy(() =>
@@ -84,11 +88,11 @@ export function formatPath(path: readonly PropertyKey[]): string {
   return out;
 }
 
-function fail<T>(path: string, message: string): ParseResult<T> {
+export function fail<T>(path: string, message: string): ParseResult<T> {
   return { ok: false, error: path ? `${path}: ${message}` : message, issues: [{ path, message }] };
 }
 
-function fromZod<T>(error: z.ZodError): ParseResult<T> {
+export function fromZod<T>(error: z.ZodError): ParseResult<T> {
   const issues = error.issues.map((issue) => ({ path: formatPath(issue.path), message: issue.message }));
   const first = issues[0];
   return {

@@ -1,13 +1,16 @@
 /**
- * Engine benchmark: network evaluation of 10,000 cells and an arrangement search over a generated
- * catalog of 10,000 invented cells with a constant-power backup requirement.
+ * Engine benchmark: network evaluation of 10,000 cells, an arrangement search over a generated
+ * catalog of 10,000 invented cells with a constant-power backup requirement, the tolerance-yield
+ * Monte-Carlo (100,000 samples of a 100-cell network) and the one-cell failures of 20,000 cells.
  * Run: npx tsx tests/bench/engine-bench.ts
  */
-import { DEFAULT_DESIGN_FACTORS, evaluateNetwork, searchArrangements, type NetworkNode } from '../../lib/bank';
+import { analyzeNetworkFailures, DEFAULT_DESIGN_FACTORS, evaluateNetwork, runToleranceYield, searchArrangements, type NetworkNode } from '../../lib/bank';
 import { generateCatalog } from '../unit/bank/catalog-fixture';
 
 const EVALUATION_TARGET_MS = 5;
 const SEARCH_MEDIAN_TARGET_MS = 25;
+const TOLERANCE_TARGET_MS = 250;
+const FAILURES_TARGET_MS = 1000;
 
 function stats(samples: number[]): { median: number; p95: number } {
   const s = [...samples].sort((a, b) => a - b);
@@ -89,6 +92,33 @@ export async function runEngineBench(): Promise<string[]> {
   lines.push(
     `searchArrangements, 10,000-cell catalog, 48 V → 24 V, 5 kW for 10 s backup (${optionCount} options): median ${ms(s.median)} ms, p95 ${ms(s.p95)} ms — target median < ${SEARCH_MEDIAN_TARGET_MS} ms: ${s.median < SEARCH_MEDIAN_TARGET_MS ? 'holds' : 'MISSED'}`,
   );
+
+  // tolerance yield: 25 groups of 4 graded cells in series (100 cells), 100,000 samples
+  const graded: NetworkNode = {
+    kind: 'series',
+    children: Array.from({ length: 25 }, (_, g) => ({
+      kind: 'parallel' as const,
+      children: Array.from({ length: 4 }, (_, i) => ({ kind: 'cell' as const, id: `g${g}-c${i}`, capacitance: 3000, ratedVoltage: 2.7, surgeVoltage: 2.85, toleranceMinus: 0.1, tolerancePlus: 0.2 })),
+    })),
+  };
+  for (const distribution of ['uniform', 'normal'] as const) {
+    const t = stats(time(() => runToleranceYield({ network: graded, appliedVoltage: 62.5, samples: 100_000, seed: 1, distribution, matchingTolerance: 0.05, requirement: { capacitance: 450 } }), 7, 2));
+    lines.push(
+      `runToleranceYield, 100,000 samples × 100-cell network (25 groups of 4, ${distribution}): median ${ms(t.median)} ms, p95 ${ms(t.p95)} ms — target < ${TOLERANCE_TARGET_MS} ms: ${t.median < TOLERANCE_TARGET_MS ? 'holds' : 'MISSED'}`,
+    );
+  }
+
+  // one-cell failures: every cell shorted and opened, 20,000 cells
+  for (const [name, tree] of [
+    ['200 strings of 100 cells', stringsOfCells(200, 100)],
+    ['100 groups of 200 cells', groupsInSeries(100, 200)],
+  ] as const) {
+    const v = evaluateNetwork(tree).maxVoltage;
+    const f = stats(time(() => analyzeNetworkFailures(tree, v), 5, 1));
+    lines.push(
+      `analyzeNetworkFailures, 20,000 cells × short and open (${name}): median ${ms(f.median)} ms, p95 ${ms(f.p95)} ms — target < ${FAILURES_TARGET_MS} ms: ${f.median < FAILURES_TARGET_MS ? 'holds' : 'MISSED'}`,
+    );
+  }
   return lines;
 }
 

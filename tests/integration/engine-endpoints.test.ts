@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { POST as evaluate } from "@/app/api/v1/networks/evaluate/route";
+import { POST as failures } from "@/app/api/v1/networks/failures/route";
+import { POST as tolerance } from "@/app/api/v1/networks/tolerance/route";
 import { POST as arrangements } from "@/app/api/v1/shops/[shop]/arrangements/route";
 import { listActiveCells } from "@/db/queries/catalog";
 import { shopBySlug } from "./helpers";
@@ -83,6 +85,117 @@ describe("POST /api/v1/networks/evaluate", () => {
     const res = await evaluate(post("/api/v1/networks/evaluate", ok));
     expect(res.status).toBe(200);
     expect((await res.json()).capacitance).toBeCloseTo(15_000, 6);
+  });
+});
+
+describe("POST /api/v1/networks/failures", () => {
+  const rated = (id: string) => ({ kind: "cell", id, capacitance: 100, ratedVoltage: 2.7, surgeVoltage: 2.85 });
+  // two strings of four 100 F cells at 10 V: 2.5 V per cell
+  const strings = { kind: "parallel", children: [0, 1].map((s) => ({ kind: "series", children: [0, 1, 2, 3].map((i) => rated(`s${s}c${i}`)) })) };
+
+  it("answers one case per cell and mode, and a verdict per mode", async () => {
+    const res = await failures(post("/api/v1/networks/failures", { appliedVoltage: 10, network: strings }));
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(Object.keys(body).sort()).toEqual(["appliedVoltage", "cases", "healthy", "listLimit", "summary"]);
+    expect(body.cases).toHaveLength(16);
+    // s0c0 shorted: its string's other three cells share 10 V → 3.33 V each, past the 2.85 V surge;
+    // capacitance 100/3 F in parallel with 25 F
+    expect(body.cases[0]).toEqual({
+      cellId: "s0c0",
+      mode: "short",
+      capacitance: expect.closeTo(100 / 3 + 25, 9),
+      maxCellVoltage: expect.closeTo(10 / 3, 9),
+      overstressed: ["s0c1", "s0c2", "s0c3"],
+      overstressedCount: 3,
+      pastSurge: ["s0c1", "s0c2", "s0c3"],
+      pastSurgeCount: 3,
+      shortCircuit: false,
+    });
+    // s0c0 open: its string drops out, the other string keeps 2.5 V per cell
+    expect(body.cases[1]).toMatchObject({ cellId: "s0c0", mode: "open", capacitance: expect.closeTo(25, 9), maxCellVoltage: expect.closeTo(2.5, 9), overstressedCount: 0, shortCircuit: false });
+    expect(body.summary.short).toMatchObject({ mode: "short", survives: false, withinRating: false });
+    expect(body.summary.short.text).toBe("Survives one shorted cell: no — with cell s0c0 shorted, cell s0c1 reaches 3.33 V, surge 2.85 V (3 cells past surge).");
+    expect(body.summary.open).toMatchObject({ mode: "open", survives: true, withinRating: true });
+  });
+
+  it("reports a short across a parallel bank as a short circuit with no capacitance", async () => {
+    const res = await failures(post("/api/v1/networks/failures", { appliedVoltage: 2, network: { kind: "parallel", children: [rated("a"), rated("b")] } }));
+    const body = await res.json();
+    expect(body.cases[0]).toMatchObject({ cellId: "a", mode: "short", capacitance: null, shortCircuit: true });
+  });
+
+  const bad: [string, unknown, RegExp][] = [
+    ["no applied voltage", { network: strings }, /^appliedVoltage$/],
+    ["a repeated cell id", { appliedVoltage: 5, network: { kind: "series", children: [rated("a"), rated("a")] } }, /^network\.children\[1\]\.id$/],
+    ["a surge voltage below the rating", { appliedVoltage: 5, network: { ...rated("a"), surgeVoltage: 1 } }, /^network\.surgeVoltage$/],
+    ["an empty group", { appliedVoltage: 5, network: { kind: "series", children: [] } }, /^network/],
+    ["an array body", [strings], /^$/],
+  ];
+  it.each(bad)("answers 400 with the field for %s", async (_name, body, pathPattern) => {
+    const res = await failures(post("/api/v1/networks/failures", body));
+    expect(res.status).toBe(400);
+    const json = await res.json();
+    expect(typeof json.error).toBe("string");
+    expect(json.issues[0].path).toMatch(pathPattern);
+  });
+
+  it("answers 400 for more than 20,000 cells and for a body over 1 MB", async () => {
+    const many = { appliedVoltage: 1, network: { kind: "parallel", children: Array.from({ length: 20_001 }, (_, i) => ({ kind: "cell", id: `c${i}`, capacitance: 1, ratedVoltage: 1 })) } };
+    expect((await failures(post("/api/v1/networks/failures", many))).status).toBe(400);
+    const big = await failures(post("/api/v1/networks/failures", JSON.stringify({ appliedVoltage: 1, network: rated("a"), pad: "x".repeat(1_100_000) }), true));
+    expect(big.status).toBe(400);
+    expect((await big.json()).error).toMatch(/larger than 1 MB/);
+  });
+});
+
+describe("POST /api/v1/networks/tolerance", () => {
+  const graded = (id: string) => ({ kind: "cell", id, capacitance: 350, ratedVoltage: 2.7, surgeVoltage: 2.85, toleranceMinus: 0.1, tolerancePlus: 0.2 });
+  const string = { kind: "series", children: Array.from({ length: 10 }, (_, i) => graded(`c${i}`)) };
+  const run = { appliedVoltage: 26, network: string, samples: 20_000, seed: 12345, distribution: "normal", matchingTolerance: 0.05, requirement: { capacitance: 35 } };
+
+  it("answers the distributions, histograms and shares, the same for the same body and seed", async () => {
+    const res = await tolerance(post("/api/v1/networks/tolerance", run));
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(Object.keys(body).sort()).toEqual(["capacitance", "distribution", "histogram", "maxCellVoltage", "nominal", "requiredCapacitance", "samples", "seed", "shares"]);
+    expect(body.samples).toBe(20_000);
+    for (const d of [body.capacitance, body.maxCellVoltage]) {
+      expect(Object.keys(d).sort()).toEqual(["max", "mean", "min", "p01", "p50", "p99", "std"]);
+      expect(d.min).toBeLessThanOrEqual(d.p01);
+      expect(d.p01).toBeLessThanOrEqual(d.p50);
+      expect(d.p50).toBeLessThanOrEqual(d.p99);
+      expect(d.p99).toBeLessThanOrEqual(d.max);
+    }
+    // graded to ±5 %: the string's capacitance stays within ±5 % of its nominal 35 F
+    expect(body.capacitance.min).toBeGreaterThanOrEqual(35 * 0.95 - 1e-9);
+    expect(body.capacitance.max).toBeLessThanOrEqual(35 * 1.05 + 1e-9);
+    expect(body.histogram.capacitance.reduce((a: number, b: { count: number }) => a + b.count, 0)).toBe(20_000);
+    expect(body.shares.meetingRequirement).toBeGreaterThan(0);
+    expect(body.shares.meetingRequirement).toBeLessThan(1);
+    const again = await tolerance(post("/api/v1/networks/tolerance", run));
+    expect(await again.json()).toEqual(body);
+  });
+
+  const bad: [string, unknown, RegExp, RegExp?][] = [
+    ["more than 100,000 samples", { ...run, samples: 100_001 }, /^samples$/],
+    [
+      "samples × network size past the bound",
+      { ...run, network: { kind: "parallel", children: Array.from({ length: 400 }, (_, i) => graded(`p${i}`)) }, samples: 100_000 },
+      /^samples$/,
+      /at most 30,000,000; here 100,000 × 401: use at most 74,812 samples/,
+    ],
+    ["an unknown distribution", { ...run, distribution: "triangular" }, /^distribution$/],
+    ["a seed past 32 bits", { ...run, seed: 2 ** 32 }, /^seed$/],
+    ["a tolerance of −100 %", { ...run, network: { ...graded("a"), toleranceMinus: 1 } }, /^network\.toleranceMinus$/],
+    ["no seed", { ...run, seed: undefined }, /^seed$/],
+  ];
+  it.each(bad)("answers 400 with the field for %s", async (_name, body, pathPattern, errorPattern) => {
+    const res = await tolerance(post("/api/v1/networks/tolerance", body));
+    expect(res.status).toBe(400);
+    const json = await res.json();
+    expect(json.issues[0].path).toMatch(pathPattern);
+    if (errorPattern) expect(json.error).toMatch(errorPattern);
   });
 });
 

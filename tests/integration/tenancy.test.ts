@@ -10,6 +10,8 @@ import { GET as downloadAttachmentRoute } from "@/app/api/v1/shops/[shop]/attach
 import { POST as uploadAttachmentRoute } from "@/app/api/v1/shops/[shop]/attachments/route";
 import { GET as quotePdfRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/pdf/route";
 import { GET as listQuotesRoute } from "@/app/api/v1/shops/[shop]/quotes/route";
+import { POST as networkFailuresRoute } from "@/app/api/v1/networks/failures/route";
+import { POST as networkToleranceRoute } from "@/app/api/v1/networks/tolerance/route";
 import { changeMemberRole } from "@/app/desk/[shop]/team/actions";
 import { chooseArrangement, exploreArrangements } from "@/app/s/[shop]/actions";
 import { db } from "@/db";
@@ -37,6 +39,33 @@ const ROUTES: { name: string; call: (shop: string, cookie: string) => Promise<Re
   { name: "GET /api/v1/shops/{shop}/members", call: (shop, cookie) => listMembersRoute(request(`/api/v1/shops/${shop}/members`, { cookie }), params(shop)) },
   { name: "GET /api/v1/shops/{shop}/quotes", call: (shop, cookie) => listQuotesRoute(request(`/api/v1/shops/${shop}/quotes`, { cookie }), params(shop)) },
 ];
+
+/** Public engine routes: no shop, no session; the answer must not depend on who asks. */
+const ENGINE_NETWORK = { kind: "series", children: [0, 1, 2].map((i) => ({ kind: "cell", id: `c${i}`, capacitance: 100, ratedVoltage: 2.7, surgeVoltage: 2.85, toleranceMinus: 0.1, tolerancePlus: 0.2 })) };
+const PUBLIC_ROUTES: { name: string; call: (cookie: string) => Promise<Response> }[] = [
+  {
+    name: "POST /api/v1/networks/failures",
+    call: (cookie) => networkFailuresRoute(request("/api/v1/networks/failures", { method: "POST", cookie, body: JSON.stringify({ appliedVoltage: 7, network: ENGINE_NETWORK }) })),
+  },
+  {
+    name: "POST /api/v1/networks/tolerance",
+    call: (cookie) =>
+      networkToleranceRoute(request("/api/v1/networks/tolerance", { method: "POST", cookie, body: JSON.stringify({ appliedVoltage: 7, network: ENGINE_NETWORK, samples: 500, seed: 3, distribution: "uniform" }) })),
+  },
+];
+
+describe.each(PUBLIC_ROUTES)("public $name", ({ call }) => {
+  it("answers a visitor, and members of either shop the same", async () => {
+    const anonymous = await call("");
+    expect(anonymous.status).toBe(200);
+    const body = await anonymous.json();
+    for (const email of [demoPeople[K].manager.email, demoPeople[M].estimator.email]) {
+      const signedIn = await call(await sessionCookie(email));
+      expect(signedIn.status).toBe(200);
+      expect(await signedIn.json()).toEqual(body);
+    }
+  });
+});
 
 describe("tenancy", () => {
   let kShopId = "";

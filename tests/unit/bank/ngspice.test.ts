@@ -7,7 +7,7 @@
 import { spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { evaluateNetwork, type NetworkNode } from '@/lib/bank';
-import { networkToNetlist, runNgspice } from './spice';
+import { cellVoltageFrom, networkToNetlist, runNgspice } from './spice';
 
 const cell = (id: string, microfarads: number, ratedVoltage = 100): NetworkNode => ({
   kind: 'cell',
@@ -68,12 +68,6 @@ describe('network evaluation against ngspice transient simulation', () => {
       const engine = evaluateNetwork(tree, sourceVoltage);
       const netlist = networkToNetlist(tree, { sourceVoltage, chargeResistance: 1000, equivalentCapacitance: engine.capacitance });
       const spice = runNgspice(netlist.text);
-      const nodeVoltage = (node: string): number => {
-        if (node === '0') return 0;
-        const v = spice.get(`v_${node}`);
-        if (v === undefined) throw new Error(`ngspice did not report v(${node})`);
-        return v;
-      };
       const charge = spice.get('qsrc');
       expect(charge, 'ngspice reported the delivered charge').toBeDefined();
       // ngspice reports the source current into its + terminal: delivered charge is negative
@@ -81,8 +75,7 @@ describe('network evaluation against ngspice transient simulation', () => {
       expect(Math.abs(spiceCapacitance / engine.capacitance - 1)).toBeLessThan(1e-3);
       expect(engine.cells.length).toBe(netlist.cellNodes.size);
       for (const c of engine.cells) {
-        const nodes = netlist.cellNodes.get(c.id)!;
-        const spiceVoltage = nodeVoltage(nodes.top) - nodeVoltage(nodes.bottom);
+        const spiceVoltage = cellVoltageFrom(spice, netlist.cellNodes.get(c.id)!);
         expect(Math.abs(spiceVoltage - c.voltage), `cell ${c.id}`).toBeLessThan(1e-3 * Math.max(Math.abs(c.voltage), 1e-3 * sourceVoltage));
       }
     });

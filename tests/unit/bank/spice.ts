@@ -24,7 +24,13 @@ export interface SpiceNetlist {
  */
 export function networkToNetlist(
   tree: NetworkNode,
-  opts: { sourceVoltage: number; chargeResistance: number; equivalentCapacitance: number },
+  opts: {
+    sourceVoltage: number;
+    chargeResistance: number;
+    equivalentCapacitance: number;
+    /** failed cells: a short becomes a 1 mΩ resistor, an open is left out */
+    faults?: ReadonlyMap<string, 'short' | 'open'>;
+  },
 ): SpiceNetlist {
   const lines: string[] = ['* network charged through a resistor', `V1 src 0 DC ${opts.sourceVoltage}`, `R1 src top ${opts.chargeResistance}`];
   const cellNodes = new Map<string, { top: string; bottom: string }>();
@@ -36,7 +42,9 @@ export function networkToNetlist(
     const { node, top, bottom } = work.pop()!;
     if (node.kind === 'cell') {
       capCounter++;
-      lines.push(`C${capCounter} ${top} ${bottom} ${node.capacitance} IC=0`);
+      const fault = opts.faults?.get(node.id);
+      if (fault === 'short') lines.push(`Rshort${capCounter} ${top} ${bottom} 1e-3`);
+      else if (fault !== 'open') lines.push(`C${capCounter} ${top} ${bottom} ${node.capacitance} IC=0`);
       cellNodes.set(node.id, { top, bottom });
     } else if (node.kind === 'parallel') {
       for (const child of node.children) work.push({ node: child, top, bottom });
@@ -81,4 +89,15 @@ export function runNgspice(netlist: string): Map<string, number> {
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
+}
+
+/** A cell's voltage, v(top) − v(bottom), from a run's `.meas` results (node "0" is ground). */
+export function cellVoltageFrom(spice: Map<string, number>, nodes: { top: string; bottom: string }): number {
+  const at = (node: string): number => {
+    if (node === '0') return 0;
+    const v = spice.get(`v_${node}`);
+    if (v === undefined) throw new Error(`ngspice did not report v(${node})`);
+    return v;
+  };
+  return at(nodes.top) - at(nodes.bottom);
 }

@@ -1,0 +1,30 @@
+import { env } from "@/lib/env";
+import { jsonError } from "@/lib/http/json-error";
+import { readJsonBody } from "@/lib/http/read-json";
+import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
+import type { ParseResult } from "@/lib/validation/bank";
+
+/**
+ * A public engine endpoint's POST handler: rate-limited per client (429 with retry-after), the
+ * bounded JSON body reader, a parser that names the field of any bad input (400 `{ error, issues }`),
+ * then the pure engine call; an engine RangeError is a 400 on `network`, never a 500.
+ */
+export function engineEndpoint<T>(parse: (json: unknown) => ParseResult<T>, compute: (input: T) => unknown) {
+  const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, windowMs: 60_000 });
+  return async function POST(request: Request): Promise<Response> {
+    const gate = limiter.hit(clientKey(request.headers));
+    if (!gate.allowed) {
+      return jsonError(429, `Too many requests; try again in ${gate.retryAfterSeconds} s.`, undefined, { headers: { "retry-after": String(gate.retryAfterSeconds) } });
+    }
+    const body = await readJsonBody(request);
+    if (!body.ok) return body.response;
+    const parsed = parse(body.value);
+    if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
+    try {
+      return Response.json(compute(parsed.data));
+    } catch (error) {
+      if (error instanceof RangeError) return jsonError(400, error.message, [{ path: "network", message: error.message }]);
+      throw error;
+    }
+  };
+}
