@@ -4,7 +4,6 @@ import { db } from "@/db";
 import { listActiveCells, listActiveComponents } from "@/db/queries/catalog";
 import { getShopSettings } from "@/db/queries/shops";
 import { bankRequests, quoteLines, quoteRevisions, quotes, requestAttachments, shopCounters } from "@/db/schema";
-import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/db/schema/settings";
 import type { Requirement } from "@/lib/bank";
 import type { ActionResult } from "@/lib/auth/shop-action";
 import type { ShopContext } from "@/lib/auth/context";
@@ -12,7 +11,7 @@ import { dispatchOutbox, enqueueQuoteReady } from "@/lib/mail/outbox";
 import { DEFAULT_PRICING_RULES, tryPriceBank, type BankPrice, type PricingRules } from "@/lib/pricing";
 import type { ChooseArrangementInput, ChosenOption } from "@/lib/validation/quote";
 import { billFor, findArrangements, type PricedOption } from "./arrangements";
-import { checkAutoQuoteLimits } from "./auto-quote-limits";
+import { checkAutoQuoteLimits, DEFAULT_AUTO_QUOTE_LIMITS } from "./auto-quote-limits";
 import { formatQuoteNumber, numberingYear } from "./quote-number";
 import { validUntilFrom } from "./validity";
 
