@@ -3,4 +3,4 @@ export * from './network';
 export * from './discharge';
 export * from './preferred-values';
 export * from './balancing';
-export * from './arrangements';
+export * from './arrangement-search';
