@@ -1,5 +1,6 @@
 import { formatQuantity } from '../quantities';
 import { sizeBalancing, sizeBleeder } from './balancing';
+import { MAX_CELLS_PER_BANK, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from './bounds';
 import { constantPowerSeconds } from './discharge';
 import {
   TECHNOLOGIES,
@@ -10,9 +11,6 @@ import {
   type Technology,
   type Topology,
 } from './types';
-
-/** Most cells in one bank (the same bound as the network evaluator). */
-export const MAX_CELLS_PER_BANK = 20_000;
 
 /** Stored energy above which the burn and arc caution is shown (common practice: 10 J, from memory). */
 export const HIGH_ENERGY_CAUTION_J = 10;
@@ -42,7 +40,7 @@ export interface ArrangementOption {
   seriesCount: number;
   parallelCount: number;
   cellCount: number;
-  /** N_s is one more than the voltage needs: cells run further below their rating */
+  /** N_s is one more than the shortest safe string (DESIGN §3.2): cells run further below their rating */
   longerLife: boolean;
   /** nominal: N_p·C_n/N_s; design: with lower tolerance and end-of-life fade */
   capacitance: { nominal: number; design: number };
@@ -106,18 +104,21 @@ export interface ArrangementSearchResult {
 const TOPO_STRINGS = 1; // index in TOPOLOGIES (0 is series-of-parallel-groups)
 const TOPOLOGIES: readonly Topology[] = ['series-of-parallel-groups', 'parallel-of-series-strings'];
 
-type Driver = 'capacitance' | 'energy' | 'backup' | 'esr' | 'peak' | 'none';
+/** what set N_p; 'string': even one string is beyond the mass, volume or cell-count limit */
+type Driver = 'capacitance' | 'energy' | 'backup' | 'esr' | 'peak' | 'string' | 'none';
 type Limit = 'mass' | 'volume' | 'count';
 
 interface TechnologyTally {
   cells: number;
   invalid: number;
-  surge: number;
-  board: number;
+  /** cells whose shortest safe string is longer than MAX_SERIES_COUNT */
+  seriesBound: number;
   /** nearest sizing miss: ratio of needed to allowed (> 1) */
   missRatio: number;
   missDriver: Driver;
   missLimit: Limit;
+  /** N_s of the nearest miss */
+  missSeries: number;
 }
 
 function isPositive(x: number): boolean {
@@ -155,21 +156,70 @@ function floorSafe(x: number): number {
 }
 
 /**
+ * Worst-case transient voltage of one cell while a string of N_s matched cells charges to V_max
+ * (DESIGN §3.2): the weakest cell (C_lo = C_n(1 − m)) among N_s − 1 strong ones (C_hi = C_n(1 + m)),
+ * V_w = V_max·(1/C_lo) / (1/C_lo + (N_s − 1)/C_hi) = V_max / (1 + (N_s − 1)·C_lo/C_hi).
+ */
+export function worstCaseCellVoltage(maxVoltage: number, seriesCount: number, matchingTolerance: number): number {
+  const m = matchingTolerance;
+  return maxVoltage / (1 + (seriesCount - 1) * ((1 - m) / (1 + m)));
+}
+
+const NUMBER_FIELDS = ['maxVoltage', 'minVoltage', 'capacitance', 'energy', 'maxMass', 'maxVolume', 'quantity'] as const;
+
+/** Refuses (RangeError) a requirement or design factors no search can mean; bounds are the schemas' job. */
+function checkInputs(req: Requirement, f: DesignFactors): void {
+  const bad = (what: string): never => {
+    throw new RangeError(`${what} must be a finite number in range`);
+  };
+  for (const key of NUMBER_FIELDS) {
+    const v = req[key];
+    if (v !== undefined && !(Number.isFinite(v) && v >= 0)) bad(key);
+  }
+  for (const [what, v] of [
+    ['backup.power', req.backup?.power],
+    ['backup.seconds', req.backup?.seconds],
+    ['peakCurrent.current', req.peakCurrent?.current],
+    ['peakCurrent.maxDrop', req.peakCurrent?.maxDrop],
+  ] as const) {
+    if (v !== undefined && !(Number.isFinite(v) && v >= 0)) bad(what);
+  }
+  if (!(req.maxVoltage > 0)) bad('maxVoltage');
+  const vMin = req.minVoltage ?? 0;
+  if (!(vMin < req.maxVoltage)) throw new RangeError('minVoltage must be at least 0 and below maxVoltage');
+  if (!(f.capacitanceFade >= 0 && f.capacitanceFade < 1)) bad('capacitanceFade');
+  if (!(f.esrGrowth >= 0 && Number.isFinite(f.esrGrowth))) bad('esrGrowth');
+  if (!(f.voltageDerating > 0 && f.voltageDerating <= 1)) bad('voltageDerating');
+  if (!(f.matchingTolerance >= 0 && f.matchingTolerance < 1)) bad('matchingTolerance');
+  if (!(f.balancingFactor > 0 && Number.isFinite(f.balancingFactor))) bad('balancingFactor');
+  if (!(f.safeVoltage > 0 && Number.isFinite(f.safeVoltage))) bad('safeVoltage');
+  if (!(f.safeTime > 0 && Number.isFinite(f.safeTime))) bad('safeTime');
+}
+
+/** How a string of N_s cells is kept within its ratings while charging: passive (board −1), an active board, or not at all. */
+type StringBalancing = { fits: false } | { fits: true; board: number; boardsPerString: number };
+
+/**
  * Requirement → buildable arrangements (DESIGN §3.2), ranked by estimated cost, with the Pareto
  * flag over (cost, mass, volume) among every feasible candidate.
+ *
+ * Every loop is bounded by construction: the series count is checked against MAX_SERIES_COUNT
+ * before any string is tried, and the shortest safe string is found by the closed form of V_w
+ * solved for N_s (at most a few steps of correction), so no requested value, however large, makes
+ * the search run long. Throws RangeError for values no requirement can mean (NaN, negative).
  */
 export function searchArrangements(input: ArrangementSearchInput): ArrangementSearchResult {
   const { requirement: req, cells, factors } = input;
+  checkInputs(req, factors);
   const boards = input.balancingBoards ?? [];
-  const limit = Math.max(0, Math.floor(input.limit ?? 12));
+  const limitIn = input.limit ?? 12;
+  const limit = Number.isNaN(limitIn) ? 0 : Math.max(0, Math.floor(limitIn));
   const perCellCost = input.costModel?.perCell ?? 0;
   const perBankCost = input.costModel?.perBank ?? 0;
   const perResistorCost = input.costModel?.perBalancingResistor ?? 0;
 
   const vMax = req.maxVoltage;
   const vMin = req.minVoltage ?? 0;
-  if (!isPositive(vMax)) throw new RangeError('maxVoltage must be a positive number');
-  if (!(vMin >= 0 && vMin < vMax)) throw new RangeError('minVoltage must be at least 0 and below maxVoltage');
   const dV2 = vMax * vMax - vMin * vMin;
   const quantity = Math.max(1, Math.floor(req.quantity ?? 1));
   const cReq = req.capacitance ?? 0;
@@ -183,13 +233,13 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const maxVolume = req.maxVolume ?? Infinity;
   const m = factors.matchingTolerance;
   const matchRatio = (1 - m) / (1 + m);
-  const derating = factors.voltageDerating > 0 ? factors.voltageDerating : 1;
+  const derating = factors.voltageDerating;
   const fade = factors.capacitanceFade;
   const growth = factors.esrGrowth;
 
   const tallies = new Map<Technology, TechnologyTally>();
   for (const t of TECHNOLOGIES) {
-    tallies.set(t, { cells: 0, invalid: 0, surge: 0, board: 0, missRatio: Infinity, missDriver: 'none', missLimit: 'count' });
+    tallies.set(t, { cells: 0, invalid: 0, seriesBound: 0, missRatio: Infinity, missDriver: 'none', missLimit: 'count', missSeries: 0 });
   }
 
   // Candidate store: one row per (cell, N_s, topology), structure of arrays, no per-candidate objects.
@@ -198,6 +248,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const cNs = new Int32Array(capacity);
   const cNp = new Int32Array(capacity);
   const cTopo = new Uint8Array(capacity);
+  const cLonger = new Uint8Array(capacity);
   const cBoard = new Int32Array(capacity);
   const cBoardCount = new Int32Array(capacity);
   const cCost = new Float64Array(capacity);
@@ -221,42 +272,73 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
     const surge = Math.max(cell.surgeVoltage, vr);
     const cd = cn * (1 - cell.toleranceMinus) * (1 - fade);
     const esrEol = cell.esr * (1 + growth);
-    const nsBase = Math.max(1, ceilSafe(vMax / (derating * vr)));
 
-    for (let ns = nsBase; ns <= nsBase + 1; ns++) {
-      // worst-case transient cell voltage, one low cell among high ones
-      const vw = vMax / (1 + (ns - 1) * matchRatio);
-      if (vw > surge * (1 + 1e-12)) {
-        tally.surge++;
-        continue;
-      }
+    // The fewest cells the voltage needs, checked as an integer before any string is tried.
+    const nsVoltage = Math.max(1, ceilSafe(vMax / (derating * vr)));
+    if (!(nsVoltage <= MAX_SERIES_COUNT)) {
+      tally.seriesBound++;
+      continue;
+    }
+
+    const balancingFor = (ns: number): StringBalancing => {
+      const vw = worstCaseCellVoltage(vMax, ns, m);
+      if (vw > surge * (1 + 1e-12)) return { fits: false };
+      if (vw <= vr * (1 + 1e-12)) return { fits: true, board: -1, boardsPerString: 0 };
+      // above the rating: an active board that clamps each cell at or below it
+      const vCell = vMax / ns;
       let board = -1;
       let boardsPerString = 0;
-      if (vw > vr * (1 + 1e-12)) {
-        const vCell = vMax / ns;
-        let bestCost = Infinity;
-        for (let b = 0; b < boards.length; b++) {
-          const bd = boards[b] as BalancingBoard;
-          if (!(bd.channels >= 1) || bd.maxCellVoltage > vr || bd.maxCellVoltage < vCell) continue;
-          const per = Math.ceil(ns / Math.floor(bd.channels));
-          const cost = per * bd.unitCost;
-          if (cost < bestCost) {
-            bestCost = cost;
-            board = b;
-            boardsPerString = per;
-          }
-        }
-        if (board < 0) {
-          tally.board++;
-          continue;
+      let bestCost = Infinity;
+      for (let b = 0; b < boards.length; b++) {
+        const bd = boards[b] as BalancingBoard;
+        if (!(bd.channels >= 1) || bd.maxCellVoltage > vr || bd.maxCellVoltage < vCell) continue;
+        const per = Math.ceil(ns / Math.floor(bd.channels));
+        const cost = per * bd.unitCost;
+        if (cost < bestCost) {
+          bestCost = cost;
+          board = b;
+          boardsPerString = per;
         }
       }
+      return board < 0 ? { fits: false } : { fits: true, board, boardsPerString };
+    };
+
+    // The shortest safe string (DESIGN §3.2): from the voltage's count upward to the first whose
+    // worst case is within the surge rating (within the rating where only passive balancing is
+    // fitted). V_w ≤ L ⇔ N_s ≥ 1 + (V_max/L − 1)·C_hi/C_lo, so the count comes from the closed
+    // form; the few steps after it only absorb rounding.
+    const atLeast = (limitV: number): number => Math.max(nsVoltage, ceilSafe(1 + (vMax / limitV - 1) / matchRatio));
+    const nsSurge = atLeast(surge);
+    const nsRated = atLeast(vr);
+    let nsBoard = Infinity;
+    for (let b = 0; b < boards.length; b++) {
+      const bd = boards[b] as BalancingBoard;
+      if (bd.channels >= 1 && bd.maxCellVoltage > 0 && bd.maxCellVoltage <= vr) nsBoard = Math.min(nsBoard, ceilSafe(vMax / bd.maxCellVoltage));
+    }
+    let nsSafe = Math.min(nsRated, Math.max(nsSurge, nsBoard));
+    if (!(nsSafe <= MAX_SERIES_COUNT + 1)) {
+      tally.seriesBound++;
+      continue;
+    }
+    for (let k = 0; k < 2 && nsSafe - 1 >= nsVoltage && balancingFor(nsSafe - 1).fits; k++) nsSafe--;
+    for (let k = 0; k < 3 && !balancingFor(nsSafe).fits; k++) nsSafe++;
+    if (nsSafe > MAX_SERIES_COUNT || !balancingFor(nsSafe).fits) {
+      tally.seriesBound++;
+      continue;
+    }
+
+    // the shortest safe string, then one more as the longer-life variant
+    for (let ns = nsSafe; ns <= nsSafe + 1 && ns <= MAX_SERIES_COUNT; ns++) {
+      const fit = balancingFor(ns);
+      if (!fit.fits) continue;
+      const { board, boardsPerString } = fit;
 
       // Lower bounds on N_p from closed forms; the largest one names the driving requirement.
+      // A bound that is not a finite number (a fade of 100 %, an underflow) is out of reach.
       let npNeed = 1;
       let driver: Driver = 'none';
       const consider = (bound: number, d: Driver): void => {
-        const n = ceilSafe(bound);
+        const n = bound <= 1 ? 1 : Number.isFinite(bound) ? ceilSafe(bound) : Infinity;
         if (n > npNeed) {
           npNeed = n;
           driver = d;
@@ -272,7 +354,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       }
 
       // Upper bounds on N_p from the mass, volume and cell-count limits.
-      let npMax = floorSafe(MAX_CELLS_PER_BANK / ns);
+      let npMax = Math.min(MAX_PARALLEL_COUNT, floorSafe(MAX_CELLS_PER_BANK / ns));
       let limitBy: Limit = 'count';
       if (Number.isFinite(maxMass) && cell.mass > 0) {
         const n = floorSafe(maxMass / (ns * cell.mass));
@@ -293,28 +375,29 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
         const ratio = npMax > 0 ? npNeed / npMax : Infinity;
         if (ratio < tally.missRatio || tally.missDriver === 'none') {
           tally.missRatio = ratio;
-          tally.missDriver = driver === 'none' ? 'capacitance' : driver;
+          tally.missDriver = driver === 'none' ? 'string' : driver;
           tally.missLimit = limitBy;
+          tally.missSeries = ns;
         }
         continue;
       }
 
       let np = npNeed;
       if (hasBackup) {
-        // With ESR the backup is shorter; the time rises with N_p: exponential then binary search.
+        // With ESR the backup is shorter; the time rises with N_p: exponential then binary search,
+        // both within [N_p, npMax] (at most 2·log2(MAX_PARALLEL_COUNT) steps).
         const lasts = (n: number): number =>
           constantPowerSeconds((n * cd) / ns, (esrEol * ns) / n, vMax, backupPower, vMin);
         if (lasts(np) < backupSeconds) {
           let lo = np; // fails
           let step = 1;
           let hi = -1;
-          while (true) {
+          while (lo < npMax) {
             const next = Math.min(lo + step, npMax);
             if (lasts(next) >= backupSeconds) {
               hi = next;
               break;
             }
-            if (next === npMax) break;
             lo = next;
             step *= 2;
           }
@@ -324,6 +407,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
               tally.missRatio = ratio;
               tally.missDriver = 'backup';
               tally.missLimit = limitBy;
+              tally.missSeries = ns;
             }
             continue;
           }
@@ -351,6 +435,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
         cNs[count] = ns;
         cNp[count] = np;
         cTopo[count] = t;
+        cLonger[count] = ns > nsSafe ? 1 : 0;
         cBoard[count] = board;
         cBoardCount[count] = boardCount;
         const resistors = bd ? 0 : t === TOPO_STRINGS ? cellCount : ns;
@@ -363,7 +448,8 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
     }
   }
 
-  // Best `limit` by (cost, mass, volume, lead time, sku, N_s, topology): a small sorted selection.
+  // Best `limit` by (cost, mass, volume, lead time, sku, N_s, topology): a small sorted selection,
+  // or one sort when most candidates are wanted.
   const compare = (a: number, b: number): number => {
     const d =
       (cCost[a] as number) - (cCost[b] as number) ||
@@ -376,13 +462,18 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
     if (skuA !== skuB) return skuA < skuB ? -1 : 1;
     return (cNs[a] as number) - (cNs[b] as number) || (cTopo[a] as number) - (cTopo[b] as number) || a - b;
   };
-  const best: number[] = [];
-  for (let i = 0; i < count && limit > 0; i++) {
-    if (best.length === limit && compare(i, best[limit - 1] as number) >= 0) continue;
-    let pos = best.length;
-    while (pos > 0 && compare(i, best[pos - 1] as number) < 0) pos--;
-    best.splice(pos, 0, i);
-    if (best.length > limit) best.pop();
+  let best: number[] = [];
+  if (limit >= count / 8) {
+    best = Array.from({ length: count }, (_, i) => i).sort(compare);
+    if (best.length > limit) best.length = limit;
+  } else {
+    for (let i = 0; i < count; i++) {
+      if (best.length === limit && compare(i, best[limit - 1] as number) >= 0) continue;
+      let pos = best.length;
+      while (pos > 0 && compare(i, best[pos - 1] as number) < 0) pos--;
+      best.splice(pos, 0, i);
+      if (best.length > limit) best.pop();
+    }
   }
 
   const options = best.map((i) => {
@@ -405,7 +496,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       topology: TOPOLOGIES[cTopo[i] as number] as Topology,
       ns: cNs[i] as number,
       np: cNp[i] as number,
-      longerLife: (cNs[i] as number) > Math.max(1, ceilSafe(vMax / (derating * (cells[cCell[i] as number] as EngineCell).ratedVoltage))),
+      longerLife: cLonger[i] === 1,
       board: (cBoard[i] as number) >= 0 ? (boards[cBoard[i] as number] as BalancingBoard) : null,
       boardCount: cBoardCount[i] as number,
       cost,
@@ -435,6 +526,13 @@ function reasonFor(tech: Technology, tally: TechnologyTally, req: Requirement): 
   if (tally.cells === 0) return `${tech}: no ${tech} cells in the catalog`;
   if (tally.invalid === tally.cells) return `${tech}: no cell has complete electrical data`;
   if (tally.missDriver !== 'none') {
+    const within =
+      tally.missLimit === 'mass'
+        ? fmt(req.maxMass ?? 0, 'kg')
+        : tally.missLimit === 'volume'
+          ? fmt(req.maxVolume ?? 0, 'm³')
+          : `${MAX_CELLS_PER_BANK} cells`;
+    if (tally.missDriver === 'string') return `${tech}: even one string of ${tally.missSeries} cells in series is beyond ${within}`;
     let need: string;
     switch (tally.missDriver) {
       case 'capacitance':
@@ -452,19 +550,10 @@ function reasonFor(tech: Technology, tally: TechnologyTally, req: Requirement): 
       default:
         need = `${fmt(req.peakCurrent?.current ?? 0, 'A')} peak current`;
     }
-    const within =
-      tally.missLimit === 'mass'
-        ? fmt(req.maxMass ?? 0, 'kg')
-        : tally.missLimit === 'volume'
-          ? fmt(req.maxVolume ?? 0, 'm³')
-          : `${MAX_CELLS_PER_BANK} cells`;
     return `${tech}: no cell reaches ${need} within ${within}`;
   }
-  if (tally.board > 0) {
-    return `${tech}: at ${fmt(req.maxVoltage, 'V')} the cells need active balancing and no balancing board in the catalog clamps them`;
-  }
-  if (tally.surge > 0) {
-    return `${tech}: at ${fmt(req.maxVoltage, 'V')} the worst-case charging voltage exceeds every cell's surge rating`;
+  if (tally.seriesBound > 0) {
+    return `${tech}: at ${fmt(req.maxVoltage, 'V')} no cell stays within its ratings in a string of at most ${MAX_SERIES_COUNT.toLocaleString('en-GB')} cells in series (the search's bound)`;
   }
   return `${tech}: no cell fits`;
 }
@@ -493,8 +582,7 @@ function buildOption(a: {
   const cDesign = (np * cd) / ns;
   const esrNew = (cell.esr * ns) / np;
   const esrEol = esrNew * (1 + factors.esrGrowth);
-  const m = factors.matchingTolerance;
-  const worstCellVoltage = vMax / (1 + (ns - 1) * ((1 - m) / (1 + m)));
+  const worstCellVoltage = worstCaseCellVoltage(vMax, ns, factors.matchingTolerance);
   const storedEnergy = 0.5 * cNominal * vMax * vMax;
 
   const balancing = sizeBalancing({

@@ -4,3 +4,4 @@ export * from './discharge';
 export * from './preferred-values';
 export * from './balancing';
 export * from './arrangement-search';
+export * from './bounds';

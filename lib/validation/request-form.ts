@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { formatBound, MAX_BY_UNIT, MAX_QUANTITY } from '../bank/bounds';
 import type { Requirement, Technology } from '../bank/types';
 import { parseQuantity, type QuantityUnit } from '../quantities';
 import { technologySchema } from './bank';
@@ -12,8 +13,8 @@ import { technologySchema } from './bank';
 export const SIZE_FOR = ['capacitance', 'energy', 'backup'] as const;
 export type SizeFor = (typeof SIZE_FOR)[number];
 
-/** Most banks one request may ask for (the arrangement request's bound). */
-export const MAX_QUANTITY = 100_000;
+/** Most banks one request may ask for (the arrangement request's bound, lib/bank/bounds.ts). */
+export { MAX_QUANTITY };
 export const MAX_NOTES = 4000;
 
 const text = z.string().max(60, 'Keep this under 60 characters');
@@ -91,7 +92,8 @@ const EXAMPLES: Record<QuantityUnit, string> = {
 
 /**
  * Reads one quantity field. Empty → undefined (the caller decides whether it is required).
- * Energy also accepts watt-hours (1 Wh = 3600 J).
+ * Energy also accepts watt-hours (1 Wh = 3600 J). A value above the physical bound of its kind
+ * (lib/bank/bounds.ts) is refused at the field.
  */
 function readQuantity(raw: string, field: RequestFormField, unit: QuantityUnit, issues: Issue[], allowZero = false): number | undefined {
   if (raw.trim() === '') return undefined;
@@ -102,6 +104,12 @@ function readQuantity(raw: string, field: RequestFormField, unit: QuantityUnit, 
   }
   if (!parsed.ok) {
     issues.push({ field, message: `${parsed.message}; write the ${WHAT[field] ?? field} like ${EXAMPLES[unit]}` });
+    return undefined;
+  }
+  const max = unit === 'Wh' ? MAX_BY_UNIT.J / 3600 : MAX_BY_UNIT[unit];
+  if (parsed.value > max) {
+    const what = WHAT[field] ?? field;
+    issues.push({ field, message: `The ${what} must be at most ${formatBound(max, unit)}` });
     return undefined;
   }
   return parsed.value;

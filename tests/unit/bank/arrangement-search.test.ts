@@ -42,14 +42,16 @@ describe('searchArrangements: hand-worked example (DESIGN §3.2)', () => {
   const factors: DesignFactors = { ...DEFAULT_DESIGN_FACTORS, matchingTolerance: 0.02 };
   const requirement: Requirement = { maxVoltage: 48, capacitance: 10 };
 
-  it('N_s = ceil(48/2.7) = 18 needs active balancing (V_w = 2.769 V > 2.7 V); without a board only N_s + 1 = 19 is offered', () => {
+  it('N_s = ceil(48/2.7) = 18 needs active balancing (V_w = 2.769 V > 2.7 V); without a board the shortest safe string is 19, and 20 is the longer-life variant', () => {
     const { options, reasons } = searchArrangements({ requirement, cells: [edlc()], factors });
     expect(reasons).toEqual([]);
-    expect(options).toHaveLength(1);
+    expect(options.map((o) => [o.seriesCount, o.longerLife])).toEqual([
+      [19, false],
+      [20, true],
+    ]);
     const o = options[0]!;
     expect(o.seriesCount).toBe(19);
     expect(o.parallelCount).toBe(1); // C_d = 350·1·0.8 = 280 F; 280/19 = 14.7 F ≥ 10 F
-    expect(o.longerLife).toBe(true);
     expect(o.cellCount).toBe(19);
     expect(o.capacitance.nominal).toBeCloseTo(350 / 19, 9);
     expect(o.capacitance.design).toBeCloseTo(280 / 19, 9);
@@ -80,11 +82,17 @@ describe('searchArrangements: hand-worked example (DESIGN §3.2)', () => {
     expect(o18.leadTimeDays).toBe(10); // the board's lead time
   });
 
-  it('refuses an option whose worst-case cell voltage exceeds the surge rating', () => {
-    // with the default 5 % matching, N_s = 18 gives V_w = 2.930 V > 2.85 V surge: refused even with a board
+  it('refuses a string whose worst-case cell voltage exceeds the surge rating, and takes the next one up', () => {
+    // with the default 5 % matching, N_s = 18 gives V_w = 2.930 V > 2.85 V surge: refused even with a board;
+    // 19 gives 2.777 V (above 2.7 V: 4 boards clamp it), 20 gives 2.637 V (passive balancing is enough)
     const { options } = searchArrangements({ requirement, cells: [edlc()], factors: DEFAULT_DESIGN_FACTORS, balancingBoards: [board] });
-    expect(options.every((o) => o.seriesCount === 19)).toBe(true);
-    expect(options[0]!.balancing.activeBoard).toEqual({ sku: 'BAL-6CH-27', count: 4 }); // V_w = 2.777 V > 2.7 V
+    expect(options.map((o) => o.seriesCount).sort()).toEqual([19, 20]);
+    const o19 = options.find((o) => o.seriesCount === 19)!;
+    const o20 = options.find((o) => o.seriesCount === 20)!;
+    expect(o19.balancing.activeBoard).toEqual({ sku: 'BAL-6CH-27', count: 4 });
+    expect(o19.longerLife).toBe(false);
+    expect(o20.balancing.activeBoard).toBeNull();
+    expect(o20.longerLife).toBe(true);
   });
 
   it('offers both topologies when N_p > 1, with one balancing resistor per group or per cell', () => {
@@ -171,8 +179,9 @@ describe('searchArrangements: warnings, cautions and reasons', () => {
     });
     expect(options).toEqual([]);
     expect(reasons).toContain('film: no cell reaches 20 kJ usable within 50 kg');
-    // 260 EDLC cells in series: with 5 % matching the worst-case cell reaches 2.97 V, above its 2.85 V surge
-    expect(reasons).toContain("edlc: at 700 V the worst-case charging voltage exceeds every cell's surge rating");
+    // 260 EDLC cells would do for the voltage, but with 5 % matching the shortest passive string is
+    // N_s = ceil(1 + (700/2.7 − 1)·1.05/0.95) = 287 cells, 1,435 kg at 5 kg each
+    expect(reasons).toContain('edlc: even one string of 287 cells in series is beyond 50 kg');
     expect(reasons).toContain('electrolytic: no electrolytic cells in the catalog');
   });
 
@@ -331,6 +340,15 @@ describe('searchArrangements properties (fast-check)', () => {
             const b = boards.find((x) => x.sku === o.balancing.activeBoard!.sku)!;
             expect(b.maxCellVoltage).toBeLessThanOrEqual(cell.ratedVoltage);
           }
+          // the shortest safe string (DESIGN §3.2): one cell fewer is below what the voltage needs,
+          // or its worst case is above the surge rating, or above the rating with no board to clamp it
+          const nsVoltage = Math.max(1, Math.ceil(req.maxVoltage / (factors.voltageDerating * cell.ratedVoltage) - 1e-9));
+          const shorter = ns - 1;
+          const vwShorter = (req.maxVoltage * (1 / cLo)) / (1 / cLo + (shorter - 1) / cHi);
+          const surge = Math.max(cell.surgeVoltage, cell.ratedVoltage);
+          const boardClamps = boards.some((b) => b.channels >= 1 && b.maxCellVoltage <= cell.ratedVoltage && b.maxCellVoltage >= req.maxVoltage / shorter);
+          const shorterFits = vwShorter <= surge * (1 - 1e-9) && (vwShorter <= cell.ratedVoltage * (1 - 1e-9) || boardClamps);
+          if (!o.longerLife) expect(shorter < nsVoltage || !shorterFits).toBe(true);
           expect(meets(o, np, req, factors, cell)).toBe(true);
           if (req.maxMass !== undefined) expect(o.mass).toBeLessThanOrEqual(req.maxMass * (1 + 1e-9));
           if (req.maxVolume !== undefined) expect(o.volume).toBeLessThanOrEqual(req.maxVolume * (1 + 1e-9));
