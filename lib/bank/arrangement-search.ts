@@ -73,12 +73,23 @@ export interface ArrangementOption {
   };
   /** constant-power backup time with design capacitance and end-of-life ESR (s) */
   backupSeconds?: number;
-  /** cells·unitCost + boards·unitCost (+ the cost model) per bank: for ranking only, the caller prices exactly */
+  /**
+   * cells·unitCost + boards·unitCost + the caller's cost model, per bank, in float: the order the
+   * search returns options in. The caller prices exactly; with a cost model that keeps this a lower
+   * bound of the exact cost (lib/quoting/bill.ts), it can stop pricing once no cheaper option can follow.
+   */
   costEstimate: number;
   leadTimeDays: number;
-  pareto: boolean;
   warnings: string[];
   cautions: string[];
+}
+
+export interface CostModel {
+  perCell: number;
+  perBank: number;
+  perBalancingResistor: number;
+  /** added to each active board's unit cost */
+  perBalancingBoard?: number;
 }
 
 export interface ArrangementSearchInput {
@@ -89,10 +100,11 @@ export interface ArrangementSearchInput {
   /** default 12 */
   limit?: number;
   /**
-   * Float costs per cell (interconnect, assembly labour), per bank (setup, test, terminals) and per
-   * balancing resistor, so that ranking follows the shop's price closely; exact money stays with the caller.
+   * Float costs added per cell (interconnect, assembly labour), per bank (setup, test, terminals),
+   * per balancing resistor and per active board, so that the order follows the shop's price
+   * closely; exact money stays with the caller.
    */
-  costModel?: { perCell: number; perBank: number; perBalancingResistor: number };
+  costModel?: CostModel;
 }
 
 export interface ArrangementSearchResult {
@@ -200,8 +212,11 @@ function checkInputs(req: Requirement, f: DesignFactors): void {
 type StringBalancing = { fits: false } | { fits: true; board: number; boardsPerString: number };
 
 /**
- * Requirement → buildable arrangements (DESIGN §3.2), ranked by estimated cost, with the Pareto
- * flag over (cost, mass, volume) among every feasible candidate.
+ * Requirement → buildable arrangements (DESIGN §3.2): the best `limit` in the order of their float
+ * cost estimate (then mass, volume, lead time, part number, N_s, topology). This order is a
+ * pre-cut, not the ranking customers see: lib/quoting prices the options exactly, widening the
+ * cut until no option beyond it can enter the best dozen (lib/quoting/priced-search.ts), ranks
+ * them by exact price and marks the Pareto set over price, mass and volume.
  *
  * Every loop is bounded by construction: the series count is checked against MAX_SERIES_COUNT
  * before any string is tried, and the shortest safe string is found by the closed form of V_w
@@ -217,6 +232,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const perCellCost = input.costModel?.perCell ?? 0;
   const perBankCost = input.costModel?.perBank ?? 0;
   const perResistorCost = input.costModel?.perBalancingResistor ?? 0;
+  const perBoardCost = input.costModel?.perBalancingBoard ?? 0;
 
   const vMax = req.maxVoltage;
   const vMin = req.minVoltage ?? 0;
@@ -438,8 +454,9 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
         cLonger[count] = ns > nsSafe ? 1 : 0;
         cBoard[count] = board;
         cBoardCount[count] = boardCount;
-        const resistors = bd ? 0 : t === TOPO_STRINGS ? cellCount : ns;
-        cCost[count] = cellCost + (bd ? boardCount * bd.unitCost : 0) + cellCount * perCellCost + perBankCost + resistors * perResistorCost;
+        // the balancing resistors sizeBalancing fits: none for a single series position
+        const resistors = bd || ns <= 1 ? 0 : t === TOPO_STRINGS ? cellCount : ns;
+        cCost[count] = cellCost + (bd ? boardCount * (bd.unitCost + perBoardCost) : 0) + cellCount * perCellCost + perBankCost + resistors * perResistorCost;
         cMass[count] = mass;
         cVolume[count] = volume;
         cLead[count] = lead;
@@ -477,20 +494,6 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   }
 
   const options = best.map((i) => {
-    // Pareto: no feasible candidate is at least as good in cost, mass and volume and better in one.
-    const cost = cCost[i] as number;
-    const mass = cMass[i] as number;
-    const volume = cVolume[i] as number;
-    let pareto = true;
-    for (let j = 0; j < count; j++) {
-      const cj = cCost[j] as number;
-      const mj = cMass[j] as number;
-      const vj = cVolume[j] as number;
-      if (cj <= cost && mj <= mass && vj <= volume && (cj < cost || mj < mass || vj < volume)) {
-        pareto = false;
-        break;
-      }
-    }
     return buildOption({
       cell: cells[cCell[i] as number] as EngineCell,
       topology: TOPOLOGIES[cTopo[i] as number] as Topology,
@@ -499,9 +502,8 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       longerLife: cLonger[i] === 1,
       board: (cBoard[i] as number) >= 0 ? (boards[cBoard[i] as number] as BalancingBoard) : null,
       boardCount: cBoardCount[i] as number,
-      cost,
+      cost: cCost[i] as number,
       lead: cLead[i] as number,
-      pareto,
       req,
       factors,
       quantity,
@@ -568,7 +570,6 @@ function buildOption(a: {
   boardCount: number;
   cost: number;
   lead: number;
-  pareto: boolean;
   req: Requirement;
   factors: DesignFactors;
   quantity: number;
@@ -699,7 +700,6 @@ function buildOption(a: {
     },
     costEstimate: a.cost,
     leadTimeDays: a.lead,
-    pareto: a.pareto,
     warnings,
     cautions,
   };

@@ -1,5 +1,5 @@
 import type { DesignFactors, Requirement } from "@/lib/bank";
-import type { PricedOption } from "@/lib/quoting/arrangements";
+import type { PricedOption } from "@/lib/quoting/types";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatDuration } from "@/components/charts/chart-data";
 import { formatQuantity as q } from "@/lib/quantities";
