@@ -1,8 +1,7 @@
 "use client";
 import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
-import type { Requirement } from "@/lib/bank";
-import { formatQuantity } from "@/lib/quantities";
-import { dischargeCurve, formatDuration, type ChartOption } from "./chart-data";
+import { dischargeCurve, type CurveOption, type Requirement } from "@/lib/bank";
+import { formatDuration, formatQuantity } from "@/lib/quantities";
 import { CHART_COLORS as C } from "./colors";
 
 /** Time axis in s, min or h, whichever reads best for the span. */
@@ -13,17 +12,27 @@ function timeScale(seconds: number): { unit: string; div: number } {
   return { unit: "s", div: 1 };
 }
 
-/** The discharge curve for the stated requirement, with V_min (and V_safe, the backup time) marked. */
-export function DischargeChart({ option, requirement, safeVoltage }: { option: ChartOption; requirement: Requirement; safeVoltage: number }) {
+function titleOf(kind: "constant-power" | "constant-current" | "resistive", requirement: Requirement, bleeder: boolean): string {
+  if (kind === "constant-power") return `Constant ${Math.round(requirement.backup?.power ?? 0).toLocaleString("en-GB")} W backup at end of life`;
+  if (kind === "constant-current") return `Constant ${(requirement.peakCurrent?.current ?? 0).toLocaleString("en-GB")} A at end of life`;
+  return bleeder ? "Switched off: discharge through the bleeder and balancing resistors" : "Switched off: self-discharge through the balancing resistors";
+}
+
+/**
+ * The discharge curve for the stated requirement (lib/bank dischargeCurve, from the option's own
+ * figures), with V_min (and V_safe, the backup time) marked.
+ */
+export function DischargeChart({ option, requirement, safeVoltage }: { option: CurveOption; requirement: Requirement; safeVoltage: number }) {
   const curve = dischargeCurve(option, requirement, safeVoltage);
   if (!curve) return <p className="text-sm text-ink-600">No discharge path to chart for this option.</p>;
+  const title = titleOf(curve.kind, requirement, option.discharge.bleeder !== null);
   const span = curve.points.at(-1)?.t ?? 0;
   const { unit, div } = timeScale(Math.max(span, curve.requiredSeconds ?? 0));
   const data = curve.points.map((p) => ({ t: p.t / div, v: p.v }));
   const vMin = requirement.minVoltage ?? 0;
   return (
     <figure>
-      <figcaption className="text-sm font-medium text-ink-800">{curve.title}</figcaption>
+      <figcaption className="text-sm font-medium text-ink-800">{title}</figcaption>
       <div className="mt-2 h-56 w-full" data-testid="discharge-chart">
         <ResponsiveContainer width="100%" height="100%">
           <LineChart data={data} margin={{ top: 8, right: 56, bottom: 16, left: 0 }}>
@@ -42,7 +51,7 @@ export function DischargeChart({ option, requirement, safeVoltage }: { option: C
       </div>
       <p className="mt-1 text-xs text-ink-600">
         {curve.kind === "resistive"
-          ? `Reaches ${formatQuantity(curve.points.at(-1)?.v ?? 0, "V")} after ${formatDuration(curve.seconds)}; design capacitance, balancing${option.discharge.bleeder ? " and bleeder" : ""} resistors only.`
+          ? `Reaches ${formatQuantity(curve.points.at(-1)?.v ?? 0, "V")} after ${formatDuration(curve.seconds)}; worst-case capacitance (upper tolerance), balancing${option.discharge.bleeder ? " and bleeder" : ""} resistors only, as the time to the safe voltage is figured.`
           : `Lasts ${formatDuration(curve.seconds)} down to ${formatQuantity(vMin, "V")} with end-of-life capacitance and ESR${curve.requiredSeconds !== null ? ` (asked: ${formatDuration(curve.requiredSeconds)})` : ""}.`}
       </p>
     </figure>

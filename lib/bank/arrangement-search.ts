@@ -2,6 +2,7 @@ import { formatQuantity } from '../quantities';
 import { sizeBalancing, sizeBleeder } from './balancing';
 import { MAX_CELLS_PER_BANK, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from './bounds';
 import { constantPowerSeconds } from './discharge';
+import { storedEnergy as storedEnergyOf, usableEnergy as usableEnergyOf } from './energy';
 import {
   TECHNOLOGIES,
   type BalancingBoard,
@@ -66,9 +67,21 @@ export interface ArrangementOption {
     timeConstant: number;
     activeBoard: null | { sku: string; count: number };
   };
+  /**
+   * Self-discharge after switch-off, through the balancing chain and the bleeder. Worst case: the
+   * bank's capacitance at the upper tolerance (the safe side: a larger C takes longer to fall to
+   * V_safe). The discharge chart draws V(t) = V_max·e^(−t/(R·C)) with these same R and C, so it
+   * crosses V_safe at secondsToSafe.
+   */
   discharge: {
-    /** worst case, with the upper capacitance tolerance (s) */
+    /** time from V_max to V_safe (s); 0 when the bank works at or below V_safe */
     secondsToSafe: number;
+    /** N_p·C_n·(1 + b)/N_s: the capacitance the time is computed with (F) */
+    capacitance: number;
+    /** the balancing resistors seen across the terminals (Ω); null without balancing resistors */
+    chainResistance: number | null;
+    /** chain and bleeder in parallel: what the bank discharges through (Ω); null when neither is fitted */
+    resistance: number | null;
     bleeder: null | { resistance: number; power: number; powerRating: number | null; energy: number; switched: boolean };
   };
   /** constant-power backup time with design capacitance and end-of-life ESR (s) */
@@ -560,6 +573,13 @@ function reasonFor(tech: Technology, tally: TechnologyTally, req: Requirement): 
   return `${tech}: no cell fits`;
 }
 
+/** Balancing chain (Infinity when none) and bleeder in parallel; null when the bank has neither. */
+function dischargeResistance(chain: number, bleeder: number | null): number | null {
+  const hasChain = Number.isFinite(chain) && chain > 0;
+  if (bleeder !== null && hasChain) return (chain * bleeder) / (chain + bleeder);
+  return bleeder ?? (hasChain ? chain : null);
+}
+
 function buildOption(a: {
   cell: EngineCell;
   topology: Topology;
@@ -584,7 +604,7 @@ function buildOption(a: {
   const esrNew = (cell.esr * ns) / np;
   const esrEol = esrNew * (1 + factors.esrGrowth);
   const worstCellVoltage = worstCaseCellVoltage(vMax, ns, factors.matchingTolerance);
-  const storedEnergy = 0.5 * cNominal * vMax * vMax;
+  const storedEnergy = storedEnergyOf(cNominal, vMax);
 
   const balancing = sizeBalancing({
     topology: a.topology,
@@ -596,8 +616,9 @@ function buildOption(a: {
     balancingFactor: factors.balancingFactor,
     resistorSeries: factors.resistorSeries,
   });
+  const cWorst = cNominal * (1 + cell.tolerancePlus);
   const discharge = sizeBleeder({
-    capacitance: cNominal * (1 + cell.tolerancePlus),
+    capacitance: cWorst,
     maxVoltage: vMax,
     chainResistance: balancing.chainResistance,
     safeVoltage: factors.safeVoltage,
@@ -679,7 +700,7 @@ function buildOption(a: {
     capacitance: { nominal: cNominal, design: cDesign },
     maxVoltage: ns * cell.ratedVoltage,
     storedEnergy,
-    usableEnergy: 0.5 * cDesign * (vMax * vMax - vMin * vMin),
+    usableEnergy: usableEnergyOf(cDesign, vMax, vMin),
     esr: { new: esrNew, endOfLife: esrEol },
     peakDrop: req.peakCurrent ? req.peakCurrent.current * esrEol : null,
     mass: cellCount * cell.mass,
@@ -696,6 +717,9 @@ function buildOption(a: {
     },
     discharge: {
       secondsToSafe: discharge.secondsToSafe,
+      capacitance: cWorst,
+      chainResistance: Number.isFinite(balancing.chainResistance) ? balancing.chainResistance : null,
+      resistance: dischargeResistance(balancing.chainResistance, discharge.bleeder?.resistance ?? null),
       bleeder: discharge.bleeder,
     },
     costEstimate: a.cost,

@@ -5,3 +5,5 @@ export * from './preferred-values';
 export * from './balancing';
 export * from './arrangement-search';
 export * from './bounds';
+export * from './energy';
+export * from './option-curves';

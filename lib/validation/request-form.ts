@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { formatBound, MAX_BY_UNIT, MAX_QUANTITY } from '../bank/bounds';
+import { backupEnergy, capacitanceForEnergy, maxEsrFor, storedEnergy, usableEnergy as usableEnergyOf } from '../bank/energy';
 import type { Requirement, Technology } from '../bank/types';
 import { parseQuantity, type QuantityUnit } from '../quantities';
 import { technologySchema } from './bank';
@@ -228,33 +229,34 @@ function quiet(raw: string, unit: QuantityUnit, allowZero = false): number | nul
 }
 
 /**
- * From whatever is readable so far: the capacitance the stated energy needs,
- * C = 2E / (V_max² − V_min²); a backup of P for t needs at least E = P·t; from a capacitance, the
- * usable energy ½·C·(V_max² − V_min²) and the stored energy ½·C·V_max²; and ESR_max = ΔV / I_pk.
+ * From whatever is readable so far, with the engine's closed forms (lib/bank/energy.ts): the
+ * capacitance the stated energy needs, C = 2E / (V_max² − V_min²); a backup of P for t needs at
+ * least E = P·t; from a capacitance, the usable energy ½·C·(V_max² − V_min²) and the stored energy
+ * ½·C·V_max²; and ESR_max = ΔV / I_pk.
  */
 export function deriveFigures(values: RequestFormValues): DerivedFigures {
   const vmax = quiet(values.maxVoltage, 'V');
   const vmin = quiet(values.minVoltage, 'V', true) ?? (values.minVoltage.trim() === '' ? 0 : null);
   const voltages = vmax !== null && vmin !== null && vmin < vmax ? { max: vmax, min: vmin } : null;
-  const span = voltages ? voltages.max ** 2 - voltages.min ** 2 : null;
 
   let capacitance: number | null = null;
   let usableEnergy: number | null = null;
   if (values.sizeFor === 'capacitance') {
     capacitance = quiet(values.capacitance, 'F');
-    if (capacitance !== null && span !== null) usableEnergy = 0.5 * capacitance * span;
-  } else if (values.sizeFor === 'energy') {
-    usableEnergy = quiet(values.energy, 'J');
-    if (usableEnergy !== null && span !== null) capacitance = (2 * usableEnergy) / span;
+    if (capacitance !== null && voltages) usableEnergy = usableEnergyOf(capacitance, voltages.max, voltages.min);
   } else {
-    const p = quiet(values.backupPower, 'W');
-    const t = quiet(values.backupTime, 's');
-    if (p !== null && t !== null) usableEnergy = p * t;
-    if (usableEnergy !== null && span !== null) capacitance = (2 * usableEnergy) / span;
+    if (values.sizeFor === 'energy') {
+      usableEnergy = quiet(values.energy, 'J');
+    } else {
+      const p = quiet(values.backupPower, 'W');
+      const t = quiet(values.backupTime, 's');
+      if (p !== null && t !== null) usableEnergy = backupEnergy(p, t);
+    }
+    if (usableEnergy !== null && voltages) capacitance = capacitanceForEnergy(usableEnergy, voltages.max, voltages.min);
   }
-  const storedEnergy = capacitance !== null && voltages ? 0.5 * capacitance * voltages.max ** 2 : null;
+  const stored = capacitance !== null && voltages ? storedEnergy(capacitance, voltages.max) : null;
   const current = quiet(values.peakCurrent, 'A');
   const drop = quiet(values.maxDrop, 'V');
-  const maxEsr = current !== null && drop !== null ? drop / current : null;
-  return { voltages, capacitance, usableEnergy, storedEnergy, maxEsr };
+  const maxEsr = current !== null && drop !== null ? maxEsrFor(drop, current) : null;
+  return { voltages, capacitance, usableEnergy, storedEnergy: stored, maxEsr };
 }

@@ -152,7 +152,7 @@ describe('searchArrangements: warnings, cautions and reasons', () => {
     const o = options[0]!;
     expect(o.cautions.some((c) => c.startsWith('Shock hazard'))).toBe(false);
     expect(o.cautions.some((c) => c.includes('engineering estimate'))).toBe(true);
-    expect(o.discharge).toEqual({ secondsToSafe: 0, bleeder: null });
+    expect(o.discharge).toMatchObject({ secondsToSafe: 0, bleeder: null });
   });
 
   it('explains per technology what ruled every cell out', () => {
