@@ -368,5 +368,5 @@ describe('searchArrangements properties (fast-check)', () => {
       }),
       { numRuns: 400 },
     );
-  });
+  }, 120_000);
 });

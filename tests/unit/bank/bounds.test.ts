@@ -79,7 +79,7 @@ describe('the search is bounded for every input', () => {
       }),
       { numRuns: 2000 },
     );
-  });
+  }, 120_000);
 
   it('never refuses a requirement the public schema accepts', () => {
     // values spread over the schema's own range, so most draws pass it
@@ -108,5 +108,5 @@ describe('the search is bounded for every input', () => {
       }),
       { numRuns: 1000 },
     );
-  });
+  }, 120_000);
 });

@@ -169,7 +169,7 @@ describe("searchPricedOptions: the pre-cut never changes the best dozen", () => 
     );
     // the property is only worth something when many searches had more options than the first cut
     expect(beyondFirstCut).toBeGreaterThan(30);
-  });
+  }, 120_000);
 
   it("the cost model keeps every estimate's floor at or below the exact price per bank", () => {
     fc.assert(
@@ -181,7 +181,7 @@ describe("searchPricedOptions: the pre-cut never changes the best dozen", () => 
       }),
       { numRuns: 300 },
     );
-  });
+  }, 120_000);
 });
 
 describe("searchPricedOptions over the demo catalog", () => {
