@@ -24,7 +24,7 @@ import { formatMoney } from "@/lib/pricing";
 import { loadShopCatalog } from "@/db/queries/catalog";
 import { searchPricedOptions } from "@/lib/quoting/priced-search";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
-import { renderQuotePdf } from "@/lib/quoting/quote-pdf";
+import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 import { chooseArrangementSchema, quoteListQuerySchema } from "@/lib/validation/quote";
 import { actAs, request, sessionCookie, shopBySlug } from "./helpers";
 
@@ -204,13 +204,13 @@ describe("quotes from a chosen arrangement", () => {
     const r = await createQuoteFromChoice(await ctxOf(K, kCustomer), choiceOf(KESTREL_REQ, option));
     if (!r.ok || r.data.kind !== "quote") throw new Error("expected a quote");
     const quote = await getQuoteByNumber(kShopId, r.data.quoteNumber);
-    const { buffer, fileName } = await renderQuotePdf(kShopId, quote!.revisionId);
+    const { buffer, fileName } = await loadQuotePdf(kShopId, quote!.revisionId);
     expect(fileName).toBe(`${r.data.quoteNumber}-r1.pdf`);
     const text = pdfToText(buffer);
     expect(text).toContain(r.data.quoteNumber);
     expect(text).toContain(formatMoney(option.price!.amount, "EUR"));
     // another shop cannot render it
-    await expect(renderQuotePdf(mShopId, quote!.revisionId)).rejects.toThrow();
+    await expect(loadQuotePdf(mShopId, quote!.revisionId)).rejects.toThrow();
   });
 
   it("the PDF route serves the owner and the shop's staff, and answers 404 to another customer", async () => {
