@@ -1,6 +1,6 @@
 import "server-only";
-import { db } from "@/db";
 import { getOutboxRow, lockWaitingOutboxRow, markOutboxSent, recordOutboxFailure } from "@/db/queries/outbox";
+import { inTransaction } from "@/db/tx";
 import { buildOutboxMessage } from "./messages";
 import { sendMessage } from "./transport";
 
@@ -33,7 +33,7 @@ export async function deliverOutboxRow(shopId: string, outboxId: string, { final
     throw error;
   }
 
-  const result = await db.transaction(async (tx) => {
+  const result = await inTransaction(async (tx) => {
     if (!(await lockWaitingOutboxRow(tx, shopId, outboxId))) return { outcome: "skipped" as const };
     try {
       const info = await sendMessage(message);

@@ -1,11 +1,10 @@
 import "server-only";
-import { db } from "@/db";
 import { linkAttachmentsToRequest } from "@/db/queries/attachments";
 import { loadShopCatalog } from "@/db/queries/catalog";
 import { nextShopNumber } from "@/db/queries/counters";
 import { getQuoteByIdempotencyKey, insertQuote, insertQuoteRevision } from "@/db/queries/quotes";
 import { getRequestByIdempotencyKey, insertBankRequest } from "@/db/queries/requests";
-import { isUniqueViolation } from "@/db/tx";
+import { inTransaction, isUniqueViolation } from "@/db/tx";
 import type { Requirement } from "@/lib/bank";
 import type { ActionResult } from "@/lib/auth/shop-action";
 import type { ShopContext } from "@/lib/auth/context";
@@ -37,7 +36,7 @@ async function findEarlier(shopId: string, userId: string, key: string): Promise
 
 async function toReview(ctx: ShopContext, input: ChooseArrangementInput, reasons: string[], chosen: ChosenRecord | null): Promise<ActionResult<CreateQuoteResult>> {
   const shopId = ctx.shop.id;
-  const id = await db.transaction(async (tx) => {
+  const id = await inTransaction(async (tx) => {
     const requestId = await insertBankRequest(tx, shopId, {
       customerUserId: ctx.user.id,
       status: "needs-review",
@@ -87,7 +86,7 @@ export async function createQuoteFromChoice(ctx: ShopContext, input: ChooseArran
 
   let made: { number: string } | null;
   try {
-    made = await db.transaction(async (tx) => {
+    made = await inTransaction(async (tx) => {
       const requestId = await insertBankRequest(tx, shopId, {
         customerUserId: ctx.user.id,
         status: "quoted",
