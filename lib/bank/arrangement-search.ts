@@ -97,12 +97,25 @@ export interface ArrangementOption {
   cautions: string[];
 }
 
+/**
+ * Float costs the search adds to the parts it counts, in the shop's currency. Materials (the cells'
+ * and boards' unit costs and the per-cell, per-bank and per-resistor material costs) are multiplied
+ * by `materialsFactor` (1 + overhead); labour is added as it is.
+ */
 export interface CostModel {
+  /** material cost per cell besides its unit cost (interconnects) */
   perCell: number;
+  /** material cost per bank (terminals) */
   perBank: number;
   perBalancingResistor: number;
   /** added to each active board's unit cost */
   perBalancingBoard?: number;
+  /** default 1 */
+  materialsFactor?: number;
+  /** labour per cell (assembly) */
+  labourPerCell?: number;
+  /** labour per bank (setup, test) */
+  labourPerBank?: number;
 }
 
 export interface ArrangementSearchInput {
@@ -114,8 +127,8 @@ export interface ArrangementSearchInput {
   limit?: number;
   /**
    * Float costs added per cell (interconnect, assembly labour), per bank (setup, test, terminals),
-   * per balancing resistor and per active board, so that the order follows the shop's price
-   * closely; exact money stays with the caller.
+   * per balancing resistor and per active board, with overhead on materials, so that the order
+   * follows the shop's price closely; exact money stays with the caller.
    */
   costModel?: CostModel;
 }
@@ -246,6 +259,9 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const perBankCost = input.costModel?.perBank ?? 0;
   const perResistorCost = input.costModel?.perBalancingResistor ?? 0;
   const perBoardCost = input.costModel?.perBalancingBoard ?? 0;
+  const materialsFactor = input.costModel?.materialsFactor ?? 1;
+  const labourPerCell = input.costModel?.labourPerCell ?? 0;
+  const labourPerBank = input.costModel?.labourPerBank ?? 0;
 
   const vMax = req.maxVoltage;
   const vMin = req.minVoltage ?? 0;
@@ -469,7 +485,8 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
         cBoardCount[count] = boardCount;
         // the balancing resistors sizeBalancing fits: none for a single series position
         const resistors = bd || ns <= 1 ? 0 : t === TOPO_STRINGS ? cellCount : ns;
-        cCost[count] = cellCost + (bd ? boardCount * (bd.unitCost + perBoardCost) : 0) + cellCount * perCellCost + perBankCost + resistors * perResistorCost;
+        const materials = cellCost + (bd ? boardCount * (bd.unitCost + perBoardCost) : 0) + cellCount * perCellCost + perBankCost + resistors * perResistorCost;
+        cCost[count] = materials * materialsFactor + cellCount * labourPerCell + labourPerBank;
         cMass[count] = mass;
         cVolume[count] = volume;
         cLead[count] = lead;

@@ -80,17 +80,21 @@ export const SWITCHED_DISCHARGE_NOTE = "The switched discharge circuit this bank
  * - cells: each unit price is rounded to the currency's minor unit u, so it is at least cost − u/2;
  * - boards: the same, per board;
  * - interconnects, balancing resistors, terminals, the labour rate: money strings already in u;
+ * - overhead: materials × overhead %, rounded once, so at least that − u/2;
  * - labour: setup, assembly and test are each rounded once, so together at least exact − 3u/2;
- * - bleeder, enclosure and overhead are never negative, so leaving them out keeps the bound.
+ * - bleeder and enclosure are never negative, so leaving them out keeps the bound.
  */
 export function costModelOf(rules: PricingRules): CostModel {
   const u = minorUnit(rules);
   const hourly = Number(rules.labourRatePerHour);
   return {
-    perCell: Number(rules.interconnectCostPerCell) + (hourly * rules.minutesPerCell) / 60 - u / 2,
-    perBank: Number(rules.terminalSetCost) + (hourly * (rules.setupMinutes + rules.testMinutes)) / 60 - (3 * u) / 2,
+    perCell: Number(rules.interconnectCostPerCell) - u / 2,
+    perBank: Number(rules.terminalSetCost),
     perBalancingResistor: Number(rules.balancingResistorCost),
     perBalancingBoard: -u / 2,
+    materialsFactor: 1 + Number(rules.overheadPct) / 100,
+    labourPerCell: (hourly * rules.minutesPerCell) / 60,
+    labourPerBank: (hourly * (rules.setupMinutes + rules.testMinutes)) / 60 - 2 * u,
   };
 }
 

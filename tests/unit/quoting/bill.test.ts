@@ -88,15 +88,21 @@ describe("option → bill of materials", () => {
 });
 
 describe("the float cost model the search orders by", () => {
-  it("adds interconnect and assembly labour per cell, terminals with setup and test labour per bank, less the rounding slack", () => {
-    // EUR, 68.00/h: per cell 1.80 + 68·6/60 − 0.005; per bank 24.00 + 68·(90 + 45)/60 − 0.015
+  it("splits materials (marked up by the overhead) from labour, less the rounding slack", () => {
+    // EUR, 68.00/h, 12 % overhead: interconnect 1.80 − 0.005 per cell; terminals 24.00 per bank;
+    // assembly 68·6/60 per cell; setup and test 68·(90 + 45)/60 − 0.02 per bank
     const m = costModelOf(DEFAULT_PRICING_RULES);
-    expect(m.perCell).toBeCloseTo(1.8 + 6.8 - 0.005, 12);
-    expect(m.perBank).toBeCloseTo(24 + 153 - 0.015, 12);
+    expect(m.perCell).toBeCloseTo(1.8 - 0.005, 12);
+    expect(m.perBank).toBe(24);
     expect(m.perBalancingResistor).toBe(0.35);
     expect(m.perBalancingBoard).toBeCloseTo(-0.005, 12);
-    // JPY has no minor unit: the slack is half a yen
-    expect(costModelOf({ ...DEFAULT_PRICING_RULES, currency: "JPY", labourRatePerHour: "6000", interconnectCostPerCell: "200" }).perCell).toBeCloseTo(200 + 600 - 0.5, 12);
+    expect(m.materialsFactor).toBeCloseTo(1.12, 12);
+    expect(m.labourPerCell).toBeCloseTo(6.8, 12);
+    expect(m.labourPerBank).toBeCloseTo(153 - 0.02, 12);
+    // JPY has no minor unit: the slack is half a yen per rounded price
+    const jpy = costModelOf({ ...DEFAULT_PRICING_RULES, currency: "JPY", labourRatePerHour: "6000", interconnectCostPerCell: "200" });
+    expect(jpy.perCell).toBeCloseTo(200 - 0.5, 12);
+    expect(jpy.labourPerCell).toBeCloseTo(600, 12);
   });
 });
 
