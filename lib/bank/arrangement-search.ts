@@ -1,5 +1,5 @@
 import { formatQuantity } from '../quantities';
-import { sizeBalancing, sizeBleeder } from './balancing';
+import { sizeBalancing, sizeBleeder, type BalancingResult, type BleederResult } from './balancing';
 import { MAX_CELLS_PER_BANK, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from './bounds';
 import { constantPowerSeconds } from './discharge';
 import { storedEnergy as storedEnergyOf, usableEnergy as usableEnergyOf } from './energy';
@@ -19,20 +19,11 @@ export const HIGH_ENERGY_CAUTION_J = 10;
 /** Lead time above which an option carries a warning (common practice for a quoting shop). */
 export const LONG_LEAD_TIME_DAYS = 28;
 
-export interface ArrangementCellFigures {
-  sku: string;
-  technology: Technology;
-  capacitance: number;
-  toleranceMinus: number;
-  tolerancePlus: number;
-  ratedVoltage: number;
-  surgeVoltage: number;
-  esr: number;
-  leakageCurrent: number;
-  peakCurrent: number;
-  mass: number;
-  volume: number;
-}
+/** The cell's figures an option carries (and a quote freezes). */
+export type ArrangementCellFigures = Pick<
+  EngineCell,
+  'sku' | 'technology' | 'capacitance' | 'toleranceMinus' | 'tolerancePlus' | 'ratedVoltage' | 'surgeVoltage' | 'esr' | 'leakageCurrent' | 'peakCurrent' | 'mass' | 'volume'
+>;
 
 export interface ArrangementOption {
   cell: ArrangementCellFigures;
@@ -58,15 +49,8 @@ export interface ArrangementOption {
   volume: number;
   /** worst-case transient cell voltage while charging with matched cells (V) */
   worstCellVoltage: number;
-  balancing: {
-    resistance: number | null;
-    power: number;
-    powerRating: number | null;
-    count: number;
-    standbyLoss: number;
-    timeConstant: number;
-    activeBoard: null | { sku: string; count: number };
-  };
+  /** passive balancing resistors as sizeBalancing gives them, and the active boards fitted, if any */
+  balancing: Omit<BalancingResult, 'chainResistance'> & { activeBoard: null | { sku: string; count: number } };
   /**
    * Self-discharge after switch-off, through the balancing chain and the bleeder. Worst case: the
    * bank's capacitance at the upper tolerance (the safe side: a larger C takes longer to fall to
@@ -82,7 +66,7 @@ export interface ArrangementOption {
     chainResistance: number | null;
     /** chain and bleeder in parallel: what the bank discharges through (Ω); null when neither is fitted */
     resistance: number | null;
-    bleeder: null | { resistance: number; power: number; powerRating: number | null; energy: number; switched: boolean };
+    bleeder: BleederResult['bleeder'];
   };
   /** constant-power backup time with design capacitance and end-of-life ESR (s) */
   backupSeconds?: number;

@@ -9,6 +9,7 @@ import {
   type EngineCell,
   type Requirement,
 } from '@/lib/bank';
+import { arbFactors } from './arbitraries';
 import { generateCatalog } from './catalog-fixture';
 import { rk4ConstantPower } from './reference';
 
@@ -270,16 +271,6 @@ const arbRequirement: fc.Arbitrary<Requirement> = fc
     return out;
   });
 
-const arbFactors: fc.Arbitrary<DesignFactors> = fc.record({
-  capacitanceFade: fc.double({ min: 0, max: 0.3, noNaN: true }),
-  esrGrowth: fc.double({ min: 0, max: 1.5, noNaN: true }),
-  voltageDerating: fc.double({ min: 0.7, max: 1, noNaN: true }),
-  matchingTolerance: fc.double({ min: 0, max: 0.1, noNaN: true }),
-  balancingFactor: fc.double({ min: 1, max: 20, noNaN: true }),
-  resistorSeries: fc.constantFrom('E12' as const, 'E24' as const, 'E48' as const, 'E96' as const),
-  safeVoltage: fc.constantFrom(30, 50, 60),
-  safeTime: fc.constantFrom(1, 5, 60),
-});
 
 const arbBoards: fc.Arbitrary<BalancingBoard[]> = fc.array(
   fc.record({

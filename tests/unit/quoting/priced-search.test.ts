@@ -6,13 +6,14 @@
 import { Decimal } from "decimal.js";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { DEFAULT_DESIGN_FACTORS, searchArrangements, type DesignFactors, type Requirement } from "@/lib/bank";
+import { DEFAULT_DESIGN_FACTORS, searchArrangements, type Requirement } from "@/lib/bank";
 import { tryPriceBank, type PricingRules } from "@/lib/pricing";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import { balancingBoardsOf, billFor, costModelOf, priceLowerBound, toEngineCell } from "@/lib/quoting/bill";
 import { FIRST_CUT, indexOfChosen, searchPricedOptions } from "@/lib/quoting/priced-search";
 import { rankPriced, SHOWN } from "@/lib/quoting/rank";
 import type { CatalogCell, CatalogComponent, ShopCatalog } from "@/lib/quoting/types";
+import { arbFactors } from "../bank/arbitraries";
 import { demoCatalog } from "./demo-catalog";
 
 // ---- generators: invented catalogs (invented part numbers) and pricing rules ----
@@ -100,16 +101,6 @@ const arbBoards: fc.Arbitrary<CatalogComponent[]> = fc
     bs.map((b, i) => ({ id: `board-${i}`, kind: "balancing-board" as const, sku: `TQ-BAL-${i}`, name: "Board", unitCost: b.unitCost, specs: { channels: b.channels, maxCellVoltage: b.maxCellVoltage }, leadTimeDays: 5 })),
   );
 
-const arbFactors: fc.Arbitrary<DesignFactors> = fc.record({
-  capacitanceFade: fc.double({ min: 0, max: 0.3, noNaN: true }),
-  esrGrowth: fc.double({ min: 0, max: 1.5, noNaN: true }),
-  voltageDerating: fc.double({ min: 0.7, max: 1, noNaN: true }),
-  matchingTolerance: fc.double({ min: 0, max: 0.1, noNaN: true }),
-  balancingFactor: fc.double({ min: 1, max: 20, noNaN: true }),
-  resistorSeries: fc.constantFrom("E12" as const, "E24" as const, "E96" as const),
-  safeVoltage: fc.constantFrom(30, 60),
-  safeTime: fc.constantFrom(1, 5, 60),
-});
 
 const arbRequirement: fc.Arbitrary<Requirement> = fc
   .record({
