@@ -218,8 +218,45 @@ function checkInputs(req: Requirement, f: DesignFactors): void {
   if (!(f.safeTime > 0 && Number.isFinite(f.safeTime))) bad('safeTime');
 }
 
-/** How a string of N_s cells is kept within its ratings while charging: passive (board −1), an active board, or not at all. */
-type StringBalancing = { fits: false } | { fits: true; board: number; boardsPerString: number };
+/** stringBalancing's answer when a string of that length cannot be kept within its ratings */
+const DOES_NOT_FIT = -2;
+/** stringBalancing's answer when passive balancing resistors suffice */
+const PASSIVE = -1;
+
+/**
+ * How a string of N_s cells is kept within its ratings while charging (DESIGN §3.2): PASSIVE when
+ * the worst case V_w is within the rating, else the index of the cheapest active board that clamps
+ * each cell at or below the rating (and not below V_max/N_s), else DOES_NOT_FIT (above the surge
+ * rating, or no such board).
+ */
+function stringBalancing(vMax: number, ns: number, m: number, ratedVoltage: number, surgeVoltage: number, boards: readonly BalancingBoard[]): number {
+  const vw = worstCaseCellVoltage(vMax, ns, m);
+  if (vw > surgeVoltage * (1 + 1e-12)) return DOES_NOT_FIT;
+  if (vw <= ratedVoltage * (1 + 1e-12)) return PASSIVE;
+  const vCell = vMax / ns;
+  let board = DOES_NOT_FIT;
+  let bestCost = Infinity;
+  for (let b = 0; b < boards.length; b++) {
+    const bd = boards[b] as BalancingBoard;
+    if (!(bd.channels >= 1) || bd.maxCellVoltage > ratedVoltage || bd.maxCellVoltage < vCell) continue;
+    const cost = boardsPerString(ns, bd) * bd.unitCost;
+    if (cost < bestCost) {
+      bestCost = cost;
+      board = b;
+    }
+  }
+  return board;
+}
+
+/** Boards one string of N_s cells needs: one channel per series position. */
+function boardsPerString(ns: number, board: BalancingBoard): number {
+  return Math.ceil(ns / Math.floor(board.channels));
+}
+
+/** The least whole N_p a lower bound allows; a bound that is not a finite number (a 100 % fade, an underflow) is out of reach. */
+function countAtLeast(bound: number): number {
+  return bound <= 1 ? 1 : Number.isFinite(bound) ? ceilSafe(bound) : Infinity;
+}
 
 /**
  * Requirement → buildable arrangements (DESIGN §3.2): the best `limit` in the order of their float
@@ -266,6 +303,11 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const fade = factors.capacitanceFade;
   const growth = factors.esrGrowth;
 
+  // the caps, read once (module bindings are getters in some bundles)
+  const maxSeries = MAX_SERIES_COUNT;
+  const maxParallel = MAX_PARALLEL_COUNT;
+  const maxCells = MAX_CELLS_PER_BANK;
+
   const tallies = new Map<Technology, TechnologyTally>();
   for (const t of TECHNOLOGIES) {
     tallies.set(t, { cells: 0, invalid: 0, seriesBound: 0, missRatio: Infinity, missDriver: 'none', missLimit: 'count', missSeries: 0 });
@@ -304,86 +346,55 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
 
     // The fewest cells the voltage needs, checked as an integer before any string is tried.
     const nsVoltage = Math.max(1, ceilSafe(vMax / (derating * vr)));
-    if (!(nsVoltage <= MAX_SERIES_COUNT)) {
+    if (!(nsVoltage <= maxSeries)) {
       tally.seriesBound++;
       continue;
     }
-
-    const balancingFor = (ns: number): StringBalancing => {
-      const vw = worstCaseCellVoltage(vMax, ns, m);
-      if (vw > surge * (1 + 1e-12)) return { fits: false };
-      if (vw <= vr * (1 + 1e-12)) return { fits: true, board: -1, boardsPerString: 0 };
-      // above the rating: an active board that clamps each cell at or below it
-      const vCell = vMax / ns;
-      let board = -1;
-      let boardsPerString = 0;
-      let bestCost = Infinity;
-      for (let b = 0; b < boards.length; b++) {
-        const bd = boards[b] as BalancingBoard;
-        if (!(bd.channels >= 1) || bd.maxCellVoltage > vr || bd.maxCellVoltage < vCell) continue;
-        const per = Math.ceil(ns / Math.floor(bd.channels));
-        const cost = per * bd.unitCost;
-        if (cost < bestCost) {
-          bestCost = cost;
-          board = b;
-          boardsPerString = per;
-        }
-      }
-      return board < 0 ? { fits: false } : { fits: true, board, boardsPerString };
-    };
 
     // The shortest safe string (DESIGN §3.2): from the voltage's count upward to the first whose
     // worst case is within the surge rating (within the rating where only passive balancing is
     // fitted). V_w ≤ L ⇔ N_s ≥ 1 + (V_max/L − 1)·C_hi/C_lo, so the count comes from the closed
     // form; the few steps after it only absorb rounding.
-    const atLeast = (limitV: number): number => Math.max(nsVoltage, ceilSafe(1 + (vMax / limitV - 1) / matchRatio));
-    const nsSurge = atLeast(surge);
-    const nsRated = atLeast(vr);
+    const nsSurge = Math.max(nsVoltage, ceilSafe(1 + (vMax / surge - 1) / matchRatio));
+    const nsRated = Math.max(nsVoltage, ceilSafe(1 + (vMax / vr - 1) / matchRatio));
     let nsBoard = Infinity;
     for (let b = 0; b < boards.length; b++) {
       const bd = boards[b] as BalancingBoard;
       if (bd.channels >= 1 && bd.maxCellVoltage > 0 && bd.maxCellVoltage <= vr) nsBoard = Math.min(nsBoard, ceilSafe(vMax / bd.maxCellVoltage));
     }
     let nsSafe = Math.min(nsRated, Math.max(nsSurge, nsBoard));
-    if (!(nsSafe <= MAX_SERIES_COUNT + 1)) {
+    if (!(nsSafe <= maxSeries + 1)) {
       tally.seriesBound++;
       continue;
     }
-    for (let k = 0; k < 2 && nsSafe - 1 >= nsVoltage && balancingFor(nsSafe - 1).fits; k++) nsSafe--;
-    for (let k = 0; k < 3 && !balancingFor(nsSafe).fits; k++) nsSafe++;
-    if (nsSafe > MAX_SERIES_COUNT || !balancingFor(nsSafe).fits) {
+    for (let k = 0; k < 2 && nsSafe - 1 >= nsVoltage && stringBalancing(vMax, nsSafe - 1, m, vr, surge, boards) !== DOES_NOT_FIT; k++) nsSafe--;
+    for (let k = 0; k < 3 && stringBalancing(vMax, nsSafe, m, vr, surge, boards) === DOES_NOT_FIT; k++) nsSafe++;
+    if (nsSafe > maxSeries || stringBalancing(vMax, nsSafe, m, vr, surge, boards) === DOES_NOT_FIT) {
       tally.seriesBound++;
       continue;
     }
 
     // the shortest safe string, then one more as the longer-life variant
-    for (let ns = nsSafe; ns <= nsSafe + 1 && ns <= MAX_SERIES_COUNT; ns++) {
-      const fit = balancingFor(ns);
-      if (!fit.fits) continue;
-      const { board, boardsPerString } = fit;
+    for (let ns = nsSafe; ns <= nsSafe + 1 && ns <= maxSeries; ns++) {
+      const board = stringBalancing(vMax, ns, m, vr, surge, boards);
+      if (board === DOES_NOT_FIT) continue;
+      const perString = board >= 0 ? boardsPerString(ns, boards[board] as BalancingBoard) : 0;
 
       // Lower bounds on N_p from closed forms; the largest one names the driving requirement.
-      // A bound that is not a finite number (a fade of 100 %, an underflow) is out of reach.
       let npNeed = 1;
       let driver: Driver = 'none';
-      const consider = (bound: number, d: Driver): void => {
-        const n = bound <= 1 ? 1 : Number.isFinite(bound) ? ceilSafe(bound) : Infinity;
-        if (n > npNeed) {
-          npNeed = n;
-          driver = d;
-        }
-      };
-      if (cReq > 0) consider((cReq * ns) / cd, 'capacitance');
-      if (eReq > 0) consider((2 * eReq * ns) / (cd * dV2), 'energy');
+      let n = 1;
+      if (cReq > 0 && (n = countAtLeast((cReq * ns) / cd)) > npNeed) [npNeed, driver] = [n, 'capacitance'];
+      if (eReq > 0 && (n = countAtLeast((2 * eReq * ns) / (cd * dV2))) > npNeed) [npNeed, driver] = [n, 'energy'];
       // without ESR the constant-power backup lasts C·(V_max² − V_min²)/(2P): a lower bound
-      if (hasBackup) consider((2 * backupPower * backupSeconds * ns) / (cd * dV2), 'backup');
+      if (hasBackup && (n = countAtLeast((2 * backupPower * backupSeconds * ns) / (cd * dV2))) > npNeed) [npNeed, driver] = [n, 'backup'];
       if (peakI > 0) {
-        consider((esrEol * ns * peakI) / maxDrop, 'esr');
-        consider(cell.peakCurrent > 0 ? peakI / cell.peakCurrent : Infinity, 'peak');
+        if ((n = countAtLeast((esrEol * ns * peakI) / maxDrop)) > npNeed) [npNeed, driver] = [n, 'esr'];
+        if ((n = countAtLeast(cell.peakCurrent > 0 ? peakI / cell.peakCurrent : Infinity)) > npNeed) [npNeed, driver] = [n, 'peak'];
       }
 
       // Upper bounds on N_p from the mass, volume and cell-count limits.
-      let npMax = Math.min(MAX_PARALLEL_COUNT, floorSafe(MAX_CELLS_PER_BANK / ns));
+      let npMax = Math.min(maxParallel, floorSafe(maxCells / ns));
       let limitBy: Limit = 'count';
       if (Number.isFinite(maxMass) && cell.mass > 0) {
         const n = floorSafe(maxMass / (ns * cell.mass));
@@ -459,7 +470,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       // one topology when both are the same circuit (a single string or a single group)
       const topologies = ns === 1 || np === 1 ? 1 : 2;
       for (let t = 0; t < topologies; t++) {
-        const boardCount = bd ? (t === TOPO_STRINGS ? boardsPerString * np : boardsPerString) : 0;
+        const boardCount = bd ? (t === TOPO_STRINGS ? perString * np : perString) : 0;
         cCell[count] = ci;
         cNs[count] = ns;
         cNp[count] = np;
