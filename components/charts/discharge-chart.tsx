@@ -30,6 +30,8 @@ export function DischargeChart({ option, requirement, safeVoltage }: { option: C
   const { unit, div } = timeScale(Math.max(span, curve.requiredSeconds ?? 0));
   const data = curve.points.map((p) => ({ t: p.t / div, v: p.v }));
   const vMin = requirement.minVoltage ?? 0;
+  // the safe voltage matters after switch-off, when the bank starts above it
+  const showSafe = curve.kind === "resistive" && safeVoltage < requirement.maxVoltage;
   return (
     <figure>
       <figcaption className="text-sm font-medium text-ink-800">{title}</figcaption>
@@ -40,8 +42,10 @@ export function DischargeChart({ option, requirement, safeVoltage }: { option: C
             <XAxis dataKey="t" type="number" domain={[0, "dataMax"]} tick={{ fontSize: 11 }} tickFormatter={(t: number) => String(Number(t.toPrecision(3)))} label={{ value: `time (${unit})`, position: "insideBottom", offset: -8, fontSize: 11 }} />
             <YAxis domain={[0, "auto"]} tick={{ fontSize: 11 }} width={44} unit=" V" />
             <Tooltip formatter={(v) => formatQuantity(Number(v), "V")} labelFormatter={(t) => `${Number(Number(t).toPrecision(3))} ${unit}`} />
-            {vMin > 0 ? <ReferenceLine y={vMin} stroke={C.danger} strokeDasharray="5 3" label={{ value: `V min ${formatQuantity(vMin, "V")}`, position: "right", fontSize: 10, fill: C.danger }} /> : null}
-            {curve.kind === "resistive" && safeVoltage < requirement.maxVoltage ? (
+            {vMin > 0 ? (
+              <ReferenceLine y={vMin} stroke={C.danger} strokeDasharray="5 3" label={showSafe && vMin === safeVoltage ? { value: `V min = safe ${formatQuantity(vMin, "V")}`, position: "insideTopRight", fontSize: 10, fill: C.danger } : { value: `V min ${formatQuantity(vMin, "V")}`, position: "right", fontSize: 10, fill: C.danger }} />
+            ) : null}
+            {showSafe && vMin !== safeVoltage ? (
               <ReferenceLine y={safeVoltage} stroke={C.hazard} strokeDasharray="2 2" label={{ value: `safe ${formatQuantity(safeVoltage, "V")}`, position: "right", fontSize: 10, fill: C.hazard }} />
             ) : null}
             {curve.requiredSeconds !== null ? <ReferenceLine x={curve.requiredSeconds / div} stroke={C.ink} strokeDasharray="4 4" label={{ value: "required", position: "top", fontSize: 10 }} /> : null}

@@ -217,15 +217,17 @@ export interface DerivedFigures {
   maxEsr: number | null;
 }
 
-function quiet(raw: string, unit: QuantityUnit, allowZero = false): number | null {
+/** A field's value when it reads as a quantity within its bound, else null (the field shows why). */
+function quiet(raw: string, unit: Exclude<QuantityUnit, 'Wh'>, allowZero = false): number | null {
   if (raw.trim() === '') return null;
+  let value: number | null = null;
   const r = parseQuantity(raw, unit, { allowZero });
-  if (r.ok) return r.value;
-  if (unit === 'J') {
+  if (r.ok) value = r.value;
+  else if (unit === 'J') {
     const wh = parseQuantity(raw, 'Wh', { allowZero });
-    if (wh.ok && wh.unit === 'Wh') return wh.value * 3600;
+    if (wh.ok && wh.unit === 'Wh') value = wh.value * 3600;
   }
-  return null;
+  return value !== null && value <= MAX_BY_UNIT[unit] ? value : null;
 }
 
 /**

@@ -156,6 +156,10 @@ describe('figures derived as people type', () => {
     expect(deriveFigures(form({ peakCurrent: '200 A', maxDrop: '4 V' })).maxEsr).toBeCloseTo(0.02, 12);
   });
 
+  it('derives nothing from a value beyond its bound (the field says why)', () => {
+    expect(deriveFigures(form({ maxVoltage: '1e17 V', sizeFor: 'capacitance', capacitance: '40 F' })).storedEnergy).toBeNull();
+  });
+
   it('derives nothing from values it cannot read', () => {
     const d = deriveFigures(form({ maxVoltage: '24 V', minVoltage: '48 V', sizeFor: 'energy', energy: '20 kJ' }));
     expect(d.voltages).toBeNull();
