@@ -17,6 +17,22 @@ export default tseslint.config(
     },
   },
   {
+    // lib/ reads and writes through db/queries and opens transactions with db/tx.ts inTransaction;
+    // it never queries the client or the schema itself (types are fine). The auth plugin's adapter
+    // and the request context are the exceptions, in lib/auth.
+    files: ["lib/**"],
+    ignores: ["lib/auth/**"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        {
+          paths: ["@/db", "@/db/index", "@/db/client", "@/db/schema"].map((name) => ({ name, allowTypeImports: true, message: "Query through db/queries/* and open transactions with inTransaction from @/db/tx." })),
+          patterns: [{ group: ["@/db/schema/*"], allowTypeImports: true, message: "Query through db/queries/* and open transactions with inTransaction from @/db/tx." }],
+        },
+      ],
+    },
+  },
+  {
     // The engine, the money and the quantities stay pure (STYLE.md §6).
     files: pureModules,
     rules: {

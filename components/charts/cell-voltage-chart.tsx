@@ -1,15 +1,19 @@
 "use client";
 import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { chargingVoltages, type CurveOption } from "@/lib/bank";
 import { formatQuantity } from "@/lib/quantities";
-import { cellVoltageBars, MAX_BARS, type ChartOption } from "./chart-data";
 import { CHART_COLORS as C } from "./colors";
 
+/** Most bars drawn; the positions after the weakest all charge to the same voltage. */
+const MAX_BARS = 24;
+
 /** Each series position's worst-case voltage at the end of charging, against the cell's rating and surge. */
-export function CellVoltageChart({ option, maxVoltage }: { option: ChartOption; maxVoltage: number }) {
-  const bars = cellVoltageBars(option, maxVoltage);
+export function CellVoltageChart({ option, maxVoltage }: { option: CurveOption & { cell: { ratedVoltage: number; surgeVoltage: number } }; maxVoltage: number }) {
+  const v = chargingVoltages(option, maxVoltage);
+  const bars = Array.from({ length: Math.min(option.seriesCount, MAX_BARS) }, (_, i) => ({ position: String(i + 1), voltage: i === 0 ? v.weakest : (v.others ?? v.weakest), worst: i === 0 }));
   const { ratedVoltage, surgeVoltage } = option.cell;
   const top = Math.max(surgeVoltage, option.worstCellVoltage) * 1.1;
-  const balanced = maxVoltage / option.seriesCount;
+  const balanced = v.balanced;
   return (
     <figure>
       <figcaption className="text-sm font-medium text-ink-800">Worst-case cell voltage while charging to {formatQuantity(maxVoltage, "V")}</figcaption>
@@ -46,7 +50,7 @@ export function CellVoltageChart({ option, maxVoltage }: { option: ChartOption; 
       </div>
       <p className="mt-1 text-xs text-ink-600">
         Position 1 is the weakest (lowest capacitance within the matching tolerance): it reaches {formatQuantity(option.worstCellVoltage, "V")}; the others{" "}
-        {option.seriesCount > 1 ? formatQuantity(bars[1]?.voltage ?? balanced, "V") : ""} (perfectly balanced: {formatQuantity(balanced, "V")}).
+        {v.others !== null ? formatQuantity(v.others, "V") : ""} (perfectly balanced: {formatQuantity(balanced, "V")}).
         {option.seriesCount > MAX_BARS ? ` Positions ${MAX_BARS + 1}–${option.seriesCount} are the same as position ${MAX_BARS}.` : ""}
       </p>
     </figure>

@@ -1,7 +1,8 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { requestAttachments } from "@/db/schema";
+import type { Tx } from "@/db/tx";
 
 export interface NewAttachment {
   id: string;
@@ -38,4 +39,20 @@ export async function listRequestAttachments(shopId: string, requestId: string) 
     .from(requestAttachments)
     .where(and(eq(requestAttachments.shopId, shopId), eq(requestAttachments.requestId, requestId)))
     .orderBy(asc(requestAttachments.createdAt));
+}
+
+/** Links the uploader's own unlinked files in this shop to a request; anyone else's ids are ignored. */
+export async function linkAttachmentsToRequest(tx: Tx, shopId: string, uploadedByUserId: string, requestId: string, attachmentIds: readonly string[]) {
+  if (attachmentIds.length === 0) return;
+  await tx
+    .update(requestAttachments)
+    .set({ requestId })
+    .where(
+      and(
+        eq(requestAttachments.shopId, shopId),
+        eq(requestAttachments.uploadedByUserId, uploadedByUserId),
+        isNull(requestAttachments.requestId),
+        inArray(requestAttachments.id, [...attachmentIds]),
+      ),
+    );
 }

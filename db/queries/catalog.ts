@@ -2,6 +2,11 @@ import "server-only";
 import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { catalogCells, catalogComponents } from "@/db/schema";
+import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
+import { DEFAULT_PRICING_RULES } from "@/lib/pricing/defaults";
+import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
+import type { ShopCatalog } from "@/lib/quoting/types";
+import { getShopSettings } from "./shops";
 
 export async function listActiveCells(shopId: string) {
   return db
@@ -15,6 +20,22 @@ export async function listActiveComponents(shopId: string) {
     .select()
     .from(catalogComponents)
     .where(and(eq(catalogComponents.shopId, shopId), eq(catalogComponents.isActive, true)));
+}
+
+/**
+ * Everything one search and one quote need from a shop, read once: design factors, pricing rules
+ * and auto-quote limits (the defaults when the shop has no settings row), active cells and active
+ * components. Searching and quoting are pure functions of this (lib/quoting/priced-search.ts).
+ */
+export async function loadShopCatalog(shopId: string): Promise<ShopCatalog> {
+  const [settings, cells, components] = await Promise.all([getShopSettings(shopId), listActiveCells(shopId), listActiveComponents(shopId)]);
+  return {
+    factors: settings?.designFactors ?? DEFAULT_DESIGN_FACTORS,
+    rules: settings?.pricingRules ?? DEFAULT_PRICING_RULES,
+    autoQuoteLimits: settings?.autoQuoteLimits ?? DEFAULT_AUTO_QUOTE_LIMITS,
+    cells,
+    components,
+  };
 }
 
 export interface CatalogListQuery {

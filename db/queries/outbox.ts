@@ -1,7 +1,8 @@
 import "server-only";
-import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { emailOutbox, quoteRevisions, quotes, shops } from "@/db/schema";
+import type { Executor, Tx } from "@/db/tx";
 import type { OutboxListQuery } from "@/lib/validation/outbox";
 
 export interface OutboxListRow {
@@ -110,4 +111,51 @@ export async function countOutboxByStatus(shopId: string): Promise<Record<"waiti
   const counts = { waiting: 0, sent: 0, failed: 0 };
   for (const r of rows) counts[r.status] = r.n;
   return counts;
+}
+
+export interface NewOutboxMessage {
+  kind: string;
+  /** one message per event: a second insert with the same key writes nothing */
+  dedupeKey: string;
+  toEmail: string;
+  subject: string;
+  quoteRevisionId: string | null;
+}
+
+/** Records a message in the caller's transaction, with what it announces; a repeated dedupe key is a no-op. */
+export async function insertOutboxMessage(tx: Tx, shopId: string, m: NewOutboxMessage): Promise<void> {
+  await tx
+    .insert(emailOutbox)
+    .values({ shopId, ...m })
+    .onConflictDoNothing();
+}
+
+/**
+ * Locks a row that is still waiting (`FOR UPDATE SKIP LOCKED`) for the rest of the caller's
+ * transaction; false when it is sent, failed, gone, or another delivery holds it.
+ */
+export async function lockWaitingOutboxRow(tx: Tx, shopId: string, outboxId: string): Promise<boolean> {
+  const [row] = await tx
+    .select({ id: emailOutbox.id })
+    .from(emailOutbox)
+    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "waiting")))
+    .for("update", { skipLocked: true });
+  return row !== undefined;
+}
+
+/** Marks a row sent with the SMTP Message-ID, counting the attempt. */
+export async function markOutboxSent(tx: Tx, shopId: string, outboxId: string, messageId: string): Promise<void> {
+  const now = new Date();
+  await tx
+    .update(emailOutbox)
+    .set({ status: "sent", attempts: sql`${emailOutbox.attempts} + 1`, messageId, sentAt: now, lastError: null, updatedAt: now })
+    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId)));
+}
+
+/** Counts a failed attempt on a row that is still waiting, keeping the reason; on the last attempt marks it failed. */
+export async function recordOutboxFailure(shopId: string, outboxId: string, reason: string, final: boolean, executor: Executor = db): Promise<void> {
+  await executor
+    .update(emailOutbox)
+    .set({ attempts: sql`${emailOutbox.attempts} + 1`, lastError: reason, status: final ? "failed" : "waiting", updatedAt: new Date() })
+    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "waiting")));
 }

@@ -2,6 +2,9 @@ import "server-only";
 import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { quoteLines, quoteRevisions, quotes, shops, users } from "@/db/schema";
+import type { Tx } from "@/db/tx";
+import type { PriceLine } from "@/lib/pricing";
+import type { FrozenQuote } from "@/lib/quoting/types";
 import type { QuoteListQuery } from "@/lib/validation/quote";
 
 export interface QuoteListRow {
@@ -119,3 +122,84 @@ export async function getRevision(shopId: string, revisionId: string) {
 }
 
 export type RevisionWithLines = NonNullable<Awaited<ReturnType<typeof getRevision>>>;
+
+/** The quote an earlier submit with this idempotency key made in the shop, if any. */
+export async function getQuoteByIdempotencyKey(shopId: string, idempotencyKey: string) {
+  const [row] = await db
+    .select({ number: quotes.number, customerUserId: quotes.customerUserId })
+    .from(quotes)
+    .where(and(eq(quotes.shopId, shopId), eq(quotes.idempotencyKey, idempotencyKey)))
+    .limit(1);
+  return row ?? null;
+}
+
+export interface NewQuote {
+  requestId: string;
+  customerUserId: string;
+  number: string;
+  idempotencyKey: string;
+}
+
+export async function insertQuote(tx: Tx, shopId: string, q: NewQuote): Promise<string> {
+  const [row] = await tx
+    .insert(quotes)
+    .values({ shopId, ...q })
+    .returning({ id: quotes.id });
+  if (!row) throw new Error("quote insert returned no row");
+  return row.id;
+}
+
+export interface NewQuoteRevision {
+  quoteId: string;
+  revision: number;
+  /** requirement, arrangement, cell and price build-up as the search computed them */
+  frozen: FrozenQuote;
+  /** YYYY-MM-DD */
+  validUntil: string;
+  createdByUserId: string;
+}
+
+/** Freezes a revision and its price lines (one per line of the build-up, in order); returns its id. */
+export async function insertQuoteRevision(tx: Tx, shopId: string, r: NewQuoteRevision): Promise<string> {
+  const { requirement, arrangement, cell, pricing } = r.frozen;
+  const [row] = await tx
+    .insert(quoteRevisions)
+    .values({
+      shopId,
+      quoteId: r.quoteId,
+      revision: r.revision,
+      requirement,
+      arrangement,
+      cell,
+      pricing,
+      currency: pricing.currency,
+      quantity: pricing.quantity,
+      subtotal: pricing.subtotal,
+      tax: pricing.tax,
+      total: pricing.total,
+      validUntil: r.validUntil,
+      createdByUserId: r.createdByUserId,
+    })
+    .returning({ id: quoteRevisions.id });
+  if (!row) throw new Error("revision insert returned no row");
+  await insertQuoteLines(tx, shopId, row.id, pricing.lines);
+  return row.id;
+}
+
+async function insertQuoteLines(tx: Tx, shopId: string, revisionId: string, lines: readonly PriceLine[]) {
+  if (lines.length === 0) return;
+  await tx.insert(quoteLines).values(
+    lines.map((line, i) => ({
+      shopId,
+      revisionId,
+      position: i + 1,
+      code: line.code,
+      kind: line.kind,
+      description: line.description,
+      quantity: String(line.quantity),
+      unit: line.unit,
+      unitPrice: line.unitPrice,
+      amount: line.amount,
+    })),
+  );
+}

@@ -2,6 +2,9 @@ import "server-only";
 import { and, asc, count, desc, eq, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { bankRequests, quotes, users } from "@/db/schema";
+import type { Tx } from "@/db/tx";
+import type { Requirement } from "@/lib/bank/types";
+import type { ChosenRecord } from "@/lib/quoting/types";
 import type { RequestListQuery } from "@/lib/validation/quote";
 
 export interface RequestListRow {
@@ -62,6 +65,37 @@ export async function getRequest(shopId: string, requestId: string) {
     .select()
     .from(bankRequests)
     .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.id, requestId)))
+    .limit(1);
+  return row ?? null;
+}
+
+export interface NewBankRequest {
+  customerUserId: string;
+  /** "quoted" when a quote is made in the same transaction; "needs-review" for the estimators */
+  status: "quoted" | "needs-review";
+  requirement: Requirement;
+  notes: string;
+  reviewReasons?: string[];
+  chosenOption: ChosenRecord | null;
+  idempotencyKey: string;
+}
+
+/** Records a request; null when the shop already holds one with this idempotency key (a double submit). */
+export async function insertBankRequest(tx: Tx, shopId: string, r: NewBankRequest): Promise<string | null> {
+  const [row] = await tx
+    .insert(bankRequests)
+    .values({ shopId, ...r, reviewReasons: r.reviewReasons ?? [] })
+    .onConflictDoNothing()
+    .returning({ id: bankRequests.id });
+  return row?.id ?? null;
+}
+
+/** The request an earlier submit with this idempotency key made in the shop, if any. */
+export async function getRequestByIdempotencyKey(shopId: string, idempotencyKey: string) {
+  const [row] = await db
+    .select({ id: bankRequests.id, customerUserId: bankRequests.customerUserId, status: bankRequests.status })
+    .from(bankRequests)
+    .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.idempotencyKey, idempotencyKey)))
     .limit(1);
   return row ?? null;
 }

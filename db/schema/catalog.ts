@@ -80,7 +80,7 @@ export const catalogComponents = pgTable(
     sku: text().notNull(),
     name: text().notNull(),
     unitCost: numeric({ precision: 14, scale: 4 }).notNull(),
-    /** kind-specific figures, see lib/bank/types.ts (ComponentSpecs) */
+    /** kind-specific figures: a balancing board has { channels, maxCellVoltage } (read by lib/quoting/bill.ts toBalancingBoard) */
     specs: jsonb().$type<Record<string, number | string>>().notNull().default({}),
     stock: integer().notNull().default(0),
     leadTimeDays: integer().notNull().default(0),

@@ -1,6 +1,8 @@
 import { sql } from "drizzle-orm";
 import { date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { Requirement } from "@/lib/bank/types";
+import type { BankPrice } from "@/lib/pricing/types";
+import type { ChosenRecord, FrozenCell, PricedOption } from "@/lib/quoting/types";
 import { shops, users } from "./auth";
 
 export const requestStatusEnum = pgEnum("request_status", ["quoted", "needs-review", "closed"]);
@@ -19,8 +21,8 @@ export const bankRequests = pgTable(
     notes: text().notNull().default(""),
     /** why the request went to the estimators instead of being auto-quoted */
     reviewReasons: jsonb().$type<string[]>().notNull().default([]),
-    /** the option the customer chose, as the engine answered it (when it went to review) */
-    chosenOption: jsonb().$type<Record<string, unknown>>(),
+    /** the option the customer chose, as the server priced it (or its identity when no longer offered) */
+    chosenOption: jsonb().$type<ChosenRecord>(),
     /** the client's token for one submit: a double submit finds the same request */
     idempotencyKey: text(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -84,12 +86,12 @@ export const quoteRevisions = pgTable(
     quoteId: uuid().notNull().references(() => quotes.id, { onDelete: "cascade" }),
     revision: integer().notNull(),
     requirement: jsonb().$type<Requirement>().notNull(),
-    /** the arrangement option as priced (lib/quoting/arrangements.ts PricedOption) */
-    arrangement: jsonb().$type<Record<string, unknown>>().notNull(),
-    /** the catalog row of the cell at the time of the quote */
-    cell: jsonb().$type<Record<string, unknown>>().notNull(),
-    /** the full BankPrice from lib/pricing */
-    pricing: jsonb().$type<Record<string, unknown>>().notNull(),
+    /** the arrangement option as the search priced it (lib/quoting/types.ts PricedOption) */
+    arrangement: jsonb().$type<PricedOption>().notNull(),
+    /** the cell's catalog data at the time of the quote */
+    cell: jsonb().$type<FrozenCell>().notNull(),
+    /** the full price build-up (lib/pricing BankPrice) */
+    pricing: jsonb().$type<BankPrice>().notNull(),
     currency: text().notNull(),
     quantity: integer().notNull(),
     subtotal: numeric({ precision: 16, scale: 4 }).notNull(),

@@ -1,18 +1,8 @@
 import { jsonb, pgTable, text, timestamp } from "drizzle-orm/pg-core";
 import type { DesignFactors } from "@/lib/bank/types";
 import type { PricingRules } from "@/lib/pricing/types";
+import { DEFAULT_AUTO_QUOTE_LIMITS, type AutoQuoteLimits } from "@/lib/quoting/auto-quote-limits";
 import { shops } from "./auth";
-
-export interface AutoQuoteLimits {
-  /** V */
-  maxVoltage: number;
-  /** J, stored at V_max */
-  maxStoredEnergy: number;
-  maxCellCount: number;
-}
-
-/** Common practice for a small shop: larger banks get an engineer's eye before a price. */
-export const DEFAULT_AUTO_QUOTE_LIMITS: AutoQuoteLimits = { maxVoltage: 1000, maxStoredEnergy: 2_000_000, maxCellCount: 400 };
 
 /** One row per shop: its design factors (DESIGN.md §3.2), pricing rules (§4) and storefront text. */
 export const shopSettings = pgTable("shop_settings", {

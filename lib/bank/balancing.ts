@@ -1,3 +1,4 @@
+import { storedEnergy } from './energy';
 import { largestPreferredAtMost, smallestPowerRatingAtLeast } from './preferred-values';
 import type { ResistorSeries, Topology } from './types';
 
@@ -119,7 +120,7 @@ export function sizeBleeder(input: {
       resistance,
       power,
       powerRating: smallestPowerRatingAtLeast(2 * power),
-      energy: 0.5 * c * v * v,
+      energy: storedEnergy(c, v),
       switched: power > SWITCHED_BLEEDER_ABOVE_W,
     },
   };

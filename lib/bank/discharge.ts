@@ -21,10 +21,12 @@ export interface ConstantPowerResult extends DischargeResult {
 }
 
 const DEFAULT_POINTS = 100;
+/** Most points a curve is drawn with: far more than a chart can show, so the loops stay bounded. */
+export const MAX_CURVE_POINTS = 10_000;
 
 function pointCount(points: number | undefined): number {
   const n = Math.floor(points ?? DEFAULT_POINTS);
-  return n >= 2 ? n : 2;
+  return n >= 2 ? Math.min(n, MAX_CURVE_POINTS) : 2;
 }
 
 function assertPositive(name: string, value: number): void {

@@ -1,4 +1,4 @@
-import { MAX_CELLS_PER_BANK } from './arrangements';
+import { MAX_CELLS_PER_BANK } from './bounds';
 import type { NetworkCell, NetworkNode, Topology } from './types';
 
 export interface OptionNetworkInput {

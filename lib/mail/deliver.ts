@@ -1,8 +1,6 @@
 import "server-only";
-import { and, eq, sql } from "drizzle-orm";
-import { db } from "@/db";
-import { getOutboxRow } from "@/db/queries/outbox";
-import { emailOutbox } from "@/db/schema";
+import { getOutboxRow, lockWaitingOutboxRow, markOutboxSent, recordOutboxFailure } from "@/db/queries/outbox";
+import { inTransaction } from "@/db/tx";
 import { buildOutboxMessage } from "./messages";
 import { sendMessage } from "./transport";
 
@@ -13,14 +11,6 @@ function reasonOf(error: unknown): string {
   const message = typeof e?.message === "string" ? e.message : String(error);
   const code = typeof e?.code === "string" && !message.includes(e.code) ? `${e.code}: ` : "";
   return `${code}${message}`.slice(0, 1000);
-}
-
-/** Counts a failed attempt on a row that is still waiting; on the last attempt marks it failed. */
-async function recordFailure(shopId: string, outboxId: string, error: unknown, final: boolean, tx: Pick<typeof db, "update"> = db) {
-  await tx
-    .update(emailOutbox)
-    .set({ attempts: sql`${emailOutbox.attempts} + 1`, lastError: reasonOf(error), status: final ? "failed" : "waiting", updatedAt: new Date() })
-    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "waiting")));
 }
 
 /**
@@ -39,27 +29,19 @@ export async function deliverOutboxRow(shopId: string, outboxId: string, { final
   try {
     message = await buildOutboxMessage(row);
   } catch (error) {
-    await recordFailure(shopId, outboxId, error, final);
+    await recordOutboxFailure(shopId, outboxId, reasonOf(error), final);
     throw error;
   }
 
-  const result = await db.transaction(async (tx) => {
-    const [locked] = await tx
-      .select({ id: emailOutbox.id })
-      .from(emailOutbox)
-      .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "waiting")))
-      .for("update", { skipLocked: true });
-    if (!locked) return { outcome: "skipped" as const };
+  const result = await inTransaction(async (tx) => {
+    if (!(await lockWaitingOutboxRow(tx, shopId, outboxId))) return { outcome: "skipped" as const };
     try {
       const info = await sendMessage(message);
-      await tx
-        .update(emailOutbox)
-        .set({ status: "sent", attempts: sql`${emailOutbox.attempts} + 1`, messageId: info.messageId, sentAt: new Date(), lastError: null, updatedAt: new Date() })
-        .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId)));
+      await markOutboxSent(tx, shopId, outboxId, info.messageId);
       return { outcome: "sent" as const };
     } catch (error) {
       // recorded in this transaction (it commits), thrown after it
-      await recordFailure(shopId, outboxId, error, final, tx);
+      await recordOutboxFailure(shopId, outboxId, reasonOf(error), final, tx);
       return { outcome: "failed" as const, error };
     }
   });

@@ -4,7 +4,7 @@ import { createElement } from "react";
 import { getQuoteReadyFacts } from "@/db/queries/outbox";
 import type { EmailOutboxRow } from "@/db/schema";
 import { QuoteReadyEmail } from "@/emails/quote-ready";
-import { renderQuotePdf } from "@/lib/quoting/quote-pdf";
+import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 import { formatMoney } from "@/lib/pricing";
 import { mailSettings } from "./config";
 import { formatValidity, outboxMessageId, quotePageUrl } from "./format";
@@ -27,7 +27,7 @@ export async function buildOutboxMessage(row: EmailOutboxRow): Promise<OutgoingM
     validUntil: formatValidity(facts.validUntil),
     quoteUrl,
   });
-  const [html, text, pdf] = await Promise.all([render(email), render(email, { plainText: true }), renderQuotePdf(row.shopId, row.quoteRevisionId)]);
+  const [html, text, pdf] = await Promise.all([render(email), render(email, { plainText: true }), loadQuotePdf(row.shopId, row.quoteRevisionId)]);
   return {
     to: row.toEmail,
     subject: row.subject,

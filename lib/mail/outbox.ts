@@ -1,11 +1,7 @@
 import "server-only";
-import type { Db } from "@/db/client";
-import { listWaitingOutboxIds } from "@/db/queries/outbox";
-import { emailOutbox } from "@/db/schema";
+import { insertOutboxMessage, listWaitingOutboxIds } from "@/db/queries/outbox";
+import type { Tx } from "@/db/tx";
 import { getBoss, MAIL_QUEUE, type MailJob } from "./queue";
-
-/** A transaction handle or the client: outbox rows are written with what they announce. */
-type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0] | Db;
 
 export interface QuoteReadyMessage {
   shopId: string;
@@ -21,17 +17,13 @@ export interface QuoteReadyMessage {
  * `dispatchOutbox()` after the transaction commits to hand it to the job queue.
  */
 export async function enqueueQuoteReady(tx: Tx, m: QuoteReadyMessage): Promise<void> {
-  await tx
-    .insert(emailOutbox)
-    .values({
-      shopId: m.shopId,
-      kind: "quote-ready",
-      dedupeKey: `quote-ready:${m.quoteRevisionId}`,
-      toEmail: m.toEmail,
-      subject: `Your quote ${m.quoteNumber} (revision ${m.revision}) is ready`,
-      quoteRevisionId: m.quoteRevisionId,
-    })
-    .onConflictDoNothing();
+  await insertOutboxMessage(tx, m.shopId, {
+    kind: "quote-ready",
+    dedupeKey: `quote-ready:${m.quoteRevisionId}`,
+    toEmail: m.toEmail,
+    subject: `Your quote ${m.quoteNumber} (revision ${m.revision}) is ready`,
+    quoteRevisionId: m.quoteRevisionId,
+  });
 }
 
 /**

@@ -116,4 +116,3 @@ export type PriceBankResult =
   | { ok: true; data: BankPrice }
   | { ok: false; code: PricingErrorCode; message: string; issues: PricingIssue[] };
 
-export { DEFAULT_PRICING_RULES } from './defaults';

@@ -273,3 +273,13 @@ export function formatQuantity(value: number, unit: string, opts: { digits?: num
       return formatPrefixed(value, symbol, digits, -12, 9);
   }
 }
+
+/** A duration as people read it: "4.2 s", "12 min", "3.5 h", "670 days"; "—" when it never ends. */
+export function formatDuration(seconds: number): string {
+  if (!Number.isFinite(seconds)) return '—';
+  const sig = (x: number) => String(Number(x.toPrecision(2 + (x >= 100 ? 1 : 0))));
+  if (seconds < 120) return formatQuantity(seconds, 's');
+  if (seconds < 2 * 3600) return `${sig(seconds / 60)} min`;
+  if (seconds < 48 * 3600) return `${sig(seconds / 3600)} h`;
+  return `${sig(seconds / 86400)} days`;
+}

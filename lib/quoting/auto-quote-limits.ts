@@ -1,5 +1,16 @@
 import { formatQuantity } from "@/lib/quantities";
-import type { AutoQuoteLimits } from "@/db/schema/settings";
+
+/** Beyond any of these a request goes to the shop's estimators instead of being quoted at once. */
+export interface AutoQuoteLimits {
+  /** V */
+  maxVoltage: number;
+  /** J, stored at V_max */
+  maxStoredEnergy: number;
+  maxCellCount: number;
+}
+
+/** Common practice for a small shop: larger banks get an engineer's eye before a price. */
+export const DEFAULT_AUTO_QUOTE_LIMITS: Readonly<AutoQuoteLimits> = Object.freeze({ maxVoltage: 1000, maxStoredEnergy: 2_000_000, maxCellCount: 400 });
 
 /** What the limits are checked against: the requirement's voltage and the chosen option's size. */
 export interface LimitSubject {

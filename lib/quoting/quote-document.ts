@@ -2,7 +2,7 @@ import type { RevisionWithLines } from "@/db/queries/quotes";
 import type { Requirement } from "@/lib/bank";
 import { formatMoney, type BankPrice } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
-import type { PricedOption } from "./arrangements";
+import type { FrozenCell, PricedOption } from "./types";
 
 export interface LabelledValue {
   label: string;
@@ -107,12 +107,11 @@ function describeFigures(o: PricedOption): LabelledValue[] {
   return rows;
 }
 
-function describeCell(cell: Record<string, unknown>, o: PricedOption): LabelledValue[] {
+function describeCell(cell: FrozenCell, o: PricedOption): LabelledValue[] {
   const c = o.cell;
-  const text = (k: string) => (typeof cell[k] === "string" ? (cell[k] as string) : "");
   return [
     { label: "Part", value: c.sku },
-    { label: "Maker and series", value: `${text("manufacturer")} ${text("series")}`.trim() || "—" },
+    { label: "Maker and series", value: `${cell.manufacturer ?? ""} ${cell.series ?? ""}`.trim() || "—" },
     { label: "Technology", value: TECHNOLOGY_LABELS[c.technology] ?? c.technology },
     { label: "Capacitance", value: `${q(c.capacitance, "F")} (−${pct(c.toleranceMinus)} / +${pct(c.tolerancePlus)})` },
     { label: "Rated / surge voltage", value: `${q(c.ratedVoltage, "V")} / ${q(c.surgeVoltage, "V")}` },
@@ -136,8 +135,8 @@ function describeTotals(p: BankPrice): LabelledValue[] {
 /** The worded quote from a revision and its lines as stored. */
 export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
   const r = rev.revision;
-  const option = r.arrangement as unknown as PricedOption;
-  const price = r.pricing as unknown as BankPrice;
+  const option = r.arrangement;
+  const price = r.pricing;
   const money = (a: string) => formatMoney(a, r.currency);
   const totals = describeTotals(price);
   return {

@@ -1,25 +1,48 @@
 import { z } from 'zod';
+import {
+  MAX_CAPACITANCE,
+  MAX_CELLS_PER_BANK,
+  MAX_CURRENT,
+  MAX_ENERGY,
+  MAX_MASS,
+  MAX_POWER,
+  MAX_QUANTITY,
+  MAX_RESISTANCE,
+  MAX_SECONDS,
+  MAX_VOLTAGE,
+  MAX_VOLUME,
+  formatBound,
+} from '../bank/bounds';
 import type { NetworkNode, Requirement } from '../bank/types';
 
 /** Deepest network accepted (levels of groups and cells, the root is level 1). */
 export const MAX_NETWORK_DEPTH = 64;
-/** Most cells in one network. */
-export const MAX_NETWORK_CELLS = 20_000;
+/** Most cells in one network: as many as one bank may hold. */
+export const MAX_NETWORK_CELLS = MAX_CELLS_PER_BANK;
 /** Most nodes (cells and groups) in one network. */
 export const MAX_NETWORK_NODES = 100_000;
 
-const positive = z.number().positive();
-const nonNegative = z.number().nonnegative();
+/**
+ * A physical quantity in SI units: finite, positive (or zero where allowed), and at most its bound
+ * (lib/bank/bounds.ts), with a message that names the bound in readable units.
+ */
+function quantity(what: string, unit: string, max: number, { allowZero = false } = {}) {
+  const base = z.number({ message: `${what} must be a number in ${unit}` });
+  return (allowZero ? base.nonnegative(`${what} must not be negative`) : base.positive(`${what} must be greater than zero`)).max(
+    max,
+    `${what} must be at most ${formatBound(max, unit)}`,
+  );
+}
 
 const cellSchema = z.strictObject({
   kind: z.literal('cell'),
   id: z.string().trim().min(1),
-  capacitance: positive,
-  ratedVoltage: positive,
-  esr: nonNegative.optional(),
-  leakage: nonNegative.optional(),
+  capacitance: quantity('Capacitance', 'F', MAX_CAPACITANCE),
+  ratedVoltage: quantity('Rated voltage', 'V', MAX_VOLTAGE),
+  esr: quantity('ESR', 'Ω', MAX_RESISTANCE, { allowZero: true }).optional(),
+  leakage: quantity('Leakage current', 'A', MAX_CURRENT, { allowZero: true }).optional(),
   // read by the failure and tolerance analyses (lib/validation/network-analysis.ts); others ignore them
-  surgeVoltage: positive.optional(),
+  surgeVoltage: quantity('Surge voltage', 'V', MAX_VOLTAGE).optional(),
   toleranceMinus: z.number().min(0).max(0.99).optional(),
   tolerancePlus: z.number().min(0).max(1).optional(),
 });
@@ -35,7 +58,7 @@ export const networkNodeSchema: z.ZodType<NetworkNode> = z.lazy(() =>
 );
 
 export const evaluateNetworkSchema = z.strictObject({
-  appliedVoltage: positive.optional(),
+  appliedVoltage: quantity('Applied voltage', 'V', MAX_VOLTAGE).optional(),
   network: networkNodeSchema,
 });
 
@@ -45,15 +68,20 @@ export const technologySchema = z.enum(['edlc', 'hybrid', 'electrolytic', 'film'
 
 export const arrangementRequestSchema = z
   .strictObject({
-    maxVoltage: positive,
-    minVoltage: nonNegative.optional(),
-    capacitance: positive.optional(),
-    energy: positive.optional(),
-    backup: z.strictObject({ power: positive, seconds: positive }).optional(),
-    peakCurrent: z.strictObject({ current: positive, maxDrop: positive }).optional(),
-    maxMass: positive.optional(),
-    maxVolume: positive.optional(),
-    quantity: z.number().int().min(1).max(100_000).default(1),
+    maxVoltage: quantity('Maximum voltage', 'V', MAX_VOLTAGE),
+    minVoltage: quantity('Minimum voltage', 'V', MAX_VOLTAGE, { allowZero: true }).optional(),
+    capacitance: quantity('Capacitance', 'F', MAX_CAPACITANCE).optional(),
+    energy: quantity('Energy', 'J', MAX_ENERGY).optional(),
+    backup: z.strictObject({ power: quantity('Backup power', 'W', MAX_POWER), seconds: quantity('Backup time', 's', MAX_SECONDS) }).optional(),
+    peakCurrent: z.strictObject({ current: quantity('Peak current', 'A', MAX_CURRENT), maxDrop: quantity('Allowed drop', 'V', MAX_VOLTAGE) }).optional(),
+    maxMass: quantity('Mass limit', 'kg', MAX_MASS).optional(),
+    maxVolume: quantity('Volume limit', 'm³', MAX_VOLUME).optional(),
+    quantity: z
+      .number()
+      .int('Quantity must be a whole number of banks')
+      .min(1, 'Quantity must be at least 1')
+      .max(MAX_QUANTITY, `Quantity must be at most ${MAX_QUANTITY.toLocaleString('en-GB')}`)
+      .default(1),
     technology: technologySchema.optional(),
   })
   .superRefine((value, ctx) => {

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from "../bank/bounds";
 import { arrangementRequestSchema } from "./bank";
 
 export const topologySchema = z.enum(["series-of-parallel-groups", "parallel-of-series-strings"]);
@@ -7,8 +8,8 @@ export const topologySchema = z.enum(["series-of-parallel-groups", "parallel-of-
 export const chosenOptionSchema = z.object({
   cellSku: z.string().trim().min(1).max(200),
   topology: topologySchema,
-  seriesCount: z.number().int().positive(),
-  parallelCount: z.number().int().positive(),
+  seriesCount: z.number().int().positive().max(MAX_SERIES_COUNT),
+  parallelCount: z.number().int().positive().max(MAX_PARALLEL_COUNT),
 });
 
 /**

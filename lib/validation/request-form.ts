@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { formatBound, MAX_BY_UNIT, MAX_QUANTITY } from '../bank/bounds';
+import { backupEnergy, capacitanceForEnergy, maxEsrFor, storedEnergy, usableEnergy as usableEnergyOf } from '../bank/energy';
 import type { Requirement, Technology } from '../bank/types';
 import { parseQuantity, type QuantityUnit } from '../quantities';
 import { technologySchema } from './bank';
@@ -12,8 +14,8 @@ import { technologySchema } from './bank';
 export const SIZE_FOR = ['capacitance', 'energy', 'backup'] as const;
 export type SizeFor = (typeof SIZE_FOR)[number];
 
-/** Most banks one request may ask for (the arrangement request's bound). */
-export const MAX_QUANTITY = 100_000;
+/** Most banks one request may ask for (the arrangement request's bound, lib/bank/bounds.ts). */
+export { MAX_QUANTITY };
 export const MAX_NOTES = 4000;
 
 const text = z.string().max(60, 'Keep this under 60 characters');
@@ -91,7 +93,8 @@ const EXAMPLES: Record<QuantityUnit, string> = {
 
 /**
  * Reads one quantity field. Empty → undefined (the caller decides whether it is required).
- * Energy also accepts watt-hours (1 Wh = 3600 J).
+ * Energy also accepts watt-hours (1 Wh = 3600 J). A value above the physical bound of its kind
+ * (lib/bank/bounds.ts) is refused at the field.
  */
 function readQuantity(raw: string, field: RequestFormField, unit: QuantityUnit, issues: Issue[], allowZero = false): number | undefined {
   if (raw.trim() === '') return undefined;
@@ -102,6 +105,12 @@ function readQuantity(raw: string, field: RequestFormField, unit: QuantityUnit, 
   }
   if (!parsed.ok) {
     issues.push({ field, message: `${parsed.message}; write the ${WHAT[field] ?? field} like ${EXAMPLES[unit]}` });
+    return undefined;
+  }
+  const max = unit === 'Wh' ? MAX_BY_UNIT.J / 3600 : MAX_BY_UNIT[unit];
+  if (parsed.value > max) {
+    const what = WHAT[field] ?? field;
+    issues.push({ field, message: `The ${what} must be at most ${formatBound(max, unit)}` });
     return undefined;
   }
   return parsed.value;
@@ -208,45 +217,48 @@ export interface DerivedFigures {
   maxEsr: number | null;
 }
 
-function quiet(raw: string, unit: QuantityUnit, allowZero = false): number | null {
+/** A field's value when it reads as a quantity within its bound, else null (the field shows why). */
+function quiet(raw: string, unit: Exclude<QuantityUnit, 'Wh'>, allowZero = false): number | null {
   if (raw.trim() === '') return null;
+  let value: number | null = null;
   const r = parseQuantity(raw, unit, { allowZero });
-  if (r.ok) return r.value;
-  if (unit === 'J') {
+  if (r.ok) value = r.value;
+  else if (unit === 'J') {
     const wh = parseQuantity(raw, 'Wh', { allowZero });
-    if (wh.ok && wh.unit === 'Wh') return wh.value * 3600;
+    if (wh.ok && wh.unit === 'Wh') value = wh.value * 3600;
   }
-  return null;
+  return value !== null && value <= MAX_BY_UNIT[unit] ? value : null;
 }
 
 /**
- * From whatever is readable so far: the capacitance the stated energy needs,
- * C = 2E / (V_max² − V_min²); a backup of P for t needs at least E = P·t; from a capacitance, the
- * usable energy ½·C·(V_max² − V_min²) and the stored energy ½·C·V_max²; and ESR_max = ΔV / I_pk.
+ * From whatever is readable so far, with the engine's closed forms (lib/bank/energy.ts): the
+ * capacitance the stated energy needs, C = 2E / (V_max² − V_min²); a backup of P for t needs at
+ * least E = P·t; from a capacitance, the usable energy ½·C·(V_max² − V_min²) and the stored energy
+ * ½·C·V_max²; and ESR_max = ΔV / I_pk.
  */
 export function deriveFigures(values: RequestFormValues): DerivedFigures {
   const vmax = quiet(values.maxVoltage, 'V');
   const vmin = quiet(values.minVoltage, 'V', true) ?? (values.minVoltage.trim() === '' ? 0 : null);
   const voltages = vmax !== null && vmin !== null && vmin < vmax ? { max: vmax, min: vmin } : null;
-  const span = voltages ? voltages.max ** 2 - voltages.min ** 2 : null;
 
   let capacitance: number | null = null;
   let usableEnergy: number | null = null;
   if (values.sizeFor === 'capacitance') {
     capacitance = quiet(values.capacitance, 'F');
-    if (capacitance !== null && span !== null) usableEnergy = 0.5 * capacitance * span;
-  } else if (values.sizeFor === 'energy') {
-    usableEnergy = quiet(values.energy, 'J');
-    if (usableEnergy !== null && span !== null) capacitance = (2 * usableEnergy) / span;
+    if (capacitance !== null && voltages) usableEnergy = usableEnergyOf(capacitance, voltages.max, voltages.min);
   } else {
-    const p = quiet(values.backupPower, 'W');
-    const t = quiet(values.backupTime, 's');
-    if (p !== null && t !== null) usableEnergy = p * t;
-    if (usableEnergy !== null && span !== null) capacitance = (2 * usableEnergy) / span;
+    if (values.sizeFor === 'energy') {
+      usableEnergy = quiet(values.energy, 'J');
+    } else {
+      const p = quiet(values.backupPower, 'W');
+      const t = quiet(values.backupTime, 's');
+      if (p !== null && t !== null) usableEnergy = backupEnergy(p, t);
+    }
+    if (usableEnergy !== null && voltages) capacitance = capacitanceForEnergy(usableEnergy, voltages.max, voltages.min);
   }
-  const storedEnergy = capacitance !== null && voltages ? 0.5 * capacitance * voltages.max ** 2 : null;
+  const stored = capacitance !== null && voltages ? storedEnergy(capacitance, voltages.max) : null;
   const current = quiet(values.peakCurrent, 'A');
   const drop = quiet(values.maxDrop, 'V');
-  const maxEsr = current !== null && drop !== null ? drop / current : null;
-  return { voltages, capacitance, usableEnergy, storedEnergy, maxEsr };
+  const maxEsr = current !== null && drop !== null ? maxEsrFor(drop, current) : null;
+  return { voltages, capacitance, usableEnergy, storedEnergy: stored, maxEsr };
 }

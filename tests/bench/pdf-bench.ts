@@ -3,7 +3,7 @@
  * in memory, no database) 20 times after a warm-up and prints the median and p95; the target is a
  * median under 400 ms. Figures only — nothing here fails a build.
  */
-import { renderQuoteDocument } from "@/lib/quoting/quote-pdf-document";
+import { renderQuotePdfLayout } from "@/lib/quoting/quote-pdf-layout";
 import { sampleQuoteDocument } from "../unit/quoting/sample-quote";
 
 const RUNS = 20;
@@ -17,12 +17,12 @@ function percentile(sorted: number[], p: number): number {
 async function main() {
   const doc = sampleQuoteDocument();
   const first = performance.now();
-  const warm = await renderQuoteDocument(doc);
+  const warm = await renderQuotePdfLayout(doc);
   const firstMs = performance.now() - first;
   const times: number[] = [];
   for (let i = 0; i < RUNS; i++) {
     const t0 = performance.now();
-    await renderQuoteDocument(doc);
+    await renderQuotePdfLayout(doc);
     times.push(performance.now() - t0);
   }
   times.sort((a, b) => a - b);

@@ -3,8 +3,10 @@ import { POST as evaluate } from "@/app/api/v1/networks/evaluate/route";
 import { POST as failures } from "@/app/api/v1/networks/failures/route";
 import { POST as tolerance } from "@/app/api/v1/networks/tolerance/route";
 import { POST as arrangements } from "@/app/api/v1/shops/[shop]/arrangements/route";
+import { exploreArrangements } from "@/app/s/[shop]/actions";
 import { listActiveCells } from "@/db/queries/catalog";
-import { shopBySlug } from "./helpers";
+import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
+import { actAs, shopBySlug } from "./helpers";
 
 const post = (path: string, body: unknown, raw = false) =>
   new Request(`http://127.0.0.1:3100${path}`, { method: "POST", headers: { "content-type": "application/json" }, body: raw ? (body as string) : JSON.stringify(body) });
@@ -231,11 +233,18 @@ describe("POST /api/v1/shops/{shop}/arrangements", () => {
   });
 
   it("answers options: [] with reasons when nothing in the catalog can do it", async () => {
-    const res = await arrangements(post("/api/v1/shops/marlow-pulse/arrangements", { maxVoltage: 800, energy: 5e9, maxMass: 10 }), params("marlow-pulse"));
+    const res = await arrangements(post("/api/v1/shops/marlow-pulse/arrangements", { maxVoltage: 800, energy: 5e8, maxMass: 10 }), params("marlow-pulse"));
     expect(res.status).toBe(200);
     const body = await res.json();
     expect(body.options).toEqual([]);
     expect(body.reasons.length).toBeGreaterThan(0);
+  });
+
+  it("answers 400 at the field for 1e17 V (beyond the 2 MV bound), where the search once never returned", async () => {
+    const res = await arrangements(post("/api/v1/shops/kestrel-bank-works/arrangements", { maxVoltage: 1e17, energy: 1 }), params("kestrel-bank-works"));
+    expect(res.status).toBe(400);
+    const body = await res.json();
+    expect(body.issues).toContainEqual({ path: "maxVoltage", message: "Maximum voltage must be at most 2 MV" });
   });
 
   it("answers 400 for a requirement with nothing to size for, and 404 for an unknown shop", async () => {
@@ -244,5 +253,14 @@ describe("POST /api/v1/shops/{shop}/arrangements", () => {
     expect((await res.json()).issues.length).toBeGreaterThan(0);
     const missing = await arrangements(post("/api/v1/shops/nowhere/arrangements", { maxVoltage: 48, energy: 1 }), params("nowhere"));
     expect(missing.status).toBe(404);
+  });
+});
+
+describe("the storefront's search action", () => {
+  it('refuses "1e17 V" typed into the form at the maximum-voltage field, before any search', async () => {
+    await actAs(null);
+    const r = await exploreArrangements("kestrel-bank-works", { ...EMPTY_REQUEST_FORM, maxVoltage: "1e17 V", sizeFor: "energy", energy: "1 kJ" });
+    expect(r).toMatchObject({ ok: false, code: "invalid" });
+    if (!r.ok) expect(r.fieldErrors?.maxVoltage?.join(" ")).toMatch(/at most 2 MV/);
   });
 });

@@ -16,7 +16,8 @@ import { outboxMessageId } from "@/lib/mail/format";
 import { dispatchOutbox } from "@/lib/mail/outbox";
 import { MAIL_QUEUE, PGBOSS_SCHEMA } from "@/lib/mail/queue";
 import { startMailWorker, stopMailWorker } from "@/lib/mail/worker";
-import { findArrangements } from "@/lib/quoting/arrangements";
+import { loadShopCatalog } from "@/db/queries/catalog";
+import { searchPricedOptions } from "@/lib/quoting/priced-search";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { chooseArrangementSchema } from "@/lib/validation/quote";
 import { outboxListSchema } from "@/lib/validation/outbox";
@@ -108,7 +109,7 @@ async function customerContext(): Promise<ShopContext> {
 async function makeQuote(): Promise<{ shopId: string; outboxId: string; quoteNumber: string }> {
   const ctx = await customerContext();
   const requirement = { maxVoltage: 48, minVoltage: 24, energy: 20_000, quantity: 1 };
-  const found = await findArrangements(ctx.shop.id, requirement);
+  const found = searchPricedOptions(await loadShopCatalog(ctx.shop.id), requirement);
   const option = found.options[0];
   if (!option) throw new Error("Kestrel's catalog offers no option for the test requirement");
   const input = chooseArrangementSchema.parse({

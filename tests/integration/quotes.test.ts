@@ -21,9 +21,10 @@ import { demoPeople } from "@/db/seed/people";
 import type { ShopContext } from "@/lib/auth/context";
 import type { Requirement } from "@/lib/bank";
 import { formatMoney } from "@/lib/pricing";
-import { findArrangements } from "@/lib/quoting/arrangements";
+import { loadShopCatalog } from "@/db/queries/catalog";
+import { searchPricedOptions } from "@/lib/quoting/priced-search";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
-import { renderQuotePdf } from "@/lib/quoting/quote-pdf";
+import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 import { chooseArrangementSchema, quoteListQuerySchema } from "@/lib/validation/quote";
 import { actAs, request, sessionCookie, shopBySlug } from "./helpers";
 
@@ -50,7 +51,7 @@ async function ctxOf(slug: string, email: string): Promise<ShopContext> {
 }
 
 async function firstPricedOption(shopId: string, requirement: Requirement) {
-  const found = await findArrangements(shopId, requirement);
+  const found = searchPricedOptions(await loadShopCatalog(shopId), requirement);
   const option = found.options.find((o) => o.price !== null);
   if (!option) throw new Error(`no priced option: ${found.reasons.join("; ")}`);
   return option;
@@ -139,7 +140,7 @@ describe("quotes from a chosen arrangement", () => {
       const after = await getRevision(kShopId, quote!.revisionId);
       expect(after).toEqual(before);
       // and a new search does see the new price, so the change was real
-      const now = await findArrangements(kShopId, KESTREL_REQ);
+      const now = searchPricedOptions(await loadShopCatalog(kShopId), KESTREL_REQ);
       expect(now.options.find((o) => o.cell.sku === option.cell.sku && o.seriesCount === option.seriesCount)?.price?.amount).not.toBe(option.price?.amount);
     } finally {
       await db.update(catalogCells).set({ unitCost: cell.unitCost, capacitanceF: cell.capacitanceF }).where(eq(catalogCells.id, cell.id));
@@ -203,13 +204,13 @@ describe("quotes from a chosen arrangement", () => {
     const r = await createQuoteFromChoice(await ctxOf(K, kCustomer), choiceOf(KESTREL_REQ, option));
     if (!r.ok || r.data.kind !== "quote") throw new Error("expected a quote");
     const quote = await getQuoteByNumber(kShopId, r.data.quoteNumber);
-    const { buffer, fileName } = await renderQuotePdf(kShopId, quote!.revisionId);
+    const { buffer, fileName } = await loadQuotePdf(kShopId, quote!.revisionId);
     expect(fileName).toBe(`${r.data.quoteNumber}-r1.pdf`);
     const text = pdfToText(buffer);
     expect(text).toContain(r.data.quoteNumber);
     expect(text).toContain(formatMoney(option.price!.amount, "EUR"));
     // another shop cannot render it
-    await expect(renderQuotePdf(mShopId, quote!.revisionId)).rejects.toThrow();
+    await expect(loadQuotePdf(mShopId, quote!.revisionId)).rejects.toThrow();
   });
 
   it("the PDF route serves the owner and the shop's staff, and answers 404 to another customer", async () => {

@@ -1,11 +1,13 @@
 "use server";
 import { headers } from "next/headers";
+import { loadShopCatalog } from "@/db/queries/catalog";
 import { getShopBySlug } from "@/lib/auth/context";
 import { fieldErrorsOf, shopAction, type ActionResult } from "@/lib/auth/shop-action";
 import type { DesignFactors, Requirement } from "@/lib/bank";
 import { env } from "@/lib/env";
 import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
-import { findArrangements, type PricedOption } from "@/lib/quoting/arrangements";
+import { searchPricedOptions } from "@/lib/quoting/priced-search";
+import type { PricedOption } from "@/lib/quoting/types";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { arrangementRequestSchema } from "@/lib/validation/bank";
 import { chooseArrangementSchema } from "@/lib/validation/quote";
@@ -44,7 +46,7 @@ export async function exploreArrangements(shopSlug: string, input: unknown): Pro
     return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(checked.error) };
   }
   const requirement = { ...parsed.data.requirement, quantity: checked.data.quantity };
-  const result = await findArrangements(shop.id, requirement);
+  const result = searchPricedOptions(await loadShopCatalog(shop.id), requirement);
   return {
     ok: true,
     data: {

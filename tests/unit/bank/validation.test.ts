@@ -95,3 +95,41 @@ describe('parseArrangementRequest', () => {
     });
   }
 });
+
+describe('every number has a physical upper bound (lib/bank/bounds.ts)', () => {
+  const base = { maxVoltage: 48, capacitance: 10 };
+  // [what, body at the bound (accepted), body just above it (refused), path, message]
+  const cases: [string, object, object, string, RegExp][] = [
+    ['1e17 V', { ...base, maxVoltage: 2e6 }, { ...base, maxVoltage: 1e17 }, 'maxVoltage', /at most 2 MV/],
+    ['a minimum voltage', { maxVoltage: 2e6, minVoltage: 1e6, capacitance: 1 }, { maxVoltage: 2e6, minVoltage: 3e6, capacitance: 1 }, 'minVoltage', /at most 2 MV/],
+    ['capacitance', { ...base, capacitance: 1e8 }, { ...base, capacitance: 1.0000001e8 }, 'capacitance', /at most 100 MF/],
+    ['energy', { maxVoltage: 48, energy: 1e9 }, { maxVoltage: 48, energy: 1e308 }, 'energy', /at most 1 GJ/],
+    ['backup power', { maxVoltage: 48, backup: { power: 1e9, seconds: 1 } }, { maxVoltage: 48, backup: { power: 2e9, seconds: 1 } }, 'backup.power', /at most 1 GW/],
+    ['backup time', { maxVoltage: 48, backup: { power: 1, seconds: 86_400 } }, { maxVoltage: 48, backup: { power: 1, seconds: 86_401 } }, 'backup.seconds', /at most 86,400 s/],
+    ['peak current', { ...base, peakCurrent: { current: 1e7, maxDrop: 1 } }, { ...base, peakCurrent: { current: 1e8, maxDrop: 1 } }, 'peakCurrent.current', /at most 10 MA/],
+    ['mass', { ...base, maxMass: 1e6 }, { ...base, maxMass: 1e7 }, 'maxMass', /at most 1,000,000 kg/],
+    ['volume', { ...base, maxVolume: 1e3 }, { ...base, maxVolume: 1e4 }, 'maxVolume', /at most 1,000 m³/],
+    ['quantity', { ...base, quantity: 100_000 }, { ...base, quantity: 100_001 }, 'quantity', /at most 100,000/],
+  ];
+  for (const [what, atBound, above, path, message] of cases) {
+    it(`${what}: accepted at the bound, refused above it at "${path}"`, () => {
+      expect(parseArrangementRequest(atBound).ok).toBe(true);
+      const r = parseArrangementRequest(above);
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.issues.find((i) => i.path === path)?.message).toMatch(message);
+    });
+  }
+
+  it('a network cell and the applied voltage are bounded too', () => {
+    for (const [body, path] of [
+      [{ appliedVoltage: 1e17, network: goodCell }, 'appliedVoltage'],
+      [{ network: { ...goodCell, capacitance: 1e300 } }, 'network.capacitance'],
+      [{ network: { ...goodCell, ratedVoltage: 1e17 } }, 'network.ratedVoltage'],
+      [{ network: { ...goodCell, esr: 1e6 } }, 'network.esr'],
+    ] as const) {
+      const r = parseEvaluateRequest(body);
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.issues.map((i) => i.path)).toContain(path);
+    }
+  });
+});

@@ -3,7 +3,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { pdfText, quotePdfFileName, renderQuoteDocument } from "@/lib/quoting/quote-pdf-document";
+import { pdfText, quotePdfFileName, renderQuotePdfLayout } from "@/lib/quoting/quote-pdf-layout";
 import { sampleQuoteDocument } from "./sample-quote";
 
 /** Text of a PDF as poppler's pdftotext (an independent PDF reader) extracts it. */
@@ -21,7 +21,7 @@ function pdfToText(buffer: Buffer): string {
 describe("quote PDF", () => {
   it("is a PDF whose text, read by pdftotext, holds the number, revision, total and cautions", async () => {
     const doc = sampleQuoteDocument();
-    const buffer = await renderQuoteDocument(doc);
+    const buffer = await renderQuotePdfLayout(doc);
     expect(buffer.subarray(0, 5).toString("latin1")).toBe("%PDF-");
     const text = pdfToText(buffer);
     expect(text).toContain("Q-2026-0042");

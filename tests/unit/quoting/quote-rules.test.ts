@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/db/schema/settings";
+import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import { checkAutoQuoteLimits } from "@/lib/quoting/auto-quote-limits";
 import { formatQuoteNumber, isQuoteNumber, numberingYear } from "@/lib/quoting/quote-number";
 import { isExpired, validUntilFrom } from "@/lib/quoting/validity";

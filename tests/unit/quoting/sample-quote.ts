@@ -1,55 +1,68 @@
 /**
- * A worded quote built the way the app builds one — the engine's search over one invented cell,
- * priced by the default rules — but without a database, for the PDF test and benchmark.
- * The cell, its maker "Brightwater Cells" and the shop are invented.
+ * A worded quote built the way the app builds one — an in-memory catalog searched and priced by
+ * searchPricedOptions with the default design factors and pricing rules, the first option frozen
+ * as a revision — but without a database, for the PDF test and benchmark.
+ * The cell, its maker "Brightwater Cells", the board and the shop are invented.
  */
 import type { RevisionWithLines } from "@/db/queries/quotes";
-import { DEFAULT_DESIGN_FACTORS, searchArrangements, type BalancingBoard, type EngineCell } from "@/lib/bank";
-import type { PricedOption } from "@/lib/quoting/arrangements";
+import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank";
+import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
+import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
+import { searchPricedOptions } from "@/lib/quoting/priced-search";
 import { toQuoteDocument, type QuoteDocument } from "@/lib/quoting/quote-document";
-import { DEFAULT_PRICING_RULES, priceBank } from "@/lib/pricing";
+import type { CatalogCell, CatalogComponent, ShopCatalog } from "@/lib/quoting/types";
 
-export const SAMPLE_CELL: EngineCell = {
+export const SAMPLE_CELL: CatalogCell = {
   id: "00000000-0000-4000-8000-000000000001",
   sku: "BWC-3000-27",
+  manufacturer: "Brightwater Cells",
+  series: "BW-K",
   technology: "edlc",
-  capacitance: 3000,
-  toleranceMinus: 0,
-  tolerancePlus: 0.2,
-  ratedVoltage: 2.7,
-  surgeVoltage: 2.85,
-  esr: 0.00029,
-  leakageCurrent: 0.0052,
-  continuousCurrent: 130,
-  peakCurrent: 1900,
-  mass: 0.51,
-  volume: 60.7 * 60.7 * 138 * 1e-9,
-  unitCost: 38.5,
+  capacitanceF: 3000,
+  toleranceMinusPct: 0,
+  tolerancePlusPct: 20,
+  ratedVoltageV: 2.7,
+  surgeVoltageV: 2.85,
+  esrOhm: 0.00029,
+  leakageCurrentA: 0.0052,
+  continuousCurrentA: 130,
+  peakCurrentA: 1900,
+  massKg: 0.51,
+  shape: "cylinder",
+  diameterMm: 60.7,
+  lengthMm: null,
+  widthMm: null,
+  heightMm: 138,
+  unitCost: "38.5000",
   stock: 400,
   leadTimeDays: 10,
 };
 
-export const SAMPLE_BOARD: BalancingBoard = { id: "00000000-0000-4000-8000-000000000004", sku: "BWC-BAL6", channels: 6, maxCellVoltage: 2.7, unitCost: 21.4, leadTimeDays: 7 };
+export const SAMPLE_BOARD: CatalogComponent = {
+  id: "00000000-0000-4000-8000-000000000004",
+  kind: "balancing-board",
+  sku: "BWC-BAL6",
+  name: "Balancing board, 6 channels",
+  unitCost: "21.4000",
+  specs: { channels: 6, maxCellVoltage: 2.7 },
+  leadTimeDays: 7,
+};
+
+export const SAMPLE_CATALOG: ShopCatalog = {
+  factors: DEFAULT_DESIGN_FACTORS,
+  rules: DEFAULT_PRICING_RULES,
+  autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS,
+  cells: [SAMPLE_CELL],
+  components: [SAMPLE_BOARD],
+};
 
 export function sampleQuoteDocument(quantity = 2): QuoteDocument {
   const requirement = { maxVoltage: 48, minVoltage: 24, energy: 20_000, quantity };
-  const found = searchArrangements({ requirement, cells: [SAMPLE_CELL], factors: DEFAULT_DESIGN_FACTORS, balancingBoards: [SAMPLE_BOARD] });
-  const first = found.options[0];
-  if (!first) throw new Error("the sample requirement found no option");
-  const { cellId: _cellId, ...rest } = first;
-  const price = priceBank(
-    {
-      cell: { sku: SAMPLE_CELL.sku, description: "Brightwater Cells BW-K", unitCost: "38.50" },
-      cellCount: first.cellCount,
-      balancingResistors: first.balancing.resistance !== null && first.balancing.count > 0 ? { count: first.balancing.count, resistance: first.balancing.resistance, powerRating: first.balancing.powerRating ?? 0.25 } : null,
-      bleeder: first.discharge.bleeder ? { resistance: first.discharge.bleeder.resistance, power: first.discharge.bleeder.powerRating ?? first.discharge.bleeder.power } : null,
-      activeBoards: first.balancing.activeBoard ? { sku: first.balancing.activeBoard.sku, count: first.balancing.activeBoard.count, unitCost: "21.40" } : null,
-      volumeM3: first.volume,
-      quantity,
-    },
-    DEFAULT_PRICING_RULES,
-  );
-  const option: PricedOption = { ...rest, price: { amount: price.total, currency: price.currency, perBank: price.unitPrice, quantity, tax: price.tax, subtotal: price.subtotal } };
+  const found = searchPricedOptions(SAMPLE_CATALOG, requirement);
+  const option = found.options[0];
+  const record = found.records[0];
+  if (!option || !record?.price) throw new Error("the sample requirement found no priced option");
+  const price = record.price;
   const rev = {
     revision: {
       id: "00000000-0000-4000-8000-000000000002",
@@ -57,9 +70,9 @@ export function sampleQuoteDocument(quantity = 2): QuoteDocument {
       quoteId: "00000000-0000-4000-8000-000000000003",
       revision: 1,
       requirement,
-      arrangement: option as unknown as Record<string, unknown>,
-      cell: { sku: SAMPLE_CELL.sku, manufacturer: "Brightwater Cells", series: "BW-K" },
-      pricing: price as unknown as Record<string, unknown>,
+      arrangement: option,
+      cell: record.cell,
+      pricing: price,
       currency: price.currency,
       quantity,
       subtotal: price.subtotal,

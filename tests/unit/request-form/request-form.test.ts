@@ -94,6 +94,17 @@ describe('request form: every refused value is explained at its field', () => {
     ['zero quantity', { maxVoltage: '48 V', energy: '1 kJ', quantity: '0' }, 'quantity', /whole number/],
     ['too many banks', { maxVoltage: '48 V', energy: '1 kJ', quantity: '100001' }, 'quantity', /whole number/],
     ['an ambiguous thousands comma', { maxVoltage: '1,500 V', energy: '1 kJ' }, 'maxVoltage', /ambiguous/],
+    // physical upper bounds (lib/bank/bounds.ts), refused where they are typed
+    ['1e17 V', { maxVoltage: '1e17 V', energy: '1 kJ' }, 'maxVoltage', /maximum voltage must be at most 2 MV/],
+    ['3 MV minimum voltage', { maxVoltage: '1 MV', minVoltage: '3 MV', energy: '1 kJ' }, 'minVoltage', /at most 2 MV/],
+    ['2 GJ of energy', { maxVoltage: '48 V', energy: '2 GJ' }, 'energy', /at most 1 GJ/],
+    ['an energy in Wh above 1 GJ', { maxVoltage: '48 V', energy: '1e6 kWh' }, 'energy', /at most 1 GJ/],
+    ['1e9 F', { maxVoltage: '48 V', sizeFor: 'capacitance', capacitance: '1e9 F' }, 'capacitance', /at most 100 MF/],
+    ['5 GW of backup', { maxVoltage: '48 V', sizeFor: 'backup', backupPower: '5 GW', backupTime: '1 s' }, 'backupPower', /at most 1 GW/],
+    ['a year of backup', { maxVoltage: '48 V', sizeFor: 'backup', backupPower: '5 kW', backupTime: '31536000 s' }, 'backupTime', /at most 86,400 s/],
+    ['100 MA peak', { maxVoltage: '48 V', energy: '1 kJ', peakCurrent: '1e8 A', maxDrop: '4 V' }, 'peakCurrent', /at most 10 MA/],
+    ['1e7 kg', { maxVoltage: '48 V', energy: '1 kJ', maxMass: '1e7 kg' }, 'maxMass', /at most 1,000,000 kg/],
+    ['1e4 m³', { maxVoltage: '48 V', energy: '1 kJ', maxVolume: '1e7 L' }, 'maxVolume', /at most 1,000 m³/],
   ];
   for (const [name, values, field, message] of cases) {
     it(name, () => {
@@ -143,6 +154,10 @@ describe('figures derived as people type', () => {
 
   it('peak current and drop give the largest ESR: 4 V / 200 A = 20 mΩ (Ohm’s law)', () => {
     expect(deriveFigures(form({ peakCurrent: '200 A', maxDrop: '4 V' })).maxEsr).toBeCloseTo(0.02, 12);
+  });
+
+  it('derives nothing from a value beyond its bound (the field says why)', () => {
+    expect(deriveFigures(form({ maxVoltage: '1e17 V', sizeFor: 'capacitance', capacitance: '40 F' })).storedEnergy).toBeNull();
   });
 
   it('derives nothing from values it cannot read', () => {

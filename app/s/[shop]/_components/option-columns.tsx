@@ -1,7 +1,7 @@
 "use client";
 import { createColumnHelper, type SortingFn } from "@tanstack/react-table";
 import { Decimal } from "decimal.js";
-import type { PricedOption } from "@/lib/quoting/arrangements";
+import type { PricedOption } from "@/lib/quoting/types";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatQuantity } from "@/lib/quantities";
 import { arrangementLabel, TECH_LABELS, TECH_SHORT, TOPOLOGY_LABELS } from "./labels";

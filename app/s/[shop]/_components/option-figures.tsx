@@ -1,8 +1,7 @@
 import type { DesignFactors, Requirement } from "@/lib/bank";
-import type { PricedOption } from "@/lib/quoting/arrangements";
+import type { PricedOption } from "@/lib/quoting/types";
 import { formatMoney } from "@/lib/pricing/currency";
-import { formatDuration } from "@/components/charts/chart-data";
-import { formatQuantity as q } from "@/lib/quantities";
+import { formatDuration, formatQuantity as q } from "@/lib/quantities";
 import { TECH_LABELS } from "./labels";
 
 function Row({ label, children }: { label: string; children: React.ReactNode }) {

@@ -1,7 +1,7 @@
 "use client";
 import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { useMemo, useState } from "react";
-import type { PricedOption } from "@/lib/quoting/arrangements";
+import type { PricedOption } from "@/lib/quoting/types";
 import { arrangementLabel, optionId } from "./labels";
 import { optionColumns } from "./option-columns";
 

@@ -1,9 +1,10 @@
+import { loadShopCatalog } from "@/db/queries/catalog";
 import { getShopBySlug } from "@/lib/auth/context";
 import { env } from "@/lib/env";
 import { jsonError } from "@/lib/http/json-error";
 import { readJsonBody } from "@/lib/http/read-json";
 import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
-import { findArrangements } from "@/lib/quoting/arrangements";
+import { searchPricedOptions } from "@/lib/quoting/priced-search";
 import { parseArrangementRequest } from "@/lib/validation/bank";
 
 const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, windowMs: 60_000 });
@@ -25,7 +26,7 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   if (!body.ok) return body.response;
   const parsed = parseArrangementRequest(body.value);
   if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
-  const result = await findArrangements(shop.id, parsed.data);
+  const result = searchPricedOptions(await loadShopCatalog(shop.id), parsed.data);
   return Response.json({
     designFactors: result.designFactors,
     options: result.options,

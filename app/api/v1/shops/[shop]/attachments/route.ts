@@ -1,8 +1,8 @@
 import { createAttachment } from "@/db/queries/attachments";
 import { jsonError, withShopApi } from "@/lib/auth/api";
 import { readBodyLimited } from "@/lib/http/read-json";
-import { storeAttachmentBytes } from "@/lib/quoting/attachment-store";
-import { MAX_ATTACHMENT_BYTES, cleanFileName, detectAttachmentType } from "@/lib/quoting/attachment-type";
+import { storeAttachmentBytes } from "@/lib/attachments/storage";
+import { MAX_ATTACHMENT_BYTES, cleanFileName, detectAttachmentType } from "@/lib/attachments/content-type";
 
 /** Room for the multipart boundaries and part headers around one file. */
 const MULTIPART_OVERHEAD = 64 * 1024;

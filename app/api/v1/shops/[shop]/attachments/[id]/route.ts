@@ -1,8 +1,8 @@
 import { getAttachment } from "@/db/queries/attachments";
 import { jsonError } from "@/lib/auth/api";
 import { maySeeOwned, withQuoteReader } from "@/lib/quoting/access";
-import { attachmentStream } from "@/lib/quoting/attachment-store";
-import { contentDisposition } from "@/lib/quoting/attachment-type";
+import { attachmentStream } from "@/lib/attachments/storage";
+import { contentDisposition } from "@/lib/attachments/content-type";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 

@@ -1,9 +1,9 @@
 import { getQuoteByNumber } from "@/db/queries/quotes";
 import { jsonError } from "@/lib/auth/api";
 import { maySeeOwned, withQuoteReader } from "@/lib/quoting/access";
-import { contentDisposition } from "@/lib/quoting/attachment-type";
+import { contentDisposition } from "@/lib/attachments/content-type";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
-import { renderQuotePdf } from "@/lib/quoting/quote-pdf";
+import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 
 /** GET /api/v1/shops/{shop}/quotes/{number}/pdf — the current revision as a PDF (same access as the page). */
 export async function GET(request: Request, { params }: { params: Promise<{ shop: string; number: string }> }) {
@@ -11,7 +11,7 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
   return withQuoteReader(request, shop, async (ctx) => {
     const quote = isQuoteNumber(number) ? await getQuoteByNumber(ctx.shop.id, number) : null;
     if (!quote || !maySeeOwned(ctx, quote.customerUserId)) return jsonError(404, "No such quote.");
-    const { buffer, fileName } = await renderQuotePdf(ctx.shop.id, quote.revisionId);
+    const { buffer, fileName } = await loadQuotePdf(ctx.shop.id, quote.revisionId);
     return new Response(new Uint8Array(buffer), {
       headers: { "content-type": "application/pdf", "content-length": String(buffer.byteLength), "content-disposition": contentDisposition(fileName), "cache-control": "private, no-store" },
     });

@@ -1,3 +1,4 @@
+/** Attachments: what an uploaded file is, judged by its content, and the names it is stored and sent under. */
 import { fileTypeFromBuffer } from "file-type";
 
 /** Largest attachment accepted (10 MB, binary megabytes). */

@@ -3,8 +3,9 @@ import { Document, Font, Page, StyleSheet, Text, View, renderToBuffer } from "@r
 import type { LabelledValue, QuoteDocument } from "./quote-document";
 
 /**
- * The quote as a PDF (@react-pdf/renderer), from the same worded document the quote page shows.
- * No database here, so it renders in tests and benchmarks from a document in memory.
+ * The PDF layout: the quote as a PDF (@react-pdf/renderer), from the same worded document the quote
+ * page shows (quote-document.ts). No database here, so it renders in tests and benchmarks from a
+ * document in memory; quote-pdf-loader.ts reads a revision and renders it with this.
  */
 
 const FAMILY = "IBM Plex Sans";
@@ -76,7 +77,7 @@ function KeyValues({ rows }: { rows: LabelledValue[] }) {
   );
 }
 
-export function QuotePdf({ doc }: { doc: QuoteDocument }) {
+export function QuotePdfLayout({ doc }: { doc: QuoteDocument }) {
   const totals = doc.totals.slice(0, -1);
   return (
     <Document title={`Quote ${doc.number} revision ${doc.revision}`} author={doc.shopName} subject={`Quote ${doc.number}`} creator="Faradsmith" producer="Faradsmith">
@@ -188,7 +189,7 @@ export function quotePdfFileName(number: string, revision: number): string {
 }
 
 /** Renders a worded quote to PDF bytes. */
-export async function renderQuoteDocument(doc: QuoteDocument): Promise<Buffer> {
+export async function renderQuotePdfLayout(doc: QuoteDocument): Promise<Buffer> {
   registerFonts();
-  return renderToBuffer(<QuotePdf doc={doc} />);
+  return renderToBuffer(<QuotePdfLayout doc={doc} />);
 }

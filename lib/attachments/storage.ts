@@ -1,4 +1,5 @@
 import "server-only";
+/** Attachments: the bytes of uploaded files under UPLOAD_DIR, outside public/, one folder per shop. */
 import { createHash, randomUUID } from "node:crypto";
 import { createReadStream } from "node:fs";
 import { mkdir, writeFile } from "node:fs/promises";

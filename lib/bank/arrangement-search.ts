@@ -1,6 +1,8 @@
 import { formatQuantity } from '../quantities';
-import { sizeBalancing, sizeBleeder } from './balancing';
+import { sizeBalancing, sizeBleeder, type BalancingResult, type BleederResult } from './balancing';
+import { MAX_CELLS_PER_BANK, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from './bounds';
 import { constantPowerSeconds } from './discharge';
+import { storedEnergy as storedEnergyOf, usableEnergy as usableEnergyOf } from './energy';
 import {
   TECHNOLOGIES,
   type BalancingBoard,
@@ -11,29 +13,17 @@ import {
   type Topology,
 } from './types';
 
-/** Most cells in one bank (the same bound as the network evaluator). */
-export const MAX_CELLS_PER_BANK = 20_000;
-
 /** Stored energy above which the burn and arc caution is shown (common practice: 10 J, from memory). */
 export const HIGH_ENERGY_CAUTION_J = 10;
 
 /** Lead time above which an option carries a warning (common practice for a quoting shop). */
 export const LONG_LEAD_TIME_DAYS = 28;
 
-export interface ArrangementCellFigures {
-  sku: string;
-  technology: Technology;
-  capacitance: number;
-  toleranceMinus: number;
-  tolerancePlus: number;
-  ratedVoltage: number;
-  surgeVoltage: number;
-  esr: number;
-  leakageCurrent: number;
-  peakCurrent: number;
-  mass: number;
-  volume: number;
-}
+/** The cell's figures an option carries (and a quote freezes). */
+export type ArrangementCellFigures = Pick<
+  EngineCell,
+  'sku' | 'technology' | 'capacitance' | 'toleranceMinus' | 'tolerancePlus' | 'ratedVoltage' | 'surgeVoltage' | 'esr' | 'leakageCurrent' | 'peakCurrent' | 'mass' | 'volume'
+>;
 
 export interface ArrangementOption {
   cell: ArrangementCellFigures;
@@ -42,7 +32,7 @@ export interface ArrangementOption {
   seriesCount: number;
   parallelCount: number;
   cellCount: number;
-  /** N_s is one more than the voltage needs: cells run further below their rating */
+  /** N_s is one more than the shortest safe string (DESIGN §3.2): cells run further below their rating */
   longerLife: boolean;
   /** nominal: N_p·C_n/N_s; design: with lower tolerance and end-of-life fade */
   capacitance: { nominal: number; design: number };
@@ -59,28 +49,57 @@ export interface ArrangementOption {
   volume: number;
   /** worst-case transient cell voltage while charging with matched cells (V) */
   worstCellVoltage: number;
-  balancing: {
-    resistance: number | null;
-    power: number;
-    powerRating: number | null;
-    count: number;
-    standbyLoss: number;
-    timeConstant: number;
-    activeBoard: null | { sku: string; count: number };
-  };
+  /** passive balancing resistors as sizeBalancing gives them, and the active boards fitted, if any */
+  balancing: Omit<BalancingResult, 'chainResistance'> & { activeBoard: null | { sku: string; count: number } };
+  /**
+   * Self-discharge after switch-off, through the balancing chain and the bleeder. Worst case: the
+   * bank's capacitance at the upper tolerance (the safe side: a larger C takes longer to fall to
+   * V_safe). The discharge chart draws V(t) = V_max·e^(−t/(R·C)) with these same R and C, so it
+   * crosses V_safe at secondsToSafe.
+   */
   discharge: {
-    /** worst case, with the upper capacitance tolerance (s) */
+    /** time from V_max to V_safe (s); 0 when the bank works at or below V_safe */
     secondsToSafe: number;
-    bleeder: null | { resistance: number; power: number; powerRating: number | null; energy: number; switched: boolean };
+    /** N_p·C_n·(1 + b)/N_s: the capacitance the time is computed with (F) */
+    capacitance: number;
+    /** the balancing resistors seen across the terminals (Ω); null without balancing resistors */
+    chainResistance: number | null;
+    /** chain and bleeder in parallel: what the bank discharges through (Ω); null when neither is fitted */
+    resistance: number | null;
+    bleeder: BleederResult['bleeder'];
   };
   /** constant-power backup time with design capacitance and end-of-life ESR (s) */
   backupSeconds?: number;
-  /** cells·unitCost + boards·unitCost (+ the cost model) per bank: for ranking only, the caller prices exactly */
+  /**
+   * cells·unitCost + boards·unitCost + the caller's cost model, per bank, in float: the order the
+   * search returns options in. The caller prices exactly; with a cost model that keeps this a lower
+   * bound of the exact cost (lib/quoting/bill.ts), it can stop pricing once no cheaper option can follow.
+   */
   costEstimate: number;
   leadTimeDays: number;
-  pareto: boolean;
   warnings: string[];
   cautions: string[];
+}
+
+/**
+ * Float costs the search adds to the parts it counts, in the shop's currency. Materials (the cells'
+ * and boards' unit costs and the per-cell, per-bank and per-resistor material costs) are multiplied
+ * by `materialsFactor` (1 + overhead); labour is added as it is.
+ */
+export interface CostModel {
+  /** material cost per cell besides its unit cost (interconnects) */
+  perCell: number;
+  /** material cost per bank (terminals) */
+  perBank: number;
+  perBalancingResistor: number;
+  /** added to each active board's unit cost */
+  perBalancingBoard?: number;
+  /** default 1 */
+  materialsFactor?: number;
+  /** labour per cell (assembly) */
+  labourPerCell?: number;
+  /** labour per bank (setup, test) */
+  labourPerBank?: number;
 }
 
 export interface ArrangementSearchInput {
@@ -91,10 +110,11 @@ export interface ArrangementSearchInput {
   /** default 12 */
   limit?: number;
   /**
-   * Float costs per cell (interconnect, assembly labour), per bank (setup, test, terminals) and per
-   * balancing resistor, so that ranking follows the shop's price closely; exact money stays with the caller.
+   * Float costs added per cell (interconnect, assembly labour), per bank (setup, test, terminals),
+   * per balancing resistor and per active board, with overhead on materials, so that the order
+   * follows the shop's price closely; exact money stays with the caller.
    */
-  costModel?: { perCell: number; perBank: number; perBalancingResistor: number };
+  costModel?: CostModel;
 }
 
 export interface ArrangementSearchResult {
@@ -106,18 +126,21 @@ export interface ArrangementSearchResult {
 const TOPO_STRINGS = 1; // index in TOPOLOGIES (0 is series-of-parallel-groups)
 const TOPOLOGIES: readonly Topology[] = ['series-of-parallel-groups', 'parallel-of-series-strings'];
 
-type Driver = 'capacitance' | 'energy' | 'backup' | 'esr' | 'peak' | 'none';
+/** what set N_p; 'string': even one string is beyond the mass, volume or cell-count limit */
+type Driver = 'capacitance' | 'energy' | 'backup' | 'esr' | 'peak' | 'string' | 'none';
 type Limit = 'mass' | 'volume' | 'count';
 
 interface TechnologyTally {
   cells: number;
   invalid: number;
-  surge: number;
-  board: number;
+  /** cells whose shortest safe string is longer than MAX_SERIES_COUNT */
+  seriesBound: number;
   /** nearest sizing miss: ratio of needed to allowed (> 1) */
   missRatio: number;
   missDriver: Driver;
   missLimit: Limit;
+  /** N_s of the nearest miss */
+  missSeries: number;
 }
 
 function isPositive(x: number): boolean {
@@ -155,21 +178,114 @@ function floorSafe(x: number): number {
 }
 
 /**
- * Requirement → buildable arrangements (DESIGN §3.2), ranked by estimated cost, with the Pareto
- * flag over (cost, mass, volume) among every feasible candidate.
+ * Worst-case transient voltage of one cell while a string of N_s matched cells charges to V_max
+ * (DESIGN §3.2): the weakest cell (C_lo = C_n(1 − m)) among N_s − 1 strong ones (C_hi = C_n(1 + m)),
+ * V_w = V_max·(1/C_lo) / (1/C_lo + (N_s − 1)/C_hi) = V_max / (1 + (N_s − 1)·C_lo/C_hi).
+ */
+export function worstCaseCellVoltage(maxVoltage: number, seriesCount: number, matchingTolerance: number): number {
+  const m = matchingTolerance;
+  return maxVoltage / (1 + (seriesCount - 1) * ((1 - m) / (1 + m)));
+}
+
+const NUMBER_FIELDS = ['maxVoltage', 'minVoltage', 'capacitance', 'energy', 'maxMass', 'maxVolume', 'quantity'] as const;
+
+/** Refuses (RangeError) a requirement or design factors no search can mean; bounds are the schemas' job. */
+function checkInputs(req: Requirement, f: DesignFactors): void {
+  const bad = (what: string): never => {
+    throw new RangeError(`${what} must be a finite number in range`);
+  };
+  for (const key of NUMBER_FIELDS) {
+    const v = req[key];
+    if (v !== undefined && !(Number.isFinite(v) && v >= 0)) bad(key);
+  }
+  for (const [what, v] of [
+    ['backup.power', req.backup?.power],
+    ['backup.seconds', req.backup?.seconds],
+    ['peakCurrent.current', req.peakCurrent?.current],
+    ['peakCurrent.maxDrop', req.peakCurrent?.maxDrop],
+  ] as const) {
+    if (v !== undefined && !(Number.isFinite(v) && v >= 0)) bad(what);
+  }
+  if (!(req.maxVoltage > 0)) bad('maxVoltage');
+  const vMin = req.minVoltage ?? 0;
+  if (!(vMin < req.maxVoltage)) throw new RangeError('minVoltage must be at least 0 and below maxVoltage');
+  if (!(f.capacitanceFade >= 0 && f.capacitanceFade < 1)) bad('capacitanceFade');
+  if (!(f.esrGrowth >= 0 && Number.isFinite(f.esrGrowth))) bad('esrGrowth');
+  if (!(f.voltageDerating > 0 && f.voltageDerating <= 1)) bad('voltageDerating');
+  if (!(f.matchingTolerance >= 0 && f.matchingTolerance < 1)) bad('matchingTolerance');
+  if (!(f.balancingFactor > 0 && Number.isFinite(f.balancingFactor))) bad('balancingFactor');
+  if (!(f.safeVoltage > 0 && Number.isFinite(f.safeVoltage))) bad('safeVoltage');
+  if (!(f.safeTime > 0 && Number.isFinite(f.safeTime))) bad('safeTime');
+}
+
+/** stringBalancing's answer when a string of that length cannot be kept within its ratings */
+const DOES_NOT_FIT = -2;
+/** stringBalancing's answer when passive balancing resistors suffice */
+const PASSIVE = -1;
+
+/**
+ * How a string of N_s cells is kept within its ratings while charging (DESIGN §3.2): PASSIVE when
+ * the worst case V_w is within the rating, else the index of the cheapest active board that clamps
+ * each cell at or below the rating (and not below V_max/N_s), else DOES_NOT_FIT (above the surge
+ * rating, or no such board).
+ */
+function stringBalancing(vMax: number, ns: number, m: number, ratedVoltage: number, surgeVoltage: number, boards: readonly BalancingBoard[]): number {
+  const vw = worstCaseCellVoltage(vMax, ns, m);
+  if (vw > surgeVoltage * (1 + 1e-12)) return DOES_NOT_FIT;
+  if (vw <= ratedVoltage * (1 + 1e-12)) return PASSIVE;
+  const vCell = vMax / ns;
+  let board = DOES_NOT_FIT;
+  let bestCost = Infinity;
+  for (let b = 0; b < boards.length; b++) {
+    const bd = boards[b] as BalancingBoard;
+    if (!(bd.channels >= 1) || bd.maxCellVoltage > ratedVoltage || bd.maxCellVoltage < vCell) continue;
+    const cost = boardsPerString(ns, bd) * bd.unitCost;
+    if (cost < bestCost) {
+      bestCost = cost;
+      board = b;
+    }
+  }
+  return board;
+}
+
+/** Boards one string of N_s cells needs: one channel per series position. */
+function boardsPerString(ns: number, board: BalancingBoard): number {
+  return Math.ceil(ns / Math.floor(board.channels));
+}
+
+/** The least whole N_p a lower bound allows; a bound that is not a finite number (a 100 % fade, an underflow) is out of reach. */
+function countAtLeast(bound: number): number {
+  return bound <= 1 ? 1 : Number.isFinite(bound) ? ceilSafe(bound) : Infinity;
+}
+
+/**
+ * Requirement → buildable arrangements (DESIGN §3.2): the best `limit` in the order of their float
+ * cost estimate (then mass, volume, lead time, part number, N_s, topology). This order is a
+ * pre-cut, not the ranking customers see: lib/quoting prices the options exactly, widening the
+ * cut until no option beyond it can enter the best dozen (lib/quoting/priced-search.ts), ranks
+ * them by exact price and marks the Pareto set over price, mass and volume.
+ *
+ * Every loop is bounded by construction: the series count is checked against MAX_SERIES_COUNT
+ * before any string is tried, and the shortest safe string is found by the closed form of V_w
+ * solved for N_s (at most a few steps of correction), so no requested value, however large, makes
+ * the search run long. Throws RangeError for values no requirement can mean (NaN, negative).
  */
 export function searchArrangements(input: ArrangementSearchInput): ArrangementSearchResult {
   const { requirement: req, cells, factors } = input;
+  checkInputs(req, factors);
   const boards = input.balancingBoards ?? [];
-  const limit = Math.max(0, Math.floor(input.limit ?? 12));
+  const limitIn = input.limit ?? 12;
+  const limit = Number.isNaN(limitIn) ? 0 : Math.max(0, Math.floor(limitIn));
   const perCellCost = input.costModel?.perCell ?? 0;
   const perBankCost = input.costModel?.perBank ?? 0;
   const perResistorCost = input.costModel?.perBalancingResistor ?? 0;
+  const perBoardCost = input.costModel?.perBalancingBoard ?? 0;
+  const materialsFactor = input.costModel?.materialsFactor ?? 1;
+  const labourPerCell = input.costModel?.labourPerCell ?? 0;
+  const labourPerBank = input.costModel?.labourPerBank ?? 0;
 
   const vMax = req.maxVoltage;
   const vMin = req.minVoltage ?? 0;
-  if (!isPositive(vMax)) throw new RangeError('maxVoltage must be a positive number');
-  if (!(vMin >= 0 && vMin < vMax)) throw new RangeError('minVoltage must be at least 0 and below maxVoltage');
   const dV2 = vMax * vMax - vMin * vMin;
   const quantity = Math.max(1, Math.floor(req.quantity ?? 1));
   const cReq = req.capacitance ?? 0;
@@ -183,13 +299,18 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const maxVolume = req.maxVolume ?? Infinity;
   const m = factors.matchingTolerance;
   const matchRatio = (1 - m) / (1 + m);
-  const derating = factors.voltageDerating > 0 ? factors.voltageDerating : 1;
+  const derating = factors.voltageDerating;
   const fade = factors.capacitanceFade;
   const growth = factors.esrGrowth;
 
+  // the caps, read once (module bindings are getters in some bundles)
+  const maxSeries = MAX_SERIES_COUNT;
+  const maxParallel = MAX_PARALLEL_COUNT;
+  const maxCells = MAX_CELLS_PER_BANK;
+
   const tallies = new Map<Technology, TechnologyTally>();
   for (const t of TECHNOLOGIES) {
-    tallies.set(t, { cells: 0, invalid: 0, surge: 0, board: 0, missRatio: Infinity, missDriver: 'none', missLimit: 'count' });
+    tallies.set(t, { cells: 0, invalid: 0, seriesBound: 0, missRatio: Infinity, missDriver: 'none', missLimit: 'count', missSeries: 0 });
   }
 
   // Candidate store: one row per (cell, N_s, topology), structure of arrays, no per-candidate objects.
@@ -198,6 +319,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const cNs = new Int32Array(capacity);
   const cNp = new Int32Array(capacity);
   const cTopo = new Uint8Array(capacity);
+  const cLonger = new Uint8Array(capacity);
   const cBoard = new Int32Array(capacity);
   const cBoardCount = new Int32Array(capacity);
   const cCost = new Float64Array(capacity);
@@ -221,58 +343,58 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
     const surge = Math.max(cell.surgeVoltage, vr);
     const cd = cn * (1 - cell.toleranceMinus) * (1 - fade);
     const esrEol = cell.esr * (1 + growth);
-    const nsBase = Math.max(1, ceilSafe(vMax / (derating * vr)));
 
-    for (let ns = nsBase; ns <= nsBase + 1; ns++) {
-      // worst-case transient cell voltage, one low cell among high ones
-      const vw = vMax / (1 + (ns - 1) * matchRatio);
-      if (vw > surge * (1 + 1e-12)) {
-        tally.surge++;
-        continue;
-      }
-      let board = -1;
-      let boardsPerString = 0;
-      if (vw > vr * (1 + 1e-12)) {
-        const vCell = vMax / ns;
-        let bestCost = Infinity;
-        for (let b = 0; b < boards.length; b++) {
-          const bd = boards[b] as BalancingBoard;
-          if (!(bd.channels >= 1) || bd.maxCellVoltage > vr || bd.maxCellVoltage < vCell) continue;
-          const per = Math.ceil(ns / Math.floor(bd.channels));
-          const cost = per * bd.unitCost;
-          if (cost < bestCost) {
-            bestCost = cost;
-            board = b;
-            boardsPerString = per;
-          }
-        }
-        if (board < 0) {
-          tally.board++;
-          continue;
-        }
-      }
+    // The fewest cells the voltage needs, checked as an integer before any string is tried.
+    const nsVoltage = Math.max(1, ceilSafe(vMax / (derating * vr)));
+    if (!(nsVoltage <= maxSeries)) {
+      tally.seriesBound++;
+      continue;
+    }
+
+    // The shortest safe string (DESIGN §3.2): from the voltage's count upward to the first whose
+    // worst case is within the surge rating (within the rating where only passive balancing is
+    // fitted). V_w ≤ L ⇔ N_s ≥ 1 + (V_max/L − 1)·C_hi/C_lo, so the count comes from the closed
+    // form; the few steps after it only absorb rounding.
+    const nsSurge = Math.max(nsVoltage, ceilSafe(1 + (vMax / surge - 1) / matchRatio));
+    const nsRated = Math.max(nsVoltage, ceilSafe(1 + (vMax / vr - 1) / matchRatio));
+    let nsBoard = Infinity;
+    for (let b = 0; b < boards.length; b++) {
+      const bd = boards[b] as BalancingBoard;
+      if (bd.channels >= 1 && bd.maxCellVoltage > 0 && bd.maxCellVoltage <= vr) nsBoard = Math.min(nsBoard, ceilSafe(vMax / bd.maxCellVoltage));
+    }
+    let nsSafe = Math.min(nsRated, Math.max(nsSurge, nsBoard));
+    if (!(nsSafe <= maxSeries + 1)) {
+      tally.seriesBound++;
+      continue;
+    }
+    for (let k = 0; k < 2 && nsSafe - 1 >= nsVoltage && stringBalancing(vMax, nsSafe - 1, m, vr, surge, boards) !== DOES_NOT_FIT; k++) nsSafe--;
+    for (let k = 0; k < 3 && stringBalancing(vMax, nsSafe, m, vr, surge, boards) === DOES_NOT_FIT; k++) nsSafe++;
+    if (nsSafe > maxSeries || stringBalancing(vMax, nsSafe, m, vr, surge, boards) === DOES_NOT_FIT) {
+      tally.seriesBound++;
+      continue;
+    }
+
+    // the shortest safe string, then one more as the longer-life variant
+    for (let ns = nsSafe; ns <= nsSafe + 1 && ns <= maxSeries; ns++) {
+      const board = stringBalancing(vMax, ns, m, vr, surge, boards);
+      if (board === DOES_NOT_FIT) continue;
+      const perString = board >= 0 ? boardsPerString(ns, boards[board] as BalancingBoard) : 0;
 
       // Lower bounds on N_p from closed forms; the largest one names the driving requirement.
       let npNeed = 1;
       let driver: Driver = 'none';
-      const consider = (bound: number, d: Driver): void => {
-        const n = ceilSafe(bound);
-        if (n > npNeed) {
-          npNeed = n;
-          driver = d;
-        }
-      };
-      if (cReq > 0) consider((cReq * ns) / cd, 'capacitance');
-      if (eReq > 0) consider((2 * eReq * ns) / (cd * dV2), 'energy');
+      let n = 1;
+      if (cReq > 0 && (n = countAtLeast((cReq * ns) / cd)) > npNeed) [npNeed, driver] = [n, 'capacitance'];
+      if (eReq > 0 && (n = countAtLeast((2 * eReq * ns) / (cd * dV2))) > npNeed) [npNeed, driver] = [n, 'energy'];
       // without ESR the constant-power backup lasts C·(V_max² − V_min²)/(2P): a lower bound
-      if (hasBackup) consider((2 * backupPower * backupSeconds * ns) / (cd * dV2), 'backup');
+      if (hasBackup && (n = countAtLeast((2 * backupPower * backupSeconds * ns) / (cd * dV2))) > npNeed) [npNeed, driver] = [n, 'backup'];
       if (peakI > 0) {
-        consider((esrEol * ns * peakI) / maxDrop, 'esr');
-        consider(cell.peakCurrent > 0 ? peakI / cell.peakCurrent : Infinity, 'peak');
+        if ((n = countAtLeast((esrEol * ns * peakI) / maxDrop)) > npNeed) [npNeed, driver] = [n, 'esr'];
+        if ((n = countAtLeast(cell.peakCurrent > 0 ? peakI / cell.peakCurrent : Infinity)) > npNeed) [npNeed, driver] = [n, 'peak'];
       }
 
       // Upper bounds on N_p from the mass, volume and cell-count limits.
-      let npMax = floorSafe(MAX_CELLS_PER_BANK / ns);
+      let npMax = Math.min(maxParallel, floorSafe(maxCells / ns));
       let limitBy: Limit = 'count';
       if (Number.isFinite(maxMass) && cell.mass > 0) {
         const n = floorSafe(maxMass / (ns * cell.mass));
@@ -293,28 +415,29 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
         const ratio = npMax > 0 ? npNeed / npMax : Infinity;
         if (ratio < tally.missRatio || tally.missDriver === 'none') {
           tally.missRatio = ratio;
-          tally.missDriver = driver === 'none' ? 'capacitance' : driver;
+          tally.missDriver = driver === 'none' ? 'string' : driver;
           tally.missLimit = limitBy;
+          tally.missSeries = ns;
         }
         continue;
       }
 
       let np = npNeed;
       if (hasBackup) {
-        // With ESR the backup is shorter; the time rises with N_p: exponential then binary search.
+        // With ESR the backup is shorter; the time rises with N_p: exponential then binary search,
+        // both within [N_p, npMax] (at most 2·log2(MAX_PARALLEL_COUNT) steps).
         const lasts = (n: number): number =>
           constantPowerSeconds((n * cd) / ns, (esrEol * ns) / n, vMax, backupPower, vMin);
         if (lasts(np) < backupSeconds) {
           let lo = np; // fails
           let step = 1;
           let hi = -1;
-          while (true) {
+          while (lo < npMax) {
             const next = Math.min(lo + step, npMax);
             if (lasts(next) >= backupSeconds) {
               hi = next;
               break;
             }
-            if (next === npMax) break;
             lo = next;
             step *= 2;
           }
@@ -324,6 +447,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
               tally.missRatio = ratio;
               tally.missDriver = 'backup';
               tally.missLimit = limitBy;
+              tally.missSeries = ns;
             }
             continue;
           }
@@ -346,15 +470,18 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       // one topology when both are the same circuit (a single string or a single group)
       const topologies = ns === 1 || np === 1 ? 1 : 2;
       for (let t = 0; t < topologies; t++) {
-        const boardCount = bd ? (t === TOPO_STRINGS ? boardsPerString * np : boardsPerString) : 0;
+        const boardCount = bd ? (t === TOPO_STRINGS ? perString * np : perString) : 0;
         cCell[count] = ci;
         cNs[count] = ns;
         cNp[count] = np;
         cTopo[count] = t;
+        cLonger[count] = ns > nsSafe ? 1 : 0;
         cBoard[count] = board;
         cBoardCount[count] = boardCount;
-        const resistors = bd ? 0 : t === TOPO_STRINGS ? cellCount : ns;
-        cCost[count] = cellCost + (bd ? boardCount * bd.unitCost : 0) + cellCount * perCellCost + perBankCost + resistors * perResistorCost;
+        // the balancing resistors sizeBalancing fits: none for a single series position
+        const resistors = bd || ns <= 1 ? 0 : t === TOPO_STRINGS ? cellCount : ns;
+        const materials = cellCost + (bd ? boardCount * (bd.unitCost + perBoardCost) : 0) + cellCount * perCellCost + perBankCost + resistors * perResistorCost;
+        cCost[count] = materials * materialsFactor + cellCount * labourPerCell + labourPerBank;
         cMass[count] = mass;
         cVolume[count] = volume;
         cLead[count] = lead;
@@ -363,7 +490,8 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
     }
   }
 
-  // Best `limit` by (cost, mass, volume, lead time, sku, N_s, topology): a small sorted selection.
+  // Best `limit` by (cost, mass, volume, lead time, sku, N_s, topology): a small sorted selection,
+  // or one sort when most candidates are wanted.
   const compare = (a: number, b: number): number => {
     const d =
       (cCost[a] as number) - (cCost[b] as number) ||
@@ -376,41 +504,31 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
     if (skuA !== skuB) return skuA < skuB ? -1 : 1;
     return (cNs[a] as number) - (cNs[b] as number) || (cTopo[a] as number) - (cTopo[b] as number) || a - b;
   };
-  const best: number[] = [];
-  for (let i = 0; i < count && limit > 0; i++) {
-    if (best.length === limit && compare(i, best[limit - 1] as number) >= 0) continue;
-    let pos = best.length;
-    while (pos > 0 && compare(i, best[pos - 1] as number) < 0) pos--;
-    best.splice(pos, 0, i);
-    if (best.length > limit) best.pop();
+  let best: number[] = [];
+  if (limit >= count / 8) {
+    best = Array.from({ length: count }, (_, i) => i).sort(compare);
+    if (best.length > limit) best.length = limit;
+  } else {
+    for (let i = 0; i < count; i++) {
+      if (best.length === limit && compare(i, best[limit - 1] as number) >= 0) continue;
+      let pos = best.length;
+      while (pos > 0 && compare(i, best[pos - 1] as number) < 0) pos--;
+      best.splice(pos, 0, i);
+      if (best.length > limit) best.pop();
+    }
   }
 
   const options = best.map((i) => {
-    // Pareto: no feasible candidate is at least as good in cost, mass and volume and better in one.
-    const cost = cCost[i] as number;
-    const mass = cMass[i] as number;
-    const volume = cVolume[i] as number;
-    let pareto = true;
-    for (let j = 0; j < count; j++) {
-      const cj = cCost[j] as number;
-      const mj = cMass[j] as number;
-      const vj = cVolume[j] as number;
-      if (cj <= cost && mj <= mass && vj <= volume && (cj < cost || mj < mass || vj < volume)) {
-        pareto = false;
-        break;
-      }
-    }
     return buildOption({
       cell: cells[cCell[i] as number] as EngineCell,
       topology: TOPOLOGIES[cTopo[i] as number] as Topology,
       ns: cNs[i] as number,
       np: cNp[i] as number,
-      longerLife: (cNs[i] as number) > Math.max(1, ceilSafe(vMax / (derating * (cells[cCell[i] as number] as EngineCell).ratedVoltage))),
+      longerLife: cLonger[i] === 1,
       board: (cBoard[i] as number) >= 0 ? (boards[cBoard[i] as number] as BalancingBoard) : null,
       boardCount: cBoardCount[i] as number,
-      cost,
+      cost: cCost[i] as number,
       lead: cLead[i] as number,
-      pareto,
       req,
       factors,
       quantity,
@@ -435,6 +553,13 @@ function reasonFor(tech: Technology, tally: TechnologyTally, req: Requirement): 
   if (tally.cells === 0) return `${tech}: no ${tech} cells in the catalog`;
   if (tally.invalid === tally.cells) return `${tech}: no cell has complete electrical data`;
   if (tally.missDriver !== 'none') {
+    const within =
+      tally.missLimit === 'mass'
+        ? fmt(req.maxMass ?? 0, 'kg')
+        : tally.missLimit === 'volume'
+          ? fmt(req.maxVolume ?? 0, 'm³')
+          : `${MAX_CELLS_PER_BANK} cells`;
+    if (tally.missDriver === 'string') return `${tech}: even one string of ${tally.missSeries} cells in series is beyond ${within}`;
     let need: string;
     switch (tally.missDriver) {
       case 'capacitance':
@@ -452,21 +577,19 @@ function reasonFor(tech: Technology, tally: TechnologyTally, req: Requirement): 
       default:
         need = `${fmt(req.peakCurrent?.current ?? 0, 'A')} peak current`;
     }
-    const within =
-      tally.missLimit === 'mass'
-        ? fmt(req.maxMass ?? 0, 'kg')
-        : tally.missLimit === 'volume'
-          ? fmt(req.maxVolume ?? 0, 'm³')
-          : `${MAX_CELLS_PER_BANK} cells`;
     return `${tech}: no cell reaches ${need} within ${within}`;
   }
-  if (tally.board > 0) {
-    return `${tech}: at ${fmt(req.maxVoltage, 'V')} the cells need active balancing and no balancing board in the catalog clamps them`;
-  }
-  if (tally.surge > 0) {
-    return `${tech}: at ${fmt(req.maxVoltage, 'V')} the worst-case charging voltage exceeds every cell's surge rating`;
+  if (tally.seriesBound > 0) {
+    return `${tech}: at ${fmt(req.maxVoltage, 'V')} no cell stays within its ratings in a string of at most ${MAX_SERIES_COUNT.toLocaleString('en-GB')} cells in series (the search's bound)`;
   }
   return `${tech}: no cell fits`;
+}
+
+/** Balancing chain (Infinity when none) and bleeder in parallel; null when the bank has neither. */
+function dischargeResistance(chain: number, bleeder: number | null): number | null {
+  const hasChain = Number.isFinite(chain) && chain > 0;
+  if (bleeder !== null && hasChain) return (chain * bleeder) / (chain + bleeder);
+  return bleeder ?? (hasChain ? chain : null);
 }
 
 function buildOption(a: {
@@ -479,7 +602,6 @@ function buildOption(a: {
   boardCount: number;
   cost: number;
   lead: number;
-  pareto: boolean;
   req: Requirement;
   factors: DesignFactors;
   quantity: number;
@@ -493,9 +615,8 @@ function buildOption(a: {
   const cDesign = (np * cd) / ns;
   const esrNew = (cell.esr * ns) / np;
   const esrEol = esrNew * (1 + factors.esrGrowth);
-  const m = factors.matchingTolerance;
-  const worstCellVoltage = vMax / (1 + (ns - 1) * ((1 - m) / (1 + m)));
-  const storedEnergy = 0.5 * cNominal * vMax * vMax;
+  const worstCellVoltage = worstCaseCellVoltage(vMax, ns, factors.matchingTolerance);
+  const storedEnergy = storedEnergyOf(cNominal, vMax);
 
   const balancing = sizeBalancing({
     topology: a.topology,
@@ -507,8 +628,9 @@ function buildOption(a: {
     balancingFactor: factors.balancingFactor,
     resistorSeries: factors.resistorSeries,
   });
+  const cWorst = cNominal * (1 + cell.tolerancePlus);
   const discharge = sizeBleeder({
-    capacitance: cNominal * (1 + cell.tolerancePlus),
+    capacitance: cWorst,
     maxVoltage: vMax,
     chainResistance: balancing.chainResistance,
     safeVoltage: factors.safeVoltage,
@@ -590,7 +712,7 @@ function buildOption(a: {
     capacitance: { nominal: cNominal, design: cDesign },
     maxVoltage: ns * cell.ratedVoltage,
     storedEnergy,
-    usableEnergy: 0.5 * cDesign * (vMax * vMax - vMin * vMin),
+    usableEnergy: usableEnergyOf(cDesign, vMax, vMin),
     esr: { new: esrNew, endOfLife: esrEol },
     peakDrop: req.peakCurrent ? req.peakCurrent.current * esrEol : null,
     mass: cellCount * cell.mass,
@@ -607,11 +729,13 @@ function buildOption(a: {
     },
     discharge: {
       secondsToSafe: discharge.secondsToSafe,
+      capacitance: cWorst,
+      chainResistance: Number.isFinite(balancing.chainResistance) ? balancing.chainResistance : null,
+      resistance: dischargeResistance(balancing.chainResistance, discharge.bleeder?.resistance ?? null),
       bleeder: discharge.bleeder,
     },
     costEstimate: a.cost,
     leadTimeDays: a.lead,
-    pareto: a.pareto,
     warnings,
     cautions,
   };

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { cleanFileName, contentDisposition, detectAttachmentType, looksExecutable, looksLikeAsciiDxf } from "@/lib/quoting/attachment-type";
+import { cleanFileName, contentDisposition, detectAttachmentType, looksExecutable, looksLikeAsciiDxf } from "@/lib/attachments/content-type";
 
 const bytes = (...parts: (string | number[])[]) => Buffer.concat(parts.map((p) => (typeof p === "string" ? Buffer.from(p, "latin1") : Buffer.from(p))));
 

@@ -1,0 +1,108 @@
+/**
+ * A requirement searched against a shop's catalog and priced by its rules: the one search behind
+ * the public arrangements endpoint, the storefront and quote creation. Pure: the catalog comes in
+ * already loaded (db/queries/catalog.ts loadShopCatalog), so a quote freezes exactly what the
+ * search computed.
+ */
+import { Decimal } from "decimal.js";
+import { searchArrangements, type ArrangementOption, type DesignFactors, type Requirement } from "@/lib/bank";
+import { tryPriceBank, type BankPrice } from "@/lib/pricing";
+import { balancingBoardsOf, billFor, costModelOf, freezeCell, priceLowerBound, SWITCHED_DISCHARGE_NOTE, toEngineCell } from "./bill";
+import { rankPriced, SHOWN } from "./rank";
+import type { CatalogCell, FrozenCell, PricedOption, ShopCatalog } from "./types";
+
+/** What stands behind one shown option: the shop's full price build-up and the cell as it is now. */
+export interface OptionRecord {
+  /** null when the rules could not price the option automatically */
+  price: BankPrice | null;
+  cell: FrozenCell;
+}
+
+export interface PricedSearch {
+  designFactors: DesignFactors;
+  currency: string;
+  /** the best dozen, in exact price order, Pareto-marked: what customers see */
+  options: PricedOption[];
+  /** records[i] stands behind options[i]; staff-only figures, never sent to a customer */
+  records: OptionRecord[];
+  /** when no option fits: what ruled each technology family out */
+  reasons: string[];
+}
+
+/** How many options the first engine pass returns; each further pass doubles it. */
+export const FIRST_CUT = SHOWN * 2;
+
+interface Candidate extends PricedOption {
+  record: OptionRecord;
+}
+
+/**
+ * Searches and prices. The engine returns options in the order of a float cost estimate that the
+ * cost model keeps below the exact cost (bill.ts costModelOf), so priceLowerBound(estimate) is a
+ * floor under the exact price. The options are priced exactly in that order, widening the cut
+ * (24, 48, 96 …) until either every feasible option is priced or the floor of the first unpriced
+ * one is above the 12th best exact price so far. Then no unpriced option can enter the best dozen
+ * or tie with it, nor dominate a shown one (its price would be higher): the dozen and their Pareto
+ * marks are exactly what pricing every option would give (a property test checks this).
+ */
+export function searchPricedOptions(catalog: ShopCatalog, requirement: Requirement): PricedSearch {
+  const { factors, rules } = catalog;
+  const cells = catalog.cells.map(toEngineCell);
+  const byId = new Map(catalog.cells.map((c) => [c.id, c]));
+  const quantity = requirement.quantity ?? 1;
+  const search = (limit: number) =>
+    searchArrangements({ requirement, cells, factors, balancingBoards: balancingBoardsOf(catalog.components), costModel: costModelOf(rules), limit });
+
+  const priced: Candidate[] = [];
+  let width = FIRST_CUT;
+  let result = search(width);
+  for (;;) {
+    for (const option of result.options.slice(priced.length)) priced.push(priceOption(option, byId.get(option.cellId) as CatalogCell, catalog, quantity));
+    if (result.options.length < width) break; // every feasible option is priced
+    const last = result.options[result.options.length - 1] as ArrangementOption;
+    const dozenth = nthLowestPrice(priced, SHOWN);
+    if (dozenth !== null && new Decimal(priceLowerBound(last.costEstimate, rules)).greaterThan(dozenth)) break;
+    width *= 2;
+    result = search(width);
+  }
+
+  const shown = rankPriced(priced, SHOWN);
+  return {
+    designFactors: factors,
+    currency: rules.currency,
+    options: shown.map(({ record: _record, ...option }) => option),
+    records: shown.map((c) => c.record),
+    reasons: result.reasons,
+  };
+}
+
+function priceOption(found: ArrangementOption, cell: CatalogCell, catalog: ShopCatalog, quantity: number): Candidate {
+  const { cellId: _cellId, costEstimate: _costEstimate, ...figures } = found;
+  const record = (price: BankPrice | null): OptionRecord => ({ price, cell: freezeCell(cell) });
+  const priced = tryPriceBank(billFor(found, cell, catalog.components, quantity), catalog.rules);
+  if (!priced.ok) {
+    return { ...figures, price: null, pareto: false, warnings: [...figures.warnings, `Not priced automatically: ${priced.message}`], record: record(null) };
+  }
+  const p = priced.data;
+  const warnings = figures.discharge.bleeder?.switched ? [...figures.warnings, SWITCHED_DISCHARGE_NOTE] : figures.warnings;
+  return {
+    ...figures,
+    warnings,
+    price: { amount: p.total, currency: p.currency, perBank: p.unitPrice, quantity: p.quantity, tax: p.tax, subtotal: p.subtotal },
+    pareto: false,
+    record: record(p),
+  };
+}
+
+/** The n-th lowest per-bank price among the priced candidates, or null when fewer are priced. */
+function nthLowestPrice(candidates: readonly Candidate[], n: number): Decimal | null {
+  const prices = candidates.flatMap((c) => (c.price ? [new Decimal(c.price.perBank)] : []));
+  if (prices.length < n) return null;
+  prices.sort((a, b) => a.comparedTo(b));
+  return prices[n - 1] as Decimal;
+}
+
+/** The option the customer chose, found again among the options the server computes now; -1 when gone. */
+export function indexOfChosen(options: readonly PricedOption[], chosen: { cellSku: string; topology: string; seriesCount: number; parallelCount: number }): number {
+  return options.findIndex((o) => o.cell.sku === chosen.cellSku && o.topology === chosen.topology && o.seriesCount === chosen.seriesCount && o.parallelCount === chosen.parallelCount);
+}

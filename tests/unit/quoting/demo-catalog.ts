@@ -1,0 +1,38 @@
+/**
+ * The demo shops' catalogs (db/seed, invented parts) as loadShopCatalog would return them, without
+ * a database: active rows only, the part number standing in for the row id, default settings.
+ */
+import { kestrelCells, kestrelComponents } from "@/db/seed/catalog-kestrel";
+import { marlowCells, marlowComponents } from "@/db/seed/catalog-marlow";
+import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank";
+import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
+import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
+import type { ShopCatalog } from "@/lib/quoting/types";
+
+const SEEDS = {
+  "kestrel-bank-works": { cells: kestrelCells, components: kestrelComponents, currency: "EUR" },
+  "marlow-pulse": { cells: marlowCells, components: marlowComponents, currency: "GBP" },
+} as const;
+
+export function demoCatalog(slug: keyof typeof SEEDS): ShopCatalog {
+  const seed = SEEDS[slug];
+  return {
+    factors: DEFAULT_DESIGN_FACTORS,
+    rules: { ...DEFAULT_PRICING_RULES, currency: seed.currency },
+    autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS,
+    cells: seed.cells
+      .filter((c) => c.isActive !== false)
+      .map(({ isActive: _a, createdAt: _c, updatedAt: _u, ...c }) => ({
+        ...c,
+        id: c.id ?? c.sku,
+        diameterMm: c.diameterMm ?? null,
+        lengthMm: c.lengthMm ?? null,
+        widthMm: c.widthMm ?? null,
+        stock: c.stock ?? 0,
+        leadTimeDays: c.leadTimeDays ?? 0,
+      })),
+    components: seed.components
+      .filter((c) => c.isActive !== false)
+      .map((c) => ({ id: c.id ?? c.sku, kind: c.kind, sku: c.sku, name: c.name, unitCost: c.unitCost, specs: c.specs ?? {}, leadTimeDays: c.leadTimeDays ?? 0 })),
+  };
+}
