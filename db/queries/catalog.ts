@@ -17,6 +17,16 @@ export async function listActiveComponents(shopId: string) {
     .where(and(eq(catalogComponents.shopId, shopId), eq(catalogComponents.isActive, true)));
 }
 
+/** Active catalog lines per technology, for the storefront's "what we build from". */
+export async function countActiveCellsByTechnology(shopId: string) {
+  return db
+    .select({ technology: catalogCells.technology, lines: count() })
+    .from(catalogCells)
+    .where(and(eq(catalogCells.shopId, shopId), eq(catalogCells.isActive, true)))
+    .groupBy(catalogCells.technology)
+    .orderBy(asc(catalogCells.technology));
+}
+
 export interface CatalogListQuery {
   q: string;
   technology: "all" | "edlc" | "hybrid" | "electrolytic" | "film";

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
 import { db } from "@/db";
-import { members, users } from "@/db/schema";
+import { members, shops, users } from "@/db/schema";
 import type { Role } from "@/lib/auth/permissions";
 import type { MemberListQuery } from "@/lib/validation/auth";
 
@@ -38,6 +38,29 @@ export async function listMembers(shopId: string, q: MemberListQuery): Promise<{
     .innerJoin(users, eq(users.id, members.userId))
     .where(and(...where));
   return { rows, total: totalRow?.n ?? 0 };
+}
+
+/** The member's role in the shop, read from the database on every request; null when not a member. */
+export async function getMemberRole(shopId: string, userId: string): Promise<Role | null> {
+  const [row] = await db
+    .select({ role: members.role })
+    .from(members)
+    .where(and(eq(members.shopId, shopId), eq(members.userId, userId)))
+    .limit(1);
+  return row?.role ?? null;
+}
+
+/**
+ * Every shop a person belongs to, with their role there. The one read across shops: it is keyed by
+ * the signed-in user and hands back only their own memberships.
+ */
+export async function listShopsOfUser(userId: string): Promise<{ slug: string; name: string; role: Role }[]> {
+  return db
+    .select({ slug: shops.slug, name: shops.name, role: members.role })
+    .from(members)
+    .innerJoin(shops, eq(shops.id, members.shopId))
+    .where(eq(members.userId, userId))
+    .orderBy(asc(shops.name));
 }
 
 export async function getMember(shopId: string, memberId: string) {

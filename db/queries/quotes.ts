@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { quoteLines, quoteRevisions, quotes, shops, users } from "@/db/schema";
+import type { OwnerScope } from "@/lib/auth/ownership";
 import type { QuoteListQuery } from "@/lib/validation/quote";
 
 export interface QuoteListRow {
@@ -60,14 +61,9 @@ async function listQuotesWhere(shopId: string, q: QuoteListQuery, customerUserId
   return { rows, total: t?.n ?? 0 };
 }
 
-/** Every quote of the shop (staff). */
-export function listQuotes(shopId: string, q: QuoteListQuery) {
-  return listQuotesWhere(shopId, q);
-}
-
-/** One customer's quotes in the shop. */
-export function listCustomerQuotes(shopId: string, userId: string, q: QuoteListQuery) {
-  return listQuotesWhere(shopId, q, userId);
+/** The shop's quotes the member sees (lib/auth/ownership.ts): all of them, or one customer's own. */
+export function listQuotes(shopId: string, scope: OwnerScope, q: QuoteListQuery) {
+  return listQuotesWhere(shopId, q, scope.all ? undefined : scope.userId);
 }
 
 /** A quote by its number with its current revision's id; null when not in this shop. */

@@ -43,10 +43,6 @@ export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
   customer: ["request:create", "request:read-own", "quote:read-own", "quote:accept", "order:read-own"],
 };
 
-export function isRole(value: unknown): value is Role {
-  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
-}
-
 export function can(role: Role, permission: Permission): boolean {
   return ROLE_PERMISSIONS[role].includes(permission);
 }

@@ -6,7 +6,7 @@ import { getShopSettings } from "@/db/queries/shops";
 import { bankRequests, quoteLines, quoteRevisions, quotes, requestAttachments, shopCounters } from "@/db/schema";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/db/schema/settings";
 import type { Requirement } from "@/lib/bank";
-import type { ActionResult } from "@/lib/auth/shop-action";
+import type { ActionResult } from "@/lib/auth/guards";
 import type { ShopContext } from "@/lib/auth/context";
 import { dispatchOutbox, enqueueQuoteReady } from "@/lib/mail/outbox";
 import { DEFAULT_PRICING_RULES, tryPriceBank, type BankPrice, type PricingRules } from "@/lib/pricing";

@@ -14,7 +14,7 @@ import { GET as pdfRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/pdf/r
 import { GET as quotesRoute } from "@/app/api/v1/shops/[shop]/quotes/route";
 import { chooseArrangement } from "@/app/s/[shop]/actions";
 import { db } from "@/db";
-import { getQuoteByNumber, getRevision, listCustomerQuotes } from "@/db/queries/quotes";
+import { getQuoteByNumber, getRevision, listQuotes } from "@/db/queries/quotes";
 import { listRequests } from "@/db/queries/requests";
 import { bankRequests, catalogCells, emailOutbox, quoteRevisions, quotes, shopSettings, users } from "@/db/schema";
 import { demoPeople } from "@/db/seed/people";
@@ -213,7 +213,7 @@ describe("quotes from a chosen arrangement", () => {
   });
 
   it("the PDF route serves the owner and the shop's staff, and answers 404 to another customer", async () => {
-    const [mine] = (await listCustomerQuotes(kShopId, (await ctxOf(K, kCustomer)).user.id, quoteListQuerySchema.parse({ size: 1 }))).rows;
+    const [mine] = (await listQuotes(kShopId, { all: false, userId: (await ctxOf(K, kCustomer)).user.id }, quoteListQuerySchema.parse({ size: 1 }))).rows;
     if (!mine) throw new Error("no quote yet");
     const call = async (email: string | null, slug = K) => pdfRoute(request(`/api/v1/shops/${slug}/quotes/${mine.number}/pdf`, { cookie: email ? await sessionCookie(email) : "" }), params({ shop: slug, number: mine.number }));
     const own = await call(kCustomer);

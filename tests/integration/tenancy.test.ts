@@ -155,8 +155,8 @@ describe("tenancy", () => {
 
     it("list queries for quotes and requests return only the shop's own rows", async () => {
       const q = { q: "", status: "all" as const, sort: "created" as const, dir: "desc" as const, page: 1, size: 100 };
-      const k = await listQuotes(kShopId, q);
-      const m = await listQuotes(mShopId, q);
+      const k = await listQuotes(kShopId, { all: true }, q);
+      const m = await listQuotes(mShopId, { all: true }, q);
       const mIds = new Set(m.rows.map((r) => r.id));
       expect(k.rows.some((r) => mIds.has(r.id))).toBe(false);
       const kr = await listRequests(kShopId, { status: "all", sort: "created", dir: "desc", page: 1, size: 100 });

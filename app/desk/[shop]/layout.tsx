@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { SignOutButton } from "@/components/auth/sign-out-button";
 import { Logo } from "@/components/brand/logo";
-import { requireShopPage } from "@/lib/auth/context";
+import { requireShopPage } from "@/lib/auth/guards";
 import { can, ROLE_LABELS } from "@/lib/auth/permissions";
 import { DeskNav } from "./_components/desk-nav";
 import { DESK_SECTIONS } from "./_components/desk-sections";

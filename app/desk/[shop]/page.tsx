@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { requireShopPage } from "@/lib/auth/context";
+import { requireShopPage } from "@/lib/auth/guards";
 import { can, ROLE_LABELS } from "@/lib/auth/permissions";
 import { DESK_SECTIONS } from "./_components/desk-sections";
 

@@ -3,7 +3,7 @@ import { z } from "zod";
 import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { listCatalogCells } from "@/db/queries/catalog";
 import { getShopSettings } from "@/db/queries/shops";
-import { requireShopPage } from "@/lib/auth/context";
+import { requireShopPage } from "@/lib/auth/guards";
 import { formatMoney } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
 

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { countOutboxByStatus, listOutbox } from "@/db/queries/outbox";
-import { requireShopPage } from "@/lib/auth/context";
+import { requireShopPage } from "@/lib/auth/guards";
 import { outboxListSchema } from "@/lib/validation/outbox";
 import { OutboxStatus } from "./_components/outbox-status";
 

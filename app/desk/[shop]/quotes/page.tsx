@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { listQuotes } from "@/db/queries/quotes";
-import { requireShopPage } from "@/lib/auth/context";
+import { requireShopPage } from "@/lib/auth/guards";
 import { formatMoney } from "@/lib/pricing";
 import { quoteListQuerySchema } from "@/lib/validation/quote";
 
@@ -14,7 +14,7 @@ export default async function DeskQuotesPage({ params, searchParams }: { params:
   const { shop } = await params;
   const ctx = await requireShopPage(shop, "quote:read-all");
   const q = quoteListQuerySchema.parse(await searchParams);
-  const { rows, total } = await listQuotes(ctx.shop.id, q);
+  const { rows, total } = await listQuotes(ctx.shop.id, { all: true }, q);
   const base = `/desk/${shop}/quotes`;
   const keep = { q: q.q, status: q.status === "all" ? undefined : q.status, sort: q.sort, dir: q.dir, size: q.size === 20 ? undefined : q.size };
   return (

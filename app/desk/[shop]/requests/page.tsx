@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { listRequests } from "@/db/queries/requests";
-import { requireShopPage } from "@/lib/auth/context";
+import { requireShopPage } from "@/lib/auth/guards";
 import { formatQuantity } from "@/lib/quantities";
 import { requestListQuerySchema } from "@/lib/validation/quote";
 

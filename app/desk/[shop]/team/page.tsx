@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { listMembers } from "@/db/queries/members";
-import { requireShopPage } from "@/lib/auth/context";
+import { requireShopPage } from "@/lib/auth/guards";
 import { ROLE_LABELS } from "@/lib/auth/permissions";
 import { memberListSchema } from "@/lib/validation/auth";
 import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";

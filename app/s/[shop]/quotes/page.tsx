@@ -1,22 +1,20 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
 import { Suspense } from "react";
 import { QueryProvider } from "@/components/providers/query-provider";
 import { QuoteTable } from "@/components/quotes/quote-table";
-import { listCustomerQuotes, listQuotes } from "@/db/queries/quotes";
-import { requireShopPage } from "@/lib/auth/context";
-import { quoteScope } from "@/lib/quoting/access";
+import { listQuotes } from "@/db/queries/quotes";
+import { requireShopPage } from "@/lib/auth/guards";
+import { ownerScope, reads } from "@/lib/auth/ownership";
 import { quoteListQuerySchema } from "@/lib/validation/quote";
 
 export const metadata: Metadata = { title: "My quotes" };
 
 export default async function MyQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
   const { shop } = await params;
-  const ctx = await requireShopPage(shop, undefined, `/s/${shop}/quotes`);
-  const scope = quoteScope(ctx);
-  if (!scope) notFound();
+  const ctx = await requireShopPage(shop, reads("quote"), `/s/${shop}/quotes`);
+  const scope = ownerScope(ctx, "quote");
   const q = quoteListQuerySchema.parse(await searchParams);
-  const first = scope.all ? await listQuotes(ctx.shop.id, q) : await listCustomerQuotes(ctx.shop.id, scope.userId, q);
+  const first = await listQuotes(ctx.shop.id, scope, q);
   const initial = { total: first.total, rows: first.rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })) };
   return (
     <div className="space-y-6">

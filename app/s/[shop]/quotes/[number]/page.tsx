@@ -3,8 +3,8 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { QuoteView } from "@/components/quotes/quote-view";
 import { getQuoteByNumber, getRevision } from "@/db/queries/quotes";
-import { requireShopPage } from "@/lib/auth/context";
-import { maySeeOwned, quoteScope } from "@/lib/quoting/access";
+import { requireShopPage } from "@/lib/auth/guards";
+import { maySee, reads } from "@/lib/auth/ownership";
 import { toQuoteDocument } from "@/lib/quoting/quote-document";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
 
@@ -16,10 +16,9 @@ export async function generateMetadata({ params }: { params: Promise<{ number: s
 /** One quote: its owner or the shop's staff see it; anyone else gets "not found". */
 export default async function QuotePage({ params }: { params: Promise<{ shop: string; number: string }> }) {
   const { shop, number } = await params;
-  const ctx = await requireShopPage(shop, undefined, `/s/${shop}/quotes/${number}`);
-  if (!quoteScope(ctx) || !isQuoteNumber(number)) notFound();
-  const quote = await getQuoteByNumber(ctx.shop.id, number);
-  if (!quote || !maySeeOwned(ctx, quote.customerUserId)) notFound();
+  const ctx = await requireShopPage(shop, reads("quote"), `/s/${shop}/quotes/${number}`);
+  const quote = isQuoteNumber(number) ? await getQuoteByNumber(ctx.shop.id, number) : null;
+  if (!quote || !maySee(ctx, "quote", quote.customerUserId)) notFound();
   const rev = await getRevision(ctx.shop.id, quote.revisionId);
   if (!rev) notFound();
   const doc = toQuoteDocument(rev);

@@ -1,5 +1,6 @@
 import { createAttachment } from "@/db/queries/attachments";
-import { jsonError, withShopApi } from "@/lib/auth/api";
+import { withShopApi } from "@/lib/auth/guards";
+import { jsonError } from "@/lib/http/json-error";
 import { readBodyLimited } from "@/lib/http/read-json";
 import { storeAttachmentBytes } from "@/lib/quoting/attachment-store";
 import { MAX_ATTACHMENT_BYTES, cleanFileName, detectAttachmentType } from "@/lib/quoting/attachment-type";

@@ -1,5 +1,6 @@
 import { listMembers } from "@/db/queries/members";
-import { jsonError, withShopApi } from "@/lib/auth/api";
+import { withShopApi } from "@/lib/auth/guards";
+import { jsonError } from "@/lib/http/json-error";
 import { memberListSchema } from "@/lib/validation/auth";
 
 /** GET /api/v1/shops/{shop}/members — the team list for managers: { rows, total }. */
