@@ -3,11 +3,11 @@ import { createColumnHelper } from "@tanstack/react-table";
 import Link from "next/link";
 import type { QuoteListRow } from "@/db/queries/quotes";
 import { formatMoney } from "@/lib/pricing";
+import { QUOTE_STATUS_LABELS } from "@/lib/vocabulary";
 
 /** A quote row as it arrives in JSON (dates as strings). */
 export type QuoteListItem = Omit<QuoteListRow, "createdAt"> & { createdAt: string };
 
-const STATUS_LABELS: Record<QuoteListItem["status"], string> = { issued: "Issued", accepted: "Accepted", expired: "Expired", withdrawn: "Withdrawn" };
 
 const column = createColumnHelper<QuoteListItem>();
 
@@ -25,7 +25,7 @@ export function quoteColumns(shop: string, showCustomer: boolean) {
     }),
     column.accessor("revision", { id: "revision", header: "Revision", enableSorting: false, cell: (c) => `r${c.getValue()}` }),
     ...(showCustomer ? [column.accessor("customerName", { id: "customer", header: "Customer", enableSorting: false })] : []),
-    column.accessor("status", { id: "status", header: "Status", enableSorting: false, cell: (c) => STATUS_LABELS[c.getValue()] }),
+    column.accessor("status", { id: "status", header: "Status", enableSorting: false, cell: (c) => QUOTE_STATUS_LABELS[c.getValue()] }),
     column.accessor("quantity", { id: "quantity", header: "Banks", enableSorting: false }),
     column.accessor("total", { id: "total", header: "Total", cell: (c) => <span className="num">{formatMoney(c.getValue(), c.row.original.currency)}</span> }),
     column.accessor("validUntil", { id: "validUntil", header: "Valid until", cell: (c) => <span className="num">{c.getValue()}</span> }),

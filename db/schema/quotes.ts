@@ -1,10 +1,11 @@
 import { sql } from "drizzle-orm";
 import { date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { Requirement } from "@/lib/bank/types";
+import { QUOTE_STATUSES, REQUEST_STATUSES } from "../../lib/vocabulary";
 import { shops, users } from "./auth";
 
-export const requestStatusEnum = pgEnum("request_status", ["quoted", "needs-review", "closed"]);
-export const quoteStatusEnum = pgEnum("quote_status", ["issued", "accepted", "expired", "withdrawn"]);
+export const requestStatusEnum = pgEnum("request_status", REQUEST_STATUSES);
+export const quoteStatusEnum = pgEnum("quote_status", QUOTE_STATUSES);
 export const priceLineKindEnum = pgEnum("price_line_kind", ["material", "labour", "overhead"]);
 
 /** What a customer asked for (DESIGN.md §3.2), kept with what the engine and the shop did with it. */

@@ -49,9 +49,3 @@ export function can(role: Role, permission: Permission): boolean {
 
 /** Role changes a manager may make from the team page (DESIGN: estimator ↔ customer). */
 export const ASSIGNABLE_ROLES = ["estimator", "customer"] as const satisfies readonly Role[];
-
-export const ROLE_LABELS: Record<Role, string> = {
-  manager: "Manager",
-  estimator: "Estimator",
-  customer: "Customer",
-};

@@ -1,7 +1,8 @@
 import { z } from "zod";
 import { ASSIGNABLE_ROLES } from "@/lib/auth/permissions";
+import { SHOP_CURRENCIES } from "@/lib/vocabulary";
+import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "./limits";
 
-export const MIN_PASSWORD = 10;
 export const RESERVED_SLUGS = ["api", "desk", "s", "admin", "sign-in", "sign-up", "open-shop", "new", "settings", "faradsmith"];
 
 /** Why a slug is unusable, or null when it is fine. Shared by the form and the server. */
@@ -39,8 +40,8 @@ const name = z.string().trim().min(2, "Enter your name (at least 2 characters)."
 const email = z.string().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@example.com."));
 const password = z
   .string()
-  .min(MIN_PASSWORD, `At least ${MIN_PASSWORD} characters.`)
-  .max(128, "At most 128 characters.");
+  .min(PASSWORD_MIN_LENGTH, `At least ${PASSWORD_MIN_LENGTH} characters.`)
+  .max(PASSWORD_MAX_LENGTH, `At most ${PASSWORD_MAX_LENGTH} characters.`);
 
 export const signInSchema = z.object({
   email,
@@ -54,7 +55,7 @@ export const openShopSchema = z.object({
   password,
   shopName: z.string().trim().min(2, "Enter the shop's name (at least 2 characters).").max(80, "At most 80 characters."),
   slug: slugSchema,
-  currency: z.enum(["EUR", "USD", "GBP", "CHF", "JPY", "KWD"], { message: "Choose a currency." }),
+  currency: z.enum(SHOP_CURRENCIES, { message: "Choose a currency." }),
 });
 export type OpenShopInput = z.infer<typeof openShopSchema>;
 

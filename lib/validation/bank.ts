@@ -1,10 +1,12 @@
 import { z } from 'zod';
-import type { NetworkNode, Requirement } from '../bank/types';
+import { TECHNOLOGIES, type NetworkNode, type Requirement } from '../bank/types';
+import { MAX_CELLS_PER_BANK } from '../bank/arrangements';
+import { MAX_QUANTITY } from './limits';
 
 /** Deepest network accepted (levels of groups and cells, the root is level 1). */
 export const MAX_NETWORK_DEPTH = 64;
-/** Most cells in one network. */
-export const MAX_NETWORK_CELLS = 20_000;
+/** Most cells in one network: as many as one bank may hold. */
+export const MAX_NETWORK_CELLS = MAX_CELLS_PER_BANK;
 /** Most nodes (cells and groups) in one network. */
 export const MAX_NETWORK_NODES = 100_000;
 
@@ -37,7 +39,7 @@ export const evaluateNetworkSchema = z.strictObject({
 
 export type EvaluateNetworkInput = z.infer<typeof evaluateNetworkSchema>;
 
-export const technologySchema = z.enum(['edlc', 'hybrid', 'electrolytic', 'film']);
+export const technologySchema = z.enum(TECHNOLOGIES);
 
 export const arrangementRequestSchema = z
   .strictObject({
@@ -49,7 +51,7 @@ export const arrangementRequestSchema = z
     peakCurrent: z.strictObject({ current: positive, maxDrop: positive }).optional(),
     maxMass: positive.optional(),
     maxVolume: positive.optional(),
-    quantity: z.number().int().min(1).max(100_000).default(1),
+    quantity: z.number().int().min(1).max(MAX_QUANTITY).default(1),
     technology: technologySchema.optional(),
   })
   .superRefine((value, ctx) => {

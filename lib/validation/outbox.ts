@@ -1,6 +1,5 @@
 import { z } from "zod";
-
-export const OUTBOX_STATUSES = ["waiting", "sent", "failed"] as const;
+import { OUTBOX_STATUSES } from "@/lib/vocabulary";
 
 /** The desk's outbox list: filter, sort and page, all from the URL. */
 export const outboxListSchema = z.object({

@@ -1,7 +1,9 @@
 import { z } from "zod";
+import { TOPOLOGIES } from "@/lib/bank/types";
 import { arrangementRequestSchema } from "./bank";
+import { MAX_ATTACHMENTS_PER_REQUEST, MAX_NOTES_LENGTH } from "./limits";
 
-export const topologySchema = z.enum(["series-of-parallel-groups", "parallel-of-series-strings"]);
+export const topologySchema = z.enum(TOPOLOGIES);
 
 /** The option a customer picked, as its identity only: the server re-prices it from the catalog. */
 export const chosenOptionSchema = z.object({
@@ -18,10 +20,15 @@ export const chosenOptionSchema = z.object({
 export const chooseArrangementSchema = z.object({
   idempotencyKey: z.string().uuid(),
   requirement: arrangementRequestSchema,
-  notes: z.string().max(4000).default(""),
-  attachmentIds: z.array(z.string().uuid()).max(10).default([]),
+  notes: z.string().max(MAX_NOTES_LENGTH).default(""),
+  attachmentIds: z.array(z.string().uuid()).max(MAX_ATTACHMENTS_PER_REQUEST).default([]),
   option: chosenOptionSchema.optional(),
 });
+
+/** The identity of an option: what the customer chooses and the server finds again. */
+export function optionId(o: { cell: { sku: string }; topology: string; seriesCount: number; parallelCount: number }): string {
+  return `${o.cell.sku}|${o.topology}|${o.seriesCount}|${o.parallelCount}`;
+}
 
 export type ChooseArrangementInput = z.infer<typeof chooseArrangementSchema>;
 export type ChosenOption = z.infer<typeof chosenOptionSchema>;

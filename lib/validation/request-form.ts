@@ -2,6 +2,7 @@ import { z } from 'zod';
 import type { Requirement, Technology } from '../bank/types';
 import { parseQuantity, type QuantityUnit } from '../quantities';
 import { technologySchema } from './bank';
+import { MAX_NOTES_LENGTH, MAX_QUANTITY } from './limits';
 
 /**
  * The storefront's request form: what people type (`48 V`, `20 kJ`, `470 µF`, `5 kW`, `30 s`,
@@ -12,9 +13,6 @@ import { technologySchema } from './bank';
 export const SIZE_FOR = ['capacitance', 'energy', 'backup'] as const;
 export type SizeFor = (typeof SIZE_FOR)[number];
 
-/** Most banks one request may ask for (the arrangement request's bound). */
-export const MAX_QUANTITY = 100_000;
-export const MAX_NOTES = 4000;
 
 const text = z.string().max(60, 'Keep this under 60 characters');
 
@@ -32,7 +30,7 @@ export const requestFormFieldsSchema = z.object({
   maxVolume: text,
   quantity: text,
   technology: z.union([z.literal(''), technologySchema], { message: 'Choose a technology from the list' }),
-  notes: z.string().max(MAX_NOTES, `Keep the notes under ${MAX_NOTES} characters`),
+  notes: z.string().max(MAX_NOTES_LENGTH, `Keep the notes under ${MAX_NOTES_LENGTH} characters`),
 });
 
 export type RequestFormValues = z.infer<typeof requestFormFieldsSchema>;

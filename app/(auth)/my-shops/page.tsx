@@ -5,7 +5,7 @@ import { Logo } from "@/components/brand/logo";
 import { SignOutButton } from "@/components/auth/sign-out-button";
 import { listShopsOfUser } from "@/db/queries/members";
 import { getSessionUser } from "@/lib/auth/context";
-import { ROLE_LABELS } from "@/lib/auth/permissions";
+import { ROLE_LABELS } from "@/lib/vocabulary";
 
 export const metadata: Metadata = { title: "Your shops" };
 

@@ -2,7 +2,7 @@ import { notFound } from "next/navigation";
 import { countActiveCellsByTechnology } from "@/db/queries/catalog";
 import { getShopSettings } from "@/db/queries/shops";
 import { getShopContext } from "@/lib/auth/context";
-import { TECH_LABELS } from "./_components/labels";
+import { TECHNOLOGY_LABELS } from "@/lib/vocabulary";
 import { StorefrontJourney } from "./_components/storefront-journey";
 import type { Viewer } from "./_components/viewer";
 
@@ -34,7 +34,7 @@ export default async function StorefrontPage({ params, searchParams }: { params:
           {families.map((f) => (
             <li key={f.technology} className="rounded-lg bg-white p-4 ring-1 ring-ink-100">
               <p className="text-2xl font-semibold num">{f.lines}</p>
-              <p className="text-sm text-ink-600">{TECH_LABELS[f.technology]}</p>
+              <p className="text-sm text-ink-600">{TECHNOLOGY_LABELS[f.technology]}</p>
             </li>
           ))}
         </ul>

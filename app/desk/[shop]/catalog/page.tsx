@@ -5,7 +5,9 @@ import { listCatalogCells } from "@/db/queries/catalog";
 import { getShopSettings } from "@/db/queries/shops";
 import { requireShopPage } from "@/lib/auth/guards";
 import { formatMoney } from "@/lib/pricing";
+import { TECHNOLOGIES } from "@/lib/bank/types";
 import { formatQuantity } from "@/lib/quantities";
+import { TECHNOLOGY_LABELS, TECHNOLOGY_SHORT } from "@/lib/vocabulary";
 
 export const metadata: Metadata = { title: "Catalog" };
 
@@ -18,7 +20,6 @@ const querySchema = z.object({
   size: z.coerce.number().int().min(5).max(100).optional().default(25),
 });
 
-const TECH = { edlc: "EDLC", hybrid: "Hybrid", electrolytic: "Electrolytic", film: "Film" } as const;
 
 export default async function CatalogPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
   const { shop } = await params;
@@ -38,7 +39,7 @@ export default async function CatalogPage({ params, searchParams }: { params: Pr
       <FilterForm
         fields={[
           { name: "q", label: "SKU, maker or family", value: q.q },
-          { name: "technology", label: "Technology", value: q.technology, options: [{ value: "all", label: "All" }, ...Object.entries(TECH).map(([value, label]) => ({ value, label }))] },
+          { name: "technology", label: "Technology", value: q.technology, options: [{ value: "all", label: "All" }, ...TECHNOLOGIES.map((t) => ({ value: t, label: TECHNOLOGY_LABELS[t] }))] },
         ]}
         sort={q.sort}
         dir={q.dir}
@@ -66,7 +67,7 @@ export default async function CatalogPage({ params, searchParams }: { params: Pr
                 <tr key={c.id} className={`border-t border-ink-100 ${c.isActive ? "" : "text-ink-400"}`}>
                   <td className="px-3 py-2 font-mono text-xs">{c.sku}{c.isActive ? "" : " (inactive)"}</td>
                   <td className="px-3 py-2">{c.manufacturer} · {c.series}</td>
-                  <td className="px-3 py-2">{TECH[c.technology]}</td>
+                  <td className="px-3 py-2" title={TECHNOLOGY_LABELS[c.technology]}>{TECHNOLOGY_SHORT[c.technology]}</td>
                   <td className="whitespace-nowrap px-3 py-2 num">{formatQuantity(c.capacitanceF, "F")} <span className="text-ink-400">−{c.toleranceMinusPct}/+{c.tolerancePlusPct} %</span></td>
                   <td className="whitespace-nowrap px-3 py-2 num">{formatQuantity(c.ratedVoltageV, "V")}</td>
                   <td className="whitespace-nowrap px-3 py-2 num">{formatQuantity(c.esrOhm, "Ω")}</td>

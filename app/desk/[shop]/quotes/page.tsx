@@ -5,10 +5,10 @@ import { listQuotes } from "@/db/queries/quotes";
 import { requireShopPage } from "@/lib/auth/guards";
 import { formatMoney } from "@/lib/pricing";
 import { quoteListQuerySchema } from "@/lib/validation/quote";
+import { QUOTE_STATUS_LABELS } from "@/lib/vocabulary";
 
 export const metadata: Metadata = { title: "Quotes" };
 
-const STATUS_LABELS = { issued: "Issued", accepted: "Accepted", expired: "Expired", withdrawn: "Withdrawn" } as const;
 
 export default async function DeskQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
   const { shop } = await params;
@@ -58,7 +58,7 @@ export default async function DeskQuotesPage({ params, searchParams }: { params:
                     {r.customerName}
                     <span className="block text-xs text-ink-500">{r.customerEmail}</span>
                   </td>
-                  <td className="px-3 py-2">{STATUS_LABELS[r.status]}</td>
+                  <td className="px-3 py-2">{QUOTE_STATUS_LABELS[r.status]}</td>
                   <td className="num px-3 py-2 text-right">{r.quantity}</td>
                   <td className="num px-3 py-2">{formatMoney(r.total, r.currency)}</td>
                   <td className="num px-3 py-2">{r.validUntil}</td>

@@ -5,13 +5,18 @@ import { listRequests } from "@/db/queries/requests";
 import { requireShopPage } from "@/lib/auth/guards";
 import { formatQuantity } from "@/lib/quantities";
 import { requestListQuerySchema } from "@/lib/validation/quote";
+import { REQUEST_STATUS_LABELS, type RequestStatus } from "@/lib/vocabulary";
 
 export const metadata: Metadata = { title: "Requests" };
 
-function StatusBadge({ status }: { status: "quoted" | "needs-review" | "closed" }) {
-  if (status === "needs-review") return <span className="inline-flex whitespace-nowrap rounded-full bg-hazard-100 px-2 py-0.5 text-xs font-semibold text-hazard-700 ring-1 ring-hazard-500">Needs review</span>;
-  if (status === "quoted") return <span className="inline-flex rounded-full bg-charge-100 px-2 py-0.5 text-xs font-medium text-charge-700">Quoted</span>;
-  return <span className="inline-flex rounded-full bg-ink-100 px-2 py-0.5 text-xs font-medium text-ink-700">Closed</span>;
+const BADGE: Record<RequestStatus, string> = {
+  "needs-review": "font-semibold bg-hazard-100 text-hazard-700 ring-1 ring-hazard-500",
+  quoted: "font-medium bg-charge-100 text-charge-700",
+  closed: "font-medium bg-ink-100 text-ink-700",
+};
+
+function StatusBadge({ status }: { status: RequestStatus }) {
+  return <span className={`inline-flex whitespace-nowrap rounded-full px-2 py-0.5 text-xs ${BADGE[status]}`}>{REQUEST_STATUS_LABELS[status]}</span>;
 }
 
 export default async function DeskRequestsPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {

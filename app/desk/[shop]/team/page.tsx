@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { listMembers } from "@/db/queries/members";
 import { requireShopPage } from "@/lib/auth/guards";
-import { ROLE_LABELS } from "@/lib/auth/permissions";
+import { ROLE_LABELS } from "@/lib/vocabulary";
 import { memberListSchema } from "@/lib/validation/auth";
 import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
 import { RoleSelect } from "./_components/role-select";

@@ -1,10 +1,10 @@
 "use client";
 import Link from "next/link";
 import { useId, useState } from "react";
+import { MAX_ATTACHMENT_SIZE_TEXT, MAX_ATTACHMENTS_PER_REQUEST } from "@/lib/validation/limits";
 import type { UploadedFile } from "./saved-request";
 import type { Viewer } from "./viewer";
 
-const MAX_FILES = 10;
 
 function size(bytes: number): string {
   if (bytes >= 1024 * 1024) return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
@@ -30,7 +30,7 @@ export function AttachmentsField({ slug, viewer, files, onChange }: { slug: stri
               <Link className="font-medium text-copper-700 hover:underline" href={`/sign-in?shop=${slug}&next=${encodeURIComponent(`/s/${slug}`)}`}>
                 Sign in
               </Link>{" "}
-              to attach drawings (PDF, PNG, JPEG or DXF, up to 10 MB each). What you typed here is kept.
+              to attach drawings (PDF, PNG, JPEG or DXF, up to {MAX_ATTACHMENT_SIZE_TEXT} each). What you typed here is kept.
             </>
           )}
         </p>
@@ -45,8 +45,8 @@ export function AttachmentsField({ slug, viewer, files, onChange }: { slug: stri
     const added: UploadedFile[] = [];
     try {
       for (const file of Array.from(list)) {
-        if (files.length + added.length >= MAX_FILES) {
-          setError(`At most ${MAX_FILES} files per request.`);
+        if (files.length + added.length >= MAX_ATTACHMENTS_PER_REQUEST) {
+          setError(`At most ${MAX_ATTACHMENTS_PER_REQUEST} files per request.`);
           break;
         }
         const body = new FormData();
@@ -86,7 +86,7 @@ export function AttachmentsField({ slug, viewer, files, onChange }: { slug: stri
         }}
       />
       <p id={`${id}-hint`} className="text-xs text-ink-500">
-        PDF, PNG, JPEG or DXF, up to 10 MB each; checked by content. Only you and the shop&apos;s staff can open them.
+        PDF, PNG, JPEG or DXF, up to {MAX_ATTACHMENT_SIZE_TEXT} each; checked by content. Only you and the shop&apos;s staff can open them.
       </p>
       {busy ? <p className="text-xs text-ink-600">Uploading…</p> : null}
       {error ? (

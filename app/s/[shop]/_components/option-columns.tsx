@@ -4,7 +4,7 @@ import { Decimal } from "decimal.js";
 import type { PricedOption } from "@/lib/quoting/arrangements";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatQuantity } from "@/lib/quantities";
-import { arrangementLabel, TECH_LABELS, TECH_SHORT, TOPOLOGY_LABELS } from "./labels";
+import { arrangementLabel, TECHNOLOGY_LABELS, TECHNOLOGY_SHORT, TOPOLOGY_LABELS } from "@/lib/vocabulary";
 
 const col = createColumnHelper<PricedOption>();
 
@@ -24,8 +24,8 @@ export function optionColumns(currency: string) {
       cell: (c) => (
         <span>
           <span className="whitespace-nowrap font-mono text-xs font-medium">{c.row.original.cell.sku}</span>
-          <span className="block text-xs text-ink-500" title={TECH_LABELS[c.row.original.cell.technology]}>
-            {TECH_SHORT[c.row.original.cell.technology]}
+          <span className="block text-xs text-ink-500" title={TECHNOLOGY_LABELS[c.row.original.cell.technology]}>
+            {TECHNOLOGY_SHORT[c.row.original.cell.technology]}
           </span>
         </span>
       ),
