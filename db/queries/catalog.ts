@@ -1,7 +1,9 @@
 import "server-only";
-import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
+import { and, asc, count, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { catalogCells, catalogComponents } from "@/db/schema";
+import type { CatalogListQuery } from "@/lib/validation/lists";
+import { containsText, readPage, sortedBy } from "./paging";
 
 export async function listActiveCells(shopId: string) {
   return db
@@ -27,36 +29,33 @@ export async function countActiveCellsByTechnology(shopId: string) {
     .orderBy(asc(catalogCells.technology));
 }
 
-export interface CatalogListQuery {
-  q: string;
-  technology: "all" | "edlc" | "hybrid" | "electrolytic" | "film";
-  sort: "sku" | "capacitance" | "voltage" | "cost" | "stock";
-  dir: "asc" | "desc";
-  page: number;
-  size: number;
-}
+const CATALOG_SORTS = {
+  sku: catalogCells.sku,
+  capacitance: catalogCells.capacitanceF,
+  voltage: catalogCells.ratedVoltageV,
+  esr: catalogCells.esrOhm,
+  cost: catalogCells.unitCost,
+  stock: catalogCells.stock,
+  lead: catalogCells.leadTimeDays,
+};
 
+/** A page of the shop's catalog cells (active or not), filtered and sorted; ties by SKU. */
 export async function listCatalogCells(shopId: string, q: CatalogListQuery) {
-  const where: SQL[] = [eq(catalogCells.shopId, shopId)];
-  if (q.technology !== "all") where.push(eq(catalogCells.technology, q.technology));
-  if (q.q) {
-    const like = `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
-    where.push(or(ilike(catalogCells.sku, like), ilike(catalogCells.manufacturer, like), ilike(catalogCells.series, like))!);
-  }
-  const column = {
-    sku: catalogCells.sku,
-    capacitance: catalogCells.capacitanceF,
-    voltage: catalogCells.ratedVoltageV,
-    cost: catalogCells.unitCost,
-    stock: catalogCells.stock,
-  }[q.sort];
-  const rows = await db
-    .select()
-    .from(catalogCells)
-    .where(and(...where))
-    .orderBy(q.dir === "asc" ? asc(column) : desc(column), asc(catalogCells.id))
-    .limit(q.size)
-    .offset((q.page - 1) * q.size);
-  const [t] = await db.select({ n: count() }).from(catalogCells).where(and(...where));
-  return { rows, total: t?.n ?? 0 };
+  const where = and(
+    eq(catalogCells.shopId, shopId),
+    q.technology === "all" ? undefined : eq(catalogCells.technology, q.technology),
+    containsText(q.q, catalogCells.sku, catalogCells.manufacturer, catalogCells.series),
+  );
+  return readPage(
+    q,
+    () => db.select({ n: count() }).from(catalogCells).where(where),
+    (limit, offset) =>
+      db
+        .select()
+        .from(catalogCells)
+        .where(where)
+        .orderBy(...sortedBy(CATALOG_SORTS, q, asc(catalogCells.sku), asc(catalogCells.id)))
+        .limit(limit)
+        .offset(offset),
+  );
 }

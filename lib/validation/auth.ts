@@ -72,13 +72,3 @@ export const changeMemberRoleSchema = z.object({
   role: z.enum(ASSIGNABLE_ROLES, { message: "Choose estimator or customer." }),
 });
 export type ChangeMemberRoleInput = z.infer<typeof changeMemberRoleSchema>;
-
-export const memberListSchema = z.object({
-  q: z.string().trim().max(100).optional().default(""),
-  role: z.enum(["all", "manager", "estimator", "customer"]).optional().default("all"),
-  sort: z.enum(["name", "email", "role", "joined"]).optional().default("name"),
-  dir: z.enum(["asc", "desc"]).optional().default("asc"),
-  page: z.coerce.number().int().min(1).optional().default(1),
-  size: z.coerce.number().int().min(5).max(100).optional().default(20),
-});
-export type MemberListQuery = z.infer<typeof memberListSchema>;

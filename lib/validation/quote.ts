@@ -32,26 +32,3 @@ export function optionId(o: { cell: { sku: string }; topology: string; seriesCou
 
 export type ChooseArrangementInput = z.infer<typeof chooseArrangementSchema>;
 export type ChosenOption = z.infer<typeof chosenOptionSchema>;
-
-/** Quote lists: page, sort and filter as they appear in the URL. */
-export const quoteListQuerySchema = z.object({
-  q: z.string().trim().max(100).catch(""),
-  status: z.enum(["all", "issued", "accepted", "expired", "withdrawn"]).catch("all"),
-  sort: z.enum(["number", "created", "total", "validUntil"]).catch("created"),
-  dir: z.enum(["asc", "desc"]).catch("desc"),
-  page: z.coerce.number().int().min(1).max(10_000).catch(1),
-  size: z.coerce.number().int().min(1).max(100).catch(20),
-});
-
-export type QuoteListQuery = z.infer<typeof quoteListQuerySchema>;
-
-/** Request lists on the desk. */
-export const requestListQuerySchema = z.object({
-  status: z.enum(["all", "quoted", "needs-review", "closed"]).catch("all"),
-  sort: z.enum(["created", "status", "voltage"]).catch("created"),
-  dir: z.enum(["asc", "desc"]).catch("desc"),
-  page: z.coerce.number().int().min(1).max(10_000).catch(1),
-  size: z.coerce.number().int().min(1).max(100).catch(20),
-});
-
-export type RequestListQuery = z.infer<typeof requestListQuerySchema>;

@@ -19,7 +19,7 @@ import { startMailWorker, stopMailWorker } from "@/lib/mail/worker";
 import { findArrangements } from "@/lib/quoting/arrangements";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { chooseArrangementSchema } from "@/lib/validation/quote";
-import { outboxListSchema } from "@/lib/validation/outbox";
+import { outboxList } from "@/lib/validation/lists";
 import { shopBySlug } from "./helpers";
 
 // The SMTP stand-in here is maildev (npm), started by this file on ports of its own so that it
@@ -243,9 +243,9 @@ describe("the desk's outbox list", () => {
   it("shows a shop only its own messages; another shop's row is not found", async () => {
     const kestrel = await shopBySlug(K);
     const marlow = await shopBySlug(M);
-    const mine = await listOutbox(kestrel.id, outboxListSchema.parse({ size: 100 }));
+    const mine = await listOutbox(kestrel.id, outboxList.parse({ size: "100" }).query);
     expect(mine.total).toBeGreaterThanOrEqual(3);
-    const theirs = await listOutbox(marlow.id, outboxListSchema.parse({ size: 100 }));
+    const theirs = await listOutbox(marlow.id, outboxList.parse({ size: "100" }).query);
     const mineIds = new Set(mine.rows.map((r) => r.id));
     expect(theirs.rows.some((r) => mineIds.has(r.id))).toBe(false);
     const someRow = mine.rows[0]!;
@@ -255,15 +255,15 @@ describe("the desk's outbox list", () => {
 
   it("filters by state and by recipient or subject, and sorts by attempts", async () => {
     const kestrel = await shopBySlug(K);
-    const failed = await listOutbox(kestrel.id, outboxListSchema.parse({ status: "failed", size: 100 }));
+    const failed = await listOutbox(kestrel.id, outboxList.parse({ status: "failed", size: "100" }).query);
     expect(failed.total).toBeGreaterThanOrEqual(1);
     expect(failed.rows.every((r) => r.status === "failed" && r.lastError)).toBe(true);
-    const bySearch = await listOutbox(kestrel.id, outboxListSchema.parse({ q: "TOLLMERE-TRAMWAYS", size: 100 }));
+    const bySearch = await listOutbox(kestrel.id, outboxList.parse({ q: "TOLLMERE-TRAMWAYS", size: "100" }).query);
     expect(bySearch.total).toBeGreaterThanOrEqual(3);
     expect(bySearch.rows.every((r) => r.toEmail === CUSTOMER)).toBe(true);
-    const none = await listOutbox(kestrel.id, outboxListSchema.parse({ q: "100%_no-such", size: 100 }));
+    const none = await listOutbox(kestrel.id, outboxList.parse({ q: "100%_no-such", size: "100" }).query);
     expect(none.total).toBe(0);
-    const sorted = await listOutbox(kestrel.id, outboxListSchema.parse({ sort: "attempts", dir: "desc", size: 100 }));
+    const sorted = await listOutbox(kestrel.id, outboxList.parse({ sort: "attempts", dir: "desc", size: "100" }).query);
     const attempts = sorted.rows.map((r) => r.attempts);
     expect([...attempts].sort((a, b) => b - a)).toEqual(attempts);
   });

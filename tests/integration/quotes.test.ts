@@ -24,7 +24,8 @@ import { formatMoney } from "@/lib/pricing";
 import { findArrangements } from "@/lib/quoting/arrangements";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { renderQuotePdf } from "@/lib/quoting/quote-pdf";
-import { chooseArrangementSchema, quoteListQuerySchema } from "@/lib/validation/quote";
+import { quoteList, requestList } from "@/lib/validation/lists";
+import { chooseArrangementSchema } from "@/lib/validation/quote";
 import { actAs, request, sessionCookie, shopBySlug } from "./helpers";
 
 const K = "kestrel-bank-works";
@@ -170,7 +171,7 @@ describe("quotes from a chosen arrangement", () => {
       expect(row?.reviewReasons.join(" ")).toMatch(/Voltage 48 V is above the 40 V/);
       const [n] = await db.select({ n: count() }).from(quotes).where(and(eq(quotes.shopId, kShopId), eq(quotes.idempotencyKey, input.idempotencyKey)));
       expect(n?.n).toBe(0);
-      const list = await listRequests(kShopId, { status: "needs-review", sort: "created", dir: "desc", page: 1, size: 100 });
+      const list = await listRequests(kShopId, requestList.parse({ status: "needs-review", size: "100" }).query);
       expect(list.rows.map((x) => x.id)).toContain(r.data.requestId);
       expect(list.rows.every((x) => x.status === "needs-review")).toBe(true);
     });
@@ -213,7 +214,7 @@ describe("quotes from a chosen arrangement", () => {
   });
 
   it("the PDF route serves the owner and the shop's staff, and answers 404 to another customer", async () => {
-    const [mine] = (await listQuotes(kShopId, { all: false, userId: (await ctxOf(K, kCustomer)).user.id }, quoteListQuerySchema.parse({ size: 1 }))).rows;
+    const [mine] = (await listQuotes(kShopId, { all: false, userId: (await ctxOf(K, kCustomer)).user.id }, quoteList.parse({ size: "1" }).query)).rows;
     if (!mine) throw new Error("no quote yet");
     const call = async (email: string | null, slug = K) => pdfRoute(request(`/api/v1/shops/${slug}/quotes/${mine.number}/pdf`, { cookie: email ? await sessionCookie(email) : "" }), params({ shop: slug, number: mine.number }));
     const own = await call(kCustomer);

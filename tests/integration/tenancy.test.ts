@@ -20,6 +20,7 @@ import { getQuoteByNumber, listQuotes } from "@/db/queries/quotes";
 import { getRequest, listRequests } from "@/db/queries/requests";
 import { bankRequests, members, quotes } from "@/db/schema";
 import { demoPeople } from "@/db/seed/people";
+import { requestList } from "@/lib/validation/lists";
 import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
 import { actAs, memberOf, request, sessionCookie, shopBySlug } from "./helpers";
 
@@ -159,8 +160,8 @@ describe("tenancy", () => {
       const m = await listQuotes(mShopId, { all: true }, q);
       const mIds = new Set(m.rows.map((r) => r.id));
       expect(k.rows.some((r) => mIds.has(r.id))).toBe(false);
-      const kr = await listRequests(kShopId, { status: "all", sort: "created", dir: "desc", page: 1, size: 100 });
-      const mr = await listRequests(mShopId, { status: "all", sort: "created", dir: "desc", page: 1, size: 100 });
+      const kr = await listRequests(kShopId, requestList.parse({ size: "100" }).query);
+      const mr = await listRequests(mShopId, requestList.parse({ size: "100" }).query);
       const mrIds = new Set(mr.rows.map((r) => r.id));
       expect(kr.rows.some((r) => mrIds.has(r.id))).toBe(false);
       for (const r of kr.rows) expect(await getRequest(mShopId, r.id)).toBeNull();

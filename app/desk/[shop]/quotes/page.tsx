@@ -1,73 +1,64 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { FilterForm, ListTable, Pager } from "@/components/ui/list-controls";
+import { ListView } from "@/components/ui/list-controls";
+import { PageHeader } from "@/components/ui/page-header";
 import { listQuotes } from "@/db/queries/quotes";
 import { requireShopPage } from "@/lib/auth/guards";
+import { ownerScope } from "@/lib/auth/ownership";
 import { formatMoney } from "@/lib/pricing";
-import { quoteListQuerySchema } from "@/lib/validation/quote";
-import { QUOTE_STATUS_LABELS } from "@/lib/vocabulary";
+import { quoteList } from "@/lib/validation/lists";
+import { QUOTE_STATUS_LABELS, QUOTE_STATUSES } from "@/lib/vocabulary";
 
 export const metadata: Metadata = { title: "Quotes" };
 
-
-export default async function DeskQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
+/** Every quote of the shop: staff read quotes here, on the desk (the storefront is the customer's). */
+export default async function DeskQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string | string[]>> }) {
   const { shop } = await params;
-  const ctx = await requireShopPage(shop, "quote:read-all");
-  const q = quoteListQuerySchema.parse(await searchParams);
-  const { rows, total } = await listQuotes(ctx.shop.id, { all: true }, q);
-  const base = `/desk/${shop}/quotes`;
-  const keep = { q: q.q, status: q.status === "all" ? undefined : q.status, sort: q.sort, dir: q.dir, size: q.size === 20 ? undefined : q.size };
+  const ctx = await requireShopPage(shop, "quote:read-all", `/desk/${shop}/quotes`);
+  const { query: q } = quoteList.parse(await searchParams);
+  const page = await listQuotes(ctx.shop.id, ownerScope(ctx, "quote"), q);
+  const state = quoteList.state(`/desk/${shop}/quotes`, q, page);
   return (
     <div className="space-y-6">
-      <div>
-        <h1 className="text-2xl font-semibold">Quotes</h1>
-        <p className="mt-1 text-sm text-ink-600">Every quote {ctx.shop.name} has issued, with its current revision, total and validity.</p>
-      </div>
-      <FilterForm
-        fields={[
+      <PageHeader title="Quotes">Every quote {ctx.shop.name} has issued, with its current revision, total and validity.</PageHeader>
+      <ListView
+        state={state}
+        caption="Quotes"
+        empty={{ none: "No quotes yet: they appear here when a customer chooses an arrangement.", noMatch: "No quotes match." }}
+        filters={[
           { name: "q", label: "Number or customer", value: q.q },
-          { name: "status", label: "Status", value: q.status, options: [{ value: "all", label: "All" }, { value: "issued", label: "Issued" }, { value: "accepted", label: "Accepted" }, { value: "expired", label: "Expired" }, { value: "withdrawn", label: "Withdrawn" }] }
+          { name: "status", label: "Status", value: q.status, options: [{ value: "all", label: "All" }, ...QUOTE_STATUSES.map((s) => ({ value: s, label: QUOTE_STATUS_LABELS[s] }))] },
         ]}
-        sort={q.sort}
-        dir={q.dir}
-      />
-      <ListTable
-        base={base} params={keep} sort={q.sort} dir={q.dir}
         columns={[
           { label: "Quote", sortKey: "number" },
-          { label: "Customer" },
-          { label: "Status" },
+          { label: "Customer", sortKey: "customer" },
+          { label: "Status", sortKey: "status" },
           { label: "Banks", align: "right" },
-          { label: "Total", sortKey: "total" },
+          { label: "Total", sortKey: "total", align: "right" },
           { label: "Valid until", sortKey: "validUntil" },
           { label: "Issued", sortKey: "created" },
         ]}
       >
-            {rows.length === 0 ? (
-              <tr>
-                <td colSpan={7} className="px-3 py-6 text-center text-ink-500">No quotes match.</td>
-              </tr>
-            ) : (
-              rows.map((r) => (
-                <tr key={r.id} className="border-t border-ink-100" data-testid={`desk-quote-${r.number}`}>
-                  <td className="px-3 py-2">
-                    <Link href={`/s/${shop}/quotes/${r.number}`} className="font-medium text-copper-700 hover:underline">{r.number}</Link>
-                    <span className="ml-1 text-ink-500">r{r.revision}</span>
-                  </td>
-                  <td className="px-3 py-2">
-                    {r.customerName}
-                    <span className="block text-xs text-ink-500">{r.customerEmail}</span>
-                  </td>
-                  <td className="px-3 py-2">{QUOTE_STATUS_LABELS[r.status]}</td>
-                  <td className="num px-3 py-2 text-right">{r.quantity}</td>
-                  <td className="num px-3 py-2">{formatMoney(r.total, r.currency)}</td>
-                  <td className="num px-3 py-2">{r.validUntil}</td>
-                  <td className="num px-3 py-2 text-ink-600">{r.createdAt.toISOString().slice(0, 10)}</td>
-                </tr>
-              ))
-            )}
-          </ListTable>
-      <Pager base={base} params={keep} page={q.page} size={q.size} total={total} />
+        {page.rows.map((r) => (
+          <tr key={r.id} className="border-t border-ink-100" data-testid={`desk-quote-${r.number}`}>
+            <td className="whitespace-nowrap px-3 py-2">
+              <Link href={`/desk/${shop}/quotes/${r.number}`} className="font-medium text-copper-700 hover:underline">
+                {r.number}
+              </Link>
+              <span className="ml-1 text-ink-500">r{r.revision}</span>
+            </td>
+            <td className="px-3 py-2">
+              {r.customerName}
+              <span className="block text-xs text-ink-500">{r.customerEmail}</span>
+            </td>
+            <td className="px-3 py-2">{QUOTE_STATUS_LABELS[r.status]}</td>
+            <td className="num px-3 py-2 text-right">{r.quantity}</td>
+            <td className="num whitespace-nowrap px-3 py-2 text-right">{formatMoney(r.total, r.currency)}</td>
+            <td className="num whitespace-nowrap px-3 py-2">{r.validUntil}</td>
+            <td className="num whitespace-nowrap px-3 py-2 text-ink-600">{r.createdAt.toISOString().slice(0, 10)}</td>
+          </tr>
+        ))}
+      </ListView>
     </div>
   );
 }

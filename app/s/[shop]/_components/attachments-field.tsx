@@ -1,6 +1,7 @@
 "use client";
 import Link from "next/link";
 import { useId, useState } from "react";
+import { FetchJsonError, fetchJson } from "@/lib/http/fetch-json";
 import { MAX_ATTACHMENT_SIZE_TEXT, MAX_ATTACHMENTS_PER_REQUEST } from "@/lib/validation/limits";
 import type { UploadedFile } from "./saved-request";
 import type { Viewer } from "./viewer";
@@ -51,13 +52,13 @@ export function AttachmentsField({ slug, viewer, files, onChange }: { slug: stri
         }
         const body = new FormData();
         body.append("file", file);
-        const res = await fetch(`/api/v1/shops/${slug}/attachments`, { method: "POST", body });
-        const json = (await res.json().catch(() => null)) as { id?: string; fileName?: string; sizeBytes?: number; error?: string } | null;
-        if (!res.ok || !json?.id) {
-          setError(`${file.name}: ${json?.error ?? `upload refused (${res.status})`}`);
-          continue;
+        try {
+          const stored = await fetchJson<UploadedFile>(`/api/v1/shops/${slug}/attachments`, { method: "POST", body });
+          added.push({ id: stored.id, fileName: stored.fileName, sizeBytes: stored.sizeBytes });
+        } catch (e) {
+          if (!(e instanceof FetchJsonError)) throw e;
+          setError(`${file.name}: ${e.message}`);
         }
-        added.push({ id: json.id, fileName: json.fileName ?? file.name, sizeBytes: json.sizeBytes ?? file.size });
       }
     } catch {
       setError("The upload failed; check your connection and try again.");
