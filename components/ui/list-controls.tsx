@@ -9,7 +9,7 @@ import type { ListState, SortDir } from "@/lib/validation/list-query";
 
 type Params = Record<string, string | number | undefined>;
 
-export function hrefWith(base: string, params: Params, change: Params = {}): string {
+function hrefWith(base: string, params: Params, change: Params = {}): string {
   const merged = { ...params, ...change };
   const qs = new URLSearchParams();
   for (const [k, v] of Object.entries(merged)) if (v !== undefined && v !== "") qs.set(k, String(v));
@@ -17,11 +17,11 @@ export function hrefWith(base: string, params: Params, change: Params = {}): str
   return s ? `${base}?${s}` : base;
 }
 
-export type FilterField =
+type FilterField =
   | { name: string; label: string; value: string; placeholder?: string }
   | { name: string; label: string; value: string; options: readonly { value: string; label: string }[] };
 
-export interface ListColumn {
+interface ListColumn {
   label: string;
   /** present when the list can be sorted by this column */
   sortKey?: string;
@@ -31,7 +31,7 @@ export interface ListColumn {
 const control = "mt-1 block rounded-md border border-ink-200 bg-white px-3 py-1.5 text-sm";
 
 /** The filter bar: a GET form that keeps the sort and page size and starts again at page 1. */
-export function FilterForm({ state, fields }: { state: ListState; fields: FilterField[] }) {
+function FilterForm({ state, fields }: { state: ListState; fields: FilterField[] }) {
   const names = new Set(fields.map((f) => f.name));
   const kept = Object.entries(state.params).filter(([k]) => !names.has(k) && k !== "page");
   return (
@@ -86,7 +86,7 @@ function SortHeader({ state, column, sortKey }: { state: ListState; column: List
 }
 
 /** The table: sortable headers, the page's rows, or a line saying why there are none. */
-export function ListTable({ state, columns, caption, empty, children }: { state: ListState; columns: ListColumn[]; caption: string; empty: { none: string; noMatch: string }; children: React.ReactNode }) {
+function ListTable({ state, columns, caption, empty, children }: { state: ListState; columns: ListColumn[]; caption: string; empty: { none: string; noMatch: string }; children: React.ReactNode }) {
   return (
     <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
       <table className="w-full text-sm">
@@ -121,7 +121,7 @@ export function ListTable({ state, columns, caption, empty, children }: { state:
 }
 
 /** Where in the list we are, with the previous and next pages. Says nothing for an empty list. */
-export function Pager({ state }: { state: ListState }) {
+function Pager({ state }: { state: ListState }) {
   if (state.total === 0) return null;
   const pages = Math.max(1, Math.ceil(state.total / state.size));
   const from = (state.page - 1) * state.size + 1;

@@ -3,7 +3,7 @@
  * of what is coming, announced once to screen readers.
  */
 
-export function Skeleton({ className = "" }: { className?: string }) {
+function Skeleton({ className = "" }: { className?: string }) {
   return <div aria-hidden="true" className={`animate-pulse rounded-md bg-ink-100 ${className}`} />;
 }
 

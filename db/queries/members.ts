@@ -6,7 +6,7 @@ import type { Role } from "@/lib/auth/permissions";
 import type { MemberListQuery } from "@/lib/validation/lists";
 import { containsText, readPage, sortedBy, type Page } from "./paging";
 
-export interface MemberRow {
+interface MemberRow {
   id: string;
   userId: string;
   name: string;

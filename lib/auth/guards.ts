@@ -13,12 +13,12 @@ import { can, type Permission, type Role } from "./permissions";
  */
 
 /** What a guard asks of the member: one permission, or any one of several. */
-export type Access = Permission | readonly Permission[];
+type Access = Permission | readonly Permission[];
 
 /** Why a request is refused before any handler runs. */
-export type Refusal = "no-shop" | "signed-out" | "not-member" | "not-allowed";
+type Refusal = "no-shop" | "signed-out" | "not-member" | "not-allowed";
 
-export type ActionCode = "unauthenticated" | "forbidden" | "not-found" | "invalid" | "conflict" | "rate-limited";
+type ActionCode = "unauthenticated" | "forbidden" | "not-found" | "invalid" | "conflict" | "rate-limited";
 
 export type ActionResult<T> =
   | { ok: true; data: T }
@@ -29,7 +29,7 @@ export type ActionResult<T> =
  * shows the not-found page or the not-allowed (403) page; an action returns a result code; a route
  * handler answers a JSON status.
  */
-export const REFUSALS = {
+const REFUSALS = {
   "no-shop": { page: "not-found", code: "not-found", status: 404, message: "No such shop." },
   "signed-out": { page: "sign-in", code: "unauthenticated", status: 401, message: "Sign in to continue." },
   "not-member": { page: "forbidden", code: "forbidden", status: 403, message: "You are not a member of this shop." },
@@ -37,19 +37,19 @@ export const REFUSALS = {
 } as const satisfies Record<Refusal, { page: "sign-in" | "not-found" | "forbidden"; code: ActionCode; status: 401 | 403 | 404; message: string }>;
 
 /** Whether a role has the permission, or any one of the permissions. */
-export function allows(role: Role, access: Access): boolean {
+function allows(role: Role, access: Access): boolean {
   return typeof access === "string" ? can(role, access) : access.some((p) => can(role, p));
 }
 
 /** The member's context when they may do `access` (or only need to be a member), or the refusal. */
-export function authorize(r: ContextResult, access?: Access): { ok: true; ctx: ShopContext } | { ok: false; refusal: Refusal } {
+function authorize(r: ContextResult, access?: Access): { ok: true; ctx: ShopContext } | { ok: false; refusal: Refusal } {
   if (r.status !== "ok") return { ok: false, refusal: r.status };
   if (access !== undefined && !allows(r.ctx.role, access)) return { ok: false, refusal: "not-allowed" };
   return { ok: true, ctx: r.ctx };
 }
 
 /** Where a signed-out visitor goes: the sign-in page, then back to `next`. */
-export function signInHref(shopSlug: string, next: string): string {
+function signInHref(shopSlug: string, next: string): string {
   return `/sign-in?shop=${encodeURIComponent(shopSlug)}&next=${encodeURIComponent(next)}`;
 }
 
@@ -84,7 +84,7 @@ export async function withShopApi(request: Request, shopSlug: string, access: Ac
   return r.ok ? handler(r.ctx) : refusedResponse(r.refusal);
 }
 
-export function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
+function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
   const out: Record<string, string[]> = {};
   for (const issue of error.issues) {
     const key = issue.path.join(".") || "_form";

@@ -7,7 +7,7 @@ import { can, type Permission } from "./permissions";
  * owned record asks here. A record the member may not see answers "not found", never "forbidden",
  * so ids and numbers cannot be probed.
  */
-export type Owned = "quote" | "request" | "attachment";
+type Owned = "quote" | "request" | "attachment";
 
 const RULES: Record<Owned, { all: Permission; own: Permission }> = {
   quote: { all: "quote:read-all", own: "quote:read-own" },

@@ -3,7 +3,7 @@ import { ASSIGNABLE_ROLES } from "@/lib/auth/permissions";
 import { SHOP_CURRENCIES } from "@/lib/vocabulary";
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "./limits";
 
-export const RESERVED_SLUGS = ["api", "desk", "s", "admin", "sign-in", "sign-up", "open-shop", "new", "settings", "faradsmith"];
+const RESERVED_SLUGS = ["api", "desk", "s", "admin", "sign-in", "sign-up", "open-shop", "new", "settings", "faradsmith"];
 
 /** Why a slug is unusable, or null when it is fine. Shared by the form and the server. */
 export function slugProblem(slug: string): string | null {
@@ -19,7 +19,7 @@ export function slugProblem(slug: string): string | null {
   return null;
 }
 
-export const slugSchema = z.string().superRefine((value, ctx) => {
+const slugSchema = z.string().superRefine((value, ctx) => {
   const problem = slugProblem(value);
   if (problem) ctx.addIssue({ code: "custom", message: problem });
 });
@@ -71,4 +71,3 @@ export const changeMemberRoleSchema = z.object({
   memberId: z.string().min(1, "Which member?"),
   role: z.enum(ASSIGNABLE_ROLES, { message: "Choose estimator or customer." }),
 });
-export type ChangeMemberRoleInput = z.infer<typeof changeMemberRoleSchema>;

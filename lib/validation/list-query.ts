@@ -16,7 +16,7 @@ export const MAX_PAGE_SIZE = 100;
 
 type Choices = Record<string, readonly [string, ...string[]]>;
 
-export interface ListSpec<F extends Choices, S extends string> {
+interface ListSpec<F extends Choices, S extends string> {
   /** whether the list has a search box (`q`) */
   search: boolean;
   /** each filter's values; the first is the default (usually "all") */
@@ -29,9 +29,9 @@ export interface ListSpec<F extends Choices, S extends string> {
   size: number;
 }
 
-export type ListQuery<F extends Choices, S extends string> = { q: string; sort: S; dir: SortDir; page: number; size: number } & { -readonly [K in keyof F]: F[K][number] };
+type ListQuery<F extends Choices, S extends string> = { q: string; sort: S; dir: SortDir; page: number; size: number } & { -readonly [K in keyof F]: F[K][number] };
 
-export interface ListIssue {
+interface ListIssue {
   path: string;
   message: string;
 }
@@ -55,7 +55,7 @@ export interface ListState {
 }
 
 /** Search text as a list uses it: no control characters (PostgreSQL text cannot hold NUL), trimmed, bounded. */
-export function cleanSearch(raw: string): string {
+function cleanSearch(raw: string): string {
   // eslint-disable-next-line no-control-regex
   return raw.replace(/[\u0000-\u001f\u007f]/g, " ").trim().slice(0, MAX_LIST_SEARCH_LENGTH).trim();
 }

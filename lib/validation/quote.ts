@@ -3,10 +3,10 @@ import { TOPOLOGIES } from "@/lib/bank/types";
 import { arrangementRequestSchema } from "./bank";
 import { MAX_ATTACHMENTS_PER_REQUEST, MAX_NOTES_LENGTH } from "./limits";
 
-export const topologySchema = z.enum(TOPOLOGIES);
+const topologySchema = z.enum(TOPOLOGIES);
 
 /** The option a customer picked, as its identity only: the server re-prices it from the catalog. */
-export const chosenOptionSchema = z.object({
+const chosenOptionSchema = z.object({
   cellSku: z.string().trim().min(1).max(200),
   topology: topologySchema,
   seriesCount: z.number().int().positive(),

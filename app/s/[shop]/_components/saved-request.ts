@@ -2,7 +2,7 @@ import { MAX_ATTACHMENTS_PER_REQUEST } from "@/lib/validation/limits";
 import { EMPTY_REQUEST_FORM, type RequestFormValues } from "@/lib/validation/request-form";
 
 /** What the storefront keeps in sessionStorage so a request survives sign-in and sign-up. */
-export interface SavedRequest {
+interface SavedRequest {
   values: RequestFormValues;
   attachments: UploadedFile[];
   /** the option in focus (see optionId) */
