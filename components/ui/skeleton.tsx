@@ -37,13 +37,8 @@ export function ListSkeleton({ label, columns = 6, rows = 8 }: { label: string; 
         <Skeleton className="h-9 w-16" />
       </div>
       <div className="overflow-hidden rounded-lg bg-white ring-1 ring-ink-100">
-        <div className="flex gap-4 bg-ink-50 px-3 py-3">
-          {Array.from({ length: columns }, (_, i) => (
-            <Skeleton key={i} className="h-4 flex-1" />
-          ))}
-        </div>
-        {Array.from({ length: rows }, (_, r) => (
-          <div key={r} className="flex gap-4 border-t border-ink-100 px-3 py-3">
+        {Array.from({ length: rows + 1 }, (_, r) => (
+          <div key={r} className={`flex gap-4 px-3 py-3 ${r === 0 ? "bg-ink-50" : "border-t border-ink-100"}`}>
             {Array.from({ length: columns }, (_, i) => (
               <Skeleton key={i} className="h-4 flex-1" />
             ))}
