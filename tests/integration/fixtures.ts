@@ -60,9 +60,14 @@ export function contextOf(shop: TestShop, person: TestPerson, role: Role): ShopC
   return { user: { id: person.id, name: person.name, email: person.email }, shop: { id: shop.id, slug: shop.slug, name: shop.name }, role };
 }
 
+/** The priced options the shop's catalog offers now (the storefront's search). */
+export function searchOptions(shopId: string, requirement: Requirement) {
+  return findArrangements(shopId, requirement);
+}
+
 /** The cheapest priced option the shop's catalog offers for the requirement. */
 export async function cheapestOption(shopId: string, requirement: Requirement) {
-  const found = await findArrangements(shopId, requirement);
+  const found = await searchOptions(shopId, requirement);
   const option = found.options.find((o) => o.price !== null);
   if (!option) throw new Error(`no priced option: ${found.reasons.join("; ")}`);
   return option;

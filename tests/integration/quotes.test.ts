@@ -18,11 +18,10 @@ import { getQuoteByNumber, getRevision } from "@/db/queries/quotes";
 import { listRequests } from "@/db/queries/requests";
 import { bankRequests, catalogCells, emailOutbox, quotes, shopSettings } from "@/db/schema";
 import { formatMoney } from "@/lib/pricing";
-import { findArrangements } from "@/lib/quoting/arrangements";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { renderQuotePdf } from "@/lib/quoting/quote-pdf";
 import { requestList } from "@/lib/validation/lists";
-import { cheapestOption, choiceOf, contextOf, createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT } from "./fixtures";
+import { cheapestOption, choiceOf, contextOf, createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, searchOptions } from "./fixtures";
 import { actAs, request, sessionCookie } from "./helpers";
 
 const params = <T extends Record<string, string>>(p: T) => ({ params: Promise.resolve(p) });
@@ -83,7 +82,7 @@ describe("quotes from a chosen arrangement", () => {
     await db.update(catalogCells).set({ unitCost: "999.0000", capacitanceF: cell!.capacitanceF * 2 }).where(eq(catalogCells.id, cell!.id));
     expect(await getRevision(shop.id, quote!.revisionId)).toEqual(before);
     // and a new search does see the new price, so the change was real
-    const now = await findArrangements(shop.id, KESTREL_REQUIREMENT);
+    const now = await searchOptions(shop.id, KESTREL_REQUIREMENT);
     expect(now.options.find((o) => o.cell.sku === option.cell.sku && o.seriesCount === option.seriesCount)?.price?.amount).not.toBe(option.price?.amount);
   });
 
