@@ -5,8 +5,9 @@ import { defineList, type ListQueryOf } from "./list-query";
 
 /**
  * Every list's URL state: what it can be filtered and sorted by, and which way a column sorts on its
- * first click (dates newest first, money and counts largest first, names and parts A to Z, what
- * needs attention first). Read with `list.parse(searchParams)` (lib/validation/list-query.ts).
+ * first click (dates newest first; quote totals and send attempts largest first; catalog figures,
+ * costs and stock smallest first, to find what fits or runs short; names A to Z; statuses by what
+ * needs attention). Read with `list.parse(searchParams)` (lib/validation/list-query.ts).
  */
 
 export const catalogList = defineList({
