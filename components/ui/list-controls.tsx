@@ -1,8 +1,15 @@
 import Link from "next/link";
+import type { ListState, SortDir } from "@/lib/validation/list-query";
+
+/**
+ * The table shell of every list: a filter form, headers that sort through the URL, the rows (given
+ * by the page as <tr> elements) and a pager. All state lives in the URL (lib/validation/list-query.ts),
+ * so a reload, the back button or a shared link shows the same list.
+ */
 
 type Params = Record<string, string | number | undefined>;
 
-export function hrefWith(base: string, params: Params, change: Params) {
+function hrefWith(base: string, params: Params, change: Params = {}): string {
   const merged = { ...params, ...change };
   const qs = new URLSearchParams();
   for (const [k, v] of Object.entries(merged)) if (v !== undefined && v !== "") qs.set(k, String(v));
@@ -10,97 +17,165 @@ export function hrefWith(base: string, params: Params, change: Params) {
   return s ? `${base}?${s}` : base;
 }
 
-/** A column header that sorts by its key through the URL (server-rendered lists). */
-export function SortHeader({ base, params, sortKey, label, sort, dir }: { base: string; params: Params; sortKey: string; label: string; sort: string; dir: "asc" | "desc" }) {
-  const active = sort === sortKey;
-  const nextDir = active && dir === "asc" ? "desc" : "asc";
-  return (
-    <th scope="col" aria-sort={active ? (dir === "asc" ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left font-medium">
-      <Link href={hrefWith(base, params, { sort: sortKey, dir: nextDir, page: 1 })} className="inline-flex items-center gap-1 hover:underline">
-        {label}
-        <span aria-hidden className="text-ink-400">{active ? (dir === "asc" ? "▲" : "▼") : "↕"}</span>
-      </Link>
-    </th>
-  );
-}
+type FilterField =
+  | { name: string; label: string; value: string; placeholder?: string }
+  | { name: string; label: string; value: string; options: readonly { value: string; label: string }[] };
 
-export function Pager({ base, params, page, size, total }: { base: string; params: Params; page: number; size: number; total: number }) {
-  const pages = Math.max(1, Math.ceil(total / size));
-  const from = total === 0 ? 0 : (page - 1) * size + 1;
-  const to = Math.min(total, page * size);
-  return (
-    <nav aria-label="Pages" className="flex items-center justify-between text-sm text-ink-600">
-      <span>
-        {from}–{to} of {total}
-      </span>
-      <span className="flex gap-2">
-        {page > 1 ? <Link className="rounded px-2 py-1 ring-1 ring-ink-200 hover:bg-ink-100" href={hrefWith(base, params, { page: page - 1 })}>Previous</Link> : null}
-        <span>
-          Page {page} of {pages}
-        </span>
-        {page < pages ? <Link className="rounded px-2 py-1 ring-1 ring-ink-200 hover:bg-ink-100" href={hrefWith(base, params, { page: page + 1 })}>Next</Link> : null}
-      </span>
-    </nav>
-  );
-}
-
-export type FilterField =
-  | { name: string; label: string; value: string }
-  | { name: string; label: string; value: string; options: { value: string; label: string }[] };
-
-/** The filter bar of a server-rendered list: a GET form that keeps the current sort. */
-export function FilterForm({ fields, sort, dir }: { fields: FilterField[]; sort: string; dir: string }) {
-  const control = "mt-1 rounded-md border border-ink-200 px-3 py-1.5 text-sm";
-  return (
-    <form method="get" role="search" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100">
-      {fields.map((f) => (
-        <div key={f.name}>
-          <label htmlFor={f.name} className="block text-xs font-medium text-ink-700">{f.label}</label>
-          {"options" in f ? (
-            <select id={f.name} name={f.name} defaultValue={f.value} className={control}>
-              {f.options.map((o) => (
-                <option key={o.value} value={o.value}>{o.label}</option>
-              ))}
-            </select>
-          ) : (
-            <input id={f.name} name={f.name} defaultValue={f.value} className={control} />
-          )}
-        </div>
-      ))}
-      <input type="hidden" name="sort" value={sort} />
-      <input type="hidden" name="dir" value={dir} />
-      <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm text-white">Filter</button>
-    </form>
-  );
-}
-
-export interface ListColumn {
+interface ListColumn {
   label: string;
   /** present when the list can be sorted by this column */
   sortKey?: string;
   align?: "left" | "right";
 }
 
-/** The table of a server-rendered list: headers that sort through the URL, rows as children. */
-export function ListTable({ base, params, sort, dir, columns, children }: { base: string; params: Params; sort: string; dir: "asc" | "desc"; columns: ListColumn[]; children: React.ReactNode }) {
+const control = "mt-1 block rounded-md border border-ink-200 bg-white px-3 py-1.5 text-sm";
+
+/** The filter bar: a GET form that keeps the sort and page size and starts again at page 1. */
+function FilterForm({ state, fields }: { state: ListState; fields: FilterField[] }) {
+  const names = new Set(fields.map((f) => f.name));
+  const kept = Object.entries(state.params).filter(([k]) => !names.has(k) && k !== "page");
+  return (
+    <form method="get" action={state.base} role="search" className="flex flex-wrap items-end gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-100">
+      {fields.map((f) => (
+        <div key={f.name} className="min-w-0">
+          <label htmlFor={`filter-${f.name}`} className="block text-xs font-medium text-ink-700">
+            {f.label}
+          </label>
+          {"options" in f ? (
+            <select id={`filter-${f.name}`} name={f.name} defaultValue={f.value} className={control}>
+              {f.options.map((o) => (
+                <option key={o.value} value={o.value}>
+                  {o.label}
+                </option>
+              ))}
+            </select>
+          ) : (
+            <input id={`filter-${f.name}`} name={f.name} type="search" defaultValue={f.value} placeholder={f.placeholder} className={control} />
+          )}
+        </div>
+      ))}
+      {kept.map(([k, v]) => (
+        <input key={k} type="hidden" name={k} value={v} />
+      ))}
+      <button className="rounded-md bg-ink-800 px-3 py-1.5 text-sm font-medium text-white hover:bg-ink-900">Filter</button>
+      {state.narrowed ? (
+        <Link href={hrefWith(state.base, Object.fromEntries(kept))} className="py-1.5 text-sm text-ink-600 hover:underline">
+          Clear
+        </Link>
+      ) : null}
+    </form>
+  );
+}
+
+/** A column header that sorts through the URL: the first click sorts the useful way, the next turns it round. */
+function SortHeader({ state, column, sortKey }: { state: ListState; column: ListColumn; sortKey: string }) {
+  const active = state.sort === sortKey;
+  const first: SortDir = state.firstDirs[sortKey] ?? "asc";
+  const nextDir: SortDir = active ? (state.dir === "asc" ? "desc" : "asc") : first;
+  const { page: _page, dir: _dir, ...rest } = state.params;
+  return (
+    <th scope="col" aria-sort={active ? (state.dir === "asc" ? "ascending" : "descending") : "none"} className={`px-3 py-2 font-medium ${column.align === "right" ? "text-right" : "text-left"}`}>
+      <Link href={hrefWith(state.base, rest, { sort: sortKey, dir: nextDir })} className="inline-flex items-center gap-1 whitespace-nowrap hover:underline">
+        {column.label}
+        <span aria-hidden className="text-ink-400">
+          {active ? (state.dir === "asc" ? "▲" : "▼") : "↕"}
+        </span>
+      </Link>
+    </th>
+  );
+}
+
+/** The table: sortable headers, the page's rows, or a line saying why there are none. */
+function ListTable({ state, columns, caption, empty, children }: { state: ListState; columns: ListColumn[]; caption: string; empty: { none: string; noMatch: string }; children: React.ReactNode }) {
   return (
     <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
       <table className="w-full text-sm">
+        <caption className="sr-only">{caption}</caption>
         <thead className="bg-ink-50 text-ink-700">
           <tr>
             {columns.map((c) =>
               c.sortKey ? (
-                <SortHeader key={c.label} base={base} params={params} sortKey={c.sortKey} label={c.label} sort={sort} dir={dir} />
+                <SortHeader key={c.label} state={state} column={c} sortKey={c.sortKey} />
               ) : (
-                <th key={c.label} scope="col" className={`px-3 py-2 font-medium ${c.align === "right" ? "text-right" : "text-left"}`}>
+                <th key={c.label} scope="col" className={`whitespace-nowrap px-3 py-2 font-medium ${c.align === "right" ? "text-right" : "text-left"}`}>
                   {c.label}
                 </th>
               ),
             )}
           </tr>
         </thead>
-        <tbody>{children}</tbody>
+        <tbody>
+          {state.total === 0 ? (
+            <tr>
+              <td colSpan={columns.length} className="px-3 py-6 text-center text-ink-500">
+                {state.narrowed ? empty.noMatch : empty.none}
+              </td>
+            </tr>
+          ) : (
+            children
+          )}
+        </tbody>
       </table>
+    </div>
+  );
+}
+
+/** Where in the list we are, with the previous and next pages. Says nothing for an empty list. */
+function Pager({ state }: { state: ListState }) {
+  if (state.total === 0) return null;
+  const pages = Math.max(1, Math.ceil(state.total / state.size));
+  const from = (state.page - 1) * state.size + 1;
+  const to = Math.min(state.total, state.page * state.size);
+  const link = "rounded px-2 py-1 ring-1 ring-ink-200 hover:bg-ink-100";
+  return (
+    <nav aria-label="Pages" className="flex flex-wrap items-center justify-between gap-2 text-sm text-ink-600">
+      <span className="num">
+        {from}–{to} of {state.total}
+      </span>
+      {pages > 1 ? (
+        <span className="flex items-center gap-2">
+          {state.page > 1 ? (
+            <Link className={link} href={hrefWith(state.base, state.params, { page: state.page - 1 === 1 ? undefined : state.page - 1 })}>
+              Previous
+            </Link>
+          ) : null}
+          <span className="num">
+            Page {state.page} of {pages}
+          </span>
+          {state.page < pages ? (
+            <Link className={link} href={hrefWith(state.base, state.params, { page: state.page + 1 })}>
+              Next
+            </Link>
+          ) : null}
+        </span>
+      ) : null}
+    </nav>
+  );
+}
+
+/** A whole list: filters, table and pager, in the one arrangement every list uses. */
+export function ListView({
+  state,
+  filters,
+  columns,
+  caption,
+  empty,
+  children,
+}: {
+  state: ListState;
+  filters: FilterField[];
+  columns: ListColumn[];
+  caption: string;
+  empty: { none: string; noMatch: string };
+  children: React.ReactNode;
+}) {
+  return (
+    <div className="space-y-3">
+      <FilterForm state={state} fields={filters} />
+      <ListTable state={state} columns={columns} caption={caption} empty={empty}>
+        {children}
+      </ListTable>
+      <Pager state={state} />
     </div>
   );
 }

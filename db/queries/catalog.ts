@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
+import { and, asc, count, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { catalogCells, catalogComponents } from "@/db/schema";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
@@ -7,6 +7,8 @@ import { DEFAULT_PRICING_RULES } from "@/lib/pricing/defaults";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import type { ShopCatalog } from "@/lib/quoting/types";
 import { getShopSettings } from "./shops";
+import type { CatalogListQuery } from "@/lib/validation/lists";
+import { containsText, readPage, sortedBy } from "./paging";
 
 export async function listActiveCells(shopId: string) {
   return db
@@ -38,36 +40,43 @@ export async function loadShopCatalog(shopId: string): Promise<ShopCatalog> {
   };
 }
 
-export interface CatalogListQuery {
-  q: string;
-  technology: "all" | "edlc" | "hybrid" | "electrolytic" | "film";
-  sort: "sku" | "capacitance" | "voltage" | "cost" | "stock";
-  dir: "asc" | "desc";
-  page: number;
-  size: number;
+/** Active catalog lines per technology, for the storefront's "what we build from". */
+export async function countActiveCellsByTechnology(shopId: string) {
+  return db
+    .select({ technology: catalogCells.technology, lines: count() })
+    .from(catalogCells)
+    .where(and(eq(catalogCells.shopId, shopId), eq(catalogCells.isActive, true)))
+    .groupBy(catalogCells.technology)
+    .orderBy(asc(catalogCells.technology));
 }
 
+const CATALOG_SORTS = {
+  sku: catalogCells.sku,
+  capacitance: catalogCells.capacitanceF,
+  voltage: catalogCells.ratedVoltageV,
+  esr: catalogCells.esrOhm,
+  cost: catalogCells.unitCost,
+  stock: catalogCells.stock,
+  lead: catalogCells.leadTimeDays,
+};
+
+/** A page of the shop's catalog cells (active or not), filtered and sorted; ties by SKU. */
 export async function listCatalogCells(shopId: string, q: CatalogListQuery) {
-  const where: SQL[] = [eq(catalogCells.shopId, shopId)];
-  if (q.technology !== "all") where.push(eq(catalogCells.technology, q.technology));
-  if (q.q) {
-    const like = `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
-    where.push(or(ilike(catalogCells.sku, like), ilike(catalogCells.manufacturer, like), ilike(catalogCells.series, like))!);
-  }
-  const column = {
-    sku: catalogCells.sku,
-    capacitance: catalogCells.capacitanceF,
-    voltage: catalogCells.ratedVoltageV,
-    cost: catalogCells.unitCost,
-    stock: catalogCells.stock,
-  }[q.sort];
-  const rows = await db
-    .select()
-    .from(catalogCells)
-    .where(and(...where))
-    .orderBy(q.dir === "asc" ? asc(column) : desc(column), asc(catalogCells.id))
-    .limit(q.size)
-    .offset((q.page - 1) * q.size);
-  const [t] = await db.select({ n: count() }).from(catalogCells).where(and(...where));
-  return { rows, total: t?.n ?? 0 };
+  const where = and(
+    eq(catalogCells.shopId, shopId),
+    q.technology === "all" ? undefined : eq(catalogCells.technology, q.technology),
+    containsText(q.q, catalogCells.sku, catalogCells.manufacturer, catalogCells.series),
+  );
+  return readPage(
+    q,
+    () => db.select({ n: count() }).from(catalogCells).where(where),
+    (limit, offset) =>
+      db
+        .select()
+        .from(catalogCells)
+        .where(where)
+        .orderBy(...sortedBy(CATALOG_SORTS, q, asc(catalogCells.sku), asc(catalogCells.id)))
+        .limit(limit)
+        .offset(offset),
+  );
 }

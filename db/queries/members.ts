@@ -1,11 +1,12 @@
 import "server-only";
-import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
+import { and, asc, count, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { members, users } from "@/db/schema";
+import { members, shops, users } from "@/db/schema";
 import type { Role } from "@/lib/auth/permissions";
-import type { MemberListQuery } from "@/lib/validation/auth";
+import type { MemberListQuery } from "@/lib/validation/lists";
+import { containsText, readPage, sortedBy, type Page } from "./paging";
 
-export interface MemberRow {
+interface MemberRow {
   id: string;
   userId: string;
   name: string;
@@ -14,30 +15,47 @@ export interface MemberRow {
   joinedAt: Date;
 }
 
+const MEMBER_SORTS = { name: users.name, email: users.email, role: members.role, joined: members.createdAt };
+
 /** A page of the shop's members, filtered and sorted; `total` counts the filtered set. */
-export async function listMembers(shopId: string, q: MemberListQuery): Promise<{ rows: MemberRow[]; total: number }> {
-  const where: SQL[] = [eq(members.shopId, shopId)];
-  if (q.role !== "all") where.push(eq(members.role, q.role));
-  if (q.q) {
-    const like = `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
-    where.push(or(ilike(users.name, like), ilike(users.email, like))!);
-  }
-  const column = { name: users.name, email: users.email, role: members.role, joined: members.createdAt }[q.sort];
-  const order = q.dir === "asc" ? asc(column) : desc(column);
-  const rows = await db
-    .select({ id: members.id, userId: members.userId, name: users.name, email: users.email, role: members.role, joinedAt: members.createdAt })
+export async function listMembers(shopId: string, q: MemberListQuery): Promise<Page<MemberRow>> {
+  const where = and(eq(members.shopId, shopId), q.role === "all" ? undefined : eq(members.role, q.role), containsText(q.q, users.name, users.email));
+  return readPage(
+    q,
+    () => db.select({ n: count() }).from(members).innerJoin(users, eq(users.id, members.userId)).where(where),
+    (limit, offset) =>
+      db
+        .select({ id: members.id, userId: members.userId, name: users.name, email: users.email, role: members.role, joinedAt: members.createdAt })
+        .from(members)
+        .innerJoin(users, eq(users.id, members.userId))
+        .where(where)
+        .orderBy(...sortedBy(MEMBER_SORTS, q, asc(users.name), asc(members.id)))
+        .limit(limit)
+        .offset(offset),
+  );
+}
+
+/** The member's role in the shop, read from the database on every request; null when not a member. */
+export async function getMemberRole(shopId: string, userId: string): Promise<Role | null> {
+  const [row] = await db
+    .select({ role: members.role })
     .from(members)
-    .innerJoin(users, eq(users.id, members.userId))
-    .where(and(...where))
-    .orderBy(order, asc(members.id))
-    .limit(q.size)
-    .offset((q.page - 1) * q.size);
-  const [totalRow] = await db
-    .select({ n: count() })
+    .where(and(eq(members.shopId, shopId), eq(members.userId, userId)))
+    .limit(1);
+  return row?.role ?? null;
+}
+
+/**
+ * Every shop a person belongs to, with their role there. The one read across shops: it is keyed by
+ * the signed-in user and hands back only their own memberships.
+ */
+export async function listShopsOfUser(userId: string): Promise<{ slug: string; name: string; role: Role }[]> {
+  return db
+    .select({ slug: shops.slug, name: shops.name, role: members.role })
     .from(members)
-    .innerJoin(users, eq(users.id, members.userId))
-    .where(and(...where));
-  return { rows, total: totalRow?.n ?? 0 };
+    .innerJoin(shops, eq(shops.id, members.shopId))
+    .where(eq(members.userId, userId))
+    .orderBy(asc(shops.name));
 }
 
 export async function getMember(shopId: string, memberId: string) {

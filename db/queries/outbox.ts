@@ -1,61 +1,63 @@
 import "server-only";
-import { and, asc, count, desc, eq, ilike, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { emailOutbox, quoteRevisions, quotes, shops } from "@/db/schema";
 import type { Executor, Tx } from "@/db/tx";
-import type { OutboxListQuery } from "@/lib/validation/outbox";
+import type { OutboxListQuery } from "@/lib/validation/lists";
+import type { OutboxStatus } from "@/lib/vocabulary";
+import { containsText, ranked, readPage, sortedBy, type Page } from "./paging";
 
 export interface OutboxListRow {
   id: string;
   kind: string;
   toEmail: string;
   subject: string;
-  status: "waiting" | "sent" | "failed";
+  status: OutboxStatus;
   attempts: number;
   lastError: string | null;
   createdAt: Date;
   sentAt: Date | null;
 }
 
-/** A page of the shop's outbox, filtered and sorted; `total` counts the filtered set. */
-export async function listOutbox(shopId: string, q: OutboxListQuery): Promise<{ rows: OutboxListRow[]; total: number }> {
-  const where: SQL[] = [eq(emailOutbox.shopId, shopId)];
-  if (q.status !== "all") where.push(eq(emailOutbox.status, q.status));
-  if (q.q) {
-    const like = `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
-    where.push(or(ilike(emailOutbox.toEmail, like), ilike(emailOutbox.subject, like))!);
-  }
-  const column = {
-    created: emailOutbox.createdAt,
-    to: emailOutbox.toEmail,
-    subject: emailOutbox.subject,
-    status: emailOutbox.status,
-    attempts: emailOutbox.attempts,
-    sent: emailOutbox.sentAt,
-  }[q.sort];
-  const order = q.dir === "asc" ? asc(column) : desc(column);
-  const rows = await db
-    .select({
-      id: emailOutbox.id,
-      kind: emailOutbox.kind,
-      toEmail: emailOutbox.toEmail,
-      subject: emailOutbox.subject,
-      status: emailOutbox.status,
-      attempts: emailOutbox.attempts,
-      lastError: emailOutbox.lastError,
-      createdAt: emailOutbox.createdAt,
-      sentAt: emailOutbox.sentAt,
-    })
-    .from(emailOutbox)
-    .where(and(...where))
-    .orderBy(order, desc(emailOutbox.createdAt), asc(emailOutbox.id))
-    .limit(q.size)
-    .offset((q.page - 1) * q.size);
-  const [totalRow] = await db
-    .select({ n: count() })
-    .from(emailOutbox)
-    .where(and(...where));
-  return { rows, total: totalRow?.n ?? 0 };
+const OUTBOX_SORTS = {
+  created: emailOutbox.createdAt,
+  to: emailOutbox.toEmail,
+  subject: emailOutbox.subject,
+  // what went wrong first
+  status: ranked(emailOutbox.status, ["failed", "waiting", "sent"]),
+  attempts: emailOutbox.attempts,
+  sent: emailOutbox.sentAt,
+};
+
+/** A page of the shop's outbox, filtered and sorted; ties newest first. */
+export async function listOutbox(shopId: string, q: OutboxListQuery): Promise<Page<OutboxListRow>> {
+  const where = and(
+    eq(emailOutbox.shopId, shopId),
+    q.status === "all" ? undefined : eq(emailOutbox.status, q.status),
+    containsText(q.q, emailOutbox.toEmail, emailOutbox.subject),
+  );
+  return readPage(
+    q,
+    () => db.select({ n: count() }).from(emailOutbox).where(where),
+    (limit, offset) =>
+      db
+        .select({
+          id: emailOutbox.id,
+          kind: emailOutbox.kind,
+          toEmail: emailOutbox.toEmail,
+          subject: emailOutbox.subject,
+          status: emailOutbox.status,
+          attempts: emailOutbox.attempts,
+          lastError: emailOutbox.lastError,
+          createdAt: emailOutbox.createdAt,
+          sentAt: emailOutbox.sentAt,
+        })
+        .from(emailOutbox)
+        .where(where)
+        .orderBy(...sortedBy(OUTBOX_SORTS, q, desc(emailOutbox.createdAt), asc(emailOutbox.id)))
+        .limit(limit)
+        .offset(offset),
+  );
 }
 
 export async function getOutboxRow(shopId: string, id: string) {

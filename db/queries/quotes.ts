@@ -1,16 +1,19 @@
 import "server-only";
-import { and, asc, count, desc, eq, ilike, or, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { quoteLines, quoteRevisions, quotes, shops, users } from "@/db/schema";
 import type { Tx } from "@/db/tx";
+import type { OwnerScope } from "@/lib/auth/ownership";
 import type { PriceLine } from "@/lib/pricing";
 import type { FrozenQuote } from "@/lib/quoting/types";
-import type { QuoteListQuery } from "@/lib/validation/quote";
+import type { QuoteListQuery } from "@/lib/validation/lists";
+import type { QuoteStatus } from "@/lib/vocabulary";
+import { containsText, ranked, readPage, sortedBy, type Page } from "./paging";
 
 export interface QuoteListRow {
   id: string;
   number: string;
-  status: "issued" | "accepted" | "expired" | "withdrawn";
+  status: QuoteStatus;
   revision: number;
   customerName: string;
   customerEmail: string;
@@ -21,56 +24,54 @@ export interface QuoteListRow {
   createdAt: Date;
 }
 
-const escapeLike = (s: string) => `%${s.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
+const QUOTE_SORTS = {
+  number: quotes.number,
+  customer: users.name,
+  // open quotes first
+  status: ranked(quotes.status, ["issued", "accepted", "expired", "withdrawn"]),
+  total: quoteRevisions.total,
+  validUntil: quoteRevisions.validUntil,
+  created: quotes.createdAt,
+};
 
-/** A page of a shop's quotes (optionally one customer's), each with its current revision's totals. */
-async function listQuotesWhere(shopId: string, q: QuoteListQuery, customerUserId?: string): Promise<{ rows: QuoteListRow[]; total: number }> {
-  const where: SQL[] = [eq(quotes.shopId, shopId)];
-  if (customerUserId !== undefined) where.push(eq(quotes.customerUserId, customerUserId));
-  if (q.status !== "all") where.push(eq(quotes.status, q.status));
-  if (q.q) {
-    const like = escapeLike(q.q);
-    where.push(customerUserId !== undefined ? ilike(quotes.number, like) : or(ilike(quotes.number, like), ilike(users.name, like), ilike(users.email, like))!);
-  }
-  const column = { number: quotes.number, created: quotes.createdAt, total: quoteRevisions.total, validUntil: quoteRevisions.validUntil }[q.sort];
-  const join = and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision));
-  const rows = await db
-    .select({
-      id: quotes.id,
-      number: quotes.number,
-      status: quotes.status,
-      revision: quotes.currentRevision,
-      customerName: users.name,
-      customerEmail: users.email,
-      currency: quoteRevisions.currency,
-      quantity: quoteRevisions.quantity,
-      total: quoteRevisions.total,
-      validUntil: quoteRevisions.validUntil,
-      createdAt: quotes.createdAt,
-    })
-    .from(quotes)
-    .innerJoin(quoteRevisions, join)
-    .innerJoin(users, eq(users.id, quotes.customerUserId))
-    .where(and(...where))
-    .orderBy(q.dir === "asc" ? asc(column) : desc(column), desc(quotes.number))
-    .limit(q.size)
-    .offset((q.page - 1) * q.size);
-  const [t] = await db
-    .select({ n: count() })
-    .from(quotes)
-    .innerJoin(users, eq(users.id, quotes.customerUserId))
-    .where(and(...where));
-  return { rows, total: t?.n ?? 0 };
-}
-
-/** Every quote of the shop (staff). */
-export function listQuotes(shopId: string, q: QuoteListQuery) {
-  return listQuotesWhere(shopId, q);
-}
-
-/** One customer's quotes in the shop. */
-export function listCustomerQuotes(shopId: string, userId: string, q: QuoteListQuery) {
-  return listQuotesWhere(shopId, q, userId);
+/**
+ * A page of the shop's quotes the member sees (lib/auth/ownership.ts): all of them, or one
+ * customer's own. Each row carries its current revision's totals; ties by number, newest first.
+ */
+export async function listQuotes(shopId: string, scope: OwnerScope, q: QuoteListQuery): Promise<Page<QuoteListRow>> {
+  const where = and(
+    eq(quotes.shopId, shopId),
+    scope.all ? undefined : eq(quotes.customerUserId, scope.userId),
+    q.status === "all" ? undefined : eq(quotes.status, q.status),
+    scope.all ? containsText(q.q, quotes.number, users.name, users.email) : containsText(q.q, quotes.number),
+  );
+  const current = and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision));
+  return readPage(
+    q,
+    () => db.select({ n: count() }).from(quotes).innerJoin(users, eq(users.id, quotes.customerUserId)).where(where),
+    (limit, offset) =>
+      db
+        .select({
+          id: quotes.id,
+          number: quotes.number,
+          status: quotes.status,
+          revision: quotes.currentRevision,
+          customerName: users.name,
+          customerEmail: users.email,
+          currency: quoteRevisions.currency,
+          quantity: quoteRevisions.quantity,
+          total: quoteRevisions.total,
+          validUntil: quoteRevisions.validUntil,
+          createdAt: quotes.createdAt,
+        })
+        .from(quotes)
+        .innerJoin(quoteRevisions, current)
+        .innerJoin(users, eq(users.id, quotes.customerUserId))
+        .where(where)
+        .orderBy(...sortedBy(QUOTE_SORTS, q, desc(quotes.number)))
+        .limit(limit)
+        .offset(offset),
+  );
 }
 
 /** A quote by its number with its current revision's id; null when not in this shop. */

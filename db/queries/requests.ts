@@ -1,17 +1,20 @@
 import "server-only";
-import { and, asc, count, desc, eq, sql, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { bankRequests, quotes, users } from "@/db/schema";
 import type { Tx } from "@/db/tx";
 import type { Requirement } from "@/lib/bank/types";
 import type { ChosenRecord } from "@/lib/quoting/types";
-import type { RequestListQuery } from "@/lib/validation/quote";
+import type { RequestListQuery } from "@/lib/validation/lists";
+import type { RequestStatus } from "@/lib/vocabulary";
+import { containsText, ranked, readPage, sortedBy, type Page } from "./paging";
 
 export interface RequestListRow {
   id: string;
-  status: "quoted" | "needs-review" | "closed";
+  status: RequestStatus;
   customerName: string;
   customerEmail: string;
+  requirement: Requirement;
   maxVoltage: number;
   quantity: number;
   reviewReasons: string[];
@@ -19,36 +22,45 @@ export interface RequestListRow {
   createdAt: Date;
 }
 
-const voltage = sql<number>`(${bankRequests.requirement}->>'maxVoltage')::float8`;
+const REQUEST_SORTS = {
+  created: bankRequests.createdAt,
+  customer: users.name,
+  voltage: sql<number>`(${bankRequests.requirement}->>'maxVoltage')::float8`,
+  // what an estimator must act on first
+  status: ranked(bankRequests.status, ["needs-review", "quoted", "closed"]),
+};
 
-/** A page of the shop's requests with the customer and the quote made from each, if any. */
-export async function listRequests(shopId: string, q: RequestListQuery): Promise<{ rows: RequestListRow[]; total: number }> {
-  const where: SQL[] = [eq(bankRequests.shopId, shopId)];
-  if (q.status !== "all") where.push(eq(bankRequests.status, q.status));
-  const column = { created: bankRequests.createdAt, status: bankRequests.status, voltage }[q.sort];
-  const rows = await db
-    .select({
-      id: bankRequests.id,
-      status: bankRequests.status,
-      customerName: users.name,
-      customerEmail: users.email,
-      requirement: bankRequests.requirement,
-      reviewReasons: bankRequests.reviewReasons,
-      quoteNumber: quotes.number,
-      createdAt: bankRequests.createdAt,
-    })
-    .from(bankRequests)
-    .innerJoin(users, eq(users.id, bankRequests.customerUserId))
-    .leftJoin(quotes, and(eq(quotes.shopId, bankRequests.shopId), eq(quotes.requestId, bankRequests.id)))
-    .where(and(...where))
-    .orderBy(q.dir === "asc" ? asc(column) : desc(column), desc(bankRequests.createdAt), asc(bankRequests.id))
-    .limit(q.size)
-    .offset((q.page - 1) * q.size);
-  const [t] = await db.select({ n: count() }).from(bankRequests).where(and(...where));
-  return {
-    rows: rows.map(({ requirement, ...r }) => ({ ...r, maxVoltage: requirement.maxVoltage, quantity: requirement.quantity ?? 1 })),
-    total: t?.n ?? 0,
-  };
+/** A page of the shop's requests with the customer and the quote made from each, if any; ties newest first. */
+export async function listRequests(shopId: string, q: RequestListQuery): Promise<Page<RequestListRow>> {
+  const where = and(
+    eq(bankRequests.shopId, shopId),
+    q.status === "all" ? undefined : eq(bankRequests.status, q.status),
+    containsText(q.q, users.name, users.email),
+  );
+  const page = await readPage(
+    q,
+    () => db.select({ n: count() }).from(bankRequests).innerJoin(users, eq(users.id, bankRequests.customerUserId)).where(where),
+    (limit, offset) =>
+      db
+        .select({
+          id: bankRequests.id,
+          status: bankRequests.status,
+          customerName: users.name,
+          customerEmail: users.email,
+          requirement: bankRequests.requirement,
+          reviewReasons: bankRequests.reviewReasons,
+          quoteNumber: quotes.number,
+          createdAt: bankRequests.createdAt,
+        })
+        .from(bankRequests)
+        .innerJoin(users, eq(users.id, bankRequests.customerUserId))
+        .leftJoin(quotes, and(eq(quotes.shopId, bankRequests.shopId), eq(quotes.requestId, bankRequests.id)))
+        .where(where)
+        .orderBy(...sortedBy(REQUEST_SORTS, q, desc(bankRequests.createdAt), asc(bankRequests.id)))
+        .limit(limit)
+        .offset(offset),
+  );
+  return { ...page, rows: page.rows.map(({ requirement, ...r }) => ({ ...r, requirement, maxVoltage: requirement.maxVoltage, quantity: requirement.quantity ?? 1 })) };
 }
 
 /** Requests waiting for an estimator, counted for the desk. */

@@ -5,9 +5,14 @@ import { shopSettings, shops, users } from "@/db/schema";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
 import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
 
+/** The shop a URL's slug names, or null: the first step of every shop context. */
+export async function getShopBySlug(slug: string): Promise<{ id: string; slug: string; name: string } | null> {
+  const [shop] = await db.select({ id: shops.id, slug: shops.slug, name: shops.name }).from(shops).where(eq(shops.slug, slug)).limit(1);
+  return shop ?? null;
+}
+
 export async function isSlugTaken(slug: string): Promise<boolean> {
-  const [row] = await db.select({ id: shops.id }).from(shops).where(eq(shops.slug, slug)).limit(1);
-  return Boolean(row);
+  return (await getShopBySlug(slug)) !== null;
 }
 
 /** Shops shown on the landing page: public storefront facts only. */

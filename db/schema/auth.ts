@@ -4,6 +4,7 @@
  * lib/auth/server.ts for the model-name mapping (organization → shops, member → members).
  */
 import { boolean, index, pgEnum, pgTable, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import { ROLES } from "../../lib/auth/permissions";
 
 export const users = pgTable("users", {
   id: text().primaryKey(),
@@ -78,7 +79,7 @@ export const shops = pgTable("shops", {
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
 
-export const memberRoleEnum = pgEnum("member_role", ["manager", "estimator", "customer"]);
+export const memberRoleEnum = pgEnum("member_role", ROLES);
 
 export const members = pgTable(
   "members",

@@ -13,9 +13,10 @@ import {
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+import { TECHNOLOGIES } from "../../lib/bank/types";
 import { shops } from "./auth";
 
-export const technologyEnum = pgEnum("technology", ["edlc", "hybrid", "electrolytic", "film"]);
+export const technologyEnum = pgEnum("technology", TECHNOLOGIES);
 export const cellShapeEnum = pgEnum("cell_shape", ["cylinder", "box"]);
 export const componentKindEnum = pgEnum("component_kind", [
   "balancing-board",

@@ -1,8 +1,9 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { OUTBOX_STATUSES } from "../../lib/vocabulary";
 import { shops } from "./auth";
 import { quoteRevisions } from "./quotes";
 
-export const emailStatusEnum = pgEnum("email_status", ["waiting", "sent", "failed"]);
+export const emailStatusEnum = pgEnum("email_status", OUTBOX_STATUSES);
 
 /**
  * The shop's e-mail outbox. A row is written in the same transaction as what it announces; a

@@ -3,10 +3,11 @@ import { date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text
 import type { Requirement } from "@/lib/bank/types";
 import type { BankPrice } from "@/lib/pricing/types";
 import type { ChosenRecord, FrozenCell, PricedOption } from "@/lib/quoting/types";
+import { QUOTE_STATUSES, REQUEST_STATUSES } from "../../lib/vocabulary";
 import { shops, users } from "./auth";
 
-export const requestStatusEnum = pgEnum("request_status", ["quoted", "needs-review", "closed"]);
-export const quoteStatusEnum = pgEnum("quote_status", ["issued", "accepted", "expired", "withdrawn"]);
+export const requestStatusEnum = pgEnum("request_status", REQUEST_STATUSES);
+export const quoteStatusEnum = pgEnum("quote_status", QUOTE_STATUSES);
 export const priceLineKindEnum = pgEnum("price_line_kind", ["material", "labour", "overhead"]);
 
 /** What a customer asked for (DESIGN.md §3.2), kept with what the engine and the shop did with it. */

@@ -8,14 +8,15 @@ import { count } from "drizzle-orm";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
 import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
 import type { Db } from "../client";
-import { accounts, catalogCells, catalogComponents, members, shopSettings, shops, users } from "../schema";
+import { accounts, catalogCells, catalogComponents, members, shopSettings, shops, users, type NewCatalogCell, type NewCatalogComponent } from "../schema";
 import { kestrelCells, kestrelComponents } from "./catalog-kestrel";
 import { marlowCells, marlowComponents } from "./catalog-marlow";
-import { DEMO_PASSWORD, demoPeople, demoShops } from "./people";
+import { DEMO_PASSWORD, demoPeople, demoShops, type DemoPerson, type DemoShopPeople } from "./people";
 
 export { DEMO_PASSWORD, demoPeople, demoShops };
 
-const catalogs = {
+/** Each demo shop's catalog (tests copy them into shops of their own). */
+export const demoCatalogs = {
   "kestrel-bank-works": { cells: kestrelCells, components: kestrelComponents },
   "marlow-pulse": { cells: marlowCells, components: marlowComponents },
 } as const;
@@ -32,33 +33,50 @@ async function createUser(db: Db, person: { name: string; email: string }, passw
   return id;
 }
 
+/** One shop to load: its storefront facts, its people and the catalog it builds from. */
+export interface ShopSeed {
+  slug: string;
+  name: string;
+  currency: string;
+  tagline?: string;
+  description?: string;
+  people: DemoShopPeople;
+  catalog: { cells: Omit<NewCatalogCell, "shopId">[]; components: Omit<NewCatalogComponent, "shopId">[] };
+}
+
+/** Loads one shop with the default design factors and pricing rules; answers its id and its people's user ids. */
+export async function seedShop(db: Db, shop: ShopSeed, passwordHash: string): Promise<{ shopId: string; userIds: Map<string, string> }> {
+  const shopId = randomUUID();
+  await db.insert(shops).values({ id: shopId, name: shop.name, slug: shop.slug });
+  await db.insert(shopSettings).values({
+    shopId,
+    currency: shop.currency,
+    tagline: shop.tagline,
+    description: shop.description,
+    designFactors: DEFAULT_DESIGN_FACTORS,
+    pricingRules: { ...DEFAULT_PRICING_RULES, currency: shop.currency },
+  });
+  const { people } = shop;
+  const staff: [DemoPerson, "manager" | "estimator" | "customer"][] = [
+    [people.manager, "manager"],
+    [people.estimator, "estimator"],
+    ...people.customers.map((c) => [c, "customer"] as [DemoPerson, "customer"]),
+  ];
+  const userIds = new Map<string, string>();
+  for (const [person, role] of staff) {
+    const userId = await createUser(db, person, passwordHash);
+    userIds.set(person.email, userId);
+    await db.insert(members).values({ id: randomUUID(), shopId, userId, role });
+  }
+  await db.insert(catalogCells).values(shop.catalog.cells.map((c) => ({ ...c, shopId })));
+  await db.insert(catalogComponents).values(shop.catalog.components.map((c) => ({ ...c, shopId })));
+  return { shopId, userIds };
+}
+
 /** Loads both demo shops. Call only on an empty database (the start command checks). */
 export async function seedDemo(db: Db): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   for (const shop of demoShops) {
-    const slug = shop.slug as keyof typeof catalogs;
-    const shopId = randomUUID();
-    await db.insert(shops).values({ id: shopId, name: shop.name, slug });
-    await db.insert(shopSettings).values({
-      shopId,
-      currency: shop.currency,
-      tagline: shop.tagline,
-      description: shop.description,
-      designFactors: DEFAULT_DESIGN_FACTORS,
-      pricingRules: { ...DEFAULT_PRICING_RULES, currency: shop.currency },
-    });
-    const people = demoPeople[slug];
-    const staff: [typeof people.manager, "manager" | "estimator" | "customer"][] = [
-      [people.manager, "manager"],
-      [people.estimator, "estimator"],
-      ...people.customers.map((c) => [c, "customer"] as [typeof c, "customer"]),
-    ];
-    for (const [person, role] of staff) {
-      const userId = await createUser(db, person, passwordHash);
-      await db.insert(members).values({ id: randomUUID(), shopId, userId, role });
-    }
-    const { cells, components } = catalogs[slug];
-    await db.insert(catalogCells).values(cells.map((c) => ({ ...c, shopId })));
-    await db.insert(catalogComponents).values(components.map((c) => ({ ...c, shopId })));
+    await seedShop(db, { ...shop, people: demoPeople[shop.slug], catalog: demoCatalogs[shop.slug] }, passwordHash);
   }
 }

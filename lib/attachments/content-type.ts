@@ -1,8 +1,6 @@
 /** Attachments: what an uploaded file is, judged by its content, and the names it is stored and sent under. */
 import { fileTypeFromBuffer } from "file-type";
 
-/** Largest attachment accepted (10 MB, binary megabytes). */
-export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
 
 export const ALLOWED_ATTACHMENT_TYPES = ["application/pdf", "image/png", "image/jpeg", "image/vnd.dxf"] as const;
 export type AttachmentContentType = (typeof ALLOWED_ATTACHMENT_TYPES)[number];

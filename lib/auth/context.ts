@@ -1,11 +1,9 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
 import { headers } from "next/headers";
-import { forbidden, notFound, redirect } from "next/navigation";
 import { cache } from "react";
-import { db } from "@/db";
-import { members, shops } from "@/db/schema";
-import { can, isRole, type Permission, type Role } from "./permissions";
+import { getMemberRole } from "@/db/queries/members";
+import { getShopBySlug } from "@/db/queries/shops";
+import type { Role } from "./permissions";
 import { auth } from "./server";
 
 export interface ShopContext {
@@ -14,20 +12,12 @@ export interface ShopContext {
   role: Role;
 }
 
+/** Who is asking in a shop: a member with a role, or one of the three ways not to be one. */
 export type ContextResult =
   | { status: "ok"; ctx: ShopContext }
   | { status: "no-shop" }
   | { status: "signed-out"; shop: ShopContext["shop"] }
   | { status: "not-member"; shop: ShopContext["shop"]; user: ShopContext["user"] };
-
-export async function getShopBySlug(slug: string) {
-  const [shop] = await db
-    .select({ id: shops.id, slug: shops.slug, name: shops.name })
-    .from(shops)
-    .where(eq(shops.slug, slug))
-    .limit(1);
-  return shop ?? null;
-}
 
 /**
  * Who is asking, in which shop, in which role. The shop comes from the URL's slug, the user from
@@ -39,13 +29,9 @@ export async function resolveShopContext(requestHeaders: Headers, shopSlug: stri
   const session = await auth.api.getSession({ headers: requestHeaders });
   if (!session) return { status: "signed-out", shop };
   const user = { id: session.user.id, name: session.user.name, email: session.user.email };
-  const [member] = await db
-    .select({ role: members.role })
-    .from(members)
-    .where(and(eq(members.shopId, shop.id), eq(members.userId, user.id)))
-    .limit(1);
-  if (!member || !isRole(member.role)) return { status: "not-member", shop, user };
-  return { status: "ok", ctx: { user, shop, role: member.role } };
+  const role = await getMemberRole(shop.id, user.id);
+  if (!role) return { status: "not-member", shop, user };
+  return { status: "ok", ctx: { user, shop, role } };
 }
 
 /** The signed-in user, or null (for pages that are not tied to one shop). */
@@ -56,29 +42,3 @@ export const getSessionUser = cache(async () => {
 
 /** For server components: React-cached per request. */
 export const getShopContext = cache(async (shopSlug: string) => resolveShopContext(await headers(), shopSlug));
-
-/**
- * For pages: the context when the signed-in member may do `permission`; otherwise the sign-in page
- * (signed out), the not-found page (no such shop) or the not-allowed page (403).
- */
-export async function requireShopPage(shopSlug: string, permission?: Permission, next?: string): Promise<ShopContext> {
-  const r = await getShopContext(shopSlug);
-  if (r.status === "no-shop") notFound();
-  if (r.status === "signed-out") {
-    const back = next ?? `/desk/${shopSlug}`;
-    redirect(`/sign-in?shop=${encodeURIComponent(shopSlug)}&next=${encodeURIComponent(back)}`);
-  }
-  if (r.status === "not-member") forbidden();
-  if (permission && !can(r.ctx.role, permission)) forbidden();
-  return r.ctx;
-}
-
-export class NotAllowedError extends Error {
-  constructor(public readonly permission: Permission) {
-    super(`not allowed: ${permission}`);
-  }
-}
-
-export function assertCan(role: Role, permission: Permission): void {
-  if (!can(role, permission)) throw new NotAllowedError(permission);
-}

@@ -43,19 +43,9 @@ export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
   customer: ["request:create", "request:read-own", "quote:read-own", "quote:accept", "order:read-own"],
 };
 
-export function isRole(value: unknown): value is Role {
-  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
-}
-
 export function can(role: Role, permission: Permission): boolean {
   return ROLE_PERMISSIONS[role].includes(permission);
 }
 
 /** Role changes a manager may make from the team page (DESIGN: estimator ↔ customer). */
 export const ASSIGNABLE_ROLES = ["estimator", "customer"] as const satisfies readonly Role[];
-
-export const ROLE_LABELS: Record<Role, string> = {
-  manager: "Manager",
-  estimator: "Estimator",
-  customer: "Customer",
-};

@@ -6,9 +6,8 @@ import { organization } from "better-auth/plugins";
 import { db } from "@/db";
 import { accounts, invitations, members, sessions, shops, users, verifications } from "@/db/schema";
 import { env } from "@/lib/env";
+import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "@/lib/validation/limits";
 import { ac, roles } from "./access";
-
-export const MIN_PASSWORD_LENGTH = 10;
 
 export const auth = betterAuth({
   appName: "Faradsmith",
@@ -23,7 +22,7 @@ export const auth = betterAuth({
   session: { modelName: "sessions", fields: {} },
   account: { modelName: "accounts" },
   verification: { modelName: "verifications" },
-  emailAndPassword: { enabled: true, minPasswordLength: MIN_PASSWORD_LENGTH, autoSignIn: true },
+  emailAndPassword: { enabled: true, minPasswordLength: PASSWORD_MIN_LENGTH, maxPasswordLength: PASSWORD_MAX_LENGTH, autoSignIn: true },
   rateLimit: {
     enabled: env.NODE_ENV === "production",
     window: 10,

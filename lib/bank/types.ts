@@ -1,8 +1,7 @@
 /** Engine types. Physics in SI units as plain numbers (F, V, Ω, A, J, W, s, kg, m³). */
 
-export type Technology = 'edlc' | 'hybrid' | 'electrolytic' | 'film';
-
-export const TECHNOLOGIES: readonly Technology[] = ['edlc', 'hybrid', 'electrolytic', 'film'];
+export const TECHNOLOGIES = ['edlc', 'hybrid', 'electrolytic', 'film'] as const;
+export type Technology = (typeof TECHNOLOGIES)[number];
 
 export type NetworkNode =
   | {
@@ -105,7 +104,8 @@ export interface Requirement {
   technology?: Technology;
 }
 
-export type Topology = 'series-of-parallel-groups' | 'parallel-of-series-strings';
+export const TOPOLOGIES = ['series-of-parallel-groups', 'parallel-of-series-strings'] as const;
+export type Topology = (typeof TOPOLOGIES)[number];
 
 /**
  * Bounding-box volume of a cell in m³. Cylinders pack on a square grid, so each takes d²·h

@@ -6,7 +6,7 @@ import { getQuoteByIdempotencyKey, insertQuote, insertQuoteRevision } from "@/db
 import { getRequestByIdempotencyKey, insertBankRequest } from "@/db/queries/requests";
 import { inTransaction, isUniqueViolation } from "@/db/tx";
 import type { Requirement } from "@/lib/bank";
-import type { ActionResult } from "@/lib/auth/shop-action";
+import type { ActionResult } from "@/lib/auth/guards";
 import type { ShopContext } from "@/lib/auth/context";
 import { dispatchOutbox, enqueueQuoteReady } from "@/lib/mail/outbox";
 import type { ChooseArrangementInput } from "@/lib/validation/quote";

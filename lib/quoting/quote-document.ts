@@ -1,13 +1,10 @@
 import type { RevisionWithLines } from "@/db/queries/quotes";
-import type { Requirement } from "@/lib/bank";
 import { formatMoney, type BankPrice } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
+import { requirementFacts, TECHNOLOGY_LABELS, TOPOLOGY_LABELS, type LabelledValue } from "@/lib/vocabulary";
 import type { FrozenCell, PricedOption } from "./types";
 
-export interface LabelledValue {
-  label: string;
-  value: string;
-}
+export type { LabelledValue };
 
 export interface QuoteDocumentLine {
   position: number;
@@ -46,29 +43,8 @@ export interface QuoteDocument {
   option: PricedOption;
 }
 
-const TOPOLOGY_LABELS: Record<string, string> = {
-  "series-of-parallel-groups": "Series string of parallel groups",
-  "parallel-of-series-strings": "Parallel strings of series cells",
-};
-
-const TECHNOLOGY_LABELS: Record<string, string> = { edlc: "Supercapacitor (EDLC)", hybrid: "Hybrid capacitor", electrolytic: "Aluminium electrolytic", film: "Film" };
-
 const q = (value: number, unit: string) => formatQuantity(value, unit);
 const pct = (fraction: number) => `${String(Math.round(fraction * 1000) / 10)} %`;
-
-export function describeRequirement(r: Requirement): LabelledValue[] {
-  const out: LabelledValue[] = [{ label: "Maximum voltage", value: q(r.maxVoltage, "V") }];
-  if (r.minVoltage !== undefined) out.push({ label: "Minimum voltage", value: q(r.minVoltage, "V") });
-  if (r.capacitance !== undefined) out.push({ label: "Capacitance", value: q(r.capacitance, "F") });
-  if (r.energy !== undefined) out.push({ label: "Usable energy", value: q(r.energy, "J") });
-  if (r.backup) out.push({ label: "Backup", value: `${q(r.backup.power, "W")} for ${q(r.backup.seconds, "s")}` });
-  if (r.peakCurrent) out.push({ label: "Peak current", value: `${q(r.peakCurrent.current, "A")} with at most ${q(r.peakCurrent.maxDrop, "V")} drop` });
-  if (r.maxMass !== undefined) out.push({ label: "Mass limit", value: q(r.maxMass, "kg") });
-  if (r.maxVolume !== undefined) out.push({ label: "Volume limit", value: q(r.maxVolume, "m³") });
-  if (r.technology) out.push({ label: "Technology", value: TECHNOLOGY_LABELS[r.technology] ?? r.technology });
-  out.push({ label: "Quantity", value: `${r.quantity ?? 1} bank${(r.quantity ?? 1) === 1 ? "" : "s"}` });
-  return out;
-}
 
 function describeArrangement(o: PricedOption): LabelledValue[] {
   const rows: LabelledValue[] = [
@@ -149,7 +125,7 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     customerEmail: rev.customerEmail,
     currency: r.currency,
     quantity: r.quantity,
-    requirement: describeRequirement(r.requirement),
+    requirement: requirementFacts(r.requirement),
     arrangement: describeArrangement(option),
     cell: describeCell(r.cell, option),
     figures: describeFigures(option),

@@ -1,8 +1,9 @@
 import { z } from "zod";
 import { ASSIGNABLE_ROLES } from "@/lib/auth/permissions";
+import { SHOP_CURRENCIES } from "@/lib/vocabulary";
+import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "./limits";
 
-export const MIN_PASSWORD = 10;
-export const RESERVED_SLUGS = ["api", "desk", "s", "admin", "sign-in", "sign-up", "open-shop", "new", "settings", "faradsmith"];
+const RESERVED_SLUGS = ["api", "desk", "s", "admin", "sign-in", "sign-up", "open-shop", "new", "settings", "faradsmith"];
 
 /** Why a slug is unusable, or null when it is fine. Shared by the form and the server. */
 export function slugProblem(slug: string): string | null {
@@ -18,7 +19,7 @@ export function slugProblem(slug: string): string | null {
   return null;
 }
 
-export const slugSchema = z.string().superRefine((value, ctx) => {
+const slugSchema = z.string().superRefine((value, ctx) => {
   const problem = slugProblem(value);
   if (problem) ctx.addIssue({ code: "custom", message: problem });
 });
@@ -39,8 +40,8 @@ const name = z.string().trim().min(2, "Enter your name (at least 2 characters)."
 const email = z.string().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@example.com."));
 const password = z
   .string()
-  .min(MIN_PASSWORD, `At least ${MIN_PASSWORD} characters.`)
-  .max(128, "At most 128 characters.");
+  .min(PASSWORD_MIN_LENGTH, `At least ${PASSWORD_MIN_LENGTH} characters.`)
+  .max(PASSWORD_MAX_LENGTH, `At most ${PASSWORD_MAX_LENGTH} characters.`);
 
 export const signInSchema = z.object({
   email,
@@ -54,7 +55,7 @@ export const openShopSchema = z.object({
   password,
   shopName: z.string().trim().min(2, "Enter the shop's name (at least 2 characters).").max(80, "At most 80 characters."),
   slug: slugSchema,
-  currency: z.enum(["EUR", "USD", "GBP", "CHF", "JPY", "KWD"], { message: "Choose a currency." }),
+  currency: z.enum(SHOP_CURRENCIES, { message: "Choose a currency." }),
 });
 export type OpenShopInput = z.infer<typeof openShopSchema>;
 
@@ -70,14 +71,3 @@ export const changeMemberRoleSchema = z.object({
   memberId: z.string().min(1, "Which member?"),
   role: z.enum(ASSIGNABLE_ROLES, { message: "Choose estimator or customer." }),
 });
-export type ChangeMemberRoleInput = z.infer<typeof changeMemberRoleSchema>;
-
-export const memberListSchema = z.object({
-  q: z.string().trim().max(100).optional().default(""),
-  role: z.enum(["all", "manager", "estimator", "customer"]).optional().default("all"),
-  sort: z.enum(["name", "email", "role", "joined"]).optional().default("name"),
-  dir: z.enum(["asc", "desc"]).optional().default("asc"),
-  page: z.coerce.number().int().min(1).optional().default(1),
-  size: z.coerce.number().int().min(5).max(100).optional().default(20),
-});
-export type MemberListQuery = z.infer<typeof memberListSchema>;

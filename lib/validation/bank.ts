@@ -13,7 +13,7 @@ import {
   MAX_VOLUME,
   formatBound,
 } from '../bank/bounds';
-import type { NetworkNode, Requirement } from '../bank/types';
+import { TECHNOLOGIES, type NetworkNode, type Requirement } from '../bank/types';
 
 /** Deepest network accepted (levels of groups and cells, the root is level 1). */
 export const MAX_NETWORK_DEPTH = 64;
@@ -64,7 +64,7 @@ export const evaluateNetworkSchema = z.strictObject({
 
 export type EvaluateNetworkInput = z.infer<typeof evaluateNetworkSchema>;
 
-export const technologySchema = z.enum(['edlc', 'hybrid', 'electrolytic', 'film']);
+export const technologySchema = z.enum(TECHNOLOGIES);
 
 export const arrangementRequestSchema = z
   .strictObject({

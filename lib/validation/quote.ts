@@ -1,11 +1,13 @@
 import { z } from "zod";
 import { MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from "../bank/bounds";
+import { TOPOLOGIES } from "@/lib/bank/types";
 import { arrangementRequestSchema } from "./bank";
+import { MAX_ATTACHMENTS_PER_REQUEST, MAX_NOTES_LENGTH } from "./limits";
 
-export const topologySchema = z.enum(["series-of-parallel-groups", "parallel-of-series-strings"]);
+const topologySchema = z.enum(TOPOLOGIES);
 
 /** The option a customer picked, as its identity only: the server re-prices it from the catalog. */
-export const chosenOptionSchema = z.object({
+const chosenOptionSchema = z.object({
   cellSku: z.string().trim().min(1).max(200),
   topology: topologySchema,
   seriesCount: z.number().int().positive().max(MAX_SERIES_COUNT),
@@ -19,33 +21,15 @@ export const chosenOptionSchema = z.object({
 export const chooseArrangementSchema = z.object({
   idempotencyKey: z.string().uuid(),
   requirement: arrangementRequestSchema,
-  notes: z.string().max(4000).default(""),
-  attachmentIds: z.array(z.string().uuid()).max(10).default([]),
+  notes: z.string().max(MAX_NOTES_LENGTH).default(""),
+  attachmentIds: z.array(z.string().uuid()).max(MAX_ATTACHMENTS_PER_REQUEST).default([]),
   option: chosenOptionSchema.optional(),
 });
 
+/** The identity of an option: what the customer chooses and the server finds again. */
+export function optionId(o: { cell: { sku: string }; topology: string; seriesCount: number; parallelCount: number }): string {
+  return `${o.cell.sku}|${o.topology}|${o.seriesCount}|${o.parallelCount}`;
+}
+
 export type ChooseArrangementInput = z.infer<typeof chooseArrangementSchema>;
 export type ChosenOption = z.infer<typeof chosenOptionSchema>;
-
-/** Quote lists: page, sort and filter as they appear in the URL. */
-export const quoteListQuerySchema = z.object({
-  q: z.string().trim().max(100).catch(""),
-  status: z.enum(["all", "issued", "accepted", "expired", "withdrawn"]).catch("all"),
-  sort: z.enum(["number", "created", "total", "validUntil"]).catch("created"),
-  dir: z.enum(["asc", "desc"]).catch("desc"),
-  page: z.coerce.number().int().min(1).max(10_000).catch(1),
-  size: z.coerce.number().int().min(1).max(100).catch(20),
-});
-
-export type QuoteListQuery = z.infer<typeof quoteListQuerySchema>;
-
-/** Request lists on the desk. */
-export const requestListQuerySchema = z.object({
-  status: z.enum(["all", "quoted", "needs-review", "closed"]).catch("all"),
-  sort: z.enum(["created", "status", "voltage"]).catch("created"),
-  dir: z.enum(["asc", "desc"]).catch("desc"),
-  page: z.coerce.number().int().min(1).max(10_000).catch(1),
-  size: z.coerce.number().int().min(1).max(100).catch(20),
-});
-
-export type RequestListQuery = z.infer<typeof requestListQuerySchema>;

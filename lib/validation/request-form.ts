@@ -1,9 +1,10 @@
 import { z } from 'zod';
-import { formatBound, MAX_BY_UNIT, MAX_QUANTITY } from '../bank/bounds';
+import { formatBound, MAX_BY_UNIT } from '../bank/bounds';
 import { backupEnergy, capacitanceForEnergy, maxEsrFor, storedEnergy, usableEnergy as usableEnergyOf } from '../bank/energy';
 import type { Requirement, Technology } from '../bank/types';
 import { parseQuantity, type QuantityUnit } from '../quantities';
 import { technologySchema } from './bank';
+import { MAX_NOTES_LENGTH, MAX_QUANTITY } from './limits';
 
 /**
  * The storefront's request form: what people type (`48 V`, `20 kJ`, `470 µF`, `5 kW`, `30 s`,
@@ -14,9 +15,6 @@ import { technologySchema } from './bank';
 export const SIZE_FOR = ['capacitance', 'energy', 'backup'] as const;
 export type SizeFor = (typeof SIZE_FOR)[number];
 
-/** Most banks one request may ask for (the arrangement request's bound, lib/bank/bounds.ts). */
-export { MAX_QUANTITY };
-export const MAX_NOTES = 4000;
 
 const text = z.string().max(60, 'Keep this under 60 characters');
 
@@ -34,7 +32,7 @@ export const requestFormFieldsSchema = z.object({
   maxVolume: text,
   quantity: text,
   technology: z.union([z.literal(''), technologySchema], { message: 'Choose a technology from the list' }),
-  notes: z.string().max(MAX_NOTES, `Keep the notes under ${MAX_NOTES} characters`),
+  notes: z.string().max(MAX_NOTES_LENGTH, `Keep the notes under ${MAX_NOTES_LENGTH} characters`),
 });
 
 export type RequestFormValues = z.infer<typeof requestFormFieldsSchema>;

@@ -124,10 +124,52 @@ test.describe("each role reaches its own pages and is refused the others'", () =
     expect(await api.json()).toHaveProperty("error");
   });
 
-  test("staff see the shop's quotes where a customer sees only their own", async ({ page }) => {
+  test("staff read the shop's quotes on the desk; the storefront's quote list is the customer's", async ({ page }) => {
     await signIn(page, kestrel.estimator);
     await page.goto(`/s/${K}/quotes`);
+    await expect(page).toHaveURL(new RegExp(`/desk/${K}/quotes$`));
     await expect(page.getByRole("heading", { name: "Quotes", exact: true })).toBeVisible();
     await expect(page.getByRole("heading", { name: "My quotes" })).toHaveCount(0);
+  });
+
+  test("a desk list keeps its sort, filter and page in the URL; the first click sorts the useful way", async ({ page }) => {
+    await signIn(page, kestrel.estimator);
+    await page.goto(`/desk/${K}/catalog`);
+    const table = page.getByRole("table", { name: "Catalog cells" });
+    const cost = table.getByRole("columnheader", { name: /Unit cost/ });
+    await expect(table.getByRole("columnheader", { name: /SKU/ })).toHaveAttribute("aria-sort", "ascending");
+    await cost.getByRole("link").click();
+    await expect(page).toHaveURL(/sort=cost/);
+    await expect(cost).toHaveAttribute("aria-sort", "ascending");
+    const costs = async () => (await table.locator("tbody tr td:nth-child(7)").allInnerTexts()).map((t) => Number(t.replace(/[^\d.]/g, "")));
+    const ascending = await costs();
+    expect(ascending.length).toBeGreaterThan(1);
+    expect([...ascending].sort((a, b) => a - b)).toEqual(ascending);
+    await cost.getByRole("link").click();
+    await expect(cost).toHaveAttribute("aria-sort", "descending");
+    // the next page continues the same order
+    const firstPage = await costs();
+    await page.getByRole("navigation", { name: "Pages" }).getByRole("link", { name: "Next" }).click();
+    await expect(page).toHaveURL(/page=2/);
+    await expect(page).toHaveURL(/sort=cost/);
+    const secondPage = await costs();
+    expect(Math.min(...firstPage)).toBeGreaterThanOrEqual(Math.max(...secondPage));
+    // a filter keeps the sort and starts again at page 1; a reload shows the same list
+    await page.getByLabel("Technology").selectOption("film");
+    await page.getByRole("button", { name: "Filter" }).click();
+    await expect(page).toHaveURL(/technology=film/);
+    await expect(page).toHaveURL(/sort=cost/);
+    await expect(page).not.toHaveURL(/page=/);
+    await page.reload();
+    await expect(cost).toHaveAttribute("aria-sort", "descending");
+    const film = await table.locator("tbody tr td:nth-child(3)").allInnerTexts();
+    expect(film.length).toBeGreaterThan(0);
+    expect(new Set(film)).toEqual(new Set(["Film"]));
+    const filmCosts = await costs();
+    expect([...filmCosts].sort((a, b) => b - a)).toEqual(filmCosts);
+    // a hostile URL falls back to the defaults instead of failing
+    await page.goto(`/desk/${K}/catalog?sort=%00&page=-4&size=abc&technology=plasma&q=%25`);
+    await expect(page.getByRole("heading", { name: "Catalog", level: 1 })).toBeVisible();
+    await expect(table.getByRole("columnheader", { name: /SKU/ })).toHaveAttribute("aria-sort", "ascending");
   });
 });

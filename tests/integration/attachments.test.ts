@@ -13,18 +13,9 @@ import { chooseArrangement } from "@/app/s/[shop]/actions";
 import { db } from "@/db";
 import { getAttachment } from "@/db/queries/attachments";
 import { requestAttachments } from "@/db/schema";
-import { demoPeople } from "@/db/seed/people";
 import { env } from "@/lib/env";
-import { actAs, request, sessionCookie, shopBySlug } from "./helpers";
-
-const K = "kestrel-bank-works";
-const M = "marlow-pulse";
-const kCustomer = demoPeople[K].customers[0].email;
-const kOtherCustomer = demoPeople[K].customers[1].email;
-const kEstimator = demoPeople[K].estimator.email;
-const kManager = demoPeople[K].manager.email;
-const mEstimator = demoPeople[M].estimator.email;
-const mCustomer = demoPeople[M].customers[0].email;
+import { createShop, KESTREL_REQUIREMENT, type TestShop } from "./fixtures";
+import { actAs, request, sessionCookie } from "./helpers";
 
 // Smallest files of each kind from their specifications: PDF header (ISO 32000-1 §7.5.2), PNG
 // signature + IHDR (ISO/IEC 15948 §5.2), ASCII DXF opening group "0 / SECTION" (DXF reference, from memory).
@@ -47,9 +38,22 @@ async function download(email: string | null, slug: string, id: string) {
 }
 
 describe("attachments", () => {
+  // a shop of this file's own (K) and another shop (M)
+  let K = "";
+  let M = "";
   let kShopId = "";
+  let kCustomer = "";
+  let kOtherCustomer = "";
+  let kEstimator = "";
+  let kManager = "";
+  let mEstimator = "";
+  let mCustomer = "";
   beforeAll(async () => {
-    kShopId = (await shopBySlug(K)).id;
+    const [k, m]: TestShop[] = await Promise.all([createShop("kestrel"), createShop("marlow")]);
+    ({ slug: K, id: kShopId } = k!);
+    M = m!.slug;
+    [kCustomer, kOtherCustomer, kEstimator, kManager] = [k!.customers[0].email, k!.customers[1].email, k!.estimator.email, k!.manager.email];
+    [mEstimator, mCustomer] = [m!.estimator.email, m!.customers[0].email];
   });
 
   it.each([
@@ -122,7 +126,7 @@ describe("attachments", () => {
     const mine = (await (await upload(kCustomer, K, "mine.pdf", PDF)).json()) as { id: string };
     const theirs = (await (await upload(kOtherCustomer, K, "theirs.pdf", PDF)).json()) as { id: string };
     await actAs(kCustomer);
-    const r = await chooseArrangement(K, { idempotencyKey: randomUUID(), requirement: { maxVoltage: 48, minVoltage: 24, energy: 20_000 }, attachmentIds: [mine.id, theirs.id] });
+    const r = await chooseArrangement(K, { idempotencyKey: randomUUID(), requirement: KESTREL_REQUIREMENT, attachmentIds: [mine.id, theirs.id] });
     if (!r.ok) throw new Error(JSON.stringify(r));
     const requestId = r.data.kind === "review" ? r.data.requestId : null;
     expect(requestId).not.toBeNull();

@@ -1,4 +1,4 @@
-import { describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { POST as evaluate } from "@/app/api/v1/networks/evaluate/route";
 import { POST as failures } from "@/app/api/v1/networks/failures/route";
 import { POST as tolerance } from "@/app/api/v1/networks/tolerance/route";
@@ -6,7 +6,8 @@ import { POST as arrangements } from "@/app/api/v1/shops/[shop]/arrangements/rou
 import { exploreArrangements } from "@/app/s/[shop]/actions";
 import { listActiveCells } from "@/db/queries/catalog";
 import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
-import { actAs, shopBySlug } from "./helpers";
+import { createShop, type TestShop } from "./fixtures";
+import { actAs } from "./helpers";
 
 const post = (path: string, body: unknown, raw = false) =>
   new Request(`http://127.0.0.1:3100${path}`, { method: "POST", headers: { "content-type": "application/json" }, body: raw ? (body as string) : JSON.stringify(body) });
@@ -202,16 +203,22 @@ describe("POST /api/v1/networks/tolerance", () => {
 });
 
 describe("POST /api/v1/shops/{shop}/arrangements", () => {
-  it("finds priced 48 V options with 20 kJ usable down to 24 V from Kestrel's own catalog", async () => {
+  // shops of this file's own, with Kestrel's and Marlow's catalogs
+  let kestrel: TestShop;
+  let marlow: TestShop;
+  beforeAll(async () => {
+    [kestrel, marlow] = await Promise.all([createShop("kestrel"), createShop("marlow")]);
+  });
+
+  it("finds priced 48 V options with 20 kJ usable down to 24 V from Kestrel's catalog", async () => {
     const requirement = { maxVoltage: 48, minVoltage: 24, energy: 20_000, quantity: 2 };
-    const res = await arrangements(post("/api/v1/shops/kestrel-bank-works/arrangements", requirement), params("kestrel-bank-works"));
+    const res = await arrangements(post(`/api/v1/shops/${kestrel.slug}/arrangements`, requirement), params(kestrel.slug));
     expect(res.status).toBe(200);
     const body = await res.json();
     expect(body.designFactors).toMatchObject({ capacitanceFade: 0.2, resistorSeries: "E24", safeVoltage: 60 });
     expect(body.options.length).toBeGreaterThan(0);
     expect(body.options.length).toBeLessThanOrEqual(12);
-    const shop = await shopBySlug("kestrel-bank-works");
-    const skus = new Set((await listActiveCells(shop.id)).map((c) => c.sku));
+    const skus = new Set((await listActiveCells(kestrel.id)).map((c) => c.sku));
     for (const o of body.options) {
       expect(skus.has(o.cell.sku)).toBe(true);
       expect(o.maxVoltage).toBeGreaterThanOrEqual(48);
@@ -233,7 +240,7 @@ describe("POST /api/v1/shops/{shop}/arrangements", () => {
   });
 
   it("answers options: [] with reasons when nothing in the catalog can do it", async () => {
-    const res = await arrangements(post("/api/v1/shops/marlow-pulse/arrangements", { maxVoltage: 800, energy: 5e8, maxMass: 10 }), params("marlow-pulse"));
+    const res = await arrangements(post(`/api/v1/shops/${marlow.slug}/arrangements`, { maxVoltage: 800, energy: 5e8, maxMass: 10 }), params(marlow.slug));
     expect(res.status).toBe(200);
     const body = await res.json();
     expect(body.options).toEqual([]);
@@ -241,14 +248,14 @@ describe("POST /api/v1/shops/{shop}/arrangements", () => {
   });
 
   it("answers 400 at the field for 1e17 V (beyond the 2 MV bound), where the search once never returned", async () => {
-    const res = await arrangements(post("/api/v1/shops/kestrel-bank-works/arrangements", { maxVoltage: 1e17, energy: 1 }), params("kestrel-bank-works"));
+    const res = await arrangements(post(`/api/v1/shops/${kestrel.slug}/arrangements`, { maxVoltage: 1e17, energy: 1 }), params(kestrel.slug));
     expect(res.status).toBe(400);
     const body = await res.json();
     expect(body.issues).toContainEqual({ path: "maxVoltage", message: "Maximum voltage must be at most 2 MV" });
   });
 
   it("answers 400 for a requirement with nothing to size for, and 404 for an unknown shop", async () => {
-    const res = await arrangements(post("/api/v1/shops/kestrel-bank-works/arrangements", { maxVoltage: 48 }), params("kestrel-bank-works"));
+    const res = await arrangements(post(`/api/v1/shops/${kestrel.slug}/arrangements`, { maxVoltage: 48 }), params(kestrel.slug));
     expect(res.status).toBe(400);
     expect((await res.json()).issues.length).toBeGreaterThan(0);
     const missing = await arrangements(post("/api/v1/shops/nowhere/arrangements", { maxVoltage: 48, energy: 1 }), params("nowhere"));
@@ -257,9 +264,14 @@ describe("POST /api/v1/shops/{shop}/arrangements", () => {
 });
 
 describe("the storefront's search action", () => {
+  let kestrel: TestShop;
+  beforeAll(async () => {
+    kestrel = await createShop("kestrel");
+  });
+
   it('refuses "1e17 V" typed into the form at the maximum-voltage field, before any search', async () => {
     await actAs(null);
-    const r = await exploreArrangements("kestrel-bank-works", { ...EMPTY_REQUEST_FORM, maxVoltage: "1e17 V", sizeFor: "energy", energy: "1 kJ" });
+    const r = await exploreArrangements(kestrel.slug, { ...EMPTY_REQUEST_FORM, maxVoltage: "1e17 V", sizeFor: "energy", energy: "1 kJ" });
     expect(r).toMatchObject({ ok: false, code: "invalid" });
     if (!r.ok) expect(r.fieldErrors?.maxVoltage?.join(" ")).toMatch(/at most 2 MV/);
   });

@@ -1,9 +1,13 @@
 import path from "node:path";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
+import { Client } from "pg";
 import { createDb } from "@/db/client";
 import { isDatabaseEmpty, seedDemo } from "@/db/seed";
 
-/** Once per run: the test database is migrated and holds the demo shops. */
+/**
+ * Once per run: the test database is migrated and holds the demo shops. Each test file then works
+ * in a copy of it (tests/integration/setup.ts); the copies are dropped when the run ends.
+ */
 export default async function setup() {
   const url = process.env.DATABASE_URL;
   if (!url || !/_test(_\d+)?$/.test(url)) throw new Error(`integration tests need DATABASE_URL pointing at a *_test database (got ${url ?? "nothing"}); run them with npm test`);
@@ -14,4 +18,17 @@ export default async function setup() {
   } finally {
     await pool.end();
   }
+  return async function teardown() {
+    const template = new URL(url).pathname.slice(1);
+    const admin = new URL(url);
+    admin.pathname = "/postgres";
+    const client = new Client({ connectionString: admin.toString() });
+    await client.connect();
+    try {
+      const copies = await client.query<{ datname: string }>("SELECT datname FROM pg_database WHERE datname LIKE $1", [`${template}\\_file\\_%`]);
+      for (const { datname } of copies.rows) await client.query(`DROP DATABASE IF EXISTS "${datname}" WITH (FORCE)`);
+    } finally {
+      await client.end();
+    }
+  };
 }

@@ -1,6 +1,3 @@
-import { and, eq } from "drizzle-orm";
-import { db } from "@/db";
-import { members, shops, users } from "@/db/schema";
 import { DEMO_PASSWORD } from "@/db/seed/people";
 import { auth } from "@/lib/auth/server";
 
@@ -20,25 +17,30 @@ export async function actAs(email: string | null) {
   return state.__requestHeaders;
 }
 
-export async function shopBySlug(slug: string) {
-  const [shop] = await db.select().from(shops).where(eq(shops.slug, slug));
-  if (!shop) throw new Error(`no shop ${slug}`);
-  return shop;
-}
-
-export async function memberOf(slug: string, email: string) {
-  const shop = await shopBySlug(slug);
-  const [row] = await db
-    .select({ id: members.id, role: members.role, userId: members.userId })
-    .from(members)
-    .innerJoin(users, eq(users.id, members.userId))
-    .where(and(eq(members.shopId, shop.id), eq(users.email, email)));
-  if (!row) throw new Error(`no member ${email} in ${slug}`);
-  return row;
-}
-
 export function request(url: string, init: RequestInit & { cookie?: string } = {}) {
   const headers = new Headers(init.headers);
   if (init.cookie) headers.set("cookie", init.cookie);
   return new Request(new URL(url, "http://127.0.0.1:3100"), { ...init, headers });
+}
+
+function isElement(node: unknown): node is { type: unknown; props: unknown } {
+  return typeof node === "object" && node !== null && "type" in node && "props" in node;
+}
+
+/**
+ * What a page answers: "ok" when it renders, "403" or "404" for the not-allowed and not-found
+ * pages, or "redirect <url>" (pages refuse by throwing Next's control-flow errors).
+ */
+export async function pageAnswer(render: () => Promise<unknown>): Promise<string> {
+  try {
+    // a page that hands its work to a server component: render that one too
+    let node = await render();
+    for (let depth = 0; depth < 3 && isElement(node) && typeof node.type === "function"; depth++) node = await (node.type as (p: unknown) => unknown)(node.props);
+    return "ok";
+  } catch (error) {
+    const digest = (error as { digest?: unknown }).digest;
+    if (typeof digest === "string" && digest.startsWith("NEXT_HTTP_ERROR_FALLBACK;")) return digest.split(";")[1] ?? digest;
+    if (typeof digest === "string" && digest.startsWith("NEXT_REDIRECT;")) return `redirect ${digest.split(";")[2] ?? ""}`;
+    throw error;
+  }
 }

@@ -8,27 +8,21 @@ import { and, eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { getOutboxRow, listOutbox } from "@/db/queries/outbox";
-import { emailOutbox, quoteRevisions, quotes, users } from "@/db/schema";
-import type { ShopContext } from "@/lib/auth/context";
+import { emailOutbox, quoteRevisions, quotes } from "@/db/schema";
 import { configureMail, mailSettings } from "@/lib/mail/config";
 import { deliverOutboxRow } from "@/lib/mail/deliver";
 import { outboxMessageId } from "@/lib/mail/format";
 import { dispatchOutbox } from "@/lib/mail/outbox";
 import { MAIL_QUEUE, PGBOSS_SCHEMA } from "@/lib/mail/queue";
 import { startMailWorker, stopMailWorker } from "@/lib/mail/worker";
-import { loadShopCatalog } from "@/db/queries/catalog";
-import { searchPricedOptions } from "@/lib/quoting/priced-search";
-import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
-import { chooseArrangementSchema } from "@/lib/validation/quote";
-import { outboxListSchema } from "@/lib/validation/outbox";
-import { shopBySlug } from "./helpers";
+import { outboxList } from "@/lib/validation/lists";
+import { createQuote, createShop, type TestShop } from "./fixtures";
 
 // The SMTP stand-in here is maildev (npm), started by this file on ports of its own so that it
 // can be stopped and started again; its REST API (GET /api/email) lists what it received.
 
-const K = "kestrel-bank-works";
-const M = "marlow-pulse";
-const CUSTOMER = "renske.haddow@tollmere-tramways.example";
+/** This file's own shop: its customer receives the quotes. */
+let shop: TestShop;
 
 function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -96,38 +90,19 @@ async function inbox(): Promise<MaildevEmail[]> {
   return (await res.json()) as MaildevEmail[];
 }
 
-const messagesFor = async (quoteNumber: string) => (await inbox()).filter((m) => m.subject.includes(`${quoteNumber} `));
+const messagesFor = async (quoteNumber: string) => (await inbox()).filter((m) => m.subject.includes(`${quoteNumber} `) && m.to.some((t) => t.address === shop.customers[0].email));
 
-async function customerContext(): Promise<ShopContext> {
-  const shop = await shopBySlug(K);
-  const [user] = await db.select({ id: users.id, name: users.name, email: users.email }).from(users).where(eq(users.email, CUSTOMER));
-  if (!user) throw new Error(`no user ${CUSTOMER}`);
-  return { user, shop: { id: shop.id, slug: shop.slug, name: shop.name }, role: "customer" };
-}
-
-/** A real quote through the quoting path: 48 V, 20 kJ usable down to 24 V, the cheapest option. */
+/** A real quote through the quoting path for the shop's customer, and the outbox row announcing it. */
 async function makeQuote(): Promise<{ shopId: string; outboxId: string; quoteNumber: string }> {
-  const ctx = await customerContext();
-  const requirement = { maxVoltage: 48, minVoltage: 24, energy: 20_000, quantity: 1 };
-  const found = searchPricedOptions(await loadShopCatalog(ctx.shop.id), requirement);
-  const option = found.options[0];
-  if (!option) throw new Error("Kestrel's catalog offers no option for the test requirement");
-  const input = chooseArrangementSchema.parse({
-    idempotencyKey: randomUUID(),
-    requirement,
-    option: { cellSku: option.cell.sku, topology: option.topology, seriesCount: option.seriesCount, parallelCount: option.parallelCount },
-  });
-  const result = await createQuoteFromChoice(ctx, input);
-  if (!result.ok || result.data.kind !== "quote") throw new Error(`expected a quote, got ${JSON.stringify(result)}`);
-  const quoteNumber = result.data.quoteNumber;
+  const quoteNumber = await createQuote(shop, shop.customers[0]);
   const [row] = await db
     .select({ id: emailOutbox.id })
     .from(emailOutbox)
     .innerJoin(quoteRevisions, eq(quoteRevisions.id, emailOutbox.quoteRevisionId))
     .innerJoin(quotes, eq(quotes.id, quoteRevisions.quoteId))
-    .where(and(eq(emailOutbox.shopId, ctx.shop.id), eq(quotes.shopId, ctx.shop.id), eq(quotes.number, quoteNumber)));
+    .where(and(eq(emailOutbox.shopId, shop.id), eq(quotes.shopId, shop.id), eq(quotes.number, quoteNumber)));
   if (!row) throw new Error(`no outbox row for ${quoteNumber}`);
-  return { shopId: ctx.shop.id, outboxId: row.id, quoteNumber };
+  return { shopId: shop.id, outboxId: row.id, quoteNumber };
 }
 
 async function outboxRow(shopId: string, id: string) {
@@ -143,6 +118,7 @@ async function jobsFor(outboxId: string): Promise<{ state: string }[]> {
 }
 
 beforeAll(async () => {
+  shop = await createShop("kestrel");
   smtpPort = await freePort();
   webPort = await freePort();
   mailDir = fs.mkdtempSync(path.join(os.tmpdir(), "faradsmith-mail-test-"));
@@ -184,7 +160,7 @@ describe("e-mail through the outbox and the job queue", () => {
     const mails = await messagesFor(quoteNumber);
     expect(mails).toHaveLength(1);
     const mail = mails[0]!;
-    expect(mail.to.map((t) => t.address)).toEqual([CUSTOMER]);
+    expect(mail.to.map((t) => t.address)).toEqual([shop.customers[0].email]);
     expect(mail.subject).toBe(`Your quote ${quoteNumber} (revision 1) is ready`);
     expect(mail.headers["message-id"]).toBe(sent.messageId);
     const pdfs = (mail.attachments ?? []).filter((a) => a.contentType === "application/pdf");
@@ -241,31 +217,60 @@ describe("e-mail through the outbox and the job queue", () => {
 });
 
 describe("the desk's outbox list", () => {
+  /** Messages in a shop of the test's own: what the list must show, whatever else the database holds. */
+  async function outboxOf(to: string, rows: { subject: string; status: "waiting" | "sent" | "failed"; attempts: number; minutesAgo: number }[]) {
+    const target = await createShop("kestrel");
+    const now = Date.now();
+    const inserted = await db
+      .insert(emailOutbox)
+      .values(
+        rows.map((r) => ({
+          shopId: target.id,
+          kind: "quote-ready",
+          dedupeKey: randomUUID(),
+          toEmail: to,
+          subject: r.subject,
+          status: r.status,
+          attempts: r.attempts,
+          lastError: r.status === "sent" ? null : "connect ECONNREFUSED",
+          sentAt: r.status === "sent" ? new Date(now - r.minutesAgo * 60_000 + 1000) : null,
+          createdAt: new Date(now - r.minutesAgo * 60_000),
+        })),
+      )
+      .returning({ id: emailOutbox.id, subject: emailOutbox.subject });
+    return { shop: target, ids: Object.fromEntries(inserted.map((r) => [r.subject, r.id])) as Record<string, string> };
+  }
+
   it("shows a shop only its own messages; another shop's row is not found", async () => {
-    const kestrel = await shopBySlug(K);
-    const marlow = await shopBySlug(M);
-    const mine = await listOutbox(kestrel.id, outboxListSchema.parse({ size: 100 }));
-    expect(mine.total).toBeGreaterThanOrEqual(3);
-    const theirs = await listOutbox(marlow.id, outboxListSchema.parse({ size: 100 }));
-    const mineIds = new Set(mine.rows.map((r) => r.id));
-    expect(theirs.rows.some((r) => mineIds.has(r.id))).toBe(false);
-    const someRow = mine.rows[0]!;
-    expect(await getOutboxRow(marlow.id, someRow.id)).toBeNull();
-    expect(await getOutboxRow(kestrel.id, someRow.id)).not.toBeNull();
+    const mine = await outboxOf("a@buyer.example", [{ subject: "Quote A", status: "sent", attempts: 1, minutesAgo: 5 }]);
+    const theirs = await outboxOf("b@buyer.example", [{ subject: "Quote B", status: "sent", attempts: 1, minutesAgo: 5 }]);
+    expect((await listOutbox(mine.shop.id, outboxList.defaults)).rows.map((r) => r.subject)).toEqual(["Quote A"]);
+    expect(await getOutboxRow(theirs.shop.id, mine.ids["Quote A"]!)).toBeNull();
+    expect(await getOutboxRow(mine.shop.id, mine.ids["Quote A"]!)).not.toBeNull();
   });
 
-  it("filters by state and by recipient or subject, and sorts by attempts", async () => {
-    const kestrel = await shopBySlug(K);
-    const failed = await listOutbox(kestrel.id, outboxListSchema.parse({ status: "failed", size: 100 }));
-    expect(failed.total).toBeGreaterThanOrEqual(1);
-    expect(failed.rows.every((r) => r.status === "failed" && r.lastError)).toBe(true);
-    const bySearch = await listOutbox(kestrel.id, outboxListSchema.parse({ q: "TOLLMERE-TRAMWAYS", size: 100 }));
-    expect(bySearch.total).toBeGreaterThanOrEqual(3);
-    expect(bySearch.rows.every((r) => r.toEmail === CUSTOMER)).toBe(true);
-    const none = await listOutbox(kestrel.id, outboxListSchema.parse({ q: "100%_no-such", size: 100 }));
-    expect(none.total).toBe(0);
-    const sorted = await listOutbox(kestrel.id, outboxListSchema.parse({ sort: "attempts", dir: "desc", size: 100 }));
-    const attempts = sorted.rows.map((r) => r.attempts);
-    expect([...attempts].sort((a, b) => b - a)).toEqual(attempts);
+  it("filters by state and by recipient or subject, and sorts the useful way first with ties newest first", async () => {
+    const { shop: s } = await outboxOf("Renske@Tollmere.example", [
+      { subject: "Quote 1", status: "sent", attempts: 1, minutesAgo: 40 },
+      { subject: "Quote 2", status: "failed", attempts: 9, minutesAgo: 30 },
+      { subject: "Quote 3", status: "waiting", attempts: 2, minutesAgo: 20 },
+      { subject: "Quote 4", status: "sent", attempts: 2, minutesAgo: 10 },
+      { subject: "100% done_", status: "sent", attempts: 1, minutesAgo: 1 },
+    ]);
+    const subjects = async (query: Record<string, string>) => (await listOutbox(s.id, outboxList.parse(query).query)).rows.map((r) => r.subject);
+    expect(await subjects({})).toEqual(["100% done_", "Quote 4", "Quote 3", "Quote 2", "Quote 1"]);
+    expect(await subjects({ status: "failed" })).toEqual(["Quote 2"]);
+    expect(await subjects({ q: "TOLLMERE" })).toHaveLength(5);
+    // % and _ are searched for as themselves
+    expect(await subjects({ q: "100%" })).toEqual(["100% done_"]);
+    expect(await subjects({ q: "e_" })).toEqual(["100% done_"]);
+    // what went wrong first; then waiting; then sent, newest first within each
+    expect(await subjects({ sort: "status" })).toEqual(["Quote 2", "Quote 3", "100% done_", "Quote 4", "Quote 1"]);
+    // most attempts first; ties newest first
+    expect(await subjects({ sort: "attempts" })).toEqual(["Quote 2", "Quote 4", "Quote 3", "100% done_", "Quote 1"]);
+    expect(await subjects({ sort: "attempts", dir: "asc" })).toEqual(["100% done_", "Quote 1", "Quote 4", "Quote 3", "Quote 2"]);
+    // messages never sent come last whichever way "sent at" is sorted
+    expect((await subjects({ sort: "sent" })).slice(-2).sort()).toEqual(["Quote 2", "Quote 3"]);
+    expect((await subjects({ sort: "sent", dir: "asc" })).slice(-2).sort()).toEqual(["Quote 2", "Quote 3"]);
   });
 });

@@ -1,4 +1,22 @@
+import { Client } from "pg";
 import { vi } from "vitest";
+
+// Each test file works in a database of its own, copied from the migrated and seeded test database
+// (tests/integration/global-setup.ts): no file sees rows, queued jobs or counters another file left.
+const url = new URL(process.env.DATABASE_URL ?? "");
+const template = url.pathname.slice(1);
+const copy = `${template}_file_${process.pid}_${Date.now().toString(36)}`;
+const admin = new URL(url);
+admin.pathname = "/postgres";
+const client = new Client({ connectionString: admin.toString() });
+await client.connect();
+try {
+  await client.query(`CREATE DATABASE "${copy}" TEMPLATE "${template}"`);
+} finally {
+  await client.end();
+}
+url.pathname = `/${copy}`;
+process.env.DATABASE_URL = url.toString();
 
 // Server actions and server components read the request through next/headers; in tests the
 // "request" is whatever headers the test installs with `actAs` (tests/integration/helpers.ts).
@@ -9,3 +27,6 @@ vi.mock("next/headers", () => ({
   cookies: async () => ({ get: () => undefined, getAll: () => [], set: () => undefined, delete: () => undefined, has: () => false }),
 }));
 vi.mock("next/cache", () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
+
+// `forbidden()` works once next.config's experimental.authInterrupts is on; the build sets this.
+process.env.__NEXT_EXPERIMENTAL_AUTH_INTERRUPTS = "true";

@@ -1,13 +1,11 @@
-import { eq } from "drizzle-orm";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { redirect } from "next/navigation";
 import { Logo } from "@/components/brand/logo";
 import { SignOutButton } from "@/components/auth/sign-out-button";
-import { db } from "@/db";
-import { members, shops } from "@/db/schema";
+import { listShopsOfUser } from "@/db/queries/members";
 import { getSessionUser } from "@/lib/auth/context";
-import { ROLE_LABELS } from "@/lib/auth/permissions";
+import { ROLE_LABELS } from "@/lib/vocabulary";
 
 export const metadata: Metadata = { title: "Your shops" };
 
@@ -18,11 +16,7 @@ export default async function MyShopsPage({ searchParams }: { searchParams: Prom
   const user = await getSessionUser();
   if (!user) redirect("/sign-in");
   const { shop } = await searchParams;
-  const rows = await db
-    .select({ slug: shops.slug, name: shops.name, role: members.role })
-    .from(members)
-    .innerJoin(shops, eq(shops.id, members.shopId))
-    .where(eq(members.userId, user.id));
+  const rows = await listShopsOfUser(user.id);
   const preferred = rows.find((r) => r.slug === shop) ?? (rows.length === 1 ? rows[0] : undefined);
   if (preferred) redirect(homeOf(preferred.slug, preferred.role));
   return (

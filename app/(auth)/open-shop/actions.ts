@@ -1,7 +1,7 @@
 "use server";
 import { headers } from "next/headers";
 import { createShopSettings, deleteUserAccount, isEmailTaken, isSlugTaken } from "@/db/queries/shops";
-import { fieldErrorsOf, type ActionResult } from "@/lib/auth/shop-action";
+import { invalidResult, type ActionResult } from "@/lib/auth/guards";
 import { auth } from "@/lib/auth/server";
 import { openShopSchema } from "@/lib/validation/auth";
 
@@ -11,7 +11,7 @@ import { openShopSchema } from "@/lib/validation/auth";
  */
 export async function openShop(input: unknown): Promise<ActionResult<{ slug: string }>> {
   const parsed = openShopSchema.safeParse(input);
-  if (!parsed.success) return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(parsed.error) };
+  if (!parsed.success) return invalidResult(parsed.error);
   const v = parsed.data;
   const fieldErrors: Record<string, string[]> = {};
   if (await isSlugTaken(v.slug)) fieldErrors.slug = ["That address is taken; choose another."];

@@ -1,8 +1,9 @@
 import Link from "next/link";
 import { SignOutButton } from "@/components/auth/sign-out-button";
 import { Logo } from "@/components/brand/logo";
-import { requireShopPage } from "@/lib/auth/context";
-import { can, ROLE_LABELS } from "@/lib/auth/permissions";
+import { requireShopPage } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+import { ROLE_LABELS } from "@/lib/vocabulary";
 import { DeskNav } from "./_components/desk-nav";
 import { DESK_SECTIONS } from "./_components/desk-sections";
 

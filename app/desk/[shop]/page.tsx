@@ -1,6 +1,7 @@
 import Link from "next/link";
-import { requireShopPage } from "@/lib/auth/context";
-import { can, ROLE_LABELS } from "@/lib/auth/permissions";
+import { requireShopPage } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
+import { ROLE_LABELS } from "@/lib/vocabulary";
 import { DESK_SECTIONS } from "./_components/desk-sections";
 
 export default async function DeskTodayPage({ params }: { params: Promise<{ shop: string }> }) {

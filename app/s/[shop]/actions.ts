@@ -1,8 +1,8 @@
 "use server";
 import { headers } from "next/headers";
 import { loadShopCatalog } from "@/db/queries/catalog";
-import { getShopBySlug } from "@/lib/auth/context";
-import { fieldErrorsOf, shopAction, type ActionResult } from "@/lib/auth/shop-action";
+import { getShopBySlug } from "@/db/queries/shops";
+import { invalidResult, refusedResult, shopAction, type ActionResult } from "@/lib/auth/guards";
 import type { DesignFactors, Requirement } from "@/lib/bank";
 import { env } from "@/lib/env";
 import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
@@ -33,18 +33,14 @@ const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, window
  */
 export async function exploreArrangements(shopSlug: string, input: unknown): Promise<ActionResult<ExploreResult>> {
   const gate = limiter.hit(clientKey(await headers()));
-  if (!gate.allowed) return { ok: false, code: "conflict", message: `Too many searches; try again in ${gate.retryAfterSeconds} s.` };
+  if (!gate.allowed) return { ok: false, code: "rate-limited", message: `Too many searches; try again in ${gate.retryAfterSeconds} s.` };
   const shop = await getShopBySlug(String(shopSlug));
-  if (!shop) return { ok: false, code: "not-found", message: "No such shop." };
+  if (!shop) return refusedResult("no-shop");
   const parsed = requestFormSchema.safeParse(input);
-  if (!parsed.success) {
-    return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(parsed.error) };
-  }
+  if (!parsed.success) return invalidResult(parsed.error);
   // the engine's request schema is the last word on what a requirement may be
   const checked = arrangementRequestSchema.safeParse(parsed.data.requirement);
-  if (!checked.success) {
-    return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(checked.error) };
-  }
+  if (!checked.success) return invalidResult(checked.error);
   const requirement = { ...parsed.data.requirement, quantity: checked.data.quantity };
   const result = searchPricedOptions(await loadShopCatalog(shop.id), requirement);
   return {

@@ -1,10 +1,8 @@
-import { count, eq, and } from "drizzle-orm";
 import { notFound } from "next/navigation";
-import { db } from "@/db";
-import { catalogCells } from "@/db/schema";
+import { countActiveCellsByTechnology } from "@/db/queries/catalog";
 import { getShopSettings } from "@/db/queries/shops";
 import { getShopContext } from "@/lib/auth/context";
-import { TECH_LABELS } from "./_components/labels";
+import { TECHNOLOGY_LABELS } from "@/lib/vocabulary";
 import { StorefrontJourney } from "./_components/storefront-journey";
 import type { Viewer } from "./_components/viewer";
 
@@ -22,12 +20,7 @@ export default async function StorefrontPage({ params, searchParams }: { params:
       : r.status === "not-member"
         ? { kind: "not-member", email: r.user.email }
         : { kind: "visitor" };
-  const settings = await getShopSettings(shop.id);
-  const families = await db
-    .select({ technology: catalogCells.technology, n: count() })
-    .from(catalogCells)
-    .where(and(eq(catalogCells.shopId, shop.id), eq(catalogCells.isActive, true)))
-    .groupBy(catalogCells.technology);
+  const [settings, families] = await Promise.all([getShopSettings(shop.id), countActiveCellsByTechnology(shop.id)]);
   return (
     <div className="space-y-8">
       <section>
@@ -40,8 +33,8 @@ export default async function StorefrontPage({ params, searchParams }: { params:
         <ul className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
           {families.map((f) => (
             <li key={f.technology} className="rounded-lg bg-white p-4 ring-1 ring-ink-100">
-              <p className="text-2xl font-semibold num">{f.n}</p>
-              <p className="text-sm text-ink-600">{TECH_LABELS[f.technology]}</p>
+              <p className="text-2xl font-semibold num">{f.lines}</p>
+              <p className="text-sm text-ink-600">{TECHNOLOGY_LABELS[f.technology]}</p>
             </li>
           ))}
         </ul>

@@ -7,6 +7,7 @@ import {
   type RequestFormValues,
 } from '@/lib/validation/request-form';
 import { arrangementRequestSchema } from '@/lib/validation/bank';
+import { MAX_NOTES_LENGTH, MAX_QUANTITY } from '@/lib/validation/limits';
 
 const form = (over: Partial<RequestFormValues>): RequestFormValues => ({ ...EMPTY_REQUEST_FORM, ...over });
 
@@ -92,7 +93,7 @@ describe('request form: every refused value is explained at its field', () => {
     ['volume in kilograms', { maxVoltage: '48 V', energy: '1 kJ', maxVolume: '25 kg' }, 'maxVolume', /not a value in cubic metres/],
     ['fractional quantity', { maxVoltage: '48 V', energy: '1 kJ', quantity: '1.5' }, 'quantity', /whole number/],
     ['zero quantity', { maxVoltage: '48 V', energy: '1 kJ', quantity: '0' }, 'quantity', /whole number/],
-    ['too many banks', { maxVoltage: '48 V', energy: '1 kJ', quantity: '100001' }, 'quantity', /whole number/],
+    ['one bank more than a request may ask for', { maxVoltage: '48 V', energy: '1 kJ', quantity: String(MAX_QUANTITY + 1) }, 'quantity', /whole number/],
     ['an ambiguous thousands comma', { maxVoltage: '1,500 V', energy: '1 kJ' }, 'maxVoltage', /ambiguous/],
     // physical upper bounds (lib/bank/bounds.ts), refused where they are typed
     ['1e17 V', { maxVoltage: '1e17 V', energy: '1 kJ' }, 'maxVoltage', /maximum voltage must be at most 2 MV/],
@@ -114,9 +115,16 @@ describe('request form: every refused value is explained at its field', () => {
   }
 
   it('a technology outside the list and over-long notes are refused', () => {
-    const errors = errorsOf({ ...form({ maxVoltage: '48 V', energy: '1 kJ', notes: 'x'.repeat(4001) }), technology: 'lead-acid' as never });
+    const errors = errorsOf({ ...form({ maxVoltage: '48 V', energy: '1 kJ', notes: 'x'.repeat(MAX_NOTES_LENGTH + 1) }), technology: 'lead-acid' as never });
     expect(errors.technology).toMatch(/technology/);
-    expect(errors.notes).toMatch(/4000/);
+    expect(errors.notes).toMatch(String(MAX_NOTES_LENGTH));
+  });
+
+  it('takes the most banks and the longest notes a request may have, and the engine request schema agrees', () => {
+    const r = requestFormSchema.parse(form({ maxVoltage: '48 V', energy: '1 kJ', quantity: String(MAX_QUANTITY), notes: 'x'.repeat(MAX_NOTES_LENGTH) }));
+    expect(r.requirement.quantity).toBe(MAX_QUANTITY);
+    expect(arrangementRequestSchema.safeParse(r.requirement).success).toBe(true);
+    expect(arrangementRequestSchema.safeParse({ ...r.requirement, quantity: MAX_QUANTITY + 1 }).success).toBe(false);
   });
 
   it('reports every bad field at once, not only the first', () => {
@@ -135,7 +143,6 @@ describe('figures derived as people type', () => {
     expect(d.capacitance).toBeCloseTo(23.148148, 5);
     // ½ × 23.148 × 48² = 26 666.7 J stored at 48 V
     expect(d.storedEnergy).toBeCloseTo(26_666.667, 2);
-    expect(d.usableEnergy).toBe(20_000);
   });
 
   it('backup P·t needs at least that energy: 5 kW × 30 s = 150 kJ', () => {

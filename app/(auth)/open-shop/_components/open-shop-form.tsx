@@ -4,7 +4,9 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
+import { PASSWORD_MIN_LENGTH } from "@/lib/validation/limits";
 import { FormMessage, SelectField, TextField } from "@/components/ui/field";
+import { CURRENCY_NAMES, SHOP_CURRENCIES } from "@/lib/vocabulary";
 import { openShopSchema, suggestSlug, type OpenShopInput } from "@/lib/validation/auth";
 import { openShop } from "../actions";
 
@@ -39,7 +41,7 @@ export function OpenShopForm() {
         <legend className="text-sm font-semibold text-ink-700">You</legend>
         <TextField id="name" label="Your name" autoComplete="name" error={formState.errors.name?.message} {...register("name")} />
         <TextField id="email" label="E-mail" type="email" autoComplete="email" error={formState.errors.email?.message} {...register("email")} />
-        <TextField id="password" label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." error={formState.errors.password?.message} {...register("password")} />
+        <TextField id="password" label="Password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_LENGTH} characters.`} error={formState.errors.password?.message} {...register("password")} />
       </fieldset>
       <fieldset className="space-y-4">
         <legend className="text-sm font-semibold text-ink-700">Your shop</legend>
@@ -65,12 +67,11 @@ export function OpenShopForm() {
           }}
         />
         <SelectField id="currency" label="Currency for prices" error={formState.errors.currency?.message} {...register("currency")}>
-          <option value="EUR">EUR — euro</option>
-          <option value="GBP">GBP — pound sterling</option>
-          <option value="USD">USD — US dollar</option>
-          <option value="CHF">CHF — Swiss franc</option>
-          <option value="JPY">JPY — yen</option>
-          <option value="KWD">KWD — Kuwaiti dinar</option>
+          {SHOP_CURRENCIES.map((c) => (
+            <option key={c} value={c}>
+              {c} — {CURRENCY_NAMES[c]}
+            </option>
+          ))}
         </SelectField>
       </fieldset>
       <FormMessage>{message}</FormMessage>

@@ -1,5 +1,5 @@
 import { Placeholder } from "@/components/ui/placeholder";
-import { requireShopPage } from "@/lib/auth/context";
+import { requireShopPage } from "@/lib/auth/guards";
 import { sectionFor } from "./desk-sections";
 
 /** A desk page that later work fills: guarded by its permission, saying what it will hold. */

@@ -1,7 +1,7 @@
 "use server";
 import { revalidatePath } from "next/cache";
 import { getMember, updateMemberRole } from "@/db/queries/members";
-import { shopAction } from "@/lib/auth/shop-action";
+import { shopAction } from "@/lib/auth/guards";
 import { changeMemberRoleSchema } from "@/lib/validation/auth";
 
 /** A manager moves a member between estimator and customer. Managers and oneself are not changed here. */

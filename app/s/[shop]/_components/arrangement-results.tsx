@@ -5,24 +5,13 @@ import { CellVoltageChart } from "@/components/charts/cell-voltage-chart";
 import { DischargeChart } from "@/components/charts/discharge-chart";
 import { PriceMassChart } from "@/components/charts/price-mass-chart";
 import { formatQuantity as q } from "@/lib/quantities";
+import { optionId } from "@/lib/validation/quote";
+import { arrangementLabel, describeRequirement, TOPOLOGY_LABELS } from "@/lib/vocabulary";
 import type { ExploreResult } from "../actions";
 import { ChoosePanel } from "./choose-panel";
-import { arrangementLabel, optionId, TECH_LABELS, TOPOLOGY_LABELS } from "./labels";
 import { OptionCautions, OptionFigures } from "./option-figures";
 import { OptionTable } from "./option-table";
 import type { Viewer } from "./viewer";
-
-function describeRequirement(r: ExploreResult["requirement"]): string {
-  const parts = [`${q(r.maxVoltage, "V")}`];
-  if (r.capacitance !== undefined) parts.push(`${q(r.capacitance, "F")}`);
-  if (r.energy !== undefined) parts.push(`${q(r.energy, "J")} usable`);
-  if (r.backup) parts.push(`${q(r.backup.power, "W")} for ${q(r.backup.seconds, "s")}`);
-  if (r.minVoltage) parts.push(`down to ${q(r.minVoltage, "V")}`);
-  if (r.peakCurrent) parts.push(`${q(r.peakCurrent.current, "A")} peak with at most ${q(r.peakCurrent.maxDrop, "V")} drop`);
-  if (r.technology) parts.push(TECH_LABELS[r.technology].toLowerCase());
-  parts.push(`quantity ${r.quantity}`);
-  return parts.join(", ");
-}
 
 export function ArrangementResults({
   slug,
@@ -96,7 +85,7 @@ export function ArrangementResults({
             <div className="flex flex-wrap items-start justify-between gap-4">
               <div>
                 <h3 id="focused" className="text-lg font-semibold">
-                  {shown.cell.sku}: {arrangementLabel(shown)}, {TOPOLOGY_LABELS[shown.topology]}
+                  {shown.cell.sku}: {arrangementLabel(shown)}, {TOPOLOGY_LABELS[shown.topology].toLowerCase()}
                 </h3>
                 <p className="text-sm text-ink-600">
                   {shown.cellCount} cells · {q(shown.capacitance.design, "F")} design · {q(shown.usableEnergy, "J")} usable

@@ -1,10 +1,11 @@
 "use client";
 import Link from "next/link";
 import { useId, useState } from "react";
+import { FetchJsonError, fetchJson } from "@/lib/http/fetch-json";
+import { MAX_ATTACHMENT_SIZE_TEXT, MAX_ATTACHMENTS_PER_REQUEST } from "@/lib/validation/limits";
 import type { UploadedFile } from "./saved-request";
 import type { Viewer } from "./viewer";
 
-const MAX_FILES = 10;
 
 function size(bytes: number): string {
   if (bytes >= 1024 * 1024) return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
@@ -30,7 +31,7 @@ export function AttachmentsField({ slug, viewer, files, onChange }: { slug: stri
               <Link className="font-medium text-copper-700 hover:underline" href={`/sign-in?shop=${slug}&next=${encodeURIComponent(`/s/${slug}`)}`}>
                 Sign in
               </Link>{" "}
-              to attach drawings (PDF, PNG, JPEG or DXF, up to 10 MB each). What you typed here is kept.
+              to attach drawings (PDF, PNG, JPEG or DXF, up to {MAX_ATTACHMENT_SIZE_TEXT} each). What you typed here is kept.
             </>
           )}
         </p>
@@ -45,19 +46,19 @@ export function AttachmentsField({ slug, viewer, files, onChange }: { slug: stri
     const added: UploadedFile[] = [];
     try {
       for (const file of Array.from(list)) {
-        if (files.length + added.length >= MAX_FILES) {
-          setError(`At most ${MAX_FILES} files per request.`);
+        if (files.length + added.length >= MAX_ATTACHMENTS_PER_REQUEST) {
+          setError(`At most ${MAX_ATTACHMENTS_PER_REQUEST} files per request.`);
           break;
         }
         const body = new FormData();
         body.append("file", file);
-        const res = await fetch(`/api/v1/shops/${slug}/attachments`, { method: "POST", body });
-        const json = (await res.json().catch(() => null)) as { id?: string; fileName?: string; sizeBytes?: number; error?: string } | null;
-        if (!res.ok || !json?.id) {
-          setError(`${file.name}: ${json?.error ?? `upload refused (${res.status})`}`);
-          continue;
+        try {
+          const stored = await fetchJson<UploadedFile>(`/api/v1/shops/${slug}/attachments`, { method: "POST", body });
+          added.push({ id: stored.id, fileName: stored.fileName, sizeBytes: stored.sizeBytes });
+        } catch (e) {
+          if (!(e instanceof FetchJsonError)) throw e;
+          setError(`${file.name}: ${e.message}`);
         }
-        added.push({ id: json.id, fileName: json.fileName ?? file.name, sizeBytes: json.sizeBytes ?? file.size });
       }
     } catch {
       setError("The upload failed; check your connection and try again.");
@@ -86,7 +87,7 @@ export function AttachmentsField({ slug, viewer, files, onChange }: { slug: stri
         }}
       />
       <p id={`${id}-hint`} className="text-xs text-ink-500">
-        PDF, PNG, JPEG or DXF, up to 10 MB each; checked by content. Only you and the shop&apos;s staff can open them.
+        PDF, PNG, JPEG or DXF, up to {MAX_ATTACHMENT_SIZE_TEXT} each; checked by content. Only you and the shop&apos;s staff can open them.
       </p>
       {busy ? <p className="text-xs text-ink-600">Uploading…</p> : null}
       {error ? (

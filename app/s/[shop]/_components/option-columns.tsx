@@ -4,7 +4,7 @@ import { Decimal } from "decimal.js";
 import type { PricedOption } from "@/lib/quoting/types";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatQuantity } from "@/lib/quantities";
-import { arrangementLabel, TECH_LABELS, TECH_SHORT, TOPOLOGY_LABELS } from "./labels";
+import { arrangementLabel, TECHNOLOGY_LABELS, TECHNOLOGY_SHORT, TOPOLOGY_LABELS } from "@/lib/vocabulary";
 
 const col = createColumnHelper<PricedOption>();
 
@@ -16,16 +16,22 @@ const byPrice: SortingFn<PricedOption> = (a, b) => {
   return new Decimal(pa).cmp(new Decimal(pb));
 };
 
+/**
+ * The options table's columns. A first click sorts each the useful way (cheaper, lighter, smaller,
+ * lower ESR, sooner first; more capacitance and energy first); rows that tie keep the price ranking.
+ */
 export function optionColumns(currency: string) {
+  const first = (desc: boolean) => ({ sortDescFirst: desc });
   return [
     col.accessor((o) => o.cell.sku, {
       id: "cell",
       header: "Cell",
+      ...first(false),
       cell: (c) => (
         <span>
           <span className="whitespace-nowrap font-mono text-xs font-medium">{c.row.original.cell.sku}</span>
-          <span className="block text-xs text-ink-500" title={TECH_LABELS[c.row.original.cell.technology]}>
-            {TECH_SHORT[c.row.original.cell.technology]}
+          <span className="block text-xs text-ink-500" title={TECHNOLOGY_LABELS[c.row.original.cell.technology]}>
+            {TECHNOLOGY_SHORT[c.row.original.cell.technology]}
           </span>
         </span>
       ),
@@ -33,6 +39,7 @@ export function optionColumns(currency: string) {
     col.accessor((o) => o.seriesCount * 1e6 + o.parallelCount, {
       id: "arrangement",
       header: "Arrangement",
+      ...first(false),
       cell: (c) => (
         <span>
           <span className="num whitespace-nowrap font-medium">{arrangementLabel(c.row.original)}</span>
@@ -40,16 +47,17 @@ export function optionColumns(currency: string) {
         </span>
       ),
     }),
-    col.accessor("cellCount", { header: "Cells", cell: (c) => <span className="num">{c.getValue()}</span> }),
-    col.accessor((o) => o.capacitance.design, { id: "capacitance", header: "C design", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "F")}</span> }),
-    col.accessor("usableEnergy", { header: "Usable energy", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "J")}</span> }),
-    col.accessor((o) => o.esr.endOfLife, { id: "esr", header: "ESR end of life", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "Ω")}</span> }),
-    col.accessor("mass", { header: "Mass", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "kg")}</span> }),
-    col.accessor("volume", { header: "Volume", cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "m³")}</span> }),
-    col.accessor("leadTimeDays", { header: "Lead time", cell: (c) => <span className="num whitespace-nowrap">{c.getValue() === 0 ? "stock" : `${c.getValue()} d`}</span> }),
+    col.accessor("cellCount", { header: "Cells", ...first(false), cell: (c) => <span className="num">{c.getValue()}</span> }),
+    col.accessor((o) => o.capacitance.design, { id: "capacitance", header: "C design", ...first(true), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "F")}</span> }),
+    col.accessor("usableEnergy", { header: "Usable energy", ...first(true), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "J")}</span> }),
+    col.accessor((o) => o.esr.endOfLife, { id: "esr", header: "ESR end of life", ...first(false), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "Ω")}</span> }),
+    col.accessor("mass", { header: "Mass", ...first(false), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "kg")}</span> }),
+    col.accessor("volume", { header: "Volume", ...first(false), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "m³")}</span> }),
+    col.accessor("leadTimeDays", { header: "Lead time", ...first(false), cell: (c) => <span className="num whitespace-nowrap">{c.getValue() === 0 ? "stock" : `${c.getValue()} d`}</span> }),
     col.accessor((o) => o.price?.perBank ?? null, {
       id: "price",
       header: "Price / bank",
+      ...first(false),
       sortingFn: byPrice,
       cell: (c) => {
         const p = c.row.original.price;
@@ -64,6 +72,7 @@ export function optionColumns(currency: string) {
     }),
     col.accessor("pareto", {
       header: "Pareto",
+      ...first(true),
       cell: (c) =>
         c.getValue() ? (
           <span title="No other option is cheaper, lighter and smaller at once" className="text-charge-700">

@@ -2,7 +2,7 @@ import type { DesignFactors, Requirement } from "@/lib/bank";
 import type { PricedOption } from "@/lib/quoting/types";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatDuration, formatQuantity as q } from "@/lib/quantities";
-import { TECH_LABELS } from "./labels";
+import { TECHNOLOGY_LABELS } from "@/lib/vocabulary";
 
 function Row({ label, children }: { label: string; children: React.ReactNode }) {
   return (
@@ -51,7 +51,7 @@ export function OptionFigures({ option, requirement, factors, currency }: { opti
       <dl>
         <p className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-500">Bank</p>
         <Row label="Cell">
-          {option.cell.sku} · {TECH_LABELS[option.cell.technology]}
+          {option.cell.sku} · {TECHNOLOGY_LABELS[option.cell.technology]}
         </Row>
         <Row label="Cell rating">
           {q(option.cell.capacitance, "F")} · {q(option.cell.ratedVoltage, "V")}

@@ -2,7 +2,8 @@
 import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { useMemo, useState } from "react";
 import type { PricedOption } from "@/lib/quoting/types";
-import { arrangementLabel, optionId } from "./labels";
+import { optionId } from "@/lib/validation/quote";
+import { arrangementLabel } from "@/lib/vocabulary";
 import { optionColumns } from "./option-columns";
 
 /** The options as a sortable table; a row's radio (or a click on the row) puts it in focus. */

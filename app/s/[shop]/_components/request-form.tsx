@@ -4,9 +4,10 @@ import { Button } from "@/components/ui/button";
 import { FieldShell, SelectField, TextField } from "@/components/ui/field";
 import { TECHNOLOGIES } from "@/lib/bank";
 import { formatQuantity } from "@/lib/quantities";
-import { deriveFigures, MAX_NOTES, type RequestFormOutput, type RequestFormValues, type SizeFor } from "@/lib/validation/request-form";
+import { TECHNOLOGY_LABELS } from "@/lib/vocabulary";
+import { MAX_NOTES_LENGTH } from "@/lib/validation/limits";
+import { deriveFigures, type RequestFormOutput, type RequestFormValues, type SizeFor } from "@/lib/validation/request-form";
 import { AttachmentsField } from "./attachments-field";
-import { TECH_LABELS } from "./labels";
 import type { UploadedFile } from "./saved-request";
 import type { Viewer } from "./viewer";
 
@@ -120,14 +121,14 @@ export function RequestForm({
           <option value="">Any the shop builds</option>
           {TECHNOLOGIES.map((t) => (
             <option key={t} value={t}>
-              {TECH_LABELS[t]}
+              {TECHNOLOGY_LABELS[t]}
             </option>
           ))}
         </SelectField>
       </fieldset>
 
       <div className="grid gap-4 lg:grid-cols-2">
-        <FieldShell id="notes" label="Notes (optional)" hint={`Anything the shop should know: mounting, connectors, ambient temperature… up to ${MAX_NOTES} characters.`} error={errors.notes?.message}>
+        <FieldShell id="notes" label="Notes (optional)" hint={`Anything the shop should know: mounting, connectors, ambient temperature… up to ${MAX_NOTES_LENGTH} characters.`} error={errors.notes?.message}>
           <textarea
             id="notes"
             rows={4}

@@ -1,7 +1,8 @@
+import { MAX_ATTACHMENTS_PER_REQUEST } from "@/lib/validation/limits";
 import { EMPTY_REQUEST_FORM, type RequestFormValues } from "@/lib/validation/request-form";
 
 /** What the storefront keeps in sessionStorage so a request survives sign-in and sign-up. */
-export interface SavedRequest {
+interface SavedRequest {
   values: RequestFormValues;
   attachments: UploadedFile[];
   /** the option in focus (see optionId) */
@@ -29,7 +30,7 @@ export function loadSavedRequest(slug: string): SavedRequest | null {
       if (typeof v === "string") (values as Record<string, string>)[k] = v;
     }
     const attachments = Array.isArray(parsed.attachments)
-      ? parsed.attachments.filter((a): a is UploadedFile => typeof a?.id === "string" && typeof a.fileName === "string" && typeof a.sizeBytes === "number").slice(0, 10)
+      ? parsed.attachments.filter((a): a is UploadedFile => typeof a?.id === "string" && typeof a.fileName === "string" && typeof a.sizeBytes === "number").slice(0, MAX_ATTACHMENTS_PER_REQUEST)
       : [];
     return { values, attachments, focus: typeof parsed.focus === "string" ? parsed.focus : null };
   } catch {

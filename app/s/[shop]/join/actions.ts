@@ -2,7 +2,7 @@
 import { headers } from "next/headers";
 import { deleteUserAccount, isEmailTaken } from "@/db/queries/shops";
 import { resolveShopContext } from "@/lib/auth/context";
-import { fieldErrorsOf, type ActionResult } from "@/lib/auth/shop-action";
+import { invalidResult, refusedResult, type ActionResult } from "@/lib/auth/guards";
 import { auth } from "@/lib/auth/server";
 import { joinShopSchema } from "@/lib/validation/auth";
 
@@ -13,14 +13,14 @@ import { joinShopSchema } from "@/lib/validation/auth";
 export async function joinShop(shopSlug: string, input: unknown): Promise<ActionResult<{ slug: string }>> {
   const requestHeaders = await headers();
   const r = await resolveShopContext(requestHeaders, String(shopSlug));
-  if (r.status === "no-shop") return { ok: false, code: "not-found", message: "No such shop." };
+  if (r.status === "no-shop") return refusedResult("no-shop");
   if (r.status === "ok") return { ok: true, data: { slug: r.ctx.shop.slug } };
   if (r.status === "not-member") {
     await auth.api.addMember({ body: { userId: r.user.id, organizationId: r.shop.id, role: "customer" } });
     return { ok: true, data: { slug: r.shop.slug } };
   }
   const parsed = joinShopSchema.safeParse(input);
-  if (!parsed.success) return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(parsed.error) };
+  if (!parsed.success) return invalidResult(parsed.error);
   const v = parsed.data;
   if (await isEmailTaken(v.email)) {
     return { ok: false, code: "conflict", message: "Please correct the marked fields.", fieldErrors: { email: ["An account with this e-mail exists; sign in, then join."] } };

@@ -1,36 +1,28 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { Suspense } from "react";
-import { QueryProvider } from "@/components/providers/query-provider";
-import { QuoteTable } from "@/components/quotes/quote-table";
-import { listCustomerQuotes, listQuotes } from "@/db/queries/quotes";
-import { requireShopPage } from "@/lib/auth/context";
-import { quoteScope } from "@/lib/quoting/access";
-import { quoteListQuerySchema } from "@/lib/validation/quote";
+import { redirect } from "next/navigation";
+import { QuoteList } from "@/components/quotes/quote-list";
+import { PageHeader } from "@/components/ui/page-header";
+import { listQuotes } from "@/db/queries/quotes";
+import { requireShopPage } from "@/lib/auth/guards";
+import { ownerScope, reads } from "@/lib/auth/ownership";
+import { quoteList } from "@/lib/validation/lists";
 
 export const metadata: Metadata = { title: "My quotes" };
 
-export default async function MyQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string>> }) {
+/** A customer's own quotes, each with its PDF. Staff read the shop's quotes on the desk. */
+export default async function MyQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string | string[]>> }) {
   const { shop } = await params;
-  const ctx = await requireShopPage(shop, undefined, `/s/${shop}/quotes`);
-  const scope = quoteScope(ctx);
-  if (!scope) notFound();
-  const q = quoteListQuerySchema.parse(await searchParams);
-  const first = scope.all ? await listQuotes(ctx.shop.id, q) : await listCustomerQuotes(ctx.shop.id, scope.userId, q);
-  const initial = { total: first.total, rows: first.rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })) };
+  const ctx = await requireShopPage(shop, reads("quote"), `/s/${shop}/quotes`);
+  const scope = ownerScope(ctx, "quote");
+  if (scope.all) redirect(`/desk/${shop}/quotes`);
+  const { query: q } = quoteList.parse(await searchParams);
+  const page = await listQuotes(ctx.shop.id, scope, q);
   return (
     <div className="space-y-6">
-      <div>
-        <h1 className="text-2xl font-semibold">{scope.all ? "Quotes" : "My quotes"}</h1>
-        <p className="mt-1 text-sm text-ink-600">
-          {scope.all ? `Every quote ${ctx.shop.name} has issued.` : `Every quote ${ctx.shop.name} has sent you, with its PDF. Signed in as ${ctx.user.email}.`}
-        </p>
-      </div>
-      <QueryProvider>
-        <Suspense>
-          <QuoteTable shop={shop} initial={initial} initialQuery={q} showCustomer={scope.all} />
-        </Suspense>
-      </QueryProvider>
+      <PageHeader title="My quotes">
+        Every quote {ctx.shop.name} has sent you, with its PDF. Signed in as {ctx.user.email}.
+      </PageHeader>
+      <QuoteList shop={shop} side="storefront" q={q} page={page} state={quoteList.state(`/s/${shop}/quotes`, q, page)} />
     </div>
   );
 }

@@ -1,6 +1,7 @@
 "use client";
 import { useState, useTransition } from "react";
-import type { Role } from "@/lib/auth/permissions";
+import { ASSIGNABLE_ROLES, type Role } from "@/lib/auth/permissions";
+import { ROLE_LABELS } from "@/lib/vocabulary";
 import { changeMemberRole } from "../actions";
 
 export function RoleSelect({ shop, memberId, name, role }: { shop: string; memberId: string; name: string; role: Role }) {
@@ -31,8 +32,11 @@ export function RoleSelect({ shop, memberId, name, role }: { shop: string; membe
           });
         }}
       >
-        <option value="estimator">Estimator</option>
-        <option value="customer">Customer</option>
+        {ASSIGNABLE_ROLES.map((r) => (
+          <option key={r} value={r}>
+            {ROLE_LABELS[r]}
+          </option>
+        ))}
       </select>
       {message ? (
         <span role="status" className={`text-xs ${message.tone === "ok" ? "text-charge-700" : "text-danger-700"}`}>

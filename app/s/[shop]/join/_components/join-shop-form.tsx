@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
+import { PASSWORD_MIN_LENGTH } from "@/lib/validation/limits";
 import { FormMessage, TextField } from "@/components/ui/field";
 import { joinShopSchema, type JoinShopInput } from "@/lib/validation/auth";
 import { joinShop } from "../actions";
@@ -56,7 +57,7 @@ export function JoinShopForm({ slug, signedInAs, next }: { slug: string; signedI
       <TextField id="name" label="Your name" autoComplete="name" error={formState.errors.name?.message} {...register("name")} />
       <TextField id="company" label="Company (optional)" autoComplete="organization" error={formState.errors.company?.message} {...register("company")} />
       <TextField id="email" label="E-mail" type="email" autoComplete="email" error={formState.errors.email?.message} {...register("email")} />
-      <TextField id="password" label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." error={formState.errors.password?.message} {...register("password")} />
+      <TextField id="password" label="Password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_LENGTH} characters.`} error={formState.errors.password?.message} {...register("password")} />
       <FormMessage>{message}</FormMessage>
       <Button type="submit" disabled={formState.isSubmitting} className="w-full">
         {formState.isSubmitting ? "Creating your account…" : "Create my account"}

@@ -1,37 +1,14 @@
-import type { Metadata } from "next";
-import Link from "next/link";
-import { notFound } from "next/navigation";
-import { QuoteView } from "@/components/quotes/quote-view";
-import { getQuoteByNumber, getRevision } from "@/db/queries/quotes";
-import { requireShopPage } from "@/lib/auth/context";
-import { maySeeOwned, quoteScope } from "@/lib/quoting/access";
-import { toQuoteDocument } from "@/lib/quoting/quote-document";
-import { isQuoteNumber } from "@/lib/quoting/quote-number";
+import { redirect } from "next/navigation";
+import { QuotePageBody, quoteTitle } from "@/components/quotes/quote-page";
+import { requireShopPage } from "@/lib/auth/guards";
+import { maySee, ownerScope, reads } from "@/lib/auth/ownership";
 
-export async function generateMetadata({ params }: { params: Promise<{ number: string }> }): Promise<Metadata> {
-  const { number } = await params;
-  return { title: `Quote ${number}` };
-}
+export const generateMetadata = quoteTitle;
 
-/** One quote: its owner or the shop's staff see it; anyone else gets "not found". */
+/** One quote as its customer reads it. Staff read quotes on the desk; anyone else gets "not found". */
 export default async function QuotePage({ params }: { params: Promise<{ shop: string; number: string }> }) {
   const { shop, number } = await params;
-  const ctx = await requireShopPage(shop, undefined, `/s/${shop}/quotes/${number}`);
-  if (!quoteScope(ctx) || !isQuoteNumber(number)) notFound();
-  const quote = await getQuoteByNumber(ctx.shop.id, number);
-  if (!quote || !maySeeOwned(ctx, quote.customerUserId)) notFound();
-  const rev = await getRevision(ctx.shop.id, quote.revisionId);
-  if (!rev) notFound();
-  const doc = toQuoteDocument(rev);
-  return (
-    <div className="space-y-4">
-      <nav aria-label="Breadcrumb" className="text-sm text-ink-600">
-        <Link href={`/s/${shop}/quotes`} className="hover:underline">
-          My quotes
-        </Link>{" "}
-        / {doc.number}
-      </nav>
-      <QuoteView doc={doc} pdfHref={`/api/v1/shops/${shop}/quotes/${doc.number}/pdf`} />
-    </div>
-  );
+  const ctx = await requireShopPage(shop, reads("quote"), `/s/${shop}/quotes/${number}`);
+  if (ownerScope(ctx, "quote").all) redirect(`/desk/${shop}/quotes/${encodeURIComponent(number)}`);
+  return <QuotePageBody shop={ctx.shop} number={number} back={{ href: `/s/${shop}/quotes`, label: "My quotes" }} maySee={(owner) => maySee(ctx, "quote", owner)} />;
 }

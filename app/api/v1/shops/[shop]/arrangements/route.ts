@@ -1,5 +1,6 @@
 import { loadShopCatalog } from "@/db/queries/catalog";
-import { getShopBySlug } from "@/lib/auth/context";
+import { getShopBySlug } from "@/db/queries/shops";
+import { refusedResponse } from "@/lib/auth/guards";
 import { env } from "@/lib/env";
 import { jsonError } from "@/lib/http/json-error";
 import { readJsonBody } from "@/lib/http/read-json";
@@ -21,7 +22,7 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   }
   const { shop: slug } = await params;
   const shop = await getShopBySlug(slug);
-  if (!shop) return jsonError(404, "No such shop.");
+  if (!shop) return refusedResponse("no-shop");
   const body = await readJsonBody(request);
   if (!body.ok) return body.response;
   const parsed = parseArrangementRequest(body.value);

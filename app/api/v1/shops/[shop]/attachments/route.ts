@@ -1,13 +1,15 @@
 import { createAttachment } from "@/db/queries/attachments";
-import { jsonError, withShopApi } from "@/lib/auth/api";
+import { withShopApi } from "@/lib/auth/guards";
+import { jsonError } from "@/lib/http/json-error";
 import { readBodyLimited } from "@/lib/http/read-json";
 import { storeAttachmentBytes } from "@/lib/attachments/storage";
-import { MAX_ATTACHMENT_BYTES, cleanFileName, detectAttachmentType } from "@/lib/attachments/content-type";
+import { cleanFileName, detectAttachmentType } from "@/lib/attachments/content-type";
+import { MAX_ATTACHMENT_BYTES, MAX_ATTACHMENT_SIZE_TEXT } from "@/lib/validation/limits";
 
 /** Room for the multipart boundaries and part headers around one file. */
 const MULTIPART_OVERHEAD = 64 * 1024;
 
-const tooLarge = () => jsonError(400, "A file may be at most 10 MB.", [{ path: "file", message: "The file is larger than 10 MB." }]);
+const tooLarge = () => jsonError(400, `A file may be at most ${MAX_ATTACHMENT_SIZE_TEXT}.`, [{ path: "file", message: `The file is larger than ${MAX_ATTACHMENT_SIZE_TEXT}.` }]);
 
 /**
  * POST /api/v1/shops/{shop}/attachments — multipart `file`: a drawing or specification (PDF, PNG,

@@ -1,6 +1,7 @@
 import { getAttachment } from "@/db/queries/attachments";
-import { jsonError } from "@/lib/auth/api";
-import { maySeeOwned, withQuoteReader } from "@/lib/quoting/access";
+import { withShopApi } from "@/lib/auth/guards";
+import { maySee, reads } from "@/lib/auth/ownership";
+import { jsonError } from "@/lib/http/json-error";
 import { attachmentStream } from "@/lib/attachments/storage";
 import { contentDisposition } from "@/lib/attachments/content-type";
 
@@ -12,9 +13,9 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
  */
 export async function GET(request: Request, { params }: { params: Promise<{ shop: string; id: string }> }) {
   const { shop, id } = await params;
-  return withQuoteReader(request, shop, async (ctx) => {
+  return withShopApi(request, shop, reads("attachment"), async (ctx) => {
     const row = UUID.test(id) ? await getAttachment(ctx.shop.id, id) : null;
-    if (!row || !maySeeOwned(ctx, row.uploadedByUserId, "request:read-all")) return jsonError(404, "No such attachment.");
+    if (!row || !maySee(ctx, "attachment", row.uploadedByUserId)) return jsonError(404, "No such attachment.");
     return new Response(attachmentStream(row.storageKey), {
       headers: {
         "content-type": row.contentType,

@@ -1,6 +1,7 @@
 import { getQuoteByNumber } from "@/db/queries/quotes";
-import { jsonError } from "@/lib/auth/api";
-import { maySeeOwned, withQuoteReader } from "@/lib/quoting/access";
+import { withShopApi } from "@/lib/auth/guards";
+import { maySee, reads } from "@/lib/auth/ownership";
+import { jsonError } from "@/lib/http/json-error";
 import { contentDisposition } from "@/lib/attachments/content-type";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
 import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
@@ -8,9 +9,9 @@ import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 /** GET /api/v1/shops/{shop}/quotes/{number}/pdf — the current revision as a PDF (same access as the page). */
 export async function GET(request: Request, { params }: { params: Promise<{ shop: string; number: string }> }) {
   const { shop, number } = await params;
-  return withQuoteReader(request, shop, async (ctx) => {
+  return withShopApi(request, shop, reads("quote"), async (ctx) => {
     const quote = isQuoteNumber(number) ? await getQuoteByNumber(ctx.shop.id, number) : null;
-    if (!quote || !maySeeOwned(ctx, quote.customerUserId)) return jsonError(404, "No such quote.");
+    if (!quote || !maySee(ctx, "quote", quote.customerUserId)) return jsonError(404, "No such quote.");
     const { buffer, fileName } = await loadQuotePdf(ctx.shop.id, quote.revisionId);
     return new Response(new Uint8Array(buffer), {
       headers: { "content-type": "application/pdf", "content-length": String(buffer.byteLength), "content-disposition": contentDisposition(fileName), "cache-control": "private, no-store" },

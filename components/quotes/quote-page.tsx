@@ -1,0 +1,33 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { getQuoteByNumber, getRevision } from "@/db/queries/quotes";
+import { toQuoteDocument } from "@/lib/quoting/quote-document";
+import { isQuoteNumber } from "@/lib/quoting/quote-number";
+import { QuoteView } from "./quote-view";
+
+/**
+ * A quote page's body, for the desk and the storefront alike: the breadcrumb back to the list the
+ * reader came from, then the frozen revision. A quote the reader may not see is "not found".
+ */
+export async function QuotePageBody({ shop, number, back, maySee }: { shop: { id: string; slug: string }; number: string; back: { href: string; label: string }; maySee: (ownerUserId: string) => boolean }) {
+  const quote = isQuoteNumber(number) ? await getQuoteByNumber(shop.id, number) : null;
+  const rev = quote && maySee(quote.customerUserId) ? await getRevision(shop.id, quote.revisionId) : null;
+  if (!rev) notFound();
+  const doc = toQuoteDocument(rev);
+  return (
+    <div className="space-y-4">
+      <nav aria-label="Breadcrumb" className="text-sm text-ink-600">
+        <Link href={back.href} className="hover:underline">
+          {back.label}
+        </Link>{" "}
+        / {doc.number}
+      </nav>
+      <QuoteView doc={doc} pdfHref={`/api/v1/shops/${shop.slug}/quotes/${doc.number}/pdf`} />
+    </div>
+  );
+}
+
+export async function quoteTitle({ params }: { params: Promise<{ number: string }> }) {
+  const { number } = await params;
+  return { title: `Quote ${number}` };
+}

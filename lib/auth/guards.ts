@@ -1,0 +1,113 @@
+import "server-only";
+import { headers } from "next/headers";
+import { forbidden, notFound, redirect } from "next/navigation";
+import type { z } from "zod";
+import { jsonError } from "@/lib/http/json-error";
+import { getShopContext, resolveShopContext, type ContextResult, type ShopContext } from "./context";
+import { can, type Permission, type Role } from "./permissions";
+
+/**
+ * The guard family: pages (`requireShopPage`), server actions (`shopAction`) and route handlers
+ * (`withShopApi`) resolve the same context, check the same permission table and answer every
+ * refusal through the one mapping below.
+ */
+
+/** What a guard asks of the member: one permission, or any one of several. */
+type Access = Permission | readonly Permission[];
+
+/** Why a request is refused before any handler runs. */
+type Refusal = "no-shop" | "signed-out" | "not-member" | "not-allowed";
+
+type ActionCode = "unauthenticated" | "forbidden" | "not-found" | "invalid" | "conflict" | "rate-limited";
+
+export type ActionResult<T> =
+  | { ok: true; data: T }
+  | { ok: false; code: ActionCode; message?: string; fieldErrors?: Record<string, string[]> };
+
+/**
+ * The one mapping from a refusal to the answer each kind gives: a page sends the visitor to sign in,
+ * shows the not-found page or the not-allowed (403) page; an action returns a result code; a route
+ * handler answers a JSON status.
+ */
+const REFUSALS = {
+  "no-shop": { page: "not-found", code: "not-found", status: 404, message: "No such shop." },
+  "signed-out": { page: "sign-in", code: "unauthenticated", status: 401, message: "Sign in to continue." },
+  "not-member": { page: "forbidden", code: "forbidden", status: 403, message: "You are not a member of this shop." },
+  "not-allowed": { page: "forbidden", code: "forbidden", status: 403, message: "Your role may not do this." },
+} as const satisfies Record<Refusal, { page: "sign-in" | "not-found" | "forbidden"; code: ActionCode; status: 401 | 403 | 404; message: string }>;
+
+/** Whether a role has the permission, or any one of the permissions. */
+function allows(role: Role, access: Access): boolean {
+  return typeof access === "string" ? can(role, access) : access.some((p) => can(role, p));
+}
+
+/** The member's context when they may do `access` (or only need to be a member), or the refusal. */
+function authorize(r: ContextResult, access?: Access): { ok: true; ctx: ShopContext } | { ok: false; refusal: Refusal } {
+  if (r.status !== "ok") return { ok: false, refusal: r.status };
+  if (access !== undefined && !allows(r.ctx.role, access)) return { ok: false, refusal: "not-allowed" };
+  return { ok: true, ctx: r.ctx };
+}
+
+/** Where a signed-out visitor goes: the sign-in page, then back to `next`. */
+function signInHref(shopSlug: string, next: string): string {
+  return `/sign-in?shop=${encodeURIComponent(shopSlug)}&next=${encodeURIComponent(next)}`;
+}
+
+/** A server action's answer to a refusal. */
+export function refusedResult(refusal: Refusal): { ok: false; code: ActionCode; message: string } {
+  const { code, message } = REFUSALS[refusal];
+  return { ok: false, code, message };
+}
+
+/** A route handler's answer to a refusal. */
+export function refusedResponse(refusal: Refusal): Response {
+  const { status, message } = REFUSALS[refusal];
+  return jsonError(status, message);
+}
+
+/**
+ * For pages: the context when the signed-in member may do `access`; otherwise the sign-in page
+ * (then back to `next`), the not-found page or the not-allowed page.
+ */
+export async function requireShopPage(shopSlug: string, access?: Access, next?: string): Promise<ShopContext> {
+  const r = authorize(await getShopContext(shopSlug), access);
+  if (r.ok) return r.ctx;
+  const answer = REFUSALS[r.refusal].page;
+  if (answer === "sign-in") redirect(signInHref(shopSlug, next ?? `/desk/${shopSlug}`));
+  if (answer === "not-found") notFound();
+  forbidden();
+}
+
+/** For route handlers: the context from the request itself, or the refusal as JSON before the handler runs. */
+export async function withShopApi(request: Request, shopSlug: string, access: Access, handler: (ctx: ShopContext) => Promise<Response>): Promise<Response> {
+  const r = authorize(await resolveShopContext(request.headers, shopSlug), access);
+  return r.ok ? handler(r.ctx) : refusedResponse(r.refusal);
+}
+
+function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
+  const out: Record<string, string[]> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.join(".") || "_form";
+    (out[key] ??= []).push(issue.message);
+  }
+  return out;
+}
+
+/** An action's answer to input its schema refused: the messages go back onto the fields. */
+export function invalidResult(error: z.ZodError): { ok: false; code: "invalid"; message: string; fieldErrors: Record<string, string[]> } {
+  return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(error) };
+}
+
+/**
+ * The one way to mutate a shop's data: context → permission → zod parse → handler.
+ * Expected failures come back as results; only bugs throw.
+ */
+export function shopAction<S extends z.ZodType, T>(schema: S, access: Access, handler: (ctx: ShopContext, input: z.output<S>) => Promise<ActionResult<T>>) {
+  return async (shopSlug: string, input: unknown): Promise<ActionResult<T>> => {
+    const r = authorize(await resolveShopContext(await headers(), String(shopSlug)), access);
+    if (!r.ok) return refusedResult(r.refusal);
+    const parsed = schema.safeParse(input);
+    if (!parsed.success) return invalidResult(parsed.error);
+    return handler(r.ctx, parsed.data);
+  };
+}

@@ -1,0 +1,24 @@
+/**
+ * Limits on what people and clients may send, each defined once and used by the zod schemas, the
+ * forms' hints and the server alike. The engine's physical bounds (voltages, capacitances, energies)
+ * live in lib/bank/bounds.ts with their reasons; the most cells in one bank is the engine's
+ * own `MAX_CELLS_PER_BANK`, which the network evaluation shares.
+ */
+
+export const PASSWORD_MIN_LENGTH = 10;
+export const PASSWORD_MAX_LENGTH = 128;
+
+/** Most identical banks one request may ask for (the engine's bound, with its reason in lib/bank/bounds.ts). */
+export { MAX_QUANTITY } from "../bank/bounds";
+/** Longest note a customer may add to a request. */
+export const MAX_NOTES_LENGTH = 4000;
+
+/** Most drawings and specifications attached to one request. */
+export const MAX_ATTACHMENTS_PER_REQUEST = 10;
+/** Largest attachment accepted: 10 MB (binary megabytes). */
+export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
+/** The attachment limit as people read it: "10 MB". */
+export const MAX_ATTACHMENT_SIZE_TEXT = `${MAX_ATTACHMENT_BYTES / (1024 * 1024)} MB`;
+
+/** Longest search text a list takes from its URL. */
+export const MAX_LIST_SEARCH_LENGTH = 100;

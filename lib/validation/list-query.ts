@@ -1,0 +1,139 @@
+import { z } from "zod";
+import { MAX_LIST_SEARCH_LENGTH } from "./limits";
+
+/**
+ * The one list-query parser. Every list (the desk's catalog, requests, quotes, team and outbox, and
+ * a customer's quotes) keeps its search, filters, sort, direction, page and page size in the URL and
+ * reads them through a list definition made here. Reading never throws: a value that is missing,
+ * malformed or hostile falls back to the list's default, and is reported in `issues` so that a JSON
+ * route handler can answer 400 while a page simply shows the default.
+ */
+
+export type SortDir = "asc" | "desc";
+
+export const MAX_PAGE = 10_000;
+export const MAX_PAGE_SIZE = 100;
+
+type Choices = Record<string, readonly [string, ...string[]]>;
+
+interface ListSpec<F extends Choices, S extends string> {
+  /** whether the list has a search box (`q`) */
+  search: boolean;
+  /** each filter's values; the first is the default (usually "all") */
+  filters: F;
+  /** each sort key with the direction its first click sorts in (the useful one for that column) */
+  sorts: Record<S, SortDir>;
+  /** the sort a list opens with, in its first-click direction */
+  sort: NoInfer<S>;
+  /** rows per page when the URL does not say */
+  size: number;
+}
+
+type ListQuery<F extends Choices, S extends string> = { q: string; sort: S; dir: SortDir; page: number; size: number } & { -readonly [K in keyof F]: F[K][number] };
+
+interface ListIssue {
+  path: string;
+  message: string;
+}
+
+/** What the table shell needs to draw a list's filter form, sortable headers and pager. */
+export interface ListState {
+  /** the list's own address, e.g. /desk/kestrel-bank-works/quotes */
+  base: string;
+  /** the URL's values that differ from the defaults: links and the filter form keep them */
+  params: Record<string, string>;
+  sort: string;
+  dir: SortDir;
+  /** each sortable key's first-click direction */
+  firstDirs: Record<string, SortDir>;
+  /** the page shown (the last one when the URL asked beyond it) */
+  page: number;
+  size: number;
+  total: number;
+  /** whether a search or a filter narrows the list */
+  narrowed: boolean;
+}
+
+/** Search text as a list uses it: no control characters (PostgreSQL text cannot hold NUL), trimmed, bounded. */
+function cleanSearch(raw: string): string {
+  // eslint-disable-next-line no-control-regex
+  return raw.replace(/[\u0000-\u001f\u007f]/g, " ").trim().slice(0, MAX_LIST_SEARCH_LENGTH).trim();
+}
+
+/** A URL value as one string: the first of repeated values; anything else is absent. */
+function single(value: unknown): string | undefined {
+  const v = Array.isArray(value) ? value[0] : value;
+  return typeof v === "string" ? v : undefined;
+}
+
+function read(input: unknown, key: string): string | undefined {
+  if (input instanceof URLSearchParams) return input.get(key) ?? undefined;
+  if (typeof input !== "object" || input === null) return undefined;
+  return single((input as Record<string, unknown>)[key]);
+}
+
+const whole = (max: number) => z.coerce.number({ error: "Use a whole number." }).int("Use a whole number.").min(1, "Use a number from 1.").max(max, `Use a number up to ${max}.`);
+
+export function defineList<const F extends Choices, const S extends string>(spec: ListSpec<F, S>) {
+  type Q = ListQuery<F, S>;
+  const sortKeys = Object.keys(spec.sorts) as [S, ...S[]];
+  const fields: Record<string, z.ZodType> = {
+    sort: z.enum(sortKeys, `Sort by one of: ${sortKeys.join(", ")}.`),
+    dir: z.enum(["asc", "desc"], "Use asc or desc."),
+    page: whole(MAX_PAGE),
+    size: whole(MAX_PAGE_SIZE),
+  };
+  for (const [name, values] of Object.entries(spec.filters)) fields[name] = z.enum(values, `Use one of: ${values.join(", ")}.`);
+
+  const defaults = {
+    q: "",
+    sort: spec.sort,
+    dir: spec.sorts[spec.sort],
+    page: 1,
+    size: spec.size,
+    ...Object.fromEntries(Object.entries(spec.filters).map(([name, values]) => [name, values[0]])),
+  } as Q;
+
+  /** Reads a list's URL (a page's searchParams, or a URLSearchParams): never throws. */
+  function parse(input: unknown): { query: Q; issues: ListIssue[] } {
+    const out: Record<string, unknown> = { ...defaults };
+    const issues: ListIssue[] = [];
+    if (spec.search) out.q = cleanSearch(read(input, "q") ?? "");
+    for (const [name, schema] of Object.entries(fields)) {
+      const raw = read(input, name);
+      if (raw === undefined || raw.trim() === "") continue;
+      const r = schema.safeParse(raw.trim());
+      if (r.success) out[name] = r.data;
+      else issues.push({ path: name, message: r.error.issues[0]?.message ?? "Not a value this list takes." });
+    }
+    // a sort without a direction sorts the useful way for that column
+    if (read(input, "dir") === undefined || issues.some((i) => i.path === "dir")) out.dir = spec.sorts[out.sort as S];
+    return { query: out as Q, issues };
+  }
+
+  /** The query's values that differ from the defaults, as URL parameters. */
+  function params(q: Q): Record<string, string> {
+    const p: Record<string, string> = {};
+    if (q.q) p.q = q.q;
+    for (const [name, values] of Object.entries(spec.filters)) {
+      const v = (q as Record<string, unknown>)[name];
+      if (v !== values[0]) p[name] = String(v);
+    }
+    if (q.sort !== spec.sort) p.sort = q.sort;
+    if (q.dir !== spec.sorts[q.sort]) p.dir = q.dir;
+    if (q.page !== 1) p.page = String(q.page);
+    if (q.size !== spec.size) p.size = String(q.size);
+    return p;
+  }
+
+  /** The shell's state for a page of this list as the database returned it. */
+  function state(base: string, q: Q, page: { page: number; size: number; total: number }): ListState {
+    const shown = { ...q, page: page.page };
+    const narrowed = q.q !== "" || Object.entries(spec.filters).some(([name, values]) => (q as Record<string, unknown>)[name] !== values[0]);
+    return { base, params: params(shown), sort: q.sort, dir: q.dir, firstDirs: { ...spec.sorts }, page: page.page, size: page.size, total: page.total, narrowed };
+  }
+
+  return { spec, defaults, parse, params, state };
+}
+
+export type ListQueryOf<L extends { defaults: unknown }> = L["defaults"];
