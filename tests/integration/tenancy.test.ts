@@ -13,6 +13,8 @@ import { openShop } from "@/app/(auth)/open-shop/actions";
 import { GET as listMembersRoute } from "@/app/api/v1/shops/[shop]/members/route";
 import { GET as downloadAttachmentRoute } from "@/app/api/v1/shops/[shop]/attachments/[id]/route";
 import { POST as uploadAttachmentRoute } from "@/app/api/v1/shops/[shop]/attachments/route";
+import { POST as networkFailuresRoute } from "@/app/api/v1/networks/failures/route";
+import { POST as networkToleranceRoute } from "@/app/api/v1/networks/tolerance/route";
 import { POST as arrangementsRoute } from "@/app/api/v1/shops/[shop]/arrangements/route";
 import { GET as quotePdfRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/pdf/route";
 import { GET as listQuotesRoute } from "@/app/api/v1/shops/[shop]/quotes/route";
@@ -85,12 +87,28 @@ const ROUTES: { name: string; call: (shop: TestShop, cookie: string) => Promise<
 const NOT_SHOP_SCOPED = new Set([
   "GET /api/health", // liveness only
   "POST /api/v1/networks/evaluate", // pure engine, no shop
+  "POST /api/v1/networks/failures", // pure engine, no shop: answered alike below
+  "POST /api/v1/networks/tolerance", // pure engine, no shop: answered alike below
   "GET /api/auth/[...all]", // better-auth's own endpoints: its organization plugin checks membership
   "POST /api/auth/[...all]",
 ]);
 /** Public, but reads only the shop its URL names: tested below. */
 const PUBLIC_SHOP_ROUTES = new Set(["POST /api/v1/shops/[shop]/arrangements"]);
 const ACTIONS = new Set(["changeMemberRole", "chooseArrangement", "exploreArrangements", "joinShop", "openShop"]);
+
+/** The engine's network analyses: open to visitors, holding no shop's data, so every caller gets the same answer. */
+const ENGINE_NETWORK = { kind: "series", children: [0, 1, 2].map((i) => ({ kind: "cell", id: `c${i}`, capacitance: 100, ratedVoltage: 2.7, surgeVoltage: 2.85, toleranceMinus: 0.1, tolerancePlus: 0.2 })) };
+const ENGINE_ROUTES: { name: string; call: (cookie: string) => Promise<Response> }[] = [
+  {
+    name: "POST /api/v1/networks/failures",
+    call: (cookie) => networkFailuresRoute(request("/api/v1/networks/failures", { method: "POST", cookie, body: JSON.stringify({ appliedVoltage: 7, network: ENGINE_NETWORK }) })),
+  },
+  {
+    name: "POST /api/v1/networks/tolerance",
+    call: (cookie) =>
+      networkToleranceRoute(request("/api/v1/networks/tolerance", { method: "POST", cookie, body: JSON.stringify({ appliedVoltage: 7, network: ENGINE_NETWORK, samples: 500, seed: 3, distribution: "uniform" }) })),
+  },
+];
 
 function filesUnder(dir: string, name: string): string[] {
   return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
@@ -107,6 +125,19 @@ beforeAll(async () => {
   aQuote = await createQuote(A, A.customers[0], KESTREL_REQUIREMENT);
   const up = await upload(A.slug, await sessionCookie(A.customers[0].email));
   aAttachment = ((await up.json()) as { id: string }).id;
+});
+
+describe.each(ENGINE_ROUTES)("public $name", ({ call }) => {
+  it("answers a visitor, and members of either shop, the same", async () => {
+    const anonymous = await call("");
+    expect(anonymous.status).toBe(200);
+    const body = await anonymous.json();
+    for (const person of [A.manager, B.estimator]) {
+      const signedIn = await call(await sessionCookie(person.email));
+      expect(signedIn.status).toBe(200);
+      expect(await signedIn.json()).toEqual(body);
+    }
+  });
 });
 
 describe("tenancy", () => {
