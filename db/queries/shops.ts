@@ -1,5 +1,5 @@
 import "server-only";
-import { asc, eq } from "drizzle-orm";
+import { asc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { shopSettings, shops, users } from "@/db/schema";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
@@ -41,4 +41,12 @@ export async function isEmailTaken(email: string): Promise<boolean> {
 /** Removes an account created moments ago when the rest of a sign-up could not complete. */
 export async function deleteUserAccount(userId: string) {
   await db.delete(users).where(eq(users.id, userId));
+}
+
+/** The opener's currency for a shop opened moments ago: its settings row starts in euros (lib/auth/plugin-rules.ts). */
+export async function setOpeningCurrency(shopId: string, currency: string) {
+  await db
+    .update(shopSettings)
+    .set({ currency, pricingRules: sql`jsonb_set(${shopSettings.pricingRules}, '{currency}', to_jsonb(${currency}::text))`, updatedAt: new Date() })
+    .where(eq(shopSettings.shopId, shopId));
 }

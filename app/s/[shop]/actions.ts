@@ -3,8 +3,7 @@ import { headers } from "next/headers";
 import { getShopBySlug } from "@/lib/auth/context";
 import { fieldErrorsOf, shopAction, type ActionResult } from "@/lib/auth/shop-action";
 import type { DesignFactors, Requirement } from "@/lib/bank";
-import { env } from "@/lib/env";
-import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
+import { limits, requestClient } from "@/lib/http/limits";
 import { findArrangements, type PricedOption } from "@/lib/quoting/arrangements";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { arrangementRequestSchema } from "@/lib/validation/bank";
@@ -22,15 +21,13 @@ export interface ExploreResult {
   reasons: string[];
 }
 
-// The same budget per client as the public arrangements endpoint: a search is not free.
-const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, windowMs: 60_000 });
-
 /**
  * Open to visitors (no sign-in): the request form's values, read with the form's own schema,
  * searched against the shop's active catalog and priced by its rules.
  */
 export async function exploreArrangements(shopSlug: string, input: unknown): Promise<ActionResult<ExploreResult>> {
-  const gate = limiter.hit(clientKey(await headers()));
+  // the same budget per client as the public arrangements endpoint: a search is not free
+  const gate = await limits.storefrontSearch.hit(requestClient(await headers()));
   if (!gate.allowed) return { ok: false, code: "conflict", message: `Too many searches; try again in ${gate.retryAfterSeconds} s.` };
   const shop = await getShopBySlug(String(shopSlug));
   if (!shop) return { ok: false, code: "not-found", message: "No such shop." };

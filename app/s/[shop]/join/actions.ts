@@ -4,6 +4,7 @@ import { deleteUserAccount, isEmailTaken } from "@/db/queries/shops";
 import { resolveShopContext } from "@/lib/auth/context";
 import { fieldErrorsOf, type ActionResult } from "@/lib/auth/shop-action";
 import { auth } from "@/lib/auth/server";
+import { limits, requestClient } from "@/lib/http/limits";
 import { joinShopSchema } from "@/lib/validation/auth";
 
 /**
@@ -19,6 +20,8 @@ export async function joinShop(shopSlug: string, input: unknown): Promise<Action
     await auth.api.addMember({ body: { userId: r.user.id, organizationId: r.shop.id, role: "customer" } });
     return { ok: true, data: { slug: r.shop.slug } };
   }
+  const gate = await limits.signUp.hit(requestClient(requestHeaders));
+  if (!gate.allowed) return { ok: false, code: "conflict", message: `Too many new accounts from here; try again in ${gate.retryAfterSeconds} s.` };
   const parsed = joinShopSchema.safeParse(input);
   if (!parsed.success) return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(parsed.error) };
   const v = parsed.data;

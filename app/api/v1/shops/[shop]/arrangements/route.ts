@@ -1,12 +1,9 @@
 import { getShopBySlug } from "@/lib/auth/context";
-import { env } from "@/lib/env";
 import { jsonError } from "@/lib/http/json-error";
+import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
 import { readJsonBody } from "@/lib/http/read-json";
-import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
 import { findArrangements } from "@/lib/quoting/arrangements";
 import { parseArrangementRequest } from "@/lib/validation/bank";
-
-const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, windowMs: 60_000 });
 
 /**
  * POST /api/v1/shops/{shop}/arrangements — open to visitors (DESIGN.md §3.2): a requirement in
@@ -14,10 +11,8 @@ const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, window
  * priced by its rules. Rate-limited per client.
  */
 export async function POST(request: Request, { params }: { params: Promise<{ shop: string }> }) {
-  const gate = limiter.hit(clientKey(request.headers));
-  if (!gate.allowed) {
-    return jsonError(429, `Too many requests; try again in ${gate.retryAfterSeconds} s.`, undefined, { headers: { "retry-after": String(gate.retryAfterSeconds) } });
-  }
+  const gate = await limits.publicApi.hit(requestClient(request.headers));
+  if (!gate.allowed) return tooManyRequests(gate);
   const { shop: slug } = await params;
   const shop = await getShopBySlug(slug);
   if (!shop) return jsonError(404, "No such shop.");
