@@ -43,6 +43,12 @@ export async function deleteUserAccount(userId: string) {
   await db.delete(users).where(eq(users.id, userId));
 }
 
+/** A shop's name and slug, for messages about it. */
+export async function getShopIdentity(shopId: string) {
+  const [row] = await db.select({ name: shops.name, slug: shops.slug }).from(shops).where(eq(shops.id, shopId)).limit(1);
+  return row ?? null;
+}
+
 /** The opener's currency for a shop opened moments ago: its settings row starts in euros (lib/auth/plugin-rules.ts). */
 export async function setOpeningCurrency(shopId: string, currency: string) {
   await db

@@ -1,14 +1,19 @@
 "use server";
+import { hashPassword } from "better-auth/crypto";
 import { headers } from "next/headers";
 import { deleteUserAccount, isEmailTaken, isSlugTaken, setOpeningCurrency } from "@/db/queries/shops";
 import { fieldErrorsOf, type ActionResult } from "@/lib/auth/shop-action";
 import { auth } from "@/lib/auth/server";
 import { limits, requestClient } from "@/lib/http/limits";
+import { sendOpenShopNotice } from "@/lib/mail/account-notice";
 import { openShopSchema } from "@/lib/validation/auth";
 
 /**
  * Opens a shop: a new account, a new shop with its slug, and the account as its manager.
  * Everything is checked before anything is created, so bad input creates nothing.
+ *
+ * An e-mail that already has an account gets the same answer as a new one (the form tells nobody
+ * which addresses have accounts); nothing is created and its owner is told by e-mail instead.
  */
 export async function openShop(input: unknown): Promise<ActionResult<{ slug: string }>> {
   const requestHeaders = await headers();
@@ -17,10 +22,13 @@ export async function openShop(input: unknown): Promise<ActionResult<{ slug: str
   const parsed = openShopSchema.safeParse(input);
   if (!parsed.success) return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(parsed.error) };
   const v = parsed.data;
-  const fieldErrors: Record<string, string[]> = {};
-  if (await isSlugTaken(v.slug)) fieldErrors.slug = ["That address is taken; choose another."];
-  if (await isEmailTaken(v.email)) fieldErrors.email = ["An account with this e-mail exists; sign in instead."];
-  if (Object.keys(fieldErrors).length > 0) return { ok: false, code: "conflict", message: "Please correct the marked fields.", fieldErrors };
+  // shop addresses are public (every storefront has one): saying one is taken tells nothing private
+  if (await isSlugTaken(v.slug)) return { ok: false, code: "conflict", message: "Please correct the marked fields.", fieldErrors: { slug: ["That address is taken; choose another."] } };
+  if (await isEmailTaken(v.email)) {
+    await hashPassword(v.password); // as long as creating the account would take
+    sendOpenShopNotice({ email: v.email, shopName: v.shopName });
+    return { ok: true, data: { slug: v.slug } };
+  }
 
   const signUp = await auth.api.signUpEmail({ body: { name: v.name, email: v.email, password: v.password }, headers: requestHeaders });
   let shopId: string;
