@@ -1,13 +1,19 @@
 import "server-only";
+import { env } from "@/lib/env";
 import { jsonError } from "@/lib/http/json-error";
+import { crossOriginRefusal, originOf } from "@/lib/http/origin";
 import { can, type Permission } from "./permissions";
 import { resolveShopContext, type ShopContext } from "./context";
 
 export { jsonError };
 
+/** The origins our own pages are served from. */
+const APP_ORIGINS = [...new Set([originOf(env.APP_URL), originOf(env.BETTER_AUTH_URL)])];
+
 /**
  * For route handlers: resolves the shop context from the request itself and answers 404 (no such
  * shop), 401 (signed out) or 403 (not a member, or the role may not) as JSON before the handler runs.
+ * A write (any method but GET/HEAD/OPTIONS) sent by a page of another site is refused first (403).
  */
 export async function withShopApi(
   request: Request,
@@ -15,6 +21,8 @@ export async function withShopApi(
   permission: Permission,
   handler: (ctx: ShopContext) => Promise<Response>,
 ): Promise<Response> {
+  const crossOrigin = crossOriginRefusal(request, APP_ORIGINS);
+  if (crossOrigin) return crossOrigin;
   const r = await resolveShopContext(request.headers, shopSlug);
   if (r.status === "no-shop") return jsonError(404, "No such shop.");
   if (r.status === "signed-out") return jsonError(401, "Sign in to continue.");
