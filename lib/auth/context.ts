@@ -20,7 +20,11 @@ export type ContextResult =
   | { status: "signed-out"; shop: ShopContext["shop"] }
   | { status: "not-member"; shop: ShopContext["shop"]; user: ShopContext["user"] };
 
+/** A slug as shops are given them (lib/validation/auth.ts): anything else cannot name a shop. */
+const SLUG_SHAPE = /^[a-z0-9-]{1,64}$/;
+
 export async function getShopBySlug(slug: string) {
+  if (!SLUG_SHAPE.test(slug)) return null;
   const [shop] = await db
     .select({ id: shops.id, slug: shops.slug, name: shops.name })
     .from(shops)

@@ -1,6 +1,7 @@
 import "server-only";
 import { headers } from "next/headers";
 import type { z } from "zod";
+import { NUL_MESSAGE, findNul } from "@/lib/validation/text";
 import { can, type Permission } from "./permissions";
 import { resolveShopContext, type ShopContext } from "./context";
 
@@ -18,7 +19,8 @@ export function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
 }
 
 /**
- * The one way to mutate a shop's data: context → permission → zod parse → handler.
+ * The one way to mutate a shop's data: context → permission → zod parse (after refusing NUL
+ * characters anywhere in the input) → handler.
  * Expected failures come back as results; only bugs throw.
  */
 export function shopAction<S extends z.ZodType, T>(
@@ -32,6 +34,8 @@ export function shopAction<S extends z.ZodType, T>(
     if (r.status === "signed-out") return { ok: false, code: "unauthenticated", message: "Sign in to continue." };
     if (r.status === "not-member") return { ok: false, code: "forbidden", message: "You are not a member of this shop." };
     if (!can(r.ctx.role, permission)) return { ok: false, code: "forbidden", message: "Your role may not do this." };
+    const nulAt = findNul(input);
+    if (nulAt !== null) return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: { [nulAt || "_form"]: [NUL_MESSAGE] } };
     const parsed = schema.safeParse(input);
     if (!parsed.success) {
       return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(parsed.error) };

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { ASSIGNABLE_ROLES } from "@/lib/auth/permissions";
+import { text } from "./text";
 
 export const MIN_PASSWORD = 10;
 export const RESERVED_SLUGS = ["api", "desk", "s", "admin", "sign-in", "sign-up", "open-shop", "new", "settings", "faradsmith"];
@@ -35,16 +36,15 @@ export function suggestSlug(name: string): string {
     .replace(/-+$/g, "");
 }
 
-const name = z.string().trim().min(2, "Enter your name (at least 2 characters).").max(80, "At most 80 characters.");
-const email = z.string().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@example.com."));
-const password = z
-  .string()
+const name = text().trim().min(2, "Enter your name (at least 2 characters).").max(80, "At most 80 characters.");
+const email = text().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@example.com."));
+const password = text()
   .min(MIN_PASSWORD, `At least ${MIN_PASSWORD} characters.`)
   .max(128, "At most 128 characters.");
 
 export const signInSchema = z.object({
   email,
-  password: z.string().min(1, "Enter your password."),
+  password: text().min(1, "Enter your password."),
 });
 export type SignInInput = z.infer<typeof signInSchema>;
 
@@ -52,7 +52,7 @@ export const openShopSchema = z.object({
   name,
   email,
   password,
-  shopName: z.string().trim().min(2, "Enter the shop's name (at least 2 characters).").max(80, "At most 80 characters."),
+  shopName: text().trim().min(2, "Enter the shop's name (at least 2 characters).").max(80, "At most 80 characters."),
   slug: slugSchema,
   currency: z.enum(["EUR", "USD", "GBP", "CHF", "JPY", "KWD"], { message: "Choose a currency." }),
 });
@@ -62,18 +62,18 @@ export const joinShopSchema = z.object({
   name,
   email,
   password,
-  company: z.string().trim().max(120, "At most 120 characters.").optional(),
+  company: text().trim().max(120, "At most 120 characters.").optional(),
 });
 export type JoinShopInput = z.infer<typeof joinShopSchema>;
 
 export const changeMemberRoleSchema = z.object({
-  memberId: z.string().min(1, "Which member?"),
+  memberId: text().min(1, "Which member?"),
   role: z.enum(ASSIGNABLE_ROLES, { message: "Choose estimator or customer." }),
 });
 export type ChangeMemberRoleInput = z.infer<typeof changeMemberRoleSchema>;
 
 export const memberListSchema = z.object({
-  q: z.string().trim().max(100).optional().default(""),
+  q: text().trim().max(100).optional().default(""),
   role: z.enum(["all", "manager", "estimator", "customer"]).optional().default("all"),
   sort: z.enum(["name", "email", "role", "joined"]).optional().default("name"),
   dir: z.enum(["asc", "desc"]).optional().default("asc"),

@@ -1,11 +1,12 @@
 import { z } from "zod";
 import { arrangementRequestSchema } from "./bank";
+import { text } from "./text";
 
 export const topologySchema = z.enum(["series-of-parallel-groups", "parallel-of-series-strings"]);
 
 /** The option a customer picked, as its identity only: the server re-prices it from the catalog. */
 export const chosenOptionSchema = z.object({
-  cellSku: z.string().trim().min(1).max(200),
+  cellSku: text().trim().min(1).max(200),
   topology: topologySchema,
   seriesCount: z.number().int().positive(),
   parallelCount: z.number().int().positive(),
@@ -18,7 +19,7 @@ export const chosenOptionSchema = z.object({
 export const chooseArrangementSchema = z.object({
   idempotencyKey: z.string().uuid(),
   requirement: arrangementRequestSchema,
-  notes: z.string().max(4000).default(""),
+  notes: text().max(4000).default(""),
   attachmentIds: z.array(z.string().uuid()).max(10).default([]),
   option: chosenOptionSchema.optional(),
 });
@@ -28,7 +29,7 @@ export type ChosenOption = z.infer<typeof chosenOptionSchema>;
 
 /** Quote lists: page, sort and filter as they appear in the URL. */
 export const quoteListQuerySchema = z.object({
-  q: z.string().trim().max(100).catch(""),
+  q: text().trim().max(100).catch(""),
   status: z.enum(["all", "issued", "accepted", "expired", "withdrawn"]).catch("all"),
   sort: z.enum(["number", "created", "total", "validUntil"]).catch("created"),
   dir: z.enum(["asc", "desc"]).catch("desc"),
