@@ -189,10 +189,10 @@ export async function startMaildev({ smtpPort, webPort, name }) {
  * reused on every start, so sessions survive restarts. Deleting the file (or setting another
  * BETTER_AUTH_SECRET) rotates it: every session signed with the old one ends (README, "Secrets").
  */
-export function ensureAuthSecret() {
-  if (process.env.BETTER_AUTH_SECRET) return process.env.BETTER_AUTH_SECRET;
-  const file = path.join(root, ".data", "auth-secret");
-  fs.mkdirSync(path.dirname(file), { recursive: true });
+export function ensureAuthSecret({ dir = path.join(root, ".data"), env = process.env } = {}) {
+  if (env.BETTER_AUTH_SECRET) return env.BETTER_AUTH_SECRET;
+  const file = path.join(dir, "auth-secret");
+  fs.mkdirSync(dir, { recursive: true });
   try {
     const secret = fs.readFileSync(file, "utf8").trim();
     if ((fs.statSync(file).mode & 0o077) !== 0) {
