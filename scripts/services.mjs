@@ -49,7 +49,7 @@ export function ensureNpmPackages() {
   run("npm", [fs.existsSync(lock) ? "ci" : "install", "--no-audit", "--no-fund"], { cwd: root });
 }
 
-function pgBin() {
+export function pgBin() {
   const base = "/usr/lib/postgresql";
   const versions = fs.existsSync(base) ? fs.readdirSync(base).sort((a, b) => Number(b) - Number(a)) : [];
   for (const v of versions) {
