@@ -66,8 +66,12 @@ if (parsed.data.NODE_ENV === "production" && !building) {
   }
 }
 
+const betterAuthUrl = parsed.data.BETTER_AUTH_URL ?? parsed.data.APP_URL;
+
 export const env = {
   ...parsed.data,
-  BETTER_AUTH_URL: parsed.data.BETTER_AUTH_URL ?? parsed.data.APP_URL,
+  BETTER_AUTH_URL: betterAuthUrl,
+  /** the origins our pages are served from: writes sent by any other are refused */
+  APP_ORIGINS: [...new Set([new URL(parsed.data.APP_URL).origin, new URL(betterAuthUrl).origin])],
 };
 export type Env = typeof env;

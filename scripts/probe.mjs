@@ -42,9 +42,15 @@ function record(category, name, refused, status) {
   results.set(category, r);
 }
 
-let sourceCounter = 20;
-/** A fresh loopback source address, so that one probe's limits do not spill into the next. */
-const freshSource = () => `127.0.0.${sourceCounter++}`;
+// a block of loopback addresses of its own per run, so one run's limits do not spill into the next
+const block = 1 + Math.floor(Math.random() * 250);
+let sourceCounter = 1;
+/** A fresh loopback source address (127.x.y.z is all loopback on Linux). */
+const freshSource = () => {
+  const n = sourceCounter++;
+  return `127.${block}.${Math.floor(n / 250)}.${1 + (n % 250)}`;
+};
+const notes = [];
 
 async function signIn(email, password = DEMO_PASSWORD) {
   const res = await send("POST", "/api/auth/sign-in/email", { headers: { origin: ORIGIN }, body: { email, password }, from: freshSource() });
@@ -110,7 +116,7 @@ async function probeAuthPlugin(ids) {
 
 async function probeRateLimits() {
   const cat = "rate limits";
-  const victim = demoPeople[K].customers[0].email;
+  const victim = demoPeople[K].customers[1].email;
   // 30 wrong passwords from one address, a new X-Forwarded-For each time
   const spoofFrom = freshSource();
   let through = 0;
@@ -120,6 +126,7 @@ async function probeRateLimits() {
   }
   // the limit for this address (AUTH_SIGN_IN_LIMIT, 3 by default) is what may pass
   for (let i = 0; i < 30; i += 1) record(cat, `wrong password with forged X-Forwarded-For #${i + 1}`, i >= through || i < 3, through);
+  notes.push(`wrong passwords with a new forged X-Forwarded-For each: ${through} of 30 reached the password check`);
   // one forged X-Real-IP per request on the public API
   const apiFrom = freshSource();
   let limited = 0;
@@ -129,11 +136,13 @@ async function probeRateLimits() {
     if (res.status === 429) limited += 1;
   }
   record(cat, `${n} API calls with forged headers: ${limited} limited`, limited > 0, limited);
+  notes.push(`public API with a new forged X-Forwarded-For / X-Real-IP each: ${limited} of ${n} answered 429`);
   // three wrong tries from one address must not lock out another address
   const a = freshSource();
   for (let i = 0; i < 4; i += 1) await send("POST", "/api/auth/sign-in/email", { headers: { origin: ORIGIN }, body: { email: `nobody@probe.example`, password: "wrong-password" }, from: a });
   const other = await send("POST", "/api/auth/sign-in/email", { headers: { origin: ORIGIN }, body: { email: demoPeople[K].estimator.email, password: DEMO_PASSWORD }, from: freshSource() });
   record(cat, "another address signs in after one address's wrong tries", other.status === 200, other.status);
+  notes.push(`after 4 wrong tries from one address, another address signs in: ${other.status}`);
   // one account, wrong passwords from ten addresses: the account's own limit must stop them
   let accountLocked = 0;
   for (let i = 0; i < 10; i += 1) {
@@ -141,6 +150,7 @@ async function probeRateLimits() {
     if (res.status === 429) accountLocked += 1;
   }
   record(cat, `10 wrong passwords for one account from 10 addresses: ${accountLocked} refused`, accountLocked > 0, accountLocked);
+  notes.push(`wrong passwords for one account from 10 addresses: ${accountLocked} of 10 answered 429`);
 }
 
 async function probeNulBytes(cookies) {
@@ -246,3 +256,4 @@ for (const [category, r] of results) {
   if (r.through.length > 8) console.log(`    … and ${r.through.length - 8} more`);
 }
 console.log(`all: ${total} attempts, ${refused} refused`);
+for (const n of notes) console.log(`note: ${n}`);

@@ -1,14 +1,11 @@
 import "server-only";
 import { env } from "@/lib/env";
 import { jsonError } from "@/lib/http/json-error";
-import { crossOriginRefusal, originOf } from "@/lib/http/origin";
+import { crossOriginRefusal } from "@/lib/http/origin";
 import { can, type Permission } from "./permissions";
 import { resolveShopContext, type ShopContext } from "./context";
 
 export { jsonError };
-
-/** The origins our own pages are served from. */
-const APP_ORIGINS = [...new Set([originOf(env.APP_URL), originOf(env.BETTER_AUTH_URL)])];
 
 /**
  * For route handlers: resolves the shop context from the request itself and answers 404 (no such
@@ -21,7 +18,7 @@ export async function withShopApi(
   permission: Permission,
   handler: (ctx: ShopContext) => Promise<Response>,
 ): Promise<Response> {
-  const crossOrigin = crossOriginRefusal(request, APP_ORIGINS);
+  const crossOrigin = crossOriginRefusal(request, env.APP_ORIGINS);
   if (crossOrigin) return crossOrigin;
   const r = await resolveShopContext(request.headers, shopSlug);
   if (r.status === "no-shop") return jsonError(404, "No such shop.");

@@ -27,8 +27,3 @@ export function crossOriginRefusal(request: Request, allowedOrigins: readonly st
   if (site !== null && site !== "same-origin" && site !== "none") return refuse();
   return null;
 }
-
-/** "http://127.0.0.1:3000/some/path" → "http://127.0.0.1:3000". */
-export function originOf(url: string): string {
-  return new URL(url).origin;
-}

@@ -17,6 +17,7 @@ import { changeMemberRole } from "@/app/desk/[shop]/team/actions";
 import { chooseArrangement, exploreArrangements } from "@/app/s/[shop]/actions";
 import { joinShop } from "@/app/s/[shop]/join/actions";
 import { demoPeople } from "@/db/seed/people";
+import { env } from "@/lib/env";
 import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
 import { proxy } from "@/proxy";
 import { actAs, memberOf, request, sessionCookie } from "./helpers";
@@ -39,13 +40,31 @@ describe("NUL in the URL is refused before any route runs", () => {
     `/api/v1/shops/${K}/quotes/Q-%00/pdf`,
     `/api/auth/get-session?x=%00`,
   ])("%s → 400", async (path) => {
-    const res = proxy(new NextRequest(`http://127.0.0.1:3000${path}`));
+    const res = await proxy(new NextRequest(`http://127.0.0.1:3000${path}`));
     expect(res.status).toBe(400);
     if (path.startsWith("/api/")) expect(await res.json()).toMatchObject({ error: expect.any(String) });
   });
 
-  it("lets an ordinary address through", () => {
-    expect(proxy(new NextRequest(`http://127.0.0.1:3000/s/${K}?q=%25a`)).status).toBe(200);
+  it("lets an ordinary address through", async () => {
+    expect((await proxy(new NextRequest(`http://127.0.0.1:3000/s/${K}?q=%25a`))).status).toBe(200);
+  });
+});
+
+describe("server-action requests Next.js could not decode are refused before it tries", () => {
+  const action = (body: string, headers: Record<string, string> = {}) =>
+    proxy(new NextRequest(`${env.APP_URL}/s/${K}/join`, { method: "POST", body, headers: { "next-action": "a".repeat(42), "content-type": "text/plain;charset=UTF-8", origin: new URL(env.APP_URL).origin, ...headers } }));
+
+  it.each([
+    ["a body that is not JSON", "not json {"],
+    ["an empty body", ""],
+    ["arguments nested 50 000 deep", `[${"[".repeat(50_000)}${"]".repeat(50_000)}]`],
+  ])("%s → 400", async (_label, body) => {
+    expect((await action(body)).status).toBe(400);
+  });
+
+  it("a call from another site → 403; our own arguments pass on", async () => {
+    expect((await action(JSON.stringify([K, {}]), { origin: "https://evil.example" })).status).toBe(403);
+    expect((await action(JSON.stringify([K, { name: "Ada" }]))).status).toBe(200);
   });
 });
 

@@ -25,9 +25,9 @@ const params = { params: Promise.resolve({ shop: K }) };
 const nonceOf = (policy: string | null) => /'nonce-([^']+)'/.exec(policy ?? "")?.[1];
 
 describe("page headers", () => {
-  it("every page gets a policy with a nonce of its own, and Next.js sees the same policy on the request", () => {
-    const a = proxy(new NextRequest(`${env.APP_URL}/s/${K}`));
-    const b = proxy(new NextRequest(`${env.APP_URL}/s/${K}`));
+  it("every page gets a policy with a nonce of its own, and Next.js sees the same policy on the request", async () => {
+    const a = await proxy(new NextRequest(`${env.APP_URL}/s/${K}`));
+    const b = await proxy(new NextRequest(`${env.APP_URL}/s/${K}`));
     const policy = a.headers.get("content-security-policy");
     expect(nonceOf(policy)).toBeTruthy();
     expect(nonceOf(policy)).not.toBe(nonceOf(b.headers.get("content-security-policy")));
@@ -37,8 +37,8 @@ describe("page headers", () => {
     expect(a.headers.get("x-middleware-request-x-nonce")).toBe(nonceOf(policy));
   });
 
-  it("JSON answers get a policy that loads nothing and sits in no frame", () => {
-    expect(proxy(new NextRequest(`${env.APP_URL}/api/v1/shops/${K}/members`)).headers.get("content-security-policy")).toBe("default-src 'none'; frame-ancestors 'none'");
+  it("JSON answers get a policy that loads nothing and sits in no frame", async () => {
+    expect((await proxy(new NextRequest(`${env.APP_URL}/api/v1/shops/${K}/members`))).headers.get("content-security-policy")).toBe("default-src 'none'; frame-ancestors 'none'");
   });
 
   it("every response gets nosniff, a referrer policy, a permissions policy and no framing", async () => {

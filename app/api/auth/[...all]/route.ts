@@ -4,10 +4,9 @@ import { auth, CLIENT_ADDRESS_HEADER } from "@/lib/auth/server";
 import { env } from "@/lib/env";
 import { clientAddress } from "@/lib/http/client-address";
 import { jsonError } from "@/lib/http/json-error";
-import { crossOriginRefusal, originOf } from "@/lib/http/origin";
+import { crossOriginRefusal } from "@/lib/http/origin";
 
 const handlers = toNextJsHandler(auth);
-const APP_ORIGINS = [...new Set([originOf(env.APP_URL), originOf(env.BETTER_AUTH_URL)])];
 const BASE_PATH = "/api/auth";
 
 /**
@@ -22,7 +21,7 @@ const BASE_PATH = "/api/auth";
 async function guarded(request: Request, handle: (r: Request) => Promise<Response>): Promise<Response> {
   const path = new URL(request.url).pathname;
   if (!path.startsWith(`${BASE_PATH}/`) || !HTTP_AUTH_PATHS.has(path.slice(BASE_PATH.length))) return jsonError(404, "Not found.");
-  const crossOrigin = crossOriginRefusal(request, APP_ORIGINS);
+  const crossOrigin = crossOriginRefusal(request, env.APP_ORIGINS);
   if (crossOrigin) return crossOrigin;
   const headers = new Headers(request.headers);
   headers.delete(CLIENT_ADDRESS_HEADER);
