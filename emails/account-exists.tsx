@@ -1,11 +1,5 @@
 import { Body, Button, Container, Head, Heading, Hr, Html, Preview, Text } from "@react-email/components";
-
-/** Colours of the product's theme (tailwind.config.ts), as in the other messages. */
-const INK_900 = "#141a2b";
-const INK_600 = "#3a4b70";
-const INK_100 = "#e3e8f1";
-const COPPER = "#a95c2a";
-const PAPER = "#f3f5f9";
+import { COPPER, INK_100, INK_600, INK_900, PAPER } from "./theme";
 
 export interface AccountExistsEmailProps {
   /** the address the form was filled in with (the one this message goes to) */
