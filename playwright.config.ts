@@ -31,7 +31,8 @@ export default defineConfig({
   },
   projects: [{ name: "chromium", use: { ...devices["Desktop Chrome"], channel: undefined } }],
   webServer: {
-    command: `node_modules/.bin/next start -H 127.0.0.1 -p ${port}`,
+    // the production server that appends each connection's address to X-Forwarded-For
+    command: `node scripts/serve.mjs -H 127.0.0.1 -p ${port}`,
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
     timeout: 120_000,

@@ -1,5 +1,7 @@
 import type { Metadata } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
+import { BrowserZod } from "@/components/providers/browser-zod";
 import "./globals.css";
 
 const plexSans = localFont({
@@ -26,10 +28,16 @@ export const metadata: Metadata = {
   description: "Custom capacitor banks designed from your shop's catalog, priced by your rules, quoted in minutes.",
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page renders per request: its scripts carry this request's CSP nonce (proxy.ts), which a
+  // page prerendered at build time could not.
+  await connection();
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
-      <body className="min-h-screen font-sans">{children}</body>
+      <body className="min-h-screen font-sans">
+        <BrowserZod />
+        {children}
+      </body>
     </html>
   );
 }

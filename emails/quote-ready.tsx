@@ -1,11 +1,5 @@
 import { Body, Button, Container, Head, Heading, Hr, Html, Preview, Section, Text } from "@react-email/components";
-
-/** Colours of the product's theme (tailwind.config.ts): ink for text, copper for the accent. */
-const INK_900 = "#141a2b";
-const INK_600 = "#3a4b70";
-const INK_100 = "#e3e8f1";
-const COPPER = "#a95c2a";
-const PAPER = "#f3f5f9";
+import { COPPER, INK_100, INK_600, INK_900, PAPER } from "./theme";
 
 export interface QuoteReadyEmailProps {
   shopName: string;

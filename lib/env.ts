@@ -1,4 +1,20 @@
+import ipaddr from "ipaddr.js";
 import { z } from "zod";
+
+/** The development secret: fine on a laptop, refused by a production server (see below). */
+export const DEVELOPMENT_AUTH_SECRET = "faradsmith-local-secret-change-me-in-production";
+
+/** "10.0.0.0/8, 127.0.0.1 ::1" → ["10.0.0.0/8", "127.0.0.1", "::1"]; each must be an address or a CIDR range. */
+const addressList = z
+  .string()
+  .default("")
+  .transform((v) => v.split(/[\s,]+/).filter(Boolean))
+  .superRefine((list, ctx) => {
+    for (const entry of list) {
+      const ok = entry.includes("/") ? ipaddr.isValidCIDR(entry) : ipaddr.isValid(entry);
+      if (!ok) ctx.addIssue({ code: "custom", message: `"${entry}" is not an IP address or CIDR range` });
+    }
+  });
 
 /** The environment, read and validated once. Nothing else reads process.env. */
 const schema = z.object({
@@ -6,10 +22,19 @@ const schema = z.object({
   DATABASE_URL: z.string().url().default("postgres://faradsmith@127.0.0.1:54329/faradsmith"),
   APP_URL: z.string().url().default("http://127.0.0.1:3000"),
   BETTER_AUTH_URL: z.string().url().optional(),
-  BETTER_AUTH_SECRET: z.string().min(16).default("faradsmith-local-secret-change-me-in-production"),
+  BETTER_AUTH_SECRET: z.string().min(16).default(DEVELOPMENT_AUTH_SECRET),
   AUTH_RATE_LIMIT_MAX: z.coerce.number().int().positive().default(30),
-  /** sign-in and sign-up attempts per client per 10 s */
+  /** sign-in and sign-up attempts per client address per 10 s */
   AUTH_SIGN_IN_LIMIT: z.coerce.number().int().positive().default(3),
+  /** failed sign-ins for one e-mail address (from anywhere) before it waits; the wait doubles from there */
+  AUTH_ACCOUNT_FAILURE_LIMIT: z.coerce.number().int().positive().default(5),
+  /**
+   * Reverse proxies (addresses or CIDR ranges) whose X-Forwarded-For / X-Real-IP are believed.
+   * Empty: the client is the connection's own address. See DEVELOPERS.md, "Security model".
+   */
+  TRUSTED_PROXIES: addressList,
+  /** Set by scripts/serve.mjs, which appends each connection's address to X-Forwarded-For. */
+  PEER_ADDRESS_APPENDED: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(120),
   SMTP_HOST: z.string().default("127.0.0.1"),
   SMTP_PORT: z.coerce.number().int().positive().default(1025),
@@ -44,11 +69,26 @@ if (!parsed.success) {
   throw new Error(`Invalid environment: ${parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`);
 }
 
+// A production server never signs sessions with the secret everyone can read in this file
+// (`npm start` generates one into .data/; see README, "Secrets"). The build itself may load it.
+const building = process.env.NEXT_PHASE === "phase-production-build";
+if (parsed.data.NODE_ENV === "production" && !building) {
+  if (parsed.data.BETTER_AUTH_SECRET === DEVELOPMENT_AUTH_SECRET) {
+    throw new Error("Invalid environment: BETTER_AUTH_SECRET is the built-in development secret; a production server needs its own (npm start generates one into .data/auth-secret)");
+  }
+  if (parsed.data.BETTER_AUTH_SECRET.length < 32) {
+    throw new Error("Invalid environment: BETTER_AUTH_SECRET must be at least 32 characters in production");
+  }
+}
+
+const betterAuthUrl = parsed.data.BETTER_AUTH_URL ?? parsed.data.APP_URL;
 const stripeBase = new URL(parsed.data.STRIPE_API_BASE);
 
 export const env = {
   ...parsed.data,
-  BETTER_AUTH_URL: parsed.data.BETTER_AUTH_URL ?? parsed.data.APP_URL,
+  BETTER_AUTH_URL: betterAuthUrl,
+  /** the origins our pages are served from: writes sent by any other are refused */
+  APP_ORIGINS: [...new Set([new URL(parsed.data.APP_URL).origin, new URL(betterAuthUrl).origin])],
   /** STRIPE_API_BASE as the SDK takes it: `new Stripe(key, { ...env.STRIPE_API })`. */
   STRIPE_API: {
     host: stripeBase.hostname,

@@ -2,6 +2,7 @@
 // tests/bench/engine-bench.ts; the HTTP figures from autocannon against `next start` on loopback,
 // with PostgreSQL and the demo data set up as `npm start` does, in a database of its own.
 import { spawnSync } from "node:child_process";
+import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import autocannon from "autocannon";
@@ -23,7 +24,7 @@ if (pdf.status !== 0) process.exit(pdf.status ?? 1);
 const pg = await ensurePostgres({ name: "pg-test", port: 54339, fast: true });
 const databaseUrl = await pg.ensureDatabase("faradsmith_bench", { recreate: true });
 const appUrl = `http://127.0.0.1:${APP_PORT}`;
-const env = { ...process.env, DATABASE_URL: databaseUrl, APP_URL: appUrl, BETTER_AUTH_URL: appUrl, API_RATE_LIMIT_PER_MINUTE: "10000000", MAIL_WORKER: "off" /* the bench server sends no e-mail */, NEXT_TELEMETRY_DISABLED: "1" };
+const env = { ...process.env, DATABASE_URL: databaseUrl, APP_URL: appUrl, BETTER_AUTH_URL: appUrl, BETTER_AUTH_SECRET: randomBytes(32).toString("base64url"), API_RATE_LIMIT_PER_MINUTE: "10000000", MAIL_WORKER: "off" /* the bench server sends no e-mail */, NEXT_TELEMETRY_DISABLED: "1" };
 try {
   const setup = spawnSync(bin("tsx"), ["scripts/db.ts", "setup"], { cwd: root, env, stdio: "inherit" });
   if (setup.status !== 0) throw new Error("database set-up failed");
@@ -32,7 +33,7 @@ try {
     const b = spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "inherit" });
     if (b.status !== 0) throw new Error("next build failed");
   }
-  spawnService("next start", bin("next"), ["start", "-H", "127.0.0.1", "-p", String(APP_PORT)], { env, stdio: ["ignore", "ignore", "inherit"] });
+  spawnService("next start", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(APP_PORT)], { env, stdio: ["ignore", "ignore", "inherit"] });
   await waitForPort(APP_PORT, "the app", 120_000);
   await fetch(`${appUrl}/api/health`);
 

@@ -2,7 +2,7 @@
 // PostgreSQL cluster on 127.0.0.1, the mail stand-in. Plain Node (no TypeScript) so it runs
 // before anything is installed.
 import { spawn, spawnSync } from "node:child_process";
-import { createHash } from "node:crypto";
+import { createHash, randomBytes } from "node:crypto";
 import fs from "node:fs";
 import net from "node:net";
 import path from "node:path";
@@ -49,7 +49,7 @@ export function ensureNpmPackages() {
   run("npm", [fs.existsSync(lock) ? "ci" : "install", "--no-audit", "--no-fund"], { cwd: root });
 }
 
-function pgBin() {
+export function pgBin() {
   const base = "/usr/lib/postgresql";
   const versions = fs.existsSync(base) ? fs.readdirSync(base).sort((a, b) => Number(b) - Number(a)) : [];
   for (const v of versions) {
@@ -217,4 +217,32 @@ export async function startStripeStandin({ apiBase, webhookUrl, env }) {
   await Promise.race([waitForPort(port, "Stripe stand-in"), early]);
   up = true;
   return child;
+}
+
+/**
+ * The session-signing secret for this checkout: BETTER_AUTH_SECRET when the environment gives one,
+ * otherwise generated once into .data/auth-secret (mode 0600, readable by this user only) and
+ * reused on every start, so sessions survive restarts. Deleting the file (or setting another
+ * BETTER_AUTH_SECRET) rotates it: every session signed with the old one ends (README, "Secrets").
+ */
+export function ensureAuthSecret({ dir = path.join(root, ".data"), env = process.env } = {}) {
+  if (env.BETTER_AUTH_SECRET) return env.BETTER_AUTH_SECRET;
+  const file = path.join(dir, "auth-secret");
+  fs.mkdirSync(dir, { recursive: true });
+  try {
+    const secret = fs.readFileSync(file, "utf8").trim();
+    if ((fs.statSync(file).mode & 0o077) !== 0) {
+      fs.chmodSync(file, 0o600);
+      log(`${path.relative(root, file)} was readable by others; made it 0600`);
+    }
+    if (secret.length >= 32) return secret;
+    log(`${path.relative(root, file)} holds no usable secret; generating a new one`);
+  } catch (error) {
+    if (error.code !== "ENOENT") throw error;
+  }
+  const secret = randomBytes(32).toString("base64url");
+  fs.writeFileSync(file, `${secret}\n`, { mode: 0o600 });
+  fs.chmodSync(file, 0o600);
+  log(`generated a session secret in ${path.relative(root, file)} (keep it private; see README, "Secrets")`);
+  return secret;
 }

@@ -4,7 +4,7 @@
 // Ctrl-C stops everything this command started.
 import { spawnSync } from "node:child_process";
 import path from "node:path";
-import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, portOpen, root, spawnService, startMaildev, startStripeStandin, stopAll, waitForPort } from "./services.mjs";
+import { ensureAuthSecret, ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, portOpen, root, spawnService, startMaildev, startStripeStandin, stopAll, waitForPort } from "./services.mjs";
 
 const dev = process.argv.includes("--dev");
 const PORT = Number(process.env.PORT ?? 3000);
@@ -30,6 +30,7 @@ const env = {
   DATABASE_URL: databaseUrl,
   APP_URL: appUrl,
   BETTER_AUTH_URL: appUrl,
+  BETTER_AUTH_SECRET: ensureAuthSecret(),
   SMTP_HOST: "127.0.0.1",
   SMTP_PORT: String(SMTP_PORT),
   MAIL_INBOX_URL: `http://127.0.0.1:${INBOX_PORT}`,
@@ -70,7 +71,7 @@ if (step("applying migrations and demo data", bin("tsx"), ["scripts/db.ts", "set
   if (dev) {
     spawnService("next dev", bin("next"), ["dev", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
   } else if (step("building the app", bin("next"), ["build"])) {
-    spawnService("next start", bin("next"), ["start", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
+    spawnService("next start", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
   }
   if (!shuttingDown) {
     await waitForPort(PORT, "the app", 180_000);

@@ -2,6 +2,7 @@
 // a test PostgreSQL cluster and database; the mail stand-in), then runs typecheck, lint, unit,
 // integration and browser tests. Its last line is the total over all layers: `N passed, N failed`.
 import { spawnSync } from "node:child_process";
+import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, root, startMaildev, startStripeStandin, stopAll } from "./services.mjs";
@@ -34,6 +35,8 @@ const env = {
   DATABASE_URL: databaseUrl,
   APP_URL: appUrl,
   BETTER_AUTH_URL: appUrl,
+  // the browser tests run a production server, which refuses the development secret
+  BETTER_AUTH_SECRET: process.env.BETTER_AUTH_SECRET ?? randomBytes(32).toString("base64url"),
   APP_PORT: String(APP_PORT),
   SMTP_HOST: "127.0.0.1",
   SMTP_PORT: String(SMTP_PORT),

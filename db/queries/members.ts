@@ -49,6 +49,12 @@ export async function getMemberRole(shopId: string, userId: string): Promise<Rol
  * Every shop a person belongs to, with their role there. The one read across shops: it is keyed by
  * the signed-in user and hands back only their own memberships.
  */
+/** How many members a shop has (its founder is the first). */
+export async function countMembers(shopId: string): Promise<number> {
+  const [row] = await db.select({ n: count() }).from(members).where(eq(members.shopId, shopId));
+  return row?.n ?? 0;
+}
+
 export async function listShopsOfUser(userId: string): Promise<{ slug: string; name: string; role: Role }[]> {
   return db
     .select({ slug: shops.slug, name: shops.name, role: members.role })

@@ -1,12 +1,16 @@
 import "server-only";
-import { asc, eq } from "drizzle-orm";
+import { asc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { shopSettings, shops, users } from "@/db/schema";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
 import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
 
 /** The shop a URL's slug names, or null: the first step of every shop context. */
+/** A slug as shops are given them (lib/validation/auth.ts): anything else cannot name a shop, and is never looked up. */
+const SLUG_SHAPE = /^[a-z0-9-]{1,64}$/;
+
 export async function getShopBySlug(slug: string): Promise<{ id: string; slug: string; name: string } | null> {
+  if (!SLUG_SHAPE.test(slug)) return null;
   const [shop] = await db.select({ id: shops.id, slug: shops.slug, name: shops.name }).from(shops).where(eq(shops.slug, slug)).limit(1);
   return shop ?? null;
 }
@@ -46,4 +50,18 @@ export async function isEmailTaken(email: string): Promise<boolean> {
 /** Removes an account created moments ago when the rest of a sign-up could not complete. */
 export async function deleteUserAccount(userId: string) {
   await db.delete(users).where(eq(users.id, userId));
+}
+
+/** A shop's name and slug, for messages about it. */
+export async function getShopIdentity(shopId: string) {
+  const [row] = await db.select({ name: shops.name, slug: shops.slug }).from(shops).where(eq(shops.id, shopId)).limit(1);
+  return row ?? null;
+}
+
+/** The opener's currency for a shop opened moments ago: its settings row starts in euros (lib/auth/plugin-rules.ts). */
+export async function setOpeningCurrency(shopId: string, currency: string) {
+  await db
+    .update(shopSettings)
+    .set({ currency, pricingRules: sql`jsonb_set(${shopSettings.pricingRules}, '{currency}', to_jsonb(${currency}::text))`, updatedAt: new Date() })
+    .where(eq(shopSettings.shopId, shopId));
 }

@@ -3,3 +3,4 @@ export * from "./catalog";
 export * from "./settings";
 export * from "./quotes";
 export * from "./mail";
+export * from "./security";

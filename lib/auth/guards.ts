@@ -2,7 +2,10 @@ import "server-only";
 import { headers } from "next/headers";
 import { forbidden, notFound, redirect } from "next/navigation";
 import type { z } from "zod";
+import { env } from "@/lib/env";
 import { jsonError } from "@/lib/http/json-error";
+import { crossOriginRefusal } from "@/lib/http/origin";
+import { NUL_MESSAGE, findNul } from "@/lib/validation/text";
 import { getShopContext, resolveShopContext, type ContextResult, type ShopContext } from "./context";
 import { can, type Permission, type Role } from "./permissions";
 
@@ -78,8 +81,13 @@ export async function requireShopPage(shopSlug: string, access?: Access, next?: 
   forbidden();
 }
 
-/** For route handlers: the context from the request itself, or the refusal as JSON before the handler runs. */
+/**
+ * For route handlers: the context from the request itself, or the refusal as JSON before the handler runs.
+ * A write (any method but GET/HEAD/OPTIONS) sent by a page of another site is refused first (403).
+ */
 export async function withShopApi(request: Request, shopSlug: string, access: Access, handler: (ctx: ShopContext) => Promise<Response>): Promise<Response> {
+  const crossOrigin = crossOriginRefusal(request, env.APP_ORIGINS);
+  if (crossOrigin) return crossOrigin;
   const r = authorize(await resolveShopContext(request.headers, shopSlug), access);
   return r.ok ? handler(r.ctx) : refusedResponse(r.refusal);
 }
@@ -99,13 +107,15 @@ export function invalidResult(error: z.ZodError): { ok: false; code: "invalid"; 
 }
 
 /**
- * The one way to mutate a shop's data: context → permission → zod parse → handler.
- * Expected failures come back as results; only bugs throw.
+ * The one way to mutate a shop's data: context → permission → zod parse (after refusing NUL
+ * characters anywhere in the input) → handler. Expected failures come back as results; only bugs throw.
  */
 export function shopAction<S extends z.ZodType, T>(schema: S, access: Access, handler: (ctx: ShopContext, input: z.output<S>) => Promise<ActionResult<T>>) {
   return async (shopSlug: string, input: unknown): Promise<ActionResult<T>> => {
     const r = authorize(await resolveShopContext(await headers(), String(shopSlug)), access);
     if (!r.ok) return refusedResult(r.refusal);
+    const nulAt = findNul(input);
+    if (nulAt !== null) return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: { [nulAt || "_form"]: [NUL_MESSAGE] } };
     const parsed = schema.safeParse(input);
     if (!parsed.success) return invalidResult(parsed.error);
     return handler(r.ctx, parsed.data);

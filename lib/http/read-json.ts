@@ -1,4 +1,5 @@
 import { jsonError } from "@/lib/http/json-error";
+import { NUL_MESSAGE, findNul } from "@/lib/validation/text";
 
 export const MAX_BODY_BYTES = 1024 * 1024;
 
@@ -25,7 +26,10 @@ export async function readBodyLimited(request: Request, limit: number): Promise<
   return new Uint8Array(Buffer.concat(chunks));
 }
 
-/** Reads a JSON body of at most `limit` bytes; answers a 400 JSON error for anything unreadable. */
+/**
+ * Reads a JSON body of at most `limit` bytes; answers a 400 JSON error for anything unreadable,
+ * including a NUL character in any string or key (PostgreSQL could not store it).
+ */
 export async function readJsonBody(request: Request, limit = MAX_BODY_BYTES): Promise<{ ok: true; value: unknown } | { ok: false; response: Response }> {
   const bytes = await readBodyLimited(request, limit);
   if (bytes === null) {
@@ -33,10 +37,14 @@ export async function readJsonBody(request: Request, limit = MAX_BODY_BYTES): Pr
   }
   const text = Buffer.from(bytes).toString("utf8");
   if (text.trim() === "") return { ok: false, response: jsonError(400, "The body is empty; send a JSON object.", [{ path: "", message: "Empty body" }]) };
+  let value: unknown;
   try {
-    return { ok: true, value: JSON.parse(text) };
+    value = JSON.parse(text);
   } catch (error) {
     const message = error instanceof Error ? error.message : "not JSON";
     return { ok: false, response: jsonError(400, "The body is not valid JSON.", [{ path: "", message }]) };
   }
+  const nulAt = findNul(value);
+  if (nulAt !== null) return { ok: false, response: jsonError(400, "A value in the body contains a NUL character.", [{ path: nulAt, message: NUL_MESSAGE }]) };
+  return { ok: true, value };
 }

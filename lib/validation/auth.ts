@@ -2,6 +2,7 @@ import { z } from "zod";
 import { ASSIGNABLE_ROLES } from "@/lib/auth/permissions";
 import { SHOP_CURRENCIES } from "@/lib/vocabulary";
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "./limits";
+import { text } from "./text";
 
 const RESERVED_SLUGS = ["api", "desk", "s", "admin", "sign-in", "sign-up", "open-shop", "new", "settings", "faradsmith"];
 
@@ -36,16 +37,15 @@ export function suggestSlug(name: string): string {
     .replace(/-+$/g, "");
 }
 
-const name = z.string().trim().min(2, "Enter your name (at least 2 characters).").max(80, "At most 80 characters.");
-const email = z.string().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@example.com."));
-const password = z
-  .string()
+const name = text().trim().min(2, "Enter your name (at least 2 characters).").max(80, "At most 80 characters.");
+const email = text().trim().toLowerCase().pipe(z.email("Enter an e-mail address like name@example.com."));
+const password = text()
   .min(PASSWORD_MIN_LENGTH, `At least ${PASSWORD_MIN_LENGTH} characters.`)
   .max(PASSWORD_MAX_LENGTH, `At most ${PASSWORD_MAX_LENGTH} characters.`);
 
 export const signInSchema = z.object({
   email,
-  password: z.string().min(1, "Enter your password."),
+  password: text().min(1, "Enter your password."),
 });
 export type SignInInput = z.infer<typeof signInSchema>;
 
@@ -53,7 +53,7 @@ export const openShopSchema = z.object({
   name,
   email,
   password,
-  shopName: z.string().trim().min(2, "Enter the shop's name (at least 2 characters).").max(80, "At most 80 characters."),
+  shopName: text().trim().min(2, "Enter the shop's name (at least 2 characters).").max(80, "At most 80 characters."),
   slug: slugSchema,
   currency: z.enum(SHOP_CURRENCIES, { message: "Choose a currency." }),
 });
@@ -63,11 +63,11 @@ export const joinShopSchema = z.object({
   name,
   email,
   password,
-  company: z.string().trim().max(120, "At most 120 characters.").optional(),
+  company: text().trim().max(120, "At most 120 characters.").optional(),
 });
 export type JoinShopInput = z.infer<typeof joinShopSchema>;
 
 export const changeMemberRoleSchema = z.object({
-  memberId: z.string().min(1, "Which member?"),
+  memberId: text().min(1, "Which member?"),
   role: z.enum(ASSIGNABLE_ROLES, { message: "Choose estimator or customer." }),
 });

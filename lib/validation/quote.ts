@@ -3,12 +3,13 @@ import { MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from "../bank/bounds";
 import { TOPOLOGIES } from "@/lib/bank/types";
 import { arrangementRequestSchema } from "./bank";
 import { MAX_ATTACHMENTS_PER_REQUEST, MAX_NOTES_LENGTH } from "./limits";
+import { text } from "./text";
 
 const topologySchema = z.enum(TOPOLOGIES);
 
 /** The option a customer picked, as its identity only: the server re-prices it from the catalog. */
 const chosenOptionSchema = z.object({
-  cellSku: z.string().trim().min(1).max(200),
+  cellSku: text().trim().min(1).max(200),
   topology: topologySchema,
   seriesCount: z.number().int().positive().max(MAX_SERIES_COUNT),
   parallelCount: z.number().int().positive().max(MAX_PARALLEL_COUNT),
@@ -21,7 +22,7 @@ const chosenOptionSchema = z.object({
 export const chooseArrangementSchema = z.object({
   idempotencyKey: z.string().uuid(),
   requirement: arrangementRequestSchema,
-  notes: z.string().max(MAX_NOTES_LENGTH).default(""),
+  notes: text().max(MAX_NOTES_LENGTH).default(""),
   attachmentIds: z.array(z.string().uuid()).max(MAX_ATTACHMENTS_PER_REQUEST).default([]),
   option: chosenOptionSchema.optional(),
 });

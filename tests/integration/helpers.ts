@@ -1,3 +1,6 @@
+import { and, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { members, shops, users } from "@/db/schema";
 import { DEMO_PASSWORD } from "@/db/seed/people";
 import { auth } from "@/lib/auth/server";
 
@@ -15,6 +18,25 @@ export async function sessionCookie(email: string, password = DEMO_PASSWORD): Pr
 export async function actAs(email: string | null) {
   state.__requestHeaders = email ? new Headers({ cookie: await sessionCookie(email) }) : new Headers();
   return state.__requestHeaders;
+}
+
+/** A demo shop as seeded into this file's copy of the test database (prefer createShop() for new tests). */
+export async function shopBySlug(slug: string) {
+  const [shop] = await db.select().from(shops).where(eq(shops.slug, slug));
+  if (!shop) throw new Error(`no shop ${slug}`);
+  return shop;
+}
+
+/** A member of a seeded demo shop, by e-mail. */
+export async function memberOf(slug: string, email: string) {
+  const shop = await shopBySlug(slug);
+  const [row] = await db
+    .select({ id: members.id, role: members.role, userId: members.userId })
+    .from(members)
+    .innerJoin(users, eq(users.id, members.userId))
+    .where(and(eq(members.shopId, shop.id), eq(users.email, email)));
+  if (!row) throw new Error(`no member ${email} in ${slug}`);
+  return row;
 }
 
 export function request(url: string, init: RequestInit & { cookie?: string } = {}) {

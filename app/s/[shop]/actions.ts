@@ -4,8 +4,7 @@ import { loadShopCatalog } from "@/db/queries/catalog";
 import { getShopBySlug } from "@/db/queries/shops";
 import { invalidResult, refusedResult, shopAction, type ActionResult } from "@/lib/auth/guards";
 import type { DesignFactors, Requirement } from "@/lib/bank";
-import { env } from "@/lib/env";
-import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
+import { limits, requestClient } from "@/lib/http/limits";
 import { searchPricedOptions } from "@/lib/quoting/priced-search";
 import type { PricedOption } from "@/lib/quoting/types";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
@@ -24,15 +23,13 @@ export interface ExploreResult {
   reasons: string[];
 }
 
-// The same budget per client as the public arrangements endpoint: a search is not free.
-const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, windowMs: 60_000 });
-
 /**
  * Open to visitors (no sign-in): the request form's values, read with the form's own schema,
  * searched against the shop's active catalog and priced by its rules.
  */
 export async function exploreArrangements(shopSlug: string, input: unknown): Promise<ActionResult<ExploreResult>> {
-  const gate = limiter.hit(clientKey(await headers()));
+  // the same budget per client as the public arrangements endpoint: a search is not free
+  const gate = await limits.storefrontSearch.hit(requestClient(await headers()));
   if (!gate.allowed) return { ok: false, code: "rate-limited", message: `Too many searches; try again in ${gate.retryAfterSeconds} s.` };
   const shop = await getShopBySlug(String(shopSlug));
   if (!shop) return refusedResult("no-shop");

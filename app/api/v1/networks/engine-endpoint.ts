@@ -1,7 +1,6 @@
-import { env } from "@/lib/env";
 import { jsonError } from "@/lib/http/json-error";
+import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
 import { readJsonBody } from "@/lib/http/read-json";
-import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
 import type { ParseResult } from "@/lib/validation/bank";
 
 /**
@@ -10,12 +9,9 @@ import type { ParseResult } from "@/lib/validation/bank";
  * then the pure engine call; an engine RangeError is a 400 on `network`, never a 500.
  */
 export function engineEndpoint<T>(parse: (json: unknown) => ParseResult<T>, compute: (input: T) => unknown) {
-  const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, windowMs: 60_000 });
   return async function POST(request: Request): Promise<Response> {
-    const gate = limiter.hit(clientKey(request.headers));
-    if (!gate.allowed) {
-      return jsonError(429, `Too many requests; try again in ${gate.retryAfterSeconds} s.`, undefined, { headers: { "retry-after": String(gate.retryAfterSeconds) } });
-    }
+    const gate = await limits.engine.hit(requestClient(request.headers));
+    if (!gate.allowed) return tooManyRequests(gate);
     const body = await readJsonBody(request);
     if (!body.ok) return body.response;
     const parsed = parse(body.value);

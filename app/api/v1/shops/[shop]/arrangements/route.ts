@@ -1,14 +1,11 @@
 import { loadShopCatalog } from "@/db/queries/catalog";
 import { getShopBySlug } from "@/db/queries/shops";
 import { refusedResponse } from "@/lib/auth/guards";
-import { env } from "@/lib/env";
 import { jsonError } from "@/lib/http/json-error";
+import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
 import { readJsonBody } from "@/lib/http/read-json";
-import { clientKey, createRateLimiter } from "@/lib/http/rate-limit";
 import { searchPricedOptions } from "@/lib/quoting/priced-search";
 import { parseArrangementRequest } from "@/lib/validation/bank";
-
-const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, windowMs: 60_000 });
 
 /**
  * POST /api/v1/shops/{shop}/arrangements — open to visitors (DESIGN.md §3.2): a requirement in
@@ -16,10 +13,8 @@ const limiter = createRateLimiter({ limit: env.API_RATE_LIMIT_PER_MINUTE, window
  * priced by its rules. Rate-limited per client.
  */
 export async function POST(request: Request, { params }: { params: Promise<{ shop: string }> }) {
-  const gate = limiter.hit(clientKey(request.headers));
-  if (!gate.allowed) {
-    return jsonError(429, `Too many requests; try again in ${gate.retryAfterSeconds} s.`, undefined, { headers: { "retry-after": String(gate.retryAfterSeconds) } });
-  }
+  const gate = await limits.publicApi.hit(requestClient(request.headers));
+  if (!gate.allowed) return tooManyRequests(gate);
   const { shop: slug } = await params;
   const shop = await getShopBySlug(slug);
   if (!shop) return refusedResponse("no-shop");
