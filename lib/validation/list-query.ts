@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { NUL_MESSAGE, hasNul } from "./text";
 import { MAX_LIST_SEARCH_LENGTH } from "./limits";
 
 /**
@@ -98,7 +99,12 @@ export function defineList<const F extends Choices, const S extends string>(spec
   function parse(input: unknown): { query: Q; issues: ListIssue[] } {
     const out: Record<string, unknown> = { ...defaults };
     const issues: ListIssue[] = [];
-    if (spec.search) out.q = cleanSearch(read(input, "q") ?? "");
+    if (spec.search) {
+      const raw = read(input, "q") ?? "";
+      out.q = cleanSearch(raw);
+      // a page searches for the cleaned text; a JSON route says what was wrong with it
+      if (hasNul(raw)) issues.push({ path: "q", message: NUL_MESSAGE });
+    }
     for (const [name, schema] of Object.entries(fields)) {
       const raw = read(input, name);
       if (raw === undefined || raw.trim() === "") continue;

@@ -167,8 +167,8 @@ test.describe("each role reaches its own pages and is refused the others'", () =
     expect(new Set(film)).toEqual(new Set(["Film"]));
     const filmCosts = await costs();
     expect([...filmCosts].sort((a, b) => b - a)).toEqual(filmCosts);
-    // a hostile URL falls back to the defaults instead of failing
-    await page.goto(`/desk/${K}/catalog?sort=%00&page=-4&size=abc&technology=plasma&q=%25`);
+    // a hostile URL falls back to the defaults instead of failing (a NUL byte is refused before any page: bad-bytes tests)
+    await page.goto(`/desk/${K}/catalog?sort=%01&page=-4&size=abc&technology=plasma&q=%25`);
     await expect(page.getByRole("heading", { name: "Catalog", level: 1 })).toBeVisible();
     await expect(table.getByRole("columnheader", { name: /SKU/ })).toHaveAttribute("aria-sort", "ascending");
   });

@@ -109,7 +109,7 @@ describe("backup and restore", () => {
   });
 
   it("writes a timestamped custom-format dump that only its owner can read", () => {
-    expect(path.basename(backup)).toMatch(/^faradsmith-faradsmith_test(_\d+)?-\d{4}-\d{2}-\d{2}T\d{2}-\d{2}-\d{2}-\d{3}Z\.dump$/);
+    expect(path.basename(backup)).toMatch(/^faradsmith-faradsmith_test\w*-\d{4}-\d{2}-\d{2}T\d{2}-\d{2}-\d{2}-\d{3}Z\.dump$/);
     // pg_dump's custom format begins with the magic "PGDMP" (PostgreSQL docs, pg_dump; from memory)
     expect(fs.readFileSync(backup).subarray(0, 5).toString("latin1")).toBe("PGDMP");
     expect(fs.statSync(backup).mode & 0o777).toBe(0o600);
