@@ -10,8 +10,12 @@ export default function Forbidden() {
         You are signed in, but your role in this shop does not include this page. If you need it, ask the shop&apos;s manager.
       </p>
       <p className="mt-6 flex justify-center gap-4 text-sm">
-        <Link href="/my-shops" className="font-medium text-copper-700 hover:underline">Go to your shops</Link>
-        <Link href="/" className="text-ink-600 hover:underline">Front page</Link>
+        <Link href="/my-shops" className="font-medium text-copper-700 hover:underline">
+          Go to your shops
+        </Link>
+        <Link href="/" className="text-ink-600 hover:underline">
+          Front page
+        </Link>
       </p>
     </main>
   );

@@ -24,7 +24,16 @@ export function QuoteReadyEmail({ shopName, quoteNumber, revision, total, quanti
       <Head />
       <Preview>{`${shopName}: quote ${quoteNumber} is ready, ${total}, valid until ${validUntil}`}</Preview>
       <Body style={{ backgroundColor: PAPER, color: INK_900, fontFamily: "'IBM Plex Sans', Arial, Helvetica, sans-serif", margin: 0, padding: "24px 0" }}>
-        <Container style={{ backgroundColor: "#ffffff", border: `1px solid ${INK_100}`, borderTop: `4px solid ${COPPER}`, borderRadius: 6, maxWidth: 560, padding: "28px 32px" }}>
+        <Container
+          style={{
+            backgroundColor: "#ffffff",
+            border: `1px solid ${INK_100}`,
+            borderTop: `4px solid ${COPPER}`,
+            borderRadius: 6,
+            maxWidth: 560,
+            padding: "28px 32px",
+          }}
+        >
           <Text style={{ color: COPPER, fontSize: 13, fontWeight: 600, letterSpacing: "0.06em", margin: 0, textTransform: "uppercase" }}>{shopName}</Text>
           <Heading as="h1" style={{ fontSize: 22, lineHeight: "30px", margin: "8px 0 16px" }}>
             Your quote {quoteNumber} is ready
@@ -47,12 +56,18 @@ export function QuoteReadyEmail({ shopName, quoteNumber, revision, total, quanti
             </Text>
           </Section>
           <Section style={{ margin: "24px 0" }}>
-            <Button href={quoteUrl} style={{ backgroundColor: INK_900, borderRadius: 4, color: "#ffffff", fontSize: 15, fontWeight: 600, padding: "12px 20px" }}>
+            <Button
+              href={quoteUrl}
+              style={{ backgroundColor: INK_900, borderRadius: 4, color: "#ffffff", fontSize: 15, fontWeight: 600, padding: "12px 20px" }}
+            >
               View the quote
             </Button>
           </Section>
           <Text style={{ color: INK_600, fontSize: 13, lineHeight: "20px", margin: "0 0 8px" }}>
-            Or open this address: <a href={quoteUrl} style={{ color: COPPER }}>{quoteUrl}</a>
+            Or open this address:{" "}
+            <a href={quoteUrl} style={{ color: COPPER }}>
+              {quoteUrl}
+            </a>
           </Text>
           <Hr style={{ borderColor: INK_100, margin: "20px 0" }} />
           <Text style={{ color: INK_600, fontSize: 12, lineHeight: "18px", margin: 0 }}>{SAFETY_LINE}</Text>

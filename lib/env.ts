@@ -34,12 +34,18 @@ const schema = z.object({
    */
   TRUSTED_PROXIES: addressList,
   /** Set by scripts/serve.mjs, which appends each connection's address to X-Forwarded-For. */
-  PEER_ADDRESS_APPENDED: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+  PEER_ADDRESS_APPENDED: z
+    .enum(["true", "false"])
+    .default("false")
+    .transform((v) => v === "true"),
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(120),
   SMTP_HOST: z.string().default("127.0.0.1"),
   SMTP_PORT: z.coerce.number().int().positive().default(1025),
   /** production SMTP: TLS from the first byte ("true", port 465) and credentials; none on loopback */
-  SMTP_SECURE: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+  SMTP_SECURE: z
+    .enum(["true", "false"])
+    .default("false")
+    .transform((v) => v === "true"),
   SMTP_USER: z.string().min(1).optional(),
   SMTP_PASSWORD: z.string().min(1).optional(),
   MAIL_FROM: z.string().default("Faradsmith <quotes@faradsmith.example>"),
@@ -74,7 +80,9 @@ if (!parsed.success) {
 const building = process.env.NEXT_PHASE === "phase-production-build";
 if (parsed.data.NODE_ENV === "production" && !building) {
   if (parsed.data.BETTER_AUTH_SECRET === DEVELOPMENT_AUTH_SECRET) {
-    throw new Error("Invalid environment: BETTER_AUTH_SECRET is the built-in development secret; a production server needs its own (npm start generates one into .data/auth-secret)");
+    throw new Error(
+      "Invalid environment: BETTER_AUTH_SECRET is the built-in development secret; a production server needs its own (npm start generates one into .data/auth-secret)",
+    );
   }
   if (parsed.data.BETTER_AUTH_SECRET.length < 32) {
     throw new Error("Invalid environment: BETTER_AUTH_SECRET must be at least 32 characters in production");

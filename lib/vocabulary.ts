@@ -46,7 +46,14 @@ export const OUTBOX_STATUS_LABELS: Record<OutboxStatus, string> = { waiting: "Wa
 /** Currencies a shop can open with (ISO 4217 codes), with their names. */
 export const SHOP_CURRENCIES = ["EUR", "GBP", "USD", "CHF", "JPY", "KWD"] as const;
 type ShopCurrency = (typeof SHOP_CURRENCIES)[number];
-export const CURRENCY_NAMES: Record<ShopCurrency, string> = { EUR: "euro", GBP: "pound sterling", USD: "US dollar", CHF: "Swiss franc", JPY: "yen", KWD: "Kuwaiti dinar" };
+export const CURRENCY_NAMES: Record<ShopCurrency, string> = {
+  EUR: "euro",
+  GBP: "pound sterling",
+  USD: "US dollar",
+  CHF: "Swiss franc",
+  JPY: "yen",
+  KWD: "Kuwaiti dinar",
+};
 
 export interface LabelledValue {
   label: string;

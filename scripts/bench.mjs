@@ -24,7 +24,16 @@ if (pdf.status !== 0) process.exit(pdf.status ?? 1);
 const pg = await ensurePostgres({ name: "pg-test", port: 54339, fast: true });
 const databaseUrl = await pg.ensureDatabase("faradsmith_bench", { recreate: true });
 const appUrl = `http://127.0.0.1:${APP_PORT}`;
-const env = { ...process.env, DATABASE_URL: databaseUrl, APP_URL: appUrl, BETTER_AUTH_URL: appUrl, BETTER_AUTH_SECRET: randomBytes(32).toString("base64url"), API_RATE_LIMIT_PER_MINUTE: "10000000", MAIL_WORKER: "off" /* the bench server sends no e-mail */, NEXT_TELEMETRY_DISABLED: "1" };
+const env = {
+  ...process.env,
+  DATABASE_URL: databaseUrl,
+  APP_URL: appUrl,
+  BETTER_AUTH_URL: appUrl,
+  BETTER_AUTH_SECRET: randomBytes(32).toString("base64url"),
+  API_RATE_LIMIT_PER_MINUTE: "10000000",
+  MAIL_WORKER: "off" /* the bench server sends no e-mail */,
+  NEXT_TELEMETRY_DISABLED: "1",
+};
 try {
   const setup = spawnSync(bin("tsx"), ["scripts/db.ts", "setup"], { cwd: root, env, stdio: "inherit" });
   if (setup.status !== 0) throw new Error("database set-up failed");
@@ -33,7 +42,10 @@ try {
     const b = spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "inherit" });
     if (b.status !== 0) throw new Error("next build failed");
   }
-  spawnService("next start", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(APP_PORT)], { env, stdio: ["ignore", "ignore", "inherit"] });
+  spawnService("next start", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(APP_PORT)], {
+    env,
+    stdio: ["ignore", "ignore", "inherit"],
+  });
   await waitForPort(APP_PORT, "the app", 120_000);
   await fetch(`${appUrl}/api/health`);
 
@@ -43,19 +55,43 @@ try {
       kind: "series",
       children: Array.from({ length: 18 }, (_, g) => ({
         kind: "parallel",
-        children: Array.from({ length: 4 }, (_, i) => ({ kind: "cell", id: `g${g}c${i}`, capacitance: 3000 * (1 + 0.002 * ((g + i) % 5)), ratedVoltage: 2.7, esr: 0.00029 })),
+        children: Array.from({ length: 4 }, (_, i) => ({
+          kind: "cell",
+          id: `g${g}c${i}`,
+          capacitance: 3000 * (1 + 0.002 * ((g + i) % 5)),
+          ratedVoltage: 2.7,
+          esr: 0.00029,
+        })),
       })),
     },
   };
   const body = JSON.stringify(network);
   // warm-up: 3 s of the same load, so the figures are of a warm server
-  await autocannon({ url: `${appUrl}/api/v1/networks/evaluate`, method: "POST", headers: { "content-type": "application/json" }, body, connections: 50, duration: 3 });
+  await autocannon({
+    url: `${appUrl}/api/v1/networks/evaluate`,
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body,
+    connections: 50,
+    duration: 3,
+  });
   const base = await autocannon({ url: `${appUrl}/api/health`, connections: 50, duration: 5 });
-  console.log(`baseline GET /api/health (framework + one query): ${base.requests.average.toFixed(0)} req/s, median ${base.latency.p50} ms, p99 ${base.latency.p99} ms`);
+  console.log(
+    `baseline GET /api/health (framework + one query): ${base.requests.average.toFixed(0)} req/s, median ${base.latency.p50} ms, p99 ${base.latency.p99} ms`,
+  );
   log("POST /api/v1/networks/evaluate under autocannon: 50 connections, 10 s, loopback");
-  const r = await autocannon({ url: `${appUrl}/api/v1/networks/evaluate`, method: "POST", headers: { "content-type": "application/json" }, body, connections: 50, duration: 10 });
+  const r = await autocannon({
+    url: `${appUrl}/api/v1/networks/evaluate`,
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body,
+    connections: 50,
+    duration: 10,
+  });
   const errors = r.errors + r.timeouts + r.non2xx;
-  console.log(`evaluate endpoint: ${r.requests.average.toFixed(0)} req/s, latency median ${r.latency.p50} ms, p95 ${r.latency.p97_5 ?? r.latency.p99} ms (p97.5), p99 ${r.latency.p99} ms, errors ${errors} — target p99 < 50 ms with no errors: ${r.latency.p99 < 50 && errors === 0 ? "holds" : "MISSED"}`);
+  console.log(
+    `evaluate endpoint: ${r.requests.average.toFixed(0)} req/s, latency median ${r.latency.p50} ms, p95 ${r.latency.p97_5 ?? r.latency.p99} ms (p97.5), p99 ${r.latency.p99} ms, errors ${errors} — target p99 < 50 ms with no errors: ${r.latency.p99 < 50 && errors === 0 ? "holds" : "MISSED"}`,
+  );
 
   log("storefront: submitting the request form to options on screen, headless Chromium");
   const { runJourneyBench } = await import(path.join(root, "tests", "bench", "journey-bench.mjs"));

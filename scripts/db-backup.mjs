@@ -23,7 +23,9 @@ try {
   const partial = `${file}.partial`;
   // the dump holds password hashes and customers' data: owner-only from the first byte
   fs.closeSync(fs.openSync(partial, "w", 0o600));
-  const r = spawnSync(path.join(pgBin(), "pg_dump"), ["--format=custom", "--no-owner", "--no-privileges", `--file=${partial}`, `--dbname=${url}`], { stdio: "inherit" });
+  const r = spawnSync(path.join(pgBin(), "pg_dump"), ["--format=custom", "--no-owner", "--no-privileges", `--file=${partial}`, `--dbname=${url}`], {
+    stdio: "inherit",
+  });
   if (r.status !== 0) {
     fs.rmSync(partial, { force: true });
     log("pg_dump failed; no backup written");

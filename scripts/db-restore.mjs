@@ -30,7 +30,8 @@ function checkArguments() {
   if (!fs.existsSync(file)) fail(`no such backup: ${file}`);
   if (intoAt >= 0 && (!into || !/^[a-z_][a-z0-9_]{0,62}$/.test(into))) fail("--into needs a database name of lowercase letters, digits and underscores");
   if (into && force) fail("--into and --force do not go together: --into never replaces anything");
-  if (spawnSync(path.join(bin, "pg_restore"), ["--list", file], { stdio: "ignore" }).status !== 0) fail(`${file} is not a backup pg_restore can read (made by npm run db:backup?)`);
+  if (spawnSync(path.join(bin, "pg_restore"), ["--list", file], { stdio: "ignore" }).status !== 0)
+    fail(`${file} is not a backup pg_restore can read (made by npm run db:backup?)`);
 }
 
 async function query(databaseUrl, sql, params = []) {
@@ -87,7 +88,10 @@ try {
     }
     await query(withDatabase("postgres"), `ALTER DATABASE "${fresh}" RENAME TO "${name}"`);
     target = url;
-    const [{ n }] = await query(withDatabase(replaced), "SELECT count(*)::int AS n FROM information_schema.tables WHERE table_schema NOT IN ('pg_catalog', 'information_schema')");
+    const [{ n }] = await query(
+      withDatabase(replaced),
+      "SELECT count(*)::int AS n FROM information_schema.tables WHERE table_schema NOT IN ('pg_catalog', 'information_schema')",
+    );
     if (n > 0) log(`the data it replaced is kept as ${replaced}; drop it when you no longer need it: DROP DATABASE "${replaced}"`);
     else await query(withDatabase("postgres"), `DROP DATABASE "${replaced}"`);
   }

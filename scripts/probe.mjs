@@ -89,26 +89,52 @@ async function probeAuthPlugin(ids) {
   for (const slug of ["api", "a/../x"]) {
     const res = await send("POST", "/api/auth/organization/update", { headers: authed(cookies.manager), body: { organizationId: ids.k, data: { slug } } });
     record(cat, `manager renames slug to "${slug}"`, !is2xx(res.status), res.status);
-    if (is2xx(res.status)) await send("POST", "/api/auth/organization/update", { headers: authed(cookies.manager), body: { organizationId: ids.k, data: { slug: K } } });
+    if (is2xx(res.status))
+      await send("POST", "/api/auth/organization/update", { headers: authed(cookies.manager), body: { organizationId: ids.k, data: { slug: K } } });
   }
-  const promote = await send("POST", "/api/auth/organization/update-member-role", { headers: authed(cookies.manager), body: { organizationId: ids.k, memberId: ids.kCustomer2Member, role: "manager" } });
+  const promote = await send("POST", "/api/auth/organization/update-member-role", {
+    headers: authed(cookies.manager),
+    body: { organizationId: ids.k, memberId: ids.kCustomer2Member, role: "manager" },
+  });
   record(cat, "manager promotes a customer to manager", !is2xx(promote.status), promote.status);
-  const invite = await send("POST", "/api/auth/organization/invite-member", { headers: authed(cookies.manager), body: { organizationId: ids.k, email: `probe-${Date.now()}@probe.example`, role: "manager" } });
+  const invite = await send("POST", "/api/auth/organization/invite-member", {
+    headers: authed(cookies.manager),
+    body: { organizationId: ids.k, email: `probe-${Date.now()}@probe.example`, role: "manager" },
+  });
   record(cat, "manager invites a manager", !is2xx(invite.status), invite.status);
   if (is2xx(promote.status)) {
     // the promoted customer, now a co-manager, demotes the founder
     const coManager = await signIn(kp.customers[1].email);
-    const demote = await send("POST", "/api/auth/organization/update-member-role", { headers: authed(coManager), body: { organizationId: ids.k, memberId: ids.kManagerMember, role: "customer" } });
+    const demote = await send("POST", "/api/auth/organization/update-member-role", {
+      headers: authed(coManager),
+      body: { organizationId: ids.k, memberId: ids.kManagerMember, role: "customer" },
+    });
     record(cat, "co-manager demotes the founder", !is2xx(demote.status), demote.status);
-    if (is2xx(demote.status)) await send("POST", "/api/auth/organization/update-member-role", { headers: authed(coManager), body: { organizationId: ids.k, memberId: ids.kManagerMember, role: "manager" } });
-    await send("POST", "/api/auth/organization/update-member-role", { headers: authed(cookies.manager), body: { organizationId: ids.k, memberId: ids.kCustomer2Member, role: "customer" } });
+    if (is2xx(demote.status))
+      await send("POST", "/api/auth/organization/update-member-role", {
+        headers: authed(coManager),
+        body: { organizationId: ids.k, memberId: ids.kManagerMember, role: "manager" },
+      });
+    await send("POST", "/api/auth/organization/update-member-role", {
+      headers: authed(cookies.manager),
+      body: { organizationId: ids.k, memberId: ids.kCustomer2Member, role: "customer" },
+    });
   } else {
-    const demote = await send("POST", "/api/auth/organization/update-member-role", { headers: authed(cookies.manager), body: { organizationId: ids.k, memberId: ids.kManagerMember, role: "customer" } });
+    const demote = await send("POST", "/api/auth/organization/update-member-role", {
+      headers: authed(cookies.manager),
+      body: { organizationId: ids.k, memberId: ids.kManagerMember, role: "customer" },
+    });
     record(cat, "manager demotes the founder (themself)", !is2xx(demote.status), demote.status);
   }
-  const foreign = await send("POST", "/api/auth/organization/update-member-role", { headers: authed(cookies.otherManager), body: { organizationId: ids.k, memberId: ids.kCustomer2Member, role: "estimator" } });
+  const foreign = await send("POST", "/api/auth/organization/update-member-role", {
+    headers: authed(cookies.otherManager),
+    body: { organizationId: ids.k, memberId: ids.kCustomer2Member, role: "estimator" },
+  });
   record(cat, "other shop's manager changes a role", !is2xx(foreign.status), foreign.status);
-  const remove = await send("POST", "/api/auth/organization/remove-member", { headers: authed(cookies.estimator), body: { organizationId: ids.k, memberIdOrEmail: kp.manager.email } });
+  const remove = await send("POST", "/api/auth/organization/remove-member", {
+    headers: authed(cookies.estimator),
+    body: { organizationId: ids.k, memberIdOrEmail: kp.manager.email },
+  });
   record(cat, "estimator removes the manager", !is2xx(remove.status), remove.status);
   const leave = await send("POST", "/api/auth/organization/leave", { headers: authed(cookies.customer), body: { organizationId: ids.m } });
   record(cat, "customer leaves a shop they are not in", !is2xx(leave.status), leave.status);
@@ -121,7 +147,11 @@ async function probeRateLimits() {
   const spoofFrom = freshSource();
   let through = 0;
   for (let i = 0; i < 30; i += 1) {
-    const res = await send("POST", "/api/auth/sign-in/email", { headers: { origin: ORIGIN, "x-forwarded-for": `198.51.100.${i + 1}` }, body: { email: `nobody-${i}@probe.example`, password: "wrong-password" }, from: spoofFrom });
+    const res = await send("POST", "/api/auth/sign-in/email", {
+      headers: { origin: ORIGIN, "x-forwarded-for": `198.51.100.${i + 1}` },
+      body: { email: `nobody-${i}@probe.example`, password: "wrong-password" },
+      from: spoofFrom,
+    });
     if (res.status !== 429) through += 1;
   }
   // the limit for this address (AUTH_SIGN_IN_LIMIT, 3 by default) is what may pass
@@ -132,21 +162,38 @@ async function probeRateLimits() {
   let limited = 0;
   const n = 140;
   for (let i = 0; i < n; i += 1) {
-    const res = await send("POST", `/api/v1/shops/${K}/arrangements`, { headers: { "x-real-ip": `203.0.113.${i % 250}`, "x-forwarded-for": `203.0.113.${i % 250}` }, body: { maxVoltage: 48, minVoltage: 24, energy: 20000 }, from: apiFrom });
+    const res = await send("POST", `/api/v1/shops/${K}/arrangements`, {
+      headers: { "x-real-ip": `203.0.113.${i % 250}`, "x-forwarded-for": `203.0.113.${i % 250}` },
+      body: { maxVoltage: 48, minVoltage: 24, energy: 20000 },
+      from: apiFrom,
+    });
     if (res.status === 429) limited += 1;
   }
   record(cat, `${n} API calls with forged headers: ${limited} limited`, limited > 0, limited);
   notes.push(`public API with a new forged X-Forwarded-For / X-Real-IP each: ${limited} of ${n} answered 429`);
   // three wrong tries from one address must not lock out another address
   const a = freshSource();
-  for (let i = 0; i < 4; i += 1) await send("POST", "/api/auth/sign-in/email", { headers: { origin: ORIGIN }, body: { email: `nobody@probe.example`, password: "wrong-password" }, from: a });
-  const other = await send("POST", "/api/auth/sign-in/email", { headers: { origin: ORIGIN }, body: { email: demoPeople[K].estimator.email, password: DEMO_PASSWORD }, from: freshSource() });
+  for (let i = 0; i < 4; i += 1)
+    await send("POST", "/api/auth/sign-in/email", {
+      headers: { origin: ORIGIN },
+      body: { email: `nobody@probe.example`, password: "wrong-password" },
+      from: a,
+    });
+  const other = await send("POST", "/api/auth/sign-in/email", {
+    headers: { origin: ORIGIN },
+    body: { email: demoPeople[K].estimator.email, password: DEMO_PASSWORD },
+    from: freshSource(),
+  });
   record(cat, "another address signs in after one address's wrong tries", other.status === 200, other.status);
   notes.push(`after 4 wrong tries from one address, another address signs in: ${other.status}`);
   // one account, wrong passwords from ten addresses: the account's own limit must stop them
   let accountLocked = 0;
   for (let i = 0; i < 10; i += 1) {
-    const res = await send("POST", "/api/auth/sign-in/email", { headers: { origin: ORIGIN }, body: { email: victim, password: `wrong-${i}` }, from: freshSource() });
+    const res = await send("POST", "/api/auth/sign-in/email", {
+      headers: { origin: ORIGIN },
+      body: { email: victim, password: `wrong-${i}` },
+      from: freshSource(),
+    });
     if (res.status === 429) accountLocked += 1;
   }
   record(cat, `10 wrong passwords for one account from 10 addresses: ${accountLocked} refused`, accountLocked > 0, accountLocked);
@@ -177,7 +224,11 @@ async function probeNulBytes(cookies) {
     ["POST", `/api/v1/shops/${K}/arrangements`, { body: { maxVoltage: 48, energy: 20000, "\u0000": 1 } }],
     ["POST", "/api/v1/networks/evaluate", { body: { network: { kind: "cell", id: "c\u0000", capacitance: 1, ratedVoltage: 2.7 } } }],
     ["POST", "/api/auth/sign-in/email", { headers: { origin: ORIGIN }, body: { email: "a\u0000@probe.example", password: "x\u0000" } }],
-    ["POST", "/api/auth/sign-up/email", { headers: { origin: ORIGIN }, body: { name: "N\u0000", email: `n${Date.now()}\u0000@probe.example`, password: "long-enough-password" } }],
+    [
+      "POST",
+      "/api/auth/sign-up/email",
+      { headers: { origin: ORIGIN }, body: { name: "N\u0000", email: `n${Date.now()}\u0000@probe.example`, password: "long-enough-password" } },
+    ],
     ["GET", `/desk/${K}`, { headers: { cookie: "better-auth.session_token=%00abc" } }],
     ["GET", `/api/v1/shops/${K}/members`, { headers: { cookie: "better-auth.session_token=a%00.b" } }],
   ];
@@ -190,7 +241,11 @@ async function probeNulBytes(cookies) {
   const boundary = "probe-boundary";
   const pdf = "%PDF-1.4\n%%EOF\n";
   const body = `--${boundary}\r\ncontent-disposition: form-data; name="file"; filename="spec\u0000.pdf"\r\ncontent-type: application/pdf\r\n\r\n${pdf}\r\n--${boundary}--\r\n`;
-  const up = await send("POST", `/api/v1/shops/${K}/attachments`, { headers: { cookie: cookies.customer, origin: ORIGIN, "content-type": `multipart/form-data; boundary=${boundary}` }, body, from: freshSource() });
+  const up = await send("POST", `/api/v1/shops/${K}/attachments`, {
+    headers: { cookie: cookies.customer, origin: ORIGIN, "content-type": `multipart/form-data; boundary=${boundary}` },
+    body,
+    from: freshSource(),
+  });
   record(cat, "upload with a NUL in the file name", up.status < 500, up.status);
 }
 
@@ -199,7 +254,12 @@ async function probeHeaders(cookies) {
   for (const path of ["/", `/s/${K}`, "/sign-in"]) {
     const res = await send("GET", path, { from: freshSource() });
     const csp = String(res.headers["content-security-policy"] ?? "");
-    record(cat, `${path}: CSP with a script nonce`, /script-src[^;]*'nonce-[A-Za-z0-9+/=_-]{16,}'/.test(csp) && !/script-src[^;]*'unsafe-inline'/.test(csp), csp || "none");
+    record(
+      cat,
+      `${path}: CSP with a script nonce`,
+      /script-src[^;]*'nonce-[A-Za-z0-9+/=_-]{16,}'/.test(csp) && !/script-src[^;]*'unsafe-inline'/.test(csp),
+      csp || "none",
+    );
     record(cat, `${path}: frame-ancestors 'none'`, /frame-ancestors 'none'/.test(csp), csp || "none");
     record(cat, `${path}: X-Content-Type-Options`, res.headers["x-content-type-options"] === "nosniff", res.headers["x-content-type-options"]);
     record(cat, `${path}: Referrer-Policy`, Boolean(res.headers["referrer-policy"]), res.headers["referrer-policy"]);
@@ -208,7 +268,11 @@ async function probeHeaders(cookies) {
   const boundary = "probe-boundary";
   const body = `--${boundary}\r\ncontent-disposition: form-data; name="file"; filename="spec.pdf"\r\ncontent-type: application/pdf\r\n\r\n%PDF-1.4\n%%EOF\n\r\n--${boundary}--\r\n`;
   for (const origin of ["https://evil.example", "null", `${BASE.protocol}//127.0.0.1.evil.example:${BASE.port}`]) {
-    const res = await send("POST", `/api/v1/shops/${K}/attachments`, { headers: { cookie: cookies.customer, origin, "content-type": `multipart/form-data; boundary=${boundary}` }, body, from: freshSource() });
+    const res = await send("POST", `/api/v1/shops/${K}/attachments`, {
+      headers: { cookie: cookies.customer, origin, "content-type": `multipart/form-data; boundary=${boundary}` },
+      body,
+      from: freshSource(),
+    });
     record(cat, `upload with Origin ${origin}`, res.status === 403, res.status);
   }
 }
@@ -217,8 +281,16 @@ async function probeEnumeration() {
   const cat = "account enumeration";
   const known = demoPeople[K].customers[0].email;
   const unknown = `nobody-${Date.now()}@probe.example`;
-  const a = await send("POST", "/api/auth/sign-up/email", { headers: { origin: ORIGIN }, body: { name: "Probe", email: known, password: "long-enough-password" }, from: freshSource() });
-  const b = await send("POST", "/api/auth/sign-up/email", { headers: { origin: ORIGIN }, body: { name: "Probe", email: unknown, password: "long-enough-password" }, from: freshSource() });
+  const a = await send("POST", "/api/auth/sign-up/email", {
+    headers: { origin: ORIGIN },
+    body: { name: "Probe", email: known, password: "long-enough-password" },
+    from: freshSource(),
+  });
+  const b = await send("POST", "/api/auth/sign-up/email", {
+    headers: { origin: ORIGIN },
+    body: { name: "Probe", email: unknown, password: "long-enough-password" },
+    from: freshSource(),
+  });
   record(cat, `sign-up over HTTP: known ${a.status} vs unknown ${b.status}`, a.status === b.status && !is2xx(b.status), `${a.status}/${b.status}`);
   const c = await send("POST", "/api/auth/request-password-reset", { headers: { origin: ORIGIN }, body: { email: known }, from: freshSource() });
   record(cat, "password-reset endpoint open", !is2xx(c.status), c.status);
@@ -231,8 +303,18 @@ async function demoIds() {
   try {
     const shop = async (slug) => (await client.query("SELECT id FROM shops WHERE slug = $1", [slug])).rows[0]?.id;
     const member = async (slug, email) =>
-      (await client.query("SELECT m.id FROM members m JOIN shops s ON s.id = m.shop_id JOIN users u ON u.id = m.user_id WHERE s.slug = $1 AND u.email = $2", [slug, email])).rows[0]?.id;
-    return { k: await shop(K), m: await shop(M), kManagerMember: await member(K, demoPeople[K].manager.email), kCustomer2Member: await member(K, demoPeople[K].customers[1].email) };
+      (
+        await client.query("SELECT m.id FROM members m JOIN shops s ON s.id = m.shop_id JOIN users u ON u.id = m.user_id WHERE s.slug = $1 AND u.email = $2", [
+          slug,
+          email,
+        ])
+      ).rows[0]?.id;
+    return {
+      k: await shop(K),
+      m: await shop(M),
+      kManagerMember: await member(K, demoPeople[K].manager.email),
+      kCustomer2Member: await member(K, demoPeople[K].customers[1].email),
+    };
   } finally {
     await client.end();
   }

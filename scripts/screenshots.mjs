@@ -18,7 +18,18 @@ for (let i = 0; i < args.length; i++) {
 }
 const out = path.resolve(".data", "screenshots");
 fs.mkdirSync(out, { recursive: true });
-const browser = await chromium.launch({ executablePath: "/usr/bin/chromium", args: ["--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"] });
+const browser = await chromium.launch({
+  executablePath: "/usr/bin/chromium",
+  args: [
+    "--no-sandbox",
+    "--disable-gpu",
+    "--disable-dev-shm-usage",
+    "--disable-background-networking",
+    "--disable-component-update",
+    "--disable-sync",
+    "--no-first-run",
+  ],
+});
 const page = await browser.newPage({ viewport: { width, height: 900 } });
 if (as) {
   const [email, password] = as.split(":");

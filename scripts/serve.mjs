@@ -28,7 +28,7 @@ const handle = app.getRequestHandler();
 const server = http.createServer((req, res) => {
   const peer = req.socket.remoteAddress ?? "";
   const forwarded = req.headers["x-forwarded-for"];
-  const chain = (Array.isArray(forwarded) ? forwarded.join(", ") : forwarded ?? "").trim();
+  const chain = (Array.isArray(forwarded) ? forwarded.join(", ") : (forwarded ?? "")).trim();
   req.headers["x-forwarded-for"] = chain ? `${chain}, ${peer}` : peer;
   handle(req, res).catch((error) => {
     console.error(error);

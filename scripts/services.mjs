@@ -42,8 +42,7 @@ export function ensureDebianPackages(packages) {
 export function ensureNpmPackages() {
   const lock = path.join(root, "package-lock.json");
   const stamp = path.join(root, "node_modules", ".package-lock.json");
-  const fresh =
-    fs.existsSync(stamp) && fs.existsSync(lock) && fs.statSync(stamp).mtimeMs >= fs.statSync(lock).mtimeMs;
+  const fresh = fs.existsSync(stamp) && fs.existsSync(lock) && fs.statSync(stamp).mtimeMs >= fs.statSync(lock).mtimeMs;
   if (fresh) return;
   log("installing npm packages");
   run("npm", [fs.existsSync(lock) ? "ci" : "install", "--no-audit", "--no-fund"], { cwd: root });
@@ -172,11 +171,12 @@ export async function startMaildev({ smtpPort, webPort, name }) {
   const dir = path.join(root, ".data", name);
   fs.mkdirSync(dir, { recursive: true });
   const bin = path.join(root, "node_modules", ".bin", "maildev");
-  const child = spawnService("maildev", bin, [
-    "--ip", "127.0.0.1", "--web-ip", "127.0.0.1",
-    "--smtp", String(smtpPort), "--web", String(webPort),
-    "--mail-directory", dir, "--silent",
-  ], { stdio: ["ignore", "ignore", "inherit"] });
+  const child = spawnService(
+    "maildev",
+    bin,
+    ["--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "--smtp", String(smtpPort), "--web", String(webPort), "--mail-directory", dir, "--silent"],
+    { stdio: ["ignore", "ignore", "inherit"] },
+  );
   await waitForPort(smtpPort, "maildev SMTP");
   await waitForPort(webPort, "maildev web");
   return child;

@@ -4,7 +4,20 @@
 // Ctrl-C stops everything this command started.
 import { spawnSync } from "node:child_process";
 import path from "node:path";
-import { ensureAuthSecret, ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, portOpen, root, spawnService, startMaildev, startStripeStandin, stopAll, waitForPort } from "./services.mjs";
+import {
+  ensureAuthSecret,
+  ensureDebianPackages,
+  ensureNpmPackages,
+  ensurePostgres,
+  log,
+  portOpen,
+  root,
+  spawnService,
+  startMaildev,
+  startStripeStandin,
+  stopAll,
+  waitForPort,
+} from "./services.mjs";
 
 const dev = process.argv.includes("--dev");
 const PORT = Number(process.env.PORT ?? 3000);

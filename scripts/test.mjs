@@ -97,6 +97,7 @@ try {
 
   if (wants("typecheck")) check("typecheck", bin("tsc"), ["--noEmit", "-p", "."]);
   if (wants("lint")) check("lint", bin("eslint"), [".", "--max-warnings=0"]);
+  if (wants("lint")) check("format (prettier --check; npm run format fixes it)", bin("prettier"), ["--check", ".", "--log-level=warn"]);
 
   for (const project of ["unit", "integration"]) {
     if (!wants(project)) continue;

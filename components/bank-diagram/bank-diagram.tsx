@@ -73,7 +73,8 @@ export function describeBank(p: BankDiagramProps): string {
     parts.push(`${p.parallelCount} string${p.parallelCount === 1 ? "" : "s"} in parallel, each of ${p.seriesCount} ${p.cellLabel} cells in series`);
     if (p.balancing.resistance !== null) parts.push(`one ${ohms(p.balancing.resistance)} balancing resistor across each cell (${p.balancing.count})`);
   }
-  if (p.balancing.activeBoard) parts.push(`${p.balancing.activeBoard.count} active balancing board${p.balancing.activeBoard.count === 1 ? "" : "s"} (${p.balancing.activeBoard.sku})`);
+  if (p.balancing.activeBoard)
+    parts.push(`${p.balancing.activeBoard.count} active balancing board${p.balancing.activeBoard.count === 1 ? "" : "s"} (${p.balancing.activeBoard.sku})`);
   if (p.bleeder) parts.push(`a ${ohms(p.bleeder.resistance)} ${p.bleeder.switched ? "switched discharge resistor" : "bleeder"} across the terminals`);
   return `${parts.join("; ")}.`;
 }
@@ -136,7 +137,19 @@ export function BankDiagram(props: BankDiagramProps) {
       });
       if (perGroupResistor) nodes.push(<Resistor key={k()} x1={x1} x2={x2} y={yGroupRes} />);
       if (balancing.activeBoard) {
-        nodes.push(<rect key={k()} x={x1 + 6} y={(ys[0] ?? 0) - 18} width={x2 - x1 - 12} height={yBottomOfCells - (ys[0] ?? 0) + 30} fill="none" stroke="#0f766e" strokeDasharray="3 3" rx={4} />);
+        nodes.push(
+          <rect
+            key={k()}
+            x={x1 + 6}
+            y={(ys[0] ?? 0) - 18}
+            width={x2 - x1 - 12}
+            height={yBottomOfCells - (ys[0] ?? 0) + 30}
+            fill="none"
+            stroke="#0f766e"
+            strokeDasharray="3 3"
+            rx={4}
+          />,
+        );
       }
     });
   } else {
@@ -147,7 +160,15 @@ export function BankDiagram(props: BankDiagramProps) {
       const x1 = xs[ci] ?? 0;
       const x2 = xs[ci + 1] ?? 0;
       nodes.push(
-        <text key={k()} x={(x1 + x2) / 2} y={TOP - 14} fontSize={11} textAnchor="middle" fill={c.kind === "gap" ? "#4b5563" : "#374151"} fontWeight={c.kind === "gap" ? 400 : 600}>
+        <text
+          key={k()}
+          x={(x1 + x2) / 2}
+          y={TOP - 14}
+          fontSize={11}
+          textAnchor="middle"
+          fill={c.kind === "gap" ? "#4b5563" : "#374151"}
+          fontWeight={c.kind === "gap" ? 400 : 600}
+        >
           {c.kind === "gap" ? `… ${c.hidden} more cells …` : `cell ${c.index}`}
         </text>,
       );
@@ -216,7 +237,15 @@ export function BankDiagram(props: BankDiagramProps) {
   return (
     <figure className={props.className}>
       <div className="relative overflow-x-auto">
-        <svg role="img" aria-label={description} viewBox={`0 0 ${width} ${height}`} width={width} height={height} className="max-w-none" data-testid="bank-diagram">
+        <svg
+          role="img"
+          aria-label={description}
+          viewBox={`0 0 ${width} ${height}`}
+          width={width}
+          height={height}
+          className="max-w-none"
+          data-testid="bank-diagram"
+        >
           <title>{description}</title>
           {nodes}
         </svg>

@@ -8,9 +8,19 @@ import { CHART_COLORS as C } from "./colors";
 const MAX_BARS = 24;
 
 /** Each series position's worst-case voltage at the end of charging, against the cell's rating and surge. */
-export function CellVoltageChart({ option, maxVoltage }: { option: CurveOption & { cell: { ratedVoltage: number; surgeVoltage: number } }; maxVoltage: number }) {
+export function CellVoltageChart({
+  option,
+  maxVoltage,
+}: {
+  option: CurveOption & { cell: { ratedVoltage: number; surgeVoltage: number } };
+  maxVoltage: number;
+}) {
   const v = chargingVoltages(option, maxVoltage);
-  const bars = Array.from({ length: Math.min(option.seriesCount, MAX_BARS) }, (_, i) => ({ position: String(i + 1), voltage: i === 0 ? v.weakest : (v.others ?? v.weakest), worst: i === 0 }));
+  const bars = Array.from({ length: Math.min(option.seriesCount, MAX_BARS) }, (_, i) => ({
+    position: String(i + 1),
+    voltage: i === 0 ? v.weakest : (v.others ?? v.weakest),
+    worst: i === 0,
+  }));
   const { ratedVoltage, surgeVoltage } = option.cell;
   const top = Math.max(surgeVoltage, option.worstCellVoltage) * 1.1;
   const balanced = v.balanced;

@@ -39,16 +39,44 @@ export function DischargeChart({ option, requirement, safeVoltage }: { option: C
         <ResponsiveContainer width="100%" height="100%">
           <LineChart data={data} margin={{ top: 8, right: 56, bottom: 16, left: 0 }}>
             <CartesianGrid stroke={C.grid} />
-            <XAxis dataKey="t" type="number" domain={[0, "dataMax"]} tick={{ fontSize: 11 }} tickFormatter={(t: number) => String(Number(t.toPrecision(3)))} label={{ value: `time (${unit})`, position: "insideBottom", offset: -8, fontSize: 11 }} />
+            <XAxis
+              dataKey="t"
+              type="number"
+              domain={[0, "dataMax"]}
+              tick={{ fontSize: 11 }}
+              tickFormatter={(t: number) => String(Number(t.toPrecision(3)))}
+              label={{ value: `time (${unit})`, position: "insideBottom", offset: -8, fontSize: 11 }}
+            />
             <YAxis domain={[0, "auto"]} tick={{ fontSize: 11 }} width={44} unit=" V" />
             <Tooltip formatter={(v) => formatQuantity(Number(v), "V")} labelFormatter={(t) => `${Number(Number(t).toPrecision(3))} ${unit}`} />
             {vMin > 0 ? (
-              <ReferenceLine y={vMin} stroke={C.danger} strokeDasharray="5 3" label={showSafe && vMin === safeVoltage ? { value: `V min = safe ${formatQuantity(vMin, "V")}`, position: "insideTopRight", fontSize: 10, fill: C.danger } : { value: `V min ${formatQuantity(vMin, "V")}`, position: "right", fontSize: 10, fill: C.danger }} />
+              <ReferenceLine
+                y={vMin}
+                stroke={C.danger}
+                strokeDasharray="5 3"
+                label={
+                  showSafe && vMin === safeVoltage
+                    ? { value: `V min = safe ${formatQuantity(vMin, "V")}`, position: "insideTopRight", fontSize: 10, fill: C.danger }
+                    : { value: `V min ${formatQuantity(vMin, "V")}`, position: "right", fontSize: 10, fill: C.danger }
+                }
+              />
             ) : null}
             {showSafe && vMin !== safeVoltage ? (
-              <ReferenceLine y={safeVoltage} stroke={C.hazard} strokeDasharray="2 2" label={{ value: `safe ${formatQuantity(safeVoltage, "V")}`, position: "right", fontSize: 10, fill: C.hazard }} />
+              <ReferenceLine
+                y={safeVoltage}
+                stroke={C.hazard}
+                strokeDasharray="2 2"
+                label={{ value: `safe ${formatQuantity(safeVoltage, "V")}`, position: "right", fontSize: 10, fill: C.hazard }}
+              />
             ) : null}
-            {curve.requiredSeconds !== null ? <ReferenceLine x={curve.requiredSeconds / div} stroke={C.ink} strokeDasharray="4 4" label={{ value: "required", position: "top", fontSize: 10 }} /> : null}
+            {curve.requiredSeconds !== null ? (
+              <ReferenceLine
+                x={curve.requiredSeconds / div}
+                stroke={C.ink}
+                strokeDasharray="4 4"
+                label={{ value: "required", position: "top", fontSize: 10 }}
+              />
+            ) : null}
             <Line type="monotone" dataKey="v" stroke={C.copper} dot={false} strokeWidth={2} isAnimationActive={false} />
           </LineChart>
         </ResponsiveContainer>

@@ -23,7 +23,17 @@ interface Datum {
 }
 
 /** Price per bank against mass for every priced option; the Pareto set marked, the focused one ringed. */
-export function PriceMassChart({ points, focusedId, currency, onSelect }: { points: PriceMassPoint[]; focusedId: string | null; currency: string; onSelect?: (id: string) => void }) {
+export function PriceMassChart({
+  points,
+  focusedId,
+  currency,
+  onSelect,
+}: {
+  points: PriceMassPoint[];
+  focusedId: string | null;
+  currency: string;
+  onSelect?: (id: string) => void;
+}) {
   const toDatum = (p: PriceMassPoint): Datum => ({ id: p.id, label: p.label, mass: p.massKg, priceAxis: Number(p.price), price: p.price });
   const pareto = points.filter((p) => p.pareto && p.id !== focusedId).map(toDatum);
   const others = points.filter((p) => !p.pareto && p.id !== focusedId).map(toDatum);
@@ -39,8 +49,24 @@ export function PriceMassChart({ points, focusedId, currency, onSelect }: { poin
         <ResponsiveContainer width="100%" height="100%">
           <ScatterChart margin={{ top: 8, right: 16, bottom: 16, left: 8 }}>
             <CartesianGrid stroke={C.grid} />
-            <XAxis dataKey="mass" type="number" name="mass" domain={["auto", "auto"]} tick={{ fontSize: 11 }} tickFormatter={(m: number) => formatQuantity(m, "kg", { digits: 2 })} label={{ value: "mass", position: "insideBottom", offset: -8, fontSize: 11 }} />
-            <YAxis dataKey="priceAxis" type="number" name="price" domain={["auto", "auto"]} tick={{ fontSize: 11 }} width={72} tickFormatter={(v: number) => formatMoney(String(Math.round(v)), currency).replace(/[.,]0+$/, "")} />
+            <XAxis
+              dataKey="mass"
+              type="number"
+              name="mass"
+              domain={["auto", "auto"]}
+              tick={{ fontSize: 11 }}
+              tickFormatter={(m: number) => formatQuantity(m, "kg", { digits: 2 })}
+              label={{ value: "mass", position: "insideBottom", offset: -8, fontSize: 11 }}
+            />
+            <YAxis
+              dataKey="priceAxis"
+              type="number"
+              name="price"
+              domain={["auto", "auto"]}
+              tick={{ fontSize: 11 }}
+              width={72}
+              tickFormatter={(v: number) => formatMoney(String(Math.round(v)), currency).replace(/[.,]0+$/, "")}
+            />
             <ZAxis range={[60, 60]} />
             <Tooltip
               cursor={{ strokeDasharray: "3 3" }}
@@ -50,13 +76,22 @@ export function PriceMassChart({ points, focusedId, currency, onSelect }: { poin
                 return (
                   <div className="rounded-md bg-white px-3 py-2 text-xs shadow ring-1 ring-ink-100">
                     <p className="font-medium">{d.label}</p>
-                    <p>{formatQuantity(d.mass, "kg")} · {formatMoney(d.price, currency)} per bank</p>
+                    <p>
+                      {formatQuantity(d.mass, "kg")} · {formatMoney(d.price, currency)} per bank
+                    </p>
                   </div>
                 );
               }}
             />
             <Legend verticalAlign="top" height={24} wrapperStyle={{ fontSize: 11 }} />
-            <Scatter name="Pareto set (no other option is cheaper, lighter and smaller at once)" data={pareto} fill={C.charge} shape="diamond" onClick={click} isAnimationActive={false} />
+            <Scatter
+              name="Pareto set (no other option is cheaper, lighter and smaller at once)"
+              data={pareto}
+              fill={C.charge}
+              shape="diamond"
+              onClick={click}
+              isAnimationActive={false}
+            />
             <Scatter name="other options" data={others} fill={C.inkLight} onClick={click} isAnimationActive={false} />
             <Scatter name="in focus" data={focused} fill={C.copper} stroke={C.ink} strokeWidth={2} shape="star" isAnimationActive={false} />
           </ScatterChart>

@@ -11,7 +11,19 @@ import { QUOTE_STATUS_LABELS, QUOTE_STATUSES } from "@/lib/vocabulary";
  * The quote list, as the desk shows every quote of the shop (with its customer) and as the
  * storefront shows a customer their own (with each PDF). Rows link to the quote on the same side.
  */
-export function QuoteList({ shop, side, q, page, state }: { shop: string; side: "desk" | "storefront"; q: QuoteListQuery; page: Page<QuoteListRow>; state: ListState }) {
+export function QuoteList({
+  shop,
+  side,
+  q,
+  page,
+  state,
+}: {
+  shop: string;
+  side: "desk" | "storefront";
+  q: QuoteListQuery;
+  page: Page<QuoteListRow>;
+  state: ListState;
+}) {
   const desk = side === "desk";
   const base = desk ? `/desk/${shop}/quotes` : `/s/${shop}/quotes`;
   return (
@@ -19,12 +31,19 @@ export function QuoteList({ shop, side, q, page, state }: { shop: string; side: 
       state={state}
       caption={desk ? "Quotes" : "My quotes"}
       empty={{
-        none: desk ? "No quotes yet: they appear here when a customer chooses an arrangement." : "No quotes yet: describe a bank on the storefront and choose an arrangement to get one.",
+        none: desk
+          ? "No quotes yet: they appear here when a customer chooses an arrangement."
+          : "No quotes yet: describe a bank on the storefront and choose an arrangement to get one.",
         noMatch: "No quotes match.",
       }}
       filters={[
         { name: "q", label: desk ? "Number or customer" : "Quote number", value: q.q },
-        { name: "status", label: "Status", value: q.status, options: [{ value: "all", label: "All" }, ...QUOTE_STATUSES.map((s) => ({ value: s, label: QUOTE_STATUS_LABELS[s] }))] },
+        {
+          name: "status",
+          label: "Status",
+          value: q.status,
+          options: [{ value: "all", label: "All" }, ...QUOTE_STATUSES.map((s) => ({ value: s, label: QUOTE_STATUS_LABELS[s] }))],
+        },
       ]}
       columns={[
         { label: "Quote", sortKey: "number" },

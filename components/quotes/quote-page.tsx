@@ -9,7 +9,17 @@ import { QuoteView } from "./quote-view";
  * A quote page's body, for the desk and the storefront alike: the breadcrumb back to the list the
  * reader came from, then the frozen revision. A quote the reader may not see is "not found".
  */
-export async function QuotePageBody({ shop, number, back, maySee }: { shop: { id: string; slug: string }; number: string; back: { href: string; label: string }; maySee: (ownerUserId: string) => boolean }) {
+export async function QuotePageBody({
+  shop,
+  number,
+  back,
+  maySee,
+}: {
+  shop: { id: string; slug: string };
+  number: string;
+  back: { href: string; label: string };
+  maySee: (ownerUserId: string) => boolean;
+}) {
   const quote = isQuoteNumber(number) ? await getQuoteByNumber(shop.id, number) : null;
   const rev = quote && maySee(quote.customerUserId) ? await getRevision(shop.id, quote.revisionId) : null;
   if (!rev) notFound();

@@ -79,11 +79,21 @@ export function QuoteView({ doc, pdfHref }: { doc: QuoteDocument; pdfHref: strin
         <table className="mt-2 w-full text-sm">
           <thead className="bg-ink-50 text-ink-700">
             <tr>
-              <th scope="col" className="px-4 py-2 text-left font-medium">Item</th>
-              <th scope="col" className="px-4 py-2 text-right font-medium">Quantity</th>
-              <th scope="col" className="px-4 py-2 text-left font-medium">Unit</th>
-              <th scope="col" className="px-4 py-2 text-right font-medium">Unit price</th>
-              <th scope="col" className="px-4 py-2 text-right font-medium">Amount</th>
+              <th scope="col" className="px-4 py-2 text-left font-medium">
+                Item
+              </th>
+              <th scope="col" className="px-4 py-2 text-right font-medium">
+                Quantity
+              </th>
+              <th scope="col" className="px-4 py-2 text-left font-medium">
+                Unit
+              </th>
+              <th scope="col" className="px-4 py-2 text-right font-medium">
+                Unit price
+              </th>
+              <th scope="col" className="px-4 py-2 text-right font-medium">
+                Amount
+              </th>
             </tr>
           </thead>
           <tbody>

@@ -31,9 +31,7 @@ export function FieldShell({ id, label, hint, error, children }: FieldShellProps
 }
 
 const inputClass = (error?: string) =>
-  `block w-full rounded-md border bg-white px-3 py-2 text-sm text-ink-900 shadow-sm placeholder:text-ink-300 ${
-    error ? "border-danger-500" : "border-ink-200"
-  }`;
+  `block w-full rounded-md border bg-white px-3 py-2 text-sm text-ink-900 shadow-sm placeholder:text-ink-300 ${error ? "border-danger-500" : "border-ink-200"}`;
 
 type InputProps = InputHTMLAttributes<HTMLInputElement> & { id: string; label: string; hint?: string; error?: string };
 
@@ -67,7 +65,10 @@ export const SelectField = forwardRef<HTMLSelectElement, SelectProps>(function S
 export function FormMessage({ tone = "error", children }: { tone?: "error" | "info"; children: React.ReactNode }) {
   if (!children) return null;
   return (
-    <p role={tone === "error" ? "alert" : "status"} className={`rounded-md px-3 py-2 text-sm ${tone === "error" ? "bg-danger-100 text-danger-700" : "bg-charge-100 text-charge-700"}`}>
+    <p
+      role={tone === "error" ? "alert" : "status"}
+      className={`rounded-md px-3 py-2 text-sm ${tone === "error" ? "bg-danger-100 text-danger-700" : "bg-charge-100 text-charge-700"}`}
+    >
       {children}
     </p>
   );

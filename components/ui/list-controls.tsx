@@ -74,7 +74,11 @@ function SortHeader({ state, column, sortKey }: { state: ListState; column: List
   const nextDir: SortDir = active ? (state.dir === "asc" ? "desc" : "asc") : first;
   const { page: _page, dir: _dir, ...rest } = state.params;
   return (
-    <th scope="col" aria-sort={active ? (state.dir === "asc" ? "ascending" : "descending") : "none"} className={`px-3 py-2 font-medium ${column.align === "right" ? "text-right" : "text-left"}`}>
+    <th
+      scope="col"
+      aria-sort={active ? (state.dir === "asc" ? "ascending" : "descending") : "none"}
+      className={`px-3 py-2 font-medium ${column.align === "right" ? "text-right" : "text-left"}`}
+    >
       <Link href={hrefWith(state.base, rest, { sort: sortKey, dir: nextDir })} className="inline-flex items-center gap-1 whitespace-nowrap hover:underline">
         {column.label}
         <span aria-hidden className="text-ink-400">
@@ -86,7 +90,19 @@ function SortHeader({ state, column, sortKey }: { state: ListState; column: List
 }
 
 /** The table: sortable headers, the page's rows, or a line saying why there are none. */
-function ListTable({ state, columns, caption, empty, children }: { state: ListState; columns: ListColumn[]; caption: string; empty: { none: string; noMatch: string }; children: React.ReactNode }) {
+function ListTable({
+  state,
+  columns,
+  caption,
+  empty,
+  children,
+}: {
+  state: ListState;
+  columns: ListColumn[];
+  caption: string;
+  empty: { none: string; noMatch: string };
+  children: React.ReactNode;
+}) {
   return (
     <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
       <table className="w-full text-sm">

@@ -18,7 +18,12 @@ export async function createAttachment(shopId: string, a: NewAttachment) {
   const [row] = await db
     .insert(requestAttachments)
     .values({ shopId, ...a })
-    .returning({ id: requestAttachments.id, fileName: requestAttachments.fileName, sizeBytes: requestAttachments.sizeBytes, contentType: requestAttachments.contentType });
+    .returning({
+      id: requestAttachments.id,
+      fileName: requestAttachments.fileName,
+      sizeBytes: requestAttachments.sizeBytes,
+      contentType: requestAttachments.contentType,
+    });
   if (!row) throw new Error("attachment insert returned no row");
   return row;
 }
@@ -35,7 +40,12 @@ export async function getAttachment(shopId: string, attachmentId: string) {
 
 export async function listRequestAttachments(shopId: string, requestId: string) {
   return db
-    .select({ id: requestAttachments.id, fileName: requestAttachments.fileName, sizeBytes: requestAttachments.sizeBytes, contentType: requestAttachments.contentType })
+    .select({
+      id: requestAttachments.id,
+      fileName: requestAttachments.fileName,
+      sizeBytes: requestAttachments.sizeBytes,
+      contentType: requestAttachments.contentType,
+    })
     .from(requestAttachments)
     .where(and(eq(requestAttachments.shopId, shopId), eq(requestAttachments.requestId, requestId)))
     .orderBy(asc(requestAttachments.createdAt));

@@ -105,11 +105,7 @@ export async function getQuoteReadyFacts(shopId: string, quoteRevisionId: string
 
 /** How many of the shop's messages are in each state. */
 export async function countOutboxByStatus(shopId: string): Promise<Record<"waiting" | "sent" | "failed", number>> {
-  const rows = await db
-    .select({ status: emailOutbox.status, n: count() })
-    .from(emailOutbox)
-    .where(eq(emailOutbox.shopId, shopId))
-    .groupBy(emailOutbox.status);
+  const rows = await db.select({ status: emailOutbox.status, n: count() }).from(emailOutbox).where(eq(emailOutbox.shopId, shopId)).groupBy(emailOutbox.status);
   const counts = { waiting: 0, sent: 0, failed: 0 };
   for (const r of rows) counts[r.status] = r.n;
   return counts;

@@ -88,7 +88,10 @@ export async function getQuoteByNumber(shopId: string, number: string) {
       createdAt: quotes.createdAt,
     })
     .from(quotes)
-    .innerJoin(quoteRevisions, and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision)))
+    .innerJoin(
+      quoteRevisions,
+      and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision)),
+    )
     .where(and(eq(quotes.shopId, shopId), eq(quotes.number, number)))
     .limit(1);
   return row ?? null;

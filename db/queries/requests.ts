@@ -60,7 +60,10 @@ export async function listRequests(shopId: string, q: RequestListQuery): Promise
         .limit(limit)
         .offset(offset),
   );
-  return { ...page, rows: page.rows.map(({ requirement, ...r }) => ({ ...r, requirement, maxVoltage: requirement.maxVoltage, quantity: requirement.quantity ?? 1 })) };
+  return {
+    ...page,
+    rows: page.rows.map(({ requirement, ...r }) => ({ ...r, requirement, maxVoltage: requirement.maxVoltage, quantity: requirement.quantity ?? 1 })),
+  };
 }
 
 /** Requests waiting for an estimator, counted for the desk. */

@@ -94,10 +94,7 @@ export const members = pgTable(
     role: memberRoleEnum().notNull().default("customer"),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [
-    uniqueIndex("members_shop_user_uq").on(t.shopId, t.userId),
-    index("members_shop_role_idx").on(t.shopId, t.role),
-  ],
+  (t) => [uniqueIndex("members_shop_user_uq").on(t.shopId, t.userId), index("members_shop_role_idx").on(t.shopId, t.role)],
 );
 
 export const invitations = pgTable(

@@ -1,29 +1,11 @@
 import { sql } from "drizzle-orm";
-import {
-  boolean,
-  doublePrecision,
-  index,
-  integer,
-  jsonb,
-  numeric,
-  pgEnum,
-  pgTable,
-  text,
-  timestamp,
-  uniqueIndex,
-  uuid,
-} from "drizzle-orm/pg-core";
+import { boolean, doublePrecision, index, integer, jsonb, numeric, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { TECHNOLOGIES } from "../../lib/bank/types";
 import { shops } from "./auth";
 
 export const technologyEnum = pgEnum("technology", TECHNOLOGIES);
 export const cellShapeEnum = pgEnum("cell_shape", ["cylinder", "box"]);
-export const componentKindEnum = pgEnum("component_kind", [
-  "balancing-board",
-  "interconnect",
-  "terminal",
-  "enclosure",
-]);
+export const componentKindEnum = pgEnum("component_kind", ["balancing-board", "interconnect", "terminal", "enclosure"]);
 
 /** Cells a shop can build banks from. Physics in SI units; money as numeric, read as strings. */
 export const catalogCells = pgTable(
@@ -63,10 +45,7 @@ export const catalogCells = pgTable(
       .defaultNow()
       .$onUpdate(() => sql`now()`),
   },
-  (t) => [
-    uniqueIndex("catalog_cells_shop_sku_uq").on(t.shopId, t.sku),
-    index("catalog_cells_shop_active_idx").on(t.shopId, t.isActive, t.technology),
-  ],
+  (t) => [uniqueIndex("catalog_cells_shop_sku_uq").on(t.shopId, t.sku), index("catalog_cells_shop_active_idx").on(t.shopId, t.isActive, t.technology)],
 );
 
 /** Parts other than cells: active balancing boards, interconnects, terminals, enclosures. */
@@ -88,10 +67,7 @@ export const catalogComponents = pgTable(
     isActive: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [
-    uniqueIndex("catalog_components_shop_sku_uq").on(t.shopId, t.sku),
-    index("catalog_components_shop_kind_idx").on(t.shopId, t.kind),
-  ],
+  (t) => [uniqueIndex("catalog_components_shop_sku_uq").on(t.shopId, t.sku), index("catalog_components_shop_kind_idx").on(t.shopId, t.kind)],
 );
 
 export type CatalogCellRow = typeof catalogCells.$inferSelect;

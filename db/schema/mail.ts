@@ -13,7 +13,9 @@ export const emailOutbox = pgTable(
   "email_outbox",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text().notNull().references(() => shops.id, { onDelete: "cascade" }),
+    shopId: text()
+      .notNull()
+      .references(() => shops.id, { onDelete: "cascade" }),
     kind: text().notNull(),
     dedupeKey: text().notNull(),
     toEmail: text().notNull(),

@@ -15,8 +15,12 @@ export const bankRequests = pgTable(
   "bank_requests",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text().notNull().references(() => shops.id, { onDelete: "cascade" }),
-    customerUserId: text().notNull().references(() => users.id, { onDelete: "restrict" }),
+    shopId: text()
+      .notNull()
+      .references(() => shops.id, { onDelete: "cascade" }),
+    customerUserId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
     status: requestStatusEnum().notNull(),
     requirement: jsonb().$type<Requirement>().notNull(),
     notes: text().notNull().default(""),
@@ -27,7 +31,10 @@ export const bankRequests = pgTable(
     /** the client's token for one submit: a double submit finds the same request */
     idempotencyKey: text(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow().$onUpdate(() => sql`now()`),
+    updatedAt: timestamp({ withTimezone: true })
+      .notNull()
+      .defaultNow()
+      .$onUpdate(() => sql`now()`),
   },
   (t) => [
     index("bank_requests_shop_status_idx").on(t.shopId, t.status, t.createdAt),
@@ -41,8 +48,12 @@ export const requestAttachments = pgTable(
   "request_attachments",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text().notNull().references(() => shops.id, { onDelete: "cascade" }),
-    uploadedByUserId: text().notNull().references(() => users.id, { onDelete: "restrict" }),
+    shopId: text()
+      .notNull()
+      .references(() => shops.id, { onDelete: "cascade" }),
+    uploadedByUserId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
     requestId: uuid().references(() => bankRequests.id, { onDelete: "set null" }),
     fileName: text().notNull(),
     contentType: text().notNull(),
@@ -51,7 +62,10 @@ export const requestAttachments = pgTable(
     storageKey: text().notNull(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("request_attachments_shop_request_idx").on(t.shopId, t.requestId), index("request_attachments_shop_uploader_idx").on(t.shopId, t.uploadedByUserId)],
+  (t) => [
+    index("request_attachments_shop_request_idx").on(t.shopId, t.requestId),
+    index("request_attachments_shop_uploader_idx").on(t.shopId, t.uploadedByUserId),
+  ],
 );
 
 /** A quote, numbered per shop (Q-2026-0001); its figures live in immutable revisions. */
@@ -59,16 +73,25 @@ export const quotes = pgTable(
   "quotes",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text().notNull().references(() => shops.id, { onDelete: "cascade" }),
-    requestId: uuid().notNull().references(() => bankRequests.id, { onDelete: "restrict" }),
-    customerUserId: text().notNull().references(() => users.id, { onDelete: "restrict" }),
+    shopId: text()
+      .notNull()
+      .references(() => shops.id, { onDelete: "cascade" }),
+    requestId: uuid()
+      .notNull()
+      .references(() => bankRequests.id, { onDelete: "restrict" }),
+    customerUserId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
     number: text().notNull(),
     status: quoteStatusEnum().notNull().default("issued"),
     currentRevision: integer().notNull().default(1),
     /** the client's token for one choice: a double submit finds the same quote */
     idempotencyKey: text().notNull(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow().$onUpdate(() => sql`now()`),
+    updatedAt: timestamp({ withTimezone: true })
+      .notNull()
+      .defaultNow()
+      .$onUpdate(() => sql`now()`),
   },
   (t) => [
     uniqueIndex("quotes_shop_number_uq").on(t.shopId, t.number),
@@ -83,8 +106,12 @@ export const quoteRevisions = pgTable(
   "quote_revisions",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text().notNull().references(() => shops.id, { onDelete: "cascade" }),
-    quoteId: uuid().notNull().references(() => quotes.id, { onDelete: "cascade" }),
+    shopId: text()
+      .notNull()
+      .references(() => shops.id, { onDelete: "cascade" }),
+    quoteId: uuid()
+      .notNull()
+      .references(() => quotes.id, { onDelete: "cascade" }),
     revision: integer().notNull(),
     requirement: jsonb().$type<Requirement>().notNull(),
     /** the arrangement option as the search priced it (lib/quoting/types.ts PricedOption) */
@@ -109,8 +136,12 @@ export const quoteLines = pgTable(
   "quote_lines",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text().notNull().references(() => shops.id, { onDelete: "cascade" }),
-    revisionId: uuid().notNull().references(() => quoteRevisions.id, { onDelete: "cascade" }),
+    shopId: text()
+      .notNull()
+      .references(() => shops.id, { onDelete: "cascade" }),
+    revisionId: uuid()
+      .notNull()
+      .references(() => quoteRevisions.id, { onDelete: "cascade" }),
     position: integer().notNull(),
     code: text().notNull(),
     kind: priceLineKindEnum().notNull(),
@@ -127,7 +158,9 @@ export const quoteLines = pgTable(
 export const shopCounters = pgTable(
   "shop_counters",
   {
-    shopId: text().notNull().references(() => shops.id, { onDelete: "cascade" }),
+    shopId: text()
+      .notNull()
+      .references(() => shops.id, { onDelete: "cascade" }),
     kind: text().notNull(),
     year: integer().notNull(),
     value: integer().notNull().default(0),

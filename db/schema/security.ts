@@ -17,7 +17,7 @@ export const rateLimits = pgTable(
 
 /**
  * Failed sign-ins per account, from any address: after a few, the account waits before the next
- * try, and the wait doubles with each further failure (lib/auth/sign-in-guard.ts). Keyed by a
+ * try, and the wait doubles with each further failure (db/queries/sign-in-failures.ts). Keyed by a
  * SHA-256 of the normalized e-mail, so addresses typed at the sign-in form are not stored.
  */
 export const signInFailures = pgTable(

@@ -64,13 +64,11 @@ ${body}
 
 function itemsTable(s: SessionRecord, unitAmount: (priceId: string) => number): string {
   const rows = s.lineItems
-    .map(
-      (li) => {
-        const unit = escapeHtml(formatMinor(unitAmount(li.priceId), li.currency));
-        // On narrow screens the unit-price column gives way to a line under the item's name.
-        return `<tr><td>${escapeHtml(li.description)}<span class="each">${li.quantity} × ${unit}</span></td><td class="num">${li.quantity}</td><td class="num unit">${unit}</td><td class="num">${escapeHtml(formatMinor(li.amount, li.currency))}</td></tr>`;
-      },
-    )
+    .map((li) => {
+      const unit = escapeHtml(formatMinor(unitAmount(li.priceId), li.currency));
+      // On narrow screens the unit-price column gives way to a line under the item's name.
+      return `<tr><td>${escapeHtml(li.description)}<span class="each">${li.quantity} × ${unit}</span></td><td class="num">${li.quantity}</td><td class="num unit">${unit}</td><td class="num">${escapeHtml(formatMinor(li.amount, li.currency))}</td></tr>`;
+    })
     .join("\n");
   return `<table>
 <caption>What you are paying for</caption>
@@ -93,9 +91,7 @@ export function checkoutPage(s: SessionRecord, unitAmount: (priceId: string) => 
   const total = formatMinor(s.amountTotal, s.currency);
   const closes = new Date(s.expiresAt * 1000).toISOString().replace("T", " ").slice(0, 16);
   const email = opts.email ?? s.customerEmail ?? "";
-  const error = opts.error
-    ? `<div class="error" role="alert" id="payment-error"><strong>Payment not taken.</strong> ${escapeHtml(opts.error)}</div>`
-    : "";
+  const error = opts.error ? `<div class="error" role="alert" id="payment-error"><strong>Payment not taken.</strong> ${escapeHtml(opts.error)}</div>` : "";
   const cancel = s.cancelUrl ? `<a href="${escapeHtml(s.cancelUrl)}">Cancel and go back</a>` : "";
   return layout(
     `Pay ${total}`,

@@ -28,7 +28,14 @@ const EXPANDABLE: Record<Kind, Record<string, Field>> = {
     setup_intent: { to: null },
     subscription: { to: null },
   },
-  payment_intent: { latest_charge: { to: "charge" }, customer: { to: null }, invoice: { to: null }, review: { to: null }, application: { to: null }, on_behalf_of: { to: null } },
+  payment_intent: {
+    latest_charge: { to: "charge" },
+    customer: { to: null },
+    invoice: { to: null },
+    review: { to: null },
+    application: { to: null },
+    on_behalf_of: { to: null },
+  },
   charge: {
     payment_intent: { to: "payment_intent" },
     refunds: { to: "refund", list: true },

@@ -74,7 +74,8 @@ export function decodeForm(text: string): FormTree {
     for (let i = 0; i < parts.length; i++) {
       let part = parts[i] as string;
       const last = i === parts.length - 1;
-      if (part === "") part = String(Object.keys(node).length); // `a[]=x` appends
+      if (part === "")
+        part = String(Object.keys(node).length); // `a[]=x` appends
       else if (i > 0 && /^\d+$/.test(part) && part.length > 4) throw new FormError(`Index too large in ${key}`, key);
       if (last) {
         if (typeof node[part] === "object") throw new FormError(`Invalid parameter: ${key} is both a value and a hash`, key);

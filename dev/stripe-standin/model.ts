@@ -178,10 +178,13 @@ export class StripeModel {
   createSession(params: Params): SessionRecord {
     const now = this.now();
     if (params.mode === undefined) throw missingParam("mode");
-    if (params.mode !== "payment") throw paramError(`The local Stripe stand-in implements mode=payment only (got ${String(params.mode)}).`, "mode", "standin_unsupported");
-    if (params.ui_mode !== undefined && params.ui_mode !== "hosted") throw paramError("The local Stripe stand-in implements ui_mode=hosted only.", "ui_mode", "standin_unsupported");
+    if (params.mode !== "payment")
+      throw paramError(`The local Stripe stand-in implements mode=payment only (got ${String(params.mode)}).`, "mode", "standin_unsupported");
+    if (params.ui_mode !== undefined && params.ui_mode !== "hosted")
+      throw paramError("The local Stripe stand-in implements ui_mode=hosted only.", "ui_mode", "standin_unsupported");
     const pmTypes = params.payment_method_types as string[] | undefined;
-    if (pmTypes && pmTypes.some((t) => t !== "card")) throw paramError("The local Stripe stand-in takes card payments only.", "payment_method_types", "standin_unsupported");
+    if (pmTypes && pmTypes.some((t) => t !== "card"))
+      throw paramError("The local Stripe stand-in takes card payments only.", "payment_method_types", "standin_unsupported");
     if (params.success_url === undefined) throw missingParam("success_url");
     checkUrl(params.success_url as string, "success_url");
     if (params.cancel_url !== undefined) checkUrl(params.cancel_url as string, "cancel_url");
@@ -202,14 +205,20 @@ export class StripeModel {
       if (!pd) throw missingParam(`${at}[price_data]`);
       if (item.quantity === undefined) throw missingParam(`${at}[quantity]`);
       const quantity = item.quantity as number;
-      if (quantity < 1 || quantity > MAX_QUANTITY) throw paramError(`Invalid ${at}[quantity]: must be between 1 and ${MAX_QUANTITY}`, `${at}[quantity]`, "parameter_invalid_integer");
+      if (quantity < 1 || quantity > MAX_QUANTITY)
+        throw paramError(`Invalid ${at}[quantity]: must be between 1 and ${MAX_QUANTITY}`, `${at}[quantity]`, "parameter_invalid_integer");
       const c = (pd.currency as string).toLowerCase();
       if (!isSupportedCurrency(c)) throw paramError(`Invalid currency: ${pd.currency as string}.`, `${at}[price_data][currency]`);
       if (currency !== null && c !== currency) throw paramError("All line items must use the same currency.", `${at}[price_data][currency]`);
       currency = c;
       if (pd.unit_amount === undefined) throw missingParam(`${at}[price_data][unit_amount]`);
       const unit = pd.unit_amount as number;
-      if (unit < 0 || unit > MAX_AMOUNT) throw paramError(`Invalid ${at}[price_data][unit_amount]: must be between 0 and ${MAX_AMOUNT}`, `${at}[price_data][unit_amount]`, "parameter_invalid_integer");
+      if (unit < 0 || unit > MAX_AMOUNT)
+        throw paramError(
+          `Invalid ${at}[price_data][unit_amount]: must be between 0 and ${MAX_AMOUNT}`,
+          `${at}[price_data][unit_amount]`,
+          "parameter_invalid_integer",
+        );
       if (!pd.product_data) throw missingParam(`${at}[price_data][product_data]`);
       checkMetadata((pd.product_data as ParamObject).metadata, `${at}[price_data][product_data][metadata]`);
       total += unit * quantity;
@@ -220,13 +229,19 @@ export class StripeModel {
     }
     if (total > MAX_AMOUNT) throw paramError(`Amount must be no more than ${formatMinor(MAX_AMOUNT, cur)}`, "line_items", "amount_too_large");
     if (total < minimumAmount(cur)) {
-      throw paramError(`The Checkout Session's total amount due must add up to at least ${formatMinor(minimumAmount(cur), cur)}`, "line_items", "amount_too_small");
+      throw paramError(
+        `The Checkout Session's total amount due must add up to at least ${formatMinor(minimumAmount(cur), cur)}`,
+        "line_items",
+        "amount_too_small",
+      );
     }
     let expiresAt = now + SESSION_MAX_LIFETIME_S;
     if (params.expires_at !== undefined) {
       expiresAt = params.expires_at as number;
-      if (expiresAt < now + SESSION_MIN_LIFETIME_S) throw paramError("The `expires_at` timestamp must be at least 30 minutes from Checkout Session creation.", "expires_at");
-      if (expiresAt > now + SESSION_MAX_LIFETIME_S) throw paramError("The `expires_at` timestamp must be less than 24 hours from Checkout Session creation.", "expires_at");
+      if (expiresAt < now + SESSION_MIN_LIFETIME_S)
+        throw paramError("The `expires_at` timestamp must be at least 30 minutes from Checkout Session creation.", "expires_at");
+      if (expiresAt > now + SESSION_MAX_LIFETIME_S)
+        throw paramError("The `expires_at` timestamp must be less than 24 hours from Checkout Session creation.", "expires_at");
     }
     // Every check passed: from here on the endpoint creates objects.
     const id = newId.checkoutSession();
@@ -300,7 +315,11 @@ export class StripeModel {
   expireSession(id: string, cause: Cause): SessionRecord {
     const s = this.getSession(id);
     if (s.status !== "open") {
-      throw stateError(`Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${s.status}".`, undefined, "session");
+      throw stateError(
+        `Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${s.status}".`,
+        undefined,
+        "session",
+      );
     }
     this.expire(s, cause);
     return s;
@@ -335,7 +354,11 @@ export class StripeModel {
   pay(id: string, card: TestCard, payer: PayerDetails = {}): SessionRecord {
     const s = this.getSession(id);
     if (s.status !== "open") {
-      throw stateError(`This Checkout Session is ${s.status === "complete" ? "already paid" : "expired"} and cannot be paid.`, "checkout_session_not_open", "session");
+      throw stateError(
+        `This Checkout Session is ${s.status === "complete" ? "already paid" : "expired"} and cannot be paid.`,
+        "checkout_session_not_open",
+        "session",
+      );
     }
     const now = this.now();
     let pi = s.paymentIntentId ? this.paymentIntents.get(s.paymentIntentId) : undefined;
@@ -434,7 +457,8 @@ export class StripeModel {
     if (chId !== undefined) {
       charge = this.charges.get(chId);
       if (!charge) throw noSuch("charge", chId, "charge");
-      if (piId !== undefined && charge.paymentIntentId !== piId) throw stateError(`Charge ${chId} does not belong to PaymentIntent ${piId}.`, undefined, "charge");
+      if (piId !== undefined && charge.paymentIntentId !== piId)
+        throw stateError(`Charge ${chId} does not belong to PaymentIntent ${piId}.`, undefined, "charge");
     } else {
       const pi = this.getPaymentIntent(piId as string, "payment_intent");
       const latest = pi.latestChargeId ? this.charges.get(pi.latestChargeId) : undefined;

@@ -17,9 +17,30 @@ export const MAX_AMOUNT = 99_999_999;
  * minor unit here.
  */
 const MINIMUM_AMOUNT: Readonly<Record<string, number>> = {
-  usd: 50, aud: 50, brl: 50, cad: 50, chf: 50, eur: 50, inr: 50, nzd: 50, sgd: 50,
-  gbp: 30, aed: 200, bgn: 100, czk: 1500, dkk: 250, hkd: 400, huf: 17500, jpy: 50,
-  mxn: 1000, myr: 200, nok: 300, pln: 200, ron: 200, sek: 300, thb: 1000,
+  usd: 50,
+  aud: 50,
+  brl: 50,
+  cad: 50,
+  chf: 50,
+  eur: 50,
+  inr: 50,
+  nzd: 50,
+  sgd: 50,
+  gbp: 30,
+  aed: 200,
+  bgn: 100,
+  czk: 1500,
+  dkk: 250,
+  hkd: 400,
+  huf: 17500,
+  jpy: 50,
+  mxn: 1000,
+  myr: 200,
+  nok: 300,
+  pln: 200,
+  ron: 200,
+  sek: 300,
+  thb: 1000,
 };
 
 export function isSupportedCurrency(code: string): boolean {

@@ -274,7 +274,14 @@ export function paymentIntentJson(pi: PaymentIntentRecord): JsonObject {
     description: pi.description,
     invoice: null,
     last_payment_error: e
-      ? { type: "card_error", code: e.code, decline_code: e.declineCode, message: e.message, charge: e.chargeId, doc_url: `https://stripe.com/docs/error-codes/${e.code.replace(/_/g, "-")}` }
+      ? {
+          type: "card_error",
+          code: e.code,
+          decline_code: e.declineCode,
+          message: e.message,
+          charge: e.chargeId,
+          doc_url: `https://stripe.com/docs/error-codes/${e.code.replace(/_/g, "-")}`,
+        }
       : null,
     latest_charge: pi.latestChargeId,
     livemode: false,

@@ -213,7 +213,12 @@ function apiKeyOf(req: http.IncomingMessage): string | null {
   const bearer = /^Bearer\s+(\S+)$/i.exec(h);
   if (bearer) return bearer[1] ?? null;
   const basic = /^Basic\s+(\S+)$/i.exec(h);
-  if (basic) return Buffer.from(basic[1] ?? "", "base64").toString("utf8").split(":")[0] ?? null;
+  if (basic)
+    return (
+      Buffer.from(basic[1] ?? "", "base64")
+        .toString("utf8")
+        .split(":")[0] ?? null
+    );
   return null;
 }
 
@@ -250,7 +255,12 @@ function send(res: http.ServerResponse, reply: Reply, type = "application/json")
 const orderSchema = z.enum(["created", "reverse", "shuffle"]);
 const webhookPatchSchema = z
   .object({
-    url: z.string().url().refine((u) => /^https?:\/\//.test(u), "must be an http(s) URL").nullable().optional(),
+    url: z
+      .string()
+      .url()
+      .refine((u) => /^https?:\/\//.test(u), "must be an http(s) URL")
+      .nullable()
+      .optional(),
     hold: z.boolean().optional(),
     duplicates: z.number().int().min(WEBHOOK_LIMITS.duplicates.min).max(WEBHOOK_LIMITS.duplicates.max).optional(),
     order: orderSchema.optional(),
@@ -268,7 +278,15 @@ const webhookPatchSchema = z
 const flushSchema = z.object({ order: orderSchema.optional() }).strict();
 const paySchema = z.object({ card: z.enum(["success", "decline"]), email: z.string().max(512).optional(), name: z.string().max(512).optional() }).strict();
 /** Up to a year at a time. */
-const clockSchema = z.object({ advanceSeconds: z.number().int().min(0).max(366 * 24 * 3600) }).strict();
+const clockSchema = z
+  .object({
+    advanceSeconds: z
+      .number()
+      .int()
+      .min(0)
+      .max(366 * 24 * 3600),
+  })
+  .strict();
 
 function controlError(status: number, message: string): Reply {
   return jsonReply(status, { error: { message } });
@@ -384,7 +402,11 @@ export async function startStandin(options: StandinOptions): Promise<Standin> {
             }),
           );
         }
-        return { status: stored.status, body: stored.body, headers: { "idempotent-replayed": "true", "original-request": stored.requestId, "idempotency-key": idemKey } };
+        return {
+          status: stored.status,
+          body: stored.body,
+          headers: { "idempotent-replayed": "true", "original-request": stored.requestId, "idempotency-key": idemKey },
+        };
       }
     }
 
@@ -504,7 +526,8 @@ export async function startStandin(options: StandinOptions): Promise<Standin> {
       return { status: 303, html: "", location: model.successRedirect(s) };
     } catch (e) {
       if (!(e instanceof StripeApiError)) throw e;
-      const message = e.status === 402 ? "The declining test card was declined by the bank. Nothing was charged: pay with the approving card or cancel." : e.body.message;
+      const message =
+        e.status === 402 ? "The declining test card was declined by the bank. Nothing was charged: pay with the approving card or cancel." : e.body.message;
       return { status: e.status, html: checkoutPage(s, (p) => model.unitAmount(p), { error: message, email, name }) };
     } finally {
       dispatch();
@@ -542,7 +565,8 @@ export async function startStandin(options: StandinOptions): Promise<Standin> {
       })
       .catch((e: unknown) => {
         if (res.headersSent) return res.destroy();
-        if (e instanceof BodyTooLarge) return send(res, errorReply(paramError(`The request body is larger than ${MAX_BODY_BYTES / 1024 / 1024} MB.`, undefined)));
+        if (e instanceof BodyTooLarge)
+          return send(res, errorReply(paramError(`The request body is larger than ${MAX_BODY_BYTES / 1024 / 1024} MB.`, undefined)));
         log(`error answering ${req.method} ${url.pathname}: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}`);
         const body: ErrorBody = { type: "api_error", message: "The stand-in failed to answer this request; see its log." };
         send(res, { status: 500, body: errorJson(body) });

@@ -226,10 +226,13 @@ export class WebhookDispatcher {
     this.log.push({ eventId: event.id, type: event.type, copy, attempt: n, url: url ?? "", status, error, outcome, at: Date.now() });
     if (this.log.length > MAX_LOG) this.log.splice(0, this.log.length - MAX_LOG);
     if (outcome === "retrying") {
-      const timer = setTimeout(() => {
-        this.timers.delete(timer);
-        void this.attempt(event, copy, n + 1, generation);
-      }, retryDelayMs(retry, n));
+      const timer = setTimeout(
+        () => {
+          this.timers.delete(timer);
+          void this.attempt(event, copy, n + 1, generation);
+        },
+        retryDelayMs(retry, n),
+      );
       this.timers.add(timer);
       return;
     }

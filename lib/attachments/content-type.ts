@@ -1,7 +1,6 @@
 /** Attachments: what an uploaded file is, judged by its content, and the names it is stored and sent under. */
 import { fileTypeFromBuffer } from "file-type";
 
-
 export const ALLOWED_ATTACHMENT_TYPES = ["application/pdf", "image/png", "image/jpeg", "image/vnd.dxf"] as const;
 export type AttachmentContentType = (typeof ALLOWED_ATTACHMENT_TYPES)[number];
 

@@ -23,9 +23,7 @@ type Refusal = "no-shop" | "signed-out" | "not-member" | "not-allowed";
 
 type ActionCode = "unauthenticated" | "forbidden" | "not-found" | "invalid" | "conflict" | "rate-limited";
 
-export type ActionResult<T> =
-  | { ok: true; data: T }
-  | { ok: false; code: ActionCode; message?: string; fieldErrors?: Record<string, string[]> };
+export type ActionResult<T> = { ok: true; data: T } | { ok: false; code: ActionCode; message?: string; fieldErrors?: Record<string, string[]> };
 
 /**
  * The one mapping from a refusal to the answer each kind gives: a page sends the visitor to sign in,

@@ -5,7 +5,7 @@ import { createShopSettings, getShopBySlug } from "@/db/queries/shops";
 import { env } from "@/lib/env";
 import { slugProblem } from "@/lib/validation/auth";
 import { ASSIGNABLE_ROLES, can } from "./permissions";
-import { accountWaitSeconds, clearSignInFailures, recordSignInFailure } from "./sign-in-guard";
+import { accountWaitSeconds, clearSignInFailures, recordSignInFailure } from "@/db/queries/sign-in-failures";
 
 /**
  * better-auth and its organization plugin mount many endpoints under /api/auth/*. The browser
@@ -31,7 +31,8 @@ async function shopIdFor(query: Record<string, unknown> | undefined, activeShopI
   return typeof activeShopId === "string" ? activeShopId : null;
 }
 
-const emailOf = (body: unknown) => (body && typeof body === "object" && typeof (body as { email?: unknown }).email === "string" ? (body as { email: string }).email : null);
+const emailOf = (body: unknown) =>
+  body && typeof body === "object" && typeof (body as { email?: unknown }).email === "string" ? (body as { email: string }).email : null;
 
 export const authHooks = {
   before: createAuthMiddleware(async (ctx) => {
@@ -42,7 +43,11 @@ export const authHooks = {
       const email = emailOf(ctx.body);
       const wait = email ? await accountWaitSeconds(email) : 0;
       if (wait > 0) {
-        throw new APIError("TOO_MANY_REQUESTS", { message: `Too many failed sign-ins for this e-mail; try again in ${wait} s.`, code: "ACCOUNT_WAIT" }, { "retry-after": String(wait) });
+        throw new APIError(
+          "TOO_MANY_REQUESTS",
+          { message: `Too many failed sign-ins for this e-mail; try again in ${wait} s.`, code: "ACCOUNT_WAIT" },
+          { "retry-after": String(wait) },
+        );
       }
     }
 
@@ -76,7 +81,8 @@ export const organizationHooks = {
     const problem = slugProblem(organization.slug ?? "");
     if (problem) throw new APIError("BAD_REQUEST", { message: problem, code: "INVALID_SLUG" });
     const name = (organization.name ?? "").trim();
-    if (name.length < 2 || name.length > 80 || name.includes("\u0000")) throw new APIError("BAD_REQUEST", { message: "A shop's name has 2 to 80 characters.", code: "INVALID_NAME" });
+    if (name.length < 2 || name.length > 80 || name.includes("\u0000"))
+      throw new APIError("BAD_REQUEST", { message: "A shop's name has 2 to 80 characters.", code: "INVALID_NAME" });
   },
   /** No shop without its settings row: the defaults, in euros until the opener picks a currency. */
   async afterCreateOrganization({ organization }: { organization: { id: string } }) {

@@ -1,17 +1,9 @@
-import { formatQuantity } from '../quantities';
-import { sizeBalancing, sizeBleeder, type BalancingResult, type BleederResult } from './balancing';
-import { MAX_CELLS_PER_BANK, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from './bounds';
-import { constantPowerSeconds } from './discharge';
-import { storedEnergy as storedEnergyOf, usableEnergy as usableEnergyOf } from './energy';
-import {
-  TECHNOLOGIES,
-  type BalancingBoard,
-  type DesignFactors,
-  type EngineCell,
-  type Requirement,
-  type Technology,
-  type Topology,
-} from './types';
+import { formatQuantity } from "../quantities";
+import { sizeBalancing, sizeBleeder, type BalancingResult, type BleederResult } from "./balancing";
+import { MAX_CELLS_PER_BANK, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from "./bounds";
+import { constantPowerSeconds } from "./discharge";
+import { storedEnergy as storedEnergyOf, usableEnergy as usableEnergyOf } from "./energy";
+import { TECHNOLOGIES, type BalancingBoard, type DesignFactors, type EngineCell, type Requirement, type Technology, type Topology } from "./types";
 
 /** Stored energy above which the burn and arc caution is shown (common practice: 10 J, from memory). */
 export const HIGH_ENERGY_CAUTION_J = 10;
@@ -22,7 +14,18 @@ export const LONG_LEAD_TIME_DAYS = 28;
 /** The cell's figures an option carries (and a quote freezes). */
 export type ArrangementCellFigures = Pick<
   EngineCell,
-  'sku' | 'technology' | 'capacitance' | 'toleranceMinus' | 'tolerancePlus' | 'ratedVoltage' | 'surgeVoltage' | 'esr' | 'leakageCurrent' | 'peakCurrent' | 'mass' | 'volume'
+  | "sku"
+  | "technology"
+  | "capacitance"
+  | "toleranceMinus"
+  | "tolerancePlus"
+  | "ratedVoltage"
+  | "surgeVoltage"
+  | "esr"
+  | "leakageCurrent"
+  | "peakCurrent"
+  | "mass"
+  | "volume"
 >;
 
 export interface ArrangementOption {
@@ -50,7 +53,7 @@ export interface ArrangementOption {
   /** worst-case transient cell voltage while charging with matched cells (V) */
   worstCellVoltage: number;
   /** passive balancing resistors as sizeBalancing gives them, and the active boards fitted, if any */
-  balancing: Omit<BalancingResult, 'chainResistance'> & { activeBoard: null | { sku: string; count: number } };
+  balancing: Omit<BalancingResult, "chainResistance"> & { activeBoard: null | { sku: string; count: number } };
   /**
    * Self-discharge after switch-off, through the balancing chain and the bleeder. Worst case: the
    * bank's capacitance at the upper tolerance (the safe side: a larger C takes longer to fall to
@@ -66,7 +69,7 @@ export interface ArrangementOption {
     chainResistance: number | null;
     /** chain and bleeder in parallel: what the bank discharges through (Ω); null when neither is fitted */
     resistance: number | null;
-    bleeder: BleederResult['bleeder'];
+    bleeder: BleederResult["bleeder"];
   };
   /** constant-power backup time with design capacitance and end-of-life ESR (s) */
   backupSeconds?: number;
@@ -124,11 +127,11 @@ export interface ArrangementSearchResult {
 }
 
 const TOPO_STRINGS = 1; // index in TOPOLOGIES (0 is series-of-parallel-groups)
-const TOPOLOGIES: readonly Topology[] = ['series-of-parallel-groups', 'parallel-of-series-strings'];
+const TOPOLOGIES: readonly Topology[] = ["series-of-parallel-groups", "parallel-of-series-strings"];
 
 /** what set N_p; 'string': even one string is beyond the mass, volume or cell-count limit */
-type Driver = 'capacitance' | 'energy' | 'backup' | 'esr' | 'peak' | 'string' | 'none';
-type Limit = 'mass' | 'volume' | 'count';
+type Driver = "capacitance" | "energy" | "backup" | "esr" | "peak" | "string" | "none";
+type Limit = "mass" | "volume" | "count";
 
 interface TechnologyTally {
   cells: number;
@@ -187,7 +190,7 @@ export function worstCaseCellVoltage(maxVoltage: number, seriesCount: number, ma
   return maxVoltage / (1 + (seriesCount - 1) * ((1 - m) / (1 + m)));
 }
 
-const NUMBER_FIELDS = ['maxVoltage', 'minVoltage', 'capacitance', 'energy', 'maxMass', 'maxVolume', 'quantity'] as const;
+const NUMBER_FIELDS = ["maxVoltage", "minVoltage", "capacitance", "energy", "maxMass", "maxVolume", "quantity"] as const;
 
 /** Refuses (RangeError) a requirement or design factors no search can mean; bounds are the schemas' job. */
 function checkInputs(req: Requirement, f: DesignFactors): void {
@@ -199,23 +202,23 @@ function checkInputs(req: Requirement, f: DesignFactors): void {
     if (v !== undefined && !(Number.isFinite(v) && v >= 0)) bad(key);
   }
   for (const [what, v] of [
-    ['backup.power', req.backup?.power],
-    ['backup.seconds', req.backup?.seconds],
-    ['peakCurrent.current', req.peakCurrent?.current],
-    ['peakCurrent.maxDrop', req.peakCurrent?.maxDrop],
+    ["backup.power", req.backup?.power],
+    ["backup.seconds", req.backup?.seconds],
+    ["peakCurrent.current", req.peakCurrent?.current],
+    ["peakCurrent.maxDrop", req.peakCurrent?.maxDrop],
   ] as const) {
     if (v !== undefined && !(Number.isFinite(v) && v >= 0)) bad(what);
   }
-  if (!(req.maxVoltage > 0)) bad('maxVoltage');
+  if (!(req.maxVoltage > 0)) bad("maxVoltage");
   const vMin = req.minVoltage ?? 0;
-  if (!(vMin < req.maxVoltage)) throw new RangeError('minVoltage must be at least 0 and below maxVoltage');
-  if (!(f.capacitanceFade >= 0 && f.capacitanceFade < 1)) bad('capacitanceFade');
-  if (!(f.esrGrowth >= 0 && Number.isFinite(f.esrGrowth))) bad('esrGrowth');
-  if (!(f.voltageDerating > 0 && f.voltageDerating <= 1)) bad('voltageDerating');
-  if (!(f.matchingTolerance >= 0 && f.matchingTolerance < 1)) bad('matchingTolerance');
-  if (!(f.balancingFactor > 0 && Number.isFinite(f.balancingFactor))) bad('balancingFactor');
-  if (!(f.safeVoltage > 0 && Number.isFinite(f.safeVoltage))) bad('safeVoltage');
-  if (!(f.safeTime > 0 && Number.isFinite(f.safeTime))) bad('safeTime');
+  if (!(vMin < req.maxVoltage)) throw new RangeError("minVoltage must be at least 0 and below maxVoltage");
+  if (!(f.capacitanceFade >= 0 && f.capacitanceFade < 1)) bad("capacitanceFade");
+  if (!(f.esrGrowth >= 0 && Number.isFinite(f.esrGrowth))) bad("esrGrowth");
+  if (!(f.voltageDerating > 0 && f.voltageDerating <= 1)) bad("voltageDerating");
+  if (!(f.matchingTolerance >= 0 && f.matchingTolerance < 1)) bad("matchingTolerance");
+  if (!(f.balancingFactor > 0 && Number.isFinite(f.balancingFactor))) bad("balancingFactor");
+  if (!(f.safeVoltage > 0 && Number.isFinite(f.safeVoltage))) bad("safeVoltage");
+  if (!(f.safeTime > 0 && Number.isFinite(f.safeTime))) bad("safeTime");
 }
 
 /** stringBalancing's answer when a string of that length cannot be kept within its ratings */
@@ -310,7 +313,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
 
   const tallies = new Map<Technology, TechnologyTally>();
   for (const t of TECHNOLOGIES) {
-    tallies.set(t, { cells: 0, invalid: 0, seriesBound: 0, missRatio: Infinity, missDriver: 'none', missLimit: 'count', missSeries: 0 });
+    tallies.set(t, { cells: 0, invalid: 0, seriesBound: 0, missRatio: Infinity, missDriver: "none", missLimit: "count", missSeries: 0 });
   }
 
   // Candidate store: one row per (cell, N_s, topology), structure of arrays, no per-candidate objects.
@@ -382,40 +385,40 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
 
       // Lower bounds on N_p from closed forms; the largest one names the driving requirement.
       let npNeed = 1;
-      let driver: Driver = 'none';
+      let driver: Driver = "none";
       let n = 1;
-      if (cReq > 0 && (n = countAtLeast((cReq * ns) / cd)) > npNeed) [npNeed, driver] = [n, 'capacitance'];
-      if (eReq > 0 && (n = countAtLeast((2 * eReq * ns) / (cd * dV2))) > npNeed) [npNeed, driver] = [n, 'energy'];
+      if (cReq > 0 && (n = countAtLeast((cReq * ns) / cd)) > npNeed) [npNeed, driver] = [n, "capacitance"];
+      if (eReq > 0 && (n = countAtLeast((2 * eReq * ns) / (cd * dV2))) > npNeed) [npNeed, driver] = [n, "energy"];
       // without ESR the constant-power backup lasts C·(V_max² − V_min²)/(2P): a lower bound
-      if (hasBackup && (n = countAtLeast((2 * backupPower * backupSeconds * ns) / (cd * dV2))) > npNeed) [npNeed, driver] = [n, 'backup'];
+      if (hasBackup && (n = countAtLeast((2 * backupPower * backupSeconds * ns) / (cd * dV2))) > npNeed) [npNeed, driver] = [n, "backup"];
       if (peakI > 0) {
-        if ((n = countAtLeast((esrEol * ns * peakI) / maxDrop)) > npNeed) [npNeed, driver] = [n, 'esr'];
-        if ((n = countAtLeast(cell.peakCurrent > 0 ? peakI / cell.peakCurrent : Infinity)) > npNeed) [npNeed, driver] = [n, 'peak'];
+        if ((n = countAtLeast((esrEol * ns * peakI) / maxDrop)) > npNeed) [npNeed, driver] = [n, "esr"];
+        if ((n = countAtLeast(cell.peakCurrent > 0 ? peakI / cell.peakCurrent : Infinity)) > npNeed) [npNeed, driver] = [n, "peak"];
       }
 
       // Upper bounds on N_p from the mass, volume and cell-count limits.
       let npMax = Math.min(maxParallel, floorSafe(maxCells / ns));
-      let limitBy: Limit = 'count';
+      let limitBy: Limit = "count";
       if (Number.isFinite(maxMass) && cell.mass > 0) {
         const n = floorSafe(maxMass / (ns * cell.mass));
         if (n < npMax) {
           npMax = n;
-          limitBy = 'mass';
+          limitBy = "mass";
         }
       }
       if (Number.isFinite(maxVolume) && cell.volume > 0) {
         const n = floorSafe(maxVolume / (ns * cell.volume));
         if (n < npMax) {
           npMax = n;
-          limitBy = 'volume';
+          limitBy = "volume";
         }
       }
 
       if (!(npNeed <= npMax)) {
         const ratio = npMax > 0 ? npNeed / npMax : Infinity;
-        if (ratio < tally.missRatio || tally.missDriver === 'none') {
+        if (ratio < tally.missRatio || tally.missDriver === "none") {
           tally.missRatio = ratio;
-          tally.missDriver = driver === 'none' ? 'string' : driver;
+          tally.missDriver = driver === "none" ? "string" : driver;
           tally.missLimit = limitBy;
           tally.missSeries = ns;
         }
@@ -426,8 +429,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       if (hasBackup) {
         // With ESR the backup is shorter; the time rises with N_p: exponential then binary search,
         // both within [N_p, npMax] (at most 2·log2(MAX_PARALLEL_COUNT) steps).
-        const lasts = (n: number): number =>
-          constantPowerSeconds((n * cd) / ns, (esrEol * ns) / n, vMax, backupPower, vMin);
+        const lasts = (n: number): number => constantPowerSeconds((n * cd) / ns, (esrEol * ns) / n, vMax, backupPower, vMin);
         if (lasts(np) < backupSeconds) {
           let lo = np; // fails
           let step = 1;
@@ -443,9 +445,9 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
           }
           if (hi < 0) {
             const ratio = 1 + (backupSeconds - lasts(npMax)) / backupSeconds;
-            if (ratio < tally.missRatio || tally.missDriver === 'none') {
+            if (ratio < tally.missRatio || tally.missDriver === "none") {
               tally.missRatio = ratio;
-              tally.missDriver = 'backup';
+              tally.missDriver = "backup";
               tally.missLimit = limitBy;
               tally.missSeries = ns;
             }
@@ -552,35 +554,31 @@ function fmt(value: number, unit: string): string {
 function reasonFor(tech: Technology, tally: TechnologyTally, req: Requirement): string {
   if (tally.cells === 0) return `${tech}: no ${tech} cells in the catalog`;
   if (tally.invalid === tally.cells) return `${tech}: no cell has complete electrical data`;
-  if (tally.missDriver !== 'none') {
+  if (tally.missDriver !== "none") {
     const within =
-      tally.missLimit === 'mass'
-        ? fmt(req.maxMass ?? 0, 'kg')
-        : tally.missLimit === 'volume'
-          ? fmt(req.maxVolume ?? 0, 'm³')
-          : `${MAX_CELLS_PER_BANK} cells`;
-    if (tally.missDriver === 'string') return `${tech}: even one string of ${tally.missSeries} cells in series is beyond ${within}`;
+      tally.missLimit === "mass" ? fmt(req.maxMass ?? 0, "kg") : tally.missLimit === "volume" ? fmt(req.maxVolume ?? 0, "m³") : `${MAX_CELLS_PER_BANK} cells`;
+    if (tally.missDriver === "string") return `${tech}: even one string of ${tally.missSeries} cells in series is beyond ${within}`;
     let need: string;
     switch (tally.missDriver) {
-      case 'capacitance':
-        need = `${fmt(req.capacitance ?? 0, 'F')}`;
+      case "capacitance":
+        need = `${fmt(req.capacitance ?? 0, "F")}`;
         break;
-      case 'energy':
-        need = `${fmt(req.energy ?? 0, 'J')} usable`;
+      case "energy":
+        need = `${fmt(req.energy ?? 0, "J")} usable`;
         break;
-      case 'backup':
-        need = `a ${fmt(req.backup?.power ?? 0, 'W')} backup for ${fmt(req.backup?.seconds ?? 0, 's')}`;
+      case "backup":
+        need = `a ${fmt(req.backup?.power ?? 0, "W")} backup for ${fmt(req.backup?.seconds ?? 0, "s")}`;
         break;
-      case 'esr':
-        need = `a drop of at most ${fmt(req.peakCurrent?.maxDrop ?? 0, 'V')} at ${fmt(req.peakCurrent?.current ?? 0, 'A')}`;
+      case "esr":
+        need = `a drop of at most ${fmt(req.peakCurrent?.maxDrop ?? 0, "V")} at ${fmt(req.peakCurrent?.current ?? 0, "A")}`;
         break;
       default:
-        need = `${fmt(req.peakCurrent?.current ?? 0, 'A')} peak current`;
+        need = `${fmt(req.peakCurrent?.current ?? 0, "A")} peak current`;
     }
     return `${tech}: no cell reaches ${need} within ${within}`;
   }
   if (tally.seriesBound > 0) {
-    return `${tech}: at ${fmt(req.maxVoltage, 'V')} no cell stays within its ratings in a string of at most ${MAX_SERIES_COUNT.toLocaleString('en-GB')} cells in series (the search's bound)`;
+    return `${tech}: at ${fmt(req.maxVoltage, "V")} no cell stays within its ratings in a string of at most ${MAX_SERIES_COUNT.toLocaleString("en-GB")} cells in series (the search's bound)`;
   }
   return `${tech}: no cell fits`;
 }
@@ -642,22 +640,20 @@ function buildOption(a: {
   const needed = cellCount * a.quantity;
   if (cell.stock < needed) {
     warnings.push(
-      `Stock covers ${Math.max(0, cell.stock)} of the ${needed} cells needed for ${a.quantity} bank${a.quantity === 1 ? '' : 's'}; the rest take ${cell.leadTimeDays} days.`,
+      `Stock covers ${Math.max(0, cell.stock)} of the ${needed} cells needed for ${a.quantity} bank${a.quantity === 1 ? "" : "s"}; the rest take ${cell.leadTimeDays} days.`,
     );
   }
   if (a.lead > LONG_LEAD_TIME_DAYS) warnings.push(`Long lead time: ${a.lead} days.`);
   if (a.board) {
     warnings.push(
-      `Balancing needed: while charging a cell can reach ${fmt(worstCellVoltage, 'V')}, above its ${fmt(cell.ratedVoltage, 'V')} rating; ${a.boardCount} active balancing board${a.boardCount === 1 ? '' : 's'} ${a.board.sku} clamp each cell at ${fmt(a.board.maxCellVoltage, 'V')}.`,
+      `Balancing needed: while charging a cell can reach ${fmt(worstCellVoltage, "V")}, above its ${fmt(cell.ratedVoltage, "V")} rating; ${a.boardCount} active balancing board${a.boardCount === 1 ? "" : "s"} ${a.board.sku} clamp each cell at ${fmt(a.board.maxCellVoltage, "V")}.`,
     );
   }
   if (balancing.count > 0 && balancing.powerRating === null) {
-    warnings.push(`Each balancing resistor dissipates ${fmt(balancing.power, 'W')}, beyond standard resistor ratings.`);
+    warnings.push(`Each balancing resistor dissipates ${fmt(balancing.power, "W")}, beyond standard resistor ratings.`);
   }
   if (discharge.bleeder?.switched) {
-    warnings.push(
-      `A continuous bleeder would dissipate ${fmt(discharge.bleeder.power, 'W')}: a switched discharge circuit is needed instead.`,
-    );
+    warnings.push(`A continuous bleeder would dissipate ${fmt(discharge.bleeder.power, "W")}: a switched discharge circuit is needed instead.`);
   }
 
   let backupSeconds: number | undefined;
@@ -667,25 +663,23 @@ function buildOption(a: {
     const vEnd = Math.max(vMin, Math.sqrt(req.backup.power * esrEol));
     const perCell = vEnd > 0 ? req.backup.power / vEnd / np : Infinity;
     if (!Number.isFinite(perCell)) {
-      warnings.push('A constant-power backup down to 0 V draws unbounded current: state a minimum voltage.');
+      warnings.push("A constant-power backup down to 0 V draws unbounded current: state a minimum voltage.");
     } else if (cell.continuousCurrent > 0 && perCell > cell.continuousCurrent) {
-      warnings.push(
-        `Backup current reaches ${fmt(perCell, 'A')} per cell, above the ${fmt(cell.continuousCurrent, 'A')} continuous rating.`,
-      );
+      warnings.push(`Backup current reaches ${fmt(perCell, "A")} per cell, above the ${fmt(cell.continuousCurrent, "A")} continuous rating.`);
     }
   }
 
   const cautions: string[] = [];
   if (vMax > factors.safeVoltage) {
-    cautions.push(`Shock hazard: the bank works at up to ${fmt(vMax, 'V')}, above the ${fmt(factors.safeVoltage, 'V')} safe voltage.`);
+    cautions.push(`Shock hazard: the bank works at up to ${fmt(vMax, "V")}, above the ${fmt(factors.safeVoltage, "V")} safe voltage.`);
   }
   if (storedEnergy > HIGH_ENERGY_CAUTION_J) {
-    cautions.push(`Burn and arc hazard: the bank stores about ${fmt(storedEnergy, 'J')} at ${fmt(vMax, 'V')}.`);
+    cautions.push(`Burn and arc hazard: the bank stores about ${fmt(storedEnergy, "J")} at ${fmt(vMax, "V")}.`);
   }
   cautions.push(
-    'A charged bank keeps its energy after the supply is removed: discharge it and short its terminals before handling.',
-    'Ship discharged, with a shorting link fitted across the terminals.',
-    'These figures are an engineering estimate; local electrical codes and licensed practice decide.',
+    "A charged bank keeps its energy after the supply is removed: discharge it and short its terminals before handling.",
+    "Ship discharged, with a shorting link fitted across the terminals.",
+    "These figures are an engineering estimate; local electrical codes and licensed practice decide.",
   );
 
   const option: ArrangementOption = {

@@ -1,6 +1,6 @@
-import { storedEnergy } from './energy';
-import { largestPreferredAtMost, smallestPowerRatingAtLeast } from './preferred-values';
-import type { ResistorSeries, Topology } from './types';
+import { storedEnergy } from "./energy";
+import { largestPreferredAtMost, smallestPowerRatingAtLeast } from "./preferred-values";
+import type { ResistorSeries, Topology } from "./types";
 
 /** Largest balancing resistor we propose (common practice: above ~10 MΩ board leakage and noise dominate). */
 export const MAX_BALANCING_RESISTANCE = 10e6;
@@ -52,13 +52,10 @@ export function sizeBalancing(input: {
     };
   }
   const vCell = maxVoltage / ns;
-  const perGroup = topology === 'series-of-parallel-groups';
+  const perGroup = topology === "series-of-parallel-groups";
   const cellsPerResistor = perGroup ? np : 1;
   const leak = input.leakageCurrent > 0 ? input.leakageCurrent : 0;
-  const rMax =
-    leak > 0
-      ? Math.min(vCell / (input.balancingFactor * cellsPerResistor * leak), MAX_BALANCING_RESISTANCE)
-      : MAX_BALANCING_RESISTANCE;
+  const rMax = leak > 0 ? Math.min(vCell / (input.balancingFactor * cellsPerResistor * leak), MAX_BALANCING_RESISTANCE) : MAX_BALANCING_RESISTANCE;
   const resistance = largestPreferredAtMost(rMax, input.resistorSeries);
   const power = (vCell * vCell) / resistance;
   const count = perGroup ? ns : ns * np;

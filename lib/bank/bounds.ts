@@ -1,4 +1,4 @@
-import { formatQuantity } from '../quantities';
+import { formatQuantity } from "../quantities";
 
 /**
  * Upper bounds on every number a client may hand to the engine, and the caps that bound the
@@ -62,11 +62,11 @@ export const MAX_BY_UNIT = {
   A: MAX_CURRENT,
   Ω: MAX_RESISTANCE,
   kg: MAX_MASS,
-  'm³': MAX_VOLUME,
+  "m³": MAX_VOLUME,
 } as const;
 
 /** A bound as people read it in a field message: "2 MV", "1 GJ", "86,400 s", "1,000,000 kg". */
 export function formatBound(max: number, unit: string): string {
-  if (unit === 's' || unit === 'kg' || unit === 'm³') return `${max.toLocaleString('en-GB')} ${unit}`;
+  if (unit === "s" || unit === "kg" || unit === "m³") return `${max.toLocaleString("en-GB")} ${unit}`;
   return formatQuantity(max, unit);
 }

@@ -17,7 +17,7 @@ export interface DischargeResult {
 
 export interface ConstantPowerResult extends DischargeResult {
   /** what ended the discharge: the terminal voltage reached vEnd, or the load asked for more than the bank can deliver */
-  limitedBy: 'min-voltage' | 'max-power';
+  limitedBy: "min-voltage" | "max-power";
 }
 
 const DEFAULT_POINTS = 100;
@@ -47,11 +47,11 @@ export function constantCurrentDischarge(input: {
   points?: number;
 }): DischargeResult {
   const { capacitance: c, esr, v0, current: i, vEnd } = input;
-  assertPositive('capacitance', c);
-  assertNonNegative('esr', esr);
-  assertNonNegative('v0', v0);
-  assertNonNegative('current', i);
-  assertNonNegative('vEnd', vEnd);
+  assertPositive("capacitance", c);
+  assertNonNegative("esr", esr);
+  assertNonNegative("v0", v0);
+  assertNonNegative("current", i);
+  assertNonNegative("vEnd", vEnd);
   const terminal = (t: number): number => v0 - i * esr - (i * t) / c;
   let seconds: number;
   if (terminal(0) <= vEnd) seconds = 0;
@@ -84,12 +84,12 @@ function antiderivative(v: number, a2: number): number {
 }
 
 /** Capacitor voltage at which a constant-power discharge ends, and why. */
-function constantPowerEnd(esr: number, power: number, vEnd: number): { vc: number; limitedBy: 'min-voltage' | 'max-power' } {
-  if (esr === 0) return { vc: vEnd, limitedBy: 'min-voltage' };
+function constantPowerEnd(esr: number, power: number, vEnd: number): { vc: number; limitedBy: "min-voltage" | "max-power" } {
+  if (esr === 0) return { vc: vEnd, limitedBy: "min-voltage" };
   const pr = power * esr;
   // The terminal voltage on the working branch is never below √(P·ESR) (reached at maximum power).
-  if (vEnd > 0 && vEnd * vEnd >= pr) return { vc: vEnd + pr / vEnd, limitedBy: 'min-voltage' };
-  return { vc: 2 * Math.sqrt(pr), limitedBy: 'max-power' };
+  if (vEnd > 0 && vEnd * vEnd >= pr) return { vc: vEnd + pr / vEnd, limitedBy: "min-voltage" };
+  return { vc: 2 * Math.sqrt(pr), limitedBy: "max-power" };
 }
 
 /**
@@ -120,11 +120,11 @@ export function constantPowerDischarge(input: {
   tolerance?: number;
 }): ConstantPowerResult {
   const { capacitance: c, esr, v0, power, vEnd } = input;
-  assertPositive('capacitance', c);
-  assertNonNegative('esr', esr);
-  assertPositive('v0', v0);
-  assertPositive('power', power);
-  assertNonNegative('vEnd', vEnd);
+  assertPositive("capacitance", c);
+  assertNonNegative("esr", esr);
+  assertPositive("v0", v0);
+  assertPositive("power", power);
+  assertNonNegative("vEnd", vEnd);
   const tolerance = input.tolerance ?? 1e-9;
   const a2 = 4 * power * esr;
   const end = constantPowerEnd(esr, power, vEnd);
@@ -137,7 +137,7 @@ export function constantPowerDischarge(input: {
   const points: DischargePoint[] = [];
   if (seconds === 0) {
     points.push({ t: 0, v: v0 * v0 <= a2 ? 0.5 * v0 : terminal(v0) }, { t: 0, v: Math.min(vEnd, terminal(v0)) });
-    return { seconds, points, limitedBy: v0 * v0 <= a2 ? 'max-power' : end.limitedBy };
+    return { seconds, points, limitedBy: v0 * v0 <= a2 ? "max-power" : end.limitedBy };
   }
   const f0 = antiderivative(v0, a2);
   const k = c / (2 * power);
@@ -162,18 +162,12 @@ export function constantPowerDischarge(input: {
 }
 
 /** Resistive discharge: V(t) = V₀·e^(−t/RC). */
-export function resistiveDischarge(input: {
-  capacitance: number;
-  resistance: number;
-  v0: number;
-  vEnd: number;
-  points?: number;
-}): DischargeResult {
+export function resistiveDischarge(input: { capacitance: number; resistance: number; v0: number; vEnd: number; points?: number }): DischargeResult {
   const { capacitance: c, resistance: r, v0, vEnd } = input;
-  assertPositive('capacitance', c);
-  assertPositive('resistance', r);
-  assertNonNegative('v0', v0);
-  assertNonNegative('vEnd', vEnd);
+  assertPositive("capacitance", c);
+  assertPositive("resistance", r);
+  assertNonNegative("v0", v0);
+  assertNonNegative("vEnd", vEnd);
   const tau = r * c;
   let seconds: number;
   if (v0 <= vEnd) seconds = 0;

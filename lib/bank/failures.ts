@@ -1,6 +1,6 @@
-import { formatQuantity } from '../quantities';
-import { evaluateFlat, flattenNetwork, type FlatNetwork } from './flat-network';
-import type { NetworkNode, Topology } from './types';
+import { formatQuantity } from "../quantities";
+import { evaluateFlat, flattenNetwork, type FlatNetwork } from "./flat-network";
+import type { NetworkNode, Topology } from "./types";
 
 /**
  * One-cell failures (DESIGN §3.5): what a bank does when one cell fails short or open.
@@ -9,8 +9,8 @@ import type { NetworkNode, Topology } from './types';
  * already present, with no balancing.
  */
 
-export type FailureMode = 'short' | 'open';
-export const FAILURE_MODES: readonly FailureMode[] = ['short', 'open'];
+export type FailureMode = "short" | "open";
+export const FAILURE_MODES: readonly FailureMode[] = ["short", "open"];
 
 export interface FailureCase {
   /** the failed cell */
@@ -251,7 +251,7 @@ class FaultPaths {
     // bottom-up: a short takes no voltage (infinite capacitance), an open carries no charge (zero)
     let len = 0;
     let node = cellNode[x] as number;
-    let newCap = mode === 'short' ? Infinity : 0;
+    let newCap = mode === "short" ? Infinity : 0;
     pathNode[len] = node;
     pathCap[len++] = newCap;
     while ((parent[node] as number) >= 0) {
@@ -285,7 +285,8 @@ class FaultPaths {
         scale[k] = fa / (fraction[a] as number);
       } else {
         if (capC === Infinity) pathFraction[k] = 0;
-        else if (capA === 0) pathFraction[k] = capC === 0 ? fa : 0; // no charge: the open part takes it all
+        else if (capA === 0)
+          pathFraction[k] = capC === 0 ? fa : 0; // no charge: the open part takes it all
         else pathFraction[k] = (fa * capA) / capC;
         // series siblings share the group's charge fa·capA (a group of infinite capacitance has no other child)
         scale[k] = capA === Infinity ? 0 : (fa * capA) / ((fraction[a] as number) * (cap[a] as number));
@@ -310,7 +311,7 @@ export interface FaultDetail {
  * showing one case in full. Throws RangeError when no cell has the id.
  */
 export function analyzeFault(network: NetworkNode, appliedVoltage: number, cellId: string, mode: FailureMode): FaultDetail {
-  if (!(appliedVoltage > 0) || !Number.isFinite(appliedVoltage)) throw new RangeError('applied voltage must be a positive number');
+  if (!(appliedVoltage > 0) || !Number.isFinite(appliedVoltage)) throw new RangeError("applied voltage must be a positive number");
   const flat = flattenNetwork(network);
   const { cells, cellNode, cellStart, cellCount } = flat;
   const x = cells.findIndex((c) => c.id === cellId);
@@ -330,7 +331,7 @@ export function analyzeFault(network: NetworkNode, appliedVoltage: number, cellI
       if (y < aHi) voltage[y] = (voltage[y] as number) * s;
     }
   }
-  const out: FaultDetail['cells'] = [];
+  const out: FaultDetail["cells"] = [];
   for (let y = 0; y < cells.length; y++) {
     if (y === x) continue;
     const c = cells[y] as (typeof cells)[number];
@@ -347,7 +348,7 @@ export function analyzeFault(network: NetworkNode, appliedVoltage: number, cellI
  * Throws RangeError on a malformed network or a non-positive applied voltage.
  */
 export function analyzeNetworkFailures(network: NetworkNode, appliedVoltage: number, opts: { listLimit?: number } = {}): NetworkFailureAnalysis {
-  if (!(appliedVoltage > 0) || !Number.isFinite(appliedVoltage)) throw new RangeError('applied voltage must be a positive number');
+  if (!(appliedVoltage > 0) || !Number.isFinite(appliedVoltage)) throw new RangeError("applied voltage must be a positive number");
   const flat = flattenNetwork(network);
   const { cellStart, cellCount, cellNode, cells } = flat;
   const cellTotal = cells.length;
@@ -357,10 +358,7 @@ export function analyzeNetworkFailures(network: NetworkNode, appliedVoltage: num
     throw new RangeError(`the network is too large to analyse: its cells sit ${steps} levels deep in all, at most ${MAX_FAILURE_PATH_STEPS} are analysed`);
   }
   const V = appliedVoltage;
-  const listLimit = Math.max(
-    1,
-    Math.floor(opts.listLimit ?? Math.min(cellTotal, Math.max(MIN_LIST_LIMIT, Math.floor(FAILURE_LIST_BUDGET / (4 * cellTotal))))),
-  );
+  const listLimit = Math.max(1, Math.floor(opts.listLimit ?? Math.min(cellTotal, Math.max(MIN_LIST_LIMIT, Math.floor(FAILURE_LIST_BUDGET / (4 * cellTotal))))));
 
   const paths = new FaultPaths(flat);
   const { fraction, cap } = paths;
@@ -448,7 +446,7 @@ export function analyzeNetworkFailures(network: NetworkNode, appliedVoltage: num
       return [Number(c.shortCircuit), Number(c.capacitance === 0), Number(pastSurge), Number(c.overstressedCount > 0), ratio, -(c.capacitance ?? 0)];
     };
     const picked: number[] = [];
-    for (let i = mode === 'short' ? 0 : 1; i < cases.length; i += 2) picked.push(i);
+    for (let i = mode === "short" ? 0 : 1; i < cases.length; i += 2) picked.push(i);
     for (const i of picked) if (worst < 0 || rankAbove(rank(i), rank(worst))) worst = i;
     const summary = summarizeCases(
       mode,
@@ -459,10 +457,13 @@ export function analyzeNetworkFailures(network: NetworkNode, appliedVoltage: num
       const stress = (c.pastSurgeCount > 0 ? caseSurge[worst] : caseRated[worst]) as Stress;
       const sc = stress.cell >= 0 ? (cells[stress.cell] as (typeof cells)[number]) : null;
       const limit = sc ? (c.pastSurgeCount > 0 ? surgeLimit(sc) : sc.ratedVoltage) : 0;
-      const stressed = sc && stress.ratio > 0 ? { cells: `cell ${sc.id}`, count: 1, voltage: stress.ratio * limit, ratedVoltage: sc.ratedVoltage, surgeVoltage: sc.surgeVoltage ?? null } : null;
-      return completeSummary(summary, c, c.cellId, stressed, healthyCapacitance, 'network');
+      const stressed =
+        sc && stress.ratio > 0
+          ? { cells: `cell ${sc.id}`, count: 1, voltage: stress.ratio * limit, ratedVoltage: sc.ratedVoltage, surgeVoltage: sc.surgeVoltage ?? null }
+          : null;
+      return completeSummary(summary, c, c.cellId, stressed, healthyCapacitance, "network");
     }
-    summary.text = describeFailureMode(summary, healthyCapacitance, 'network');
+    summary.text = describeFailureMode(summary, healthyCapacitance, "network");
     return summary;
   };
 
@@ -470,7 +471,7 @@ export function analyzeNetworkFailures(network: NetworkNode, appliedVoltage: num
     appliedVoltage: V,
     healthy: { capacitance: healthyCapacitance, maxCellVoltage: healthyMaxF * V, withinRating: healthyWithinRating, withinSurge: healthyWithinSurge },
     cases,
-    summary: { short: summarize('short'), open: summarize('open') },
+    summary: { short: summarize("short"), open: summarize("open") },
     listLimit,
   };
 }
@@ -533,7 +534,7 @@ function summarizeCases(mode: FailureMode, cases: readonly CaseFigures[]): Failu
     if (dead) survives = false;
     if (dead || c.overstressedCount > 0) withinRating = false;
   }
-  return { mode, survives, withinRating, capacitanceRange: { min: minCap, max: maxCap }, worst: null, text: '' };
+  return { mode, survives, withinRating, capacitanceRange: { min: minCap, max: maxCap }, worst: null, text: "" };
 }
 
 function surgeLimit(c: { ratedVoltage: number; surgeVoltage?: number }): number {
@@ -632,48 +633,60 @@ function siblingAggregates(flat: FlatNetwork, cellFraction: Float64Array, room: 
   return { maxFraction, minRoom, minRoomCell };
 }
 
-type CaseFigures = Pick<FailureCase, 'capacitance' | 'shortCircuit' | 'pastSurgeCount' | 'overstressedCount'>;
+type CaseFigures = Pick<FailureCase, "capacitance" | "shortCircuit" | "pastSurgeCount" | "overstressedCount">;
 
 /** Fill in a mode's worst case and its verdict in words. */
 function completeSummary(
   summary: FailureModeSummary,
   c: CaseFigures,
   cellId: string | null,
-  stressed: FailureWorstCase['stressed'],
+  stressed: FailureWorstCase["stressed"],
   healthyCapacitance: number,
-  scope: 'network' | 'bank',
+  scope: "network" | "bank",
 ): FailureModeSummary {
-  summary.worst = { cellId, shortCircuit: c.shortCircuit, capacitance: c.capacitance, stressed, overstressedCount: c.overstressedCount, pastSurgeCount: c.pastSurgeCount };
+  summary.worst = {
+    cellId,
+    shortCircuit: c.shortCircuit,
+    capacitance: c.capacitance,
+    stressed,
+    overstressedCount: c.overstressedCount,
+    pastSurgeCount: c.pastSurgeCount,
+  };
   summary.text = describeFailureMode(summary, healthyCapacitance, scope);
   return summary;
 }
 
 /** The verdict for one failure mode in plain words, from its summary and worst case. */
-function describeFailureMode(summary: FailureModeSummary, healthyCapacitance: number, scope: 'network' | 'bank'): string {
-  const lead = summary.mode === 'short' ? 'Survives one shorted cell' : 'Survives one open cell';
+function describeFailureMode(summary: FailureModeSummary, healthyCapacitance: number, scope: "network" | "bank"): string {
+  const lead = summary.mode === "short" ? "Survives one shorted cell" : "Survives one open cell";
   const w = summary.worst;
   if (!w) return `${lead}: yes — there is no cell to fail.`;
-  const fault = w.cellId === null ? (summary.mode === 'short' ? 'a shorted cell' : 'an open cell') : `${summary.mode === 'short' ? 'a short in' : 'an open in'} cell ${w.cellId}`;
+  const fault =
+    w.cellId === null
+      ? summary.mode === "short"
+        ? "a shorted cell"
+        : "an open cell"
+      : `${summary.mode === "short" ? "a short in" : "an open in"} cell ${w.cellId}`;
   if (w.shortCircuit) return `${lead}: no — ${fault} shorts the whole ${scope}.`;
   if (w.capacitance === 0) return `${lead}: no — ${fault} disconnects the whole ${scope}: no capacitance is left.`;
-  const context = w.cellId === null ? '' : `with cell ${w.cellId} ${summary.mode === 'short' ? 'shorted' : 'open'}, `;
+  const context = w.cellId === null ? "" : `with cell ${w.cellId} ${summary.mode === "short" ? "shorted" : "open"}, `;
   const capacitanceText =
-    summary.mode === 'open' && summary.capacitanceRange.min !== null
-      ? `; capacitance falls from ${fmt(healthyCapacitance, 'F')} to ${fmt(summary.capacitanceRange.min, 'F')} at worst`
-      : '';
+    summary.mode === "open" && summary.capacitanceRange.min !== null
+      ? `; capacitance falls from ${fmt(healthyCapacitance, "F")} to ${fmt(summary.capacitanceRange.min, "F")} at worst`
+      : "";
   const st = w.stressed;
-  if (!st) return `${lead}: ${summary.survives ? 'yes' : 'no'} — no remaining cell carries voltage${capacitanceText}.`;
-  const reach = `${st.cells} ${st.count === 1 ? 'reaches' : 'reach'}`;
-  const surgeText = st.surgeVoltage !== null ? `surge ${fmt(st.surgeVoltage, 'V')}` : `rated ${fmt(st.ratedVoltage, 'V')} and no surge voltage given`;
+  if (!st) return `${lead}: ${summary.survives ? "yes" : "no"} — no remaining cell carries voltage${capacitanceText}.`;
+  const reach = `${st.cells} ${st.count === 1 ? "reaches" : "reach"}`;
+  const surgeText = st.surgeVoltage !== null ? `surge ${fmt(st.surgeVoltage, "V")}` : `rated ${fmt(st.ratedVoltage, "V")} and no surge voltage given`;
   if (!summary.survives) {
-    const count = w.pastSurgeCount > 1 ? ` (${w.pastSurgeCount} cells past ${st.surgeVoltage !== null ? 'surge' : 'rating'})` : '';
-    return `${lead}: no — ${context}${reach} ${fmt(st.voltage, 'V')}, ${surgeText}${count}.`;
+    const count = w.pastSurgeCount > 1 ? ` (${w.pastSurgeCount} cells past ${st.surgeVoltage !== null ? "surge" : "rating"})` : "";
+    return `${lead}: no — ${context}${reach} ${fmt(st.voltage, "V")}, ${surgeText}${count}.`;
   }
   if (!summary.withinRating) {
-    const limits = st.surgeVoltage !== null ? `rated ${fmt(st.ratedVoltage, 'V')}, surge ${fmt(st.surgeVoltage, 'V')}` : `rated ${fmt(st.ratedVoltage, 'V')}`;
-    return `${lead}: yes, above rating — ${context}${reach} ${fmt(st.voltage, 'V')}, ${limits}${capacitanceText}.`;
+    const limits = st.surgeVoltage !== null ? `rated ${fmt(st.ratedVoltage, "V")}, surge ${fmt(st.surgeVoltage, "V")}` : `rated ${fmt(st.ratedVoltage, "V")}`;
+    return `${lead}: yes, above rating — ${context}${reach} ${fmt(st.voltage, "V")}, ${limits}${capacitanceText}.`;
   }
-  return `${lead}: yes — ${context}${reach} at most ${fmt(st.voltage, 'V')}, rated ${fmt(st.ratedVoltage, 'V')}${capacitanceText}.`;
+  return `${lead}: yes — ${context}${reach} at most ${fmt(st.voltage, "V")}, rated ${fmt(st.ratedVoltage, "V")}${capacitanceText}.`;
 }
 
 export interface OptionFailureInput {
@@ -724,7 +737,7 @@ function classesOf(cells: (OptionCellClass | null)[]): OptionCellClass[] {
 }
 
 function cellWord(count: number, what: string): string {
-  return `${count === 1 ? what.replace('cells', 'cell') : what}`;
+  return `${count === 1 ? what.replace("cells", "cell") : what}`;
 }
 
 /**
@@ -737,25 +750,27 @@ export function analyzeOptionFailures(input: OptionFailureInput): OptionFailureA
   const ns = input.seriesCount;
   const np = input.parallelCount;
   const m = input.matchingTolerance ?? 0;
-  if (!Number.isInteger(ns) || !Number.isInteger(np) || ns < 1 || np < 1) throw new RangeError('series and parallel counts must be whole numbers of at least 1');
-  if (!(cell.capacitance > 0) || !(cell.ratedVoltage > 0) || !(V > 0) || !Number.isFinite(V)) throw new RangeError('capacitance, rated voltage and applied voltage must be positive');
-  if (!(m >= 0 && m < 1)) throw new RangeError('matching tolerance must be at least 0 and below 1');
+  if (!Number.isInteger(ns) || !Number.isInteger(np) || ns < 1 || np < 1)
+    throw new RangeError("series and parallel counts must be whole numbers of at least 1");
+  if (!(cell.capacitance > 0) || !(cell.ratedVoltage > 0) || !(V > 0) || !Number.isFinite(V))
+    throw new RangeError("capacitance, rated voltage and applied voltage must be positive");
+  if (!(m >= 0 && m < 1)) throw new RangeError("matching tolerance must be at least 0 and below 1");
   const surgeVoltage = cell.surgeVoltage ?? null;
-  if (surgeVoltage !== null && !(surgeVoltage >= cell.ratedVoltage)) throw new RangeError('surge voltage must be at least the rated voltage');
+  if (surgeVoltage !== null && !(surgeVoltage >= cell.ratedVoltage)) throw new RangeError("surge voltage must be at least the rated voltage");
   const C = cell.capacitance;
   const r = (1 - m) / (1 + m);
   // one position low among `others` high, plus `extra` (in units of the low position's capacitance)
   const lowAmong = (others: number, extra = 0): number => V / (1 + others * r + extra);
-  const strings = topology === 'parallel-of-series-strings';
-  const unit = strings ? 'string' : 'group';
+  const strings = topology === "parallel-of-series-strings";
+  const unit = strings ? "string" : "group";
 
   const make = (mode: FailureMode): OptionFailureCase => {
     let capacitance: number | null;
     let classes: OptionCellClass[];
-    if (mode === 'short') {
+    if (mode === "short") {
       if (ns === 1) {
         capacitance = null;
-        classes = classesOf([{ cells: cellWord(np * ns - 1, 'the other cells'), count: np * ns - 1, voltage: 0 }]);
+        classes = classesOf([{ cells: cellWord(np * ns - 1, "the other cells"), count: np * ns - 1, voltage: 0 }]);
       } else if (strings) {
         capacitance = ((np - 1) * C) / ns + C / (ns - 1);
         classes = classesOf([
@@ -771,7 +786,7 @@ export function analyzeOptionFailures(input: OptionFailureInput): OptionFailureA
       }
     } else if (np === 1) {
       capacitance = 0;
-      classes = classesOf([{ cells: cellWord(ns - 1, 'the other cells'), count: ns - 1, voltage: 0 }]);
+      classes = classesOf([{ cells: cellWord(ns - 1, "the other cells"), count: ns - 1, voltage: 0 }]);
     } else if (strings) {
       capacitance = ((np - 1) * C) / ns;
       classes = classesOf([
@@ -800,13 +815,13 @@ export function analyzeOptionFailures(input: OptionFailureInput): OptionFailureA
   };
 
   const healthyCapacitance = (np * C) / ns;
-  const cases = { short: make('short'), open: make('open') };
+  const cases = { short: make("short"), open: make("open") };
   const summarize = (c: OptionFailureCase): FailureModeSummary => {
     const summary = summarizeCases(c.mode, [c]);
     let top: OptionCellClass | null = null;
     for (const k of c.classes) if (k.voltage > 0 && (!top || k.voltage > top.voltage)) top = k;
     const stressed = top ? { cells: top.cells, count: top.count, voltage: top.voltage, ratedVoltage: cell.ratedVoltage, surgeVoltage } : null;
-    return completeSummary(summary, c, null, stressed, healthyCapacitance, 'bank');
+    return completeSummary(summary, c, null, stressed, healthyCapacitance, "bank");
   };
   return {
     appliedVoltage: V,

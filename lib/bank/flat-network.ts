@@ -1,4 +1,4 @@
-import type { NetworkCell, NetworkNode } from './types';
+import type { NetworkCell, NetworkNode } from "./types";
 
 export const FLAT_CELL = 0;
 export const FLAT_SERIES = 1;
@@ -32,7 +32,7 @@ export interface FlatNetwork {
 }
 
 function isPositiveNumber(x: unknown): x is number {
-  return typeof x === 'number' && x > 0 && Number.isFinite(x);
+  return typeof x === "number" && x > 0 && Number.isFinite(x);
 }
 
 /**
@@ -50,7 +50,7 @@ export function flattenNetwork(network: NetworkNode): FlatNetwork {
     const index = nodes.length;
     nodes.push(node);
     parents.push(stackParent.pop() as number);
-    if (node.kind === 'cell') continue;
+    if (node.kind === "cell") continue;
     const children = node.children;
     if (!Array.isArray(children) || children.length === 0) {
       throw new RangeError(`a ${String(node.kind)} group must have at least one child`);
@@ -76,7 +76,7 @@ export function flattenNetwork(network: NetworkNode): FlatNetwork {
     const p = parent[i] as number;
     if (p >= 0) depth[i] = (depth[p] as number) + 1;
     cellStart[i] = cells.length;
-    if (node.kind === 'cell') {
+    if (node.kind === "cell") {
       if (!isPositiveNumber(node.capacitance)) throw new RangeError(`cell ${node.id}: capacitance must be a positive number`);
       if (!isPositiveNumber(node.ratedVoltage)) throw new RangeError(`cell ${node.id}: rated voltage must be a positive number`);
       if (node.surgeVoltage !== undefined && !(isPositiveNumber(node.surgeVoltage) && node.surgeVoltage >= node.ratedVoltage)) {
@@ -87,7 +87,7 @@ export function flattenNetwork(network: NetworkNode): FlatNetwork {
       cells.push(node);
       cellNodes.push(i);
     } else {
-      kind[i] = node.kind === 'series' ? FLAT_SERIES : FLAT_PARALLEL;
+      kind[i] = node.kind === "series" ? FLAT_SERIES : FLAT_PARALLEL;
     }
   }
   const parentSeries = new Uint8Array(n);

@@ -1,5 +1,5 @@
-import { formatQuantity } from '../quantities';
-import type { Technology, Topology } from './types';
+import { formatQuantity } from "../quantities";
+import type { Technology, Topology } from "./types";
 
 /**
  * Temperature and expected life of a cell in service (DESIGN §3.5).
@@ -98,7 +98,7 @@ export interface LifeEstimate {
 }
 
 function finite(x: number, what: string, min = -Infinity): void {
-  if (!(Number.isFinite(x) && x >= min)) throw new RangeError(`${what} must be a number${min > -Infinity ? ` of at least ${min}` : ''}`);
+  if (!(Number.isFinite(x) && x >= min)) throw new RangeError(`${what} must be a number${min > -Infinity ? ` of at least ${min}` : ""}`);
 }
 
 /**
@@ -110,19 +110,19 @@ export function estimateCellLife(input: LifeInput): LifeEstimate {
   const { cell, ambientTemperature: ambient, cellVoltage } = input;
   const settings = input.settings ?? DEFAULT_LIFE_SETTINGS;
   const current = input.cellRmsCurrent ?? 0;
-  finite(ambient, 'ambient temperature', -273.15);
-  finite(cellVoltage, 'cell voltage', 0);
-  finite(current, 'rms current', 0);
-  finite(cell.esr, 'ESR', 0);
-  finite(cell.thermalResistance, 'thermal resistance', 0);
-  finite(cell.maxTemperature, 'maximum temperature', -273.15);
-  if (!(cell.ratedVoltage > 0)) throw new RangeError('rated voltage must be positive');
-  if (!(cell.ratedLifeHours > 0) || !Number.isFinite(cell.ratedLifeHours)) throw new RangeError('rated life must be a positive number of hours');
+  finite(ambient, "ambient temperature", -273.15);
+  finite(cellVoltage, "cell voltage", 0);
+  finite(current, "rms current", 0);
+  finite(cell.esr, "ESR", 0);
+  finite(cell.thermalResistance, "thermal resistance", 0);
+  finite(cell.maxTemperature, "maximum temperature", -273.15);
+  if (!(cell.ratedVoltage > 0)) throw new RangeError("rated voltage must be positive");
+  if (!(cell.ratedLifeHours > 0) || !Number.isFinite(cell.ratedLifeHours)) throw new RangeError("rated life must be a positive number of hours");
   const step = settings.voltageDoublingStep[cell.technology];
   if (!(step > 0) || !Number.isFinite(step)) throw new RangeError(`the voltage step per doubling for ${cell.technology} must be positive`);
-  if (!(settings.maxLifeYears > 0)) throw new RangeError('the life ceiling must be positive');
+  if (!(settings.maxLifeYears > 0)) throw new RangeError("the life ceiling must be positive");
   const ratedTemperature = cell.ratedTemperature ?? cell.maxTemperature;
-  finite(ratedTemperature, 'rated temperature', -273.15);
+  finite(ratedTemperature, "rated temperature", -273.15);
 
   const dissipation = current * current * cell.esr;
   const selfHeating = dissipation * cell.thermalResistance;
@@ -133,18 +133,18 @@ export function estimateCellLife(input: LifeInput): LifeEstimate {
   const degrees = (x: number): string => `${Number(x.toFixed(1))} °C`;
 
   const assumptions = [
-    `Self-heating ${f(current, 'A')}² × ${f(cell.esr, 'ohm')} × ${Number(cell.thermalResistance.toPrecision(3))} K/W = ${Number(selfHeating.toPrecision(3))} K over a ${degrees(ambient)} ambient.`,
+    `Self-heating ${f(current, "A")}² × ${f(cell.esr, "ohm")} × ${Number(cell.thermalResistance.toPrecision(3))} K/W = ${Number(selfHeating.toPrecision(3))} K over a ${degrees(ambient)} ambient.`,
     `Life doubles for each 10 °C below the rated ${degrees(ratedTemperature)} (common practice).`,
     `Life doubles for each ${Number((step * 100).toPrecision(3))} % of the rated voltage below it (${cell.technology}; the shop's setting).`,
-    `Rated life ${Math.round(cell.ratedLifeHours)} h at ${degrees(ratedTemperature)} and ${f(cell.ratedVoltage, 'V')}; an engineering estimate, the maker's life data decides.`,
+    `Rated life ${Math.round(cell.ratedLifeHours)} h at ${degrees(ratedTemperature)} and ${f(cell.ratedVoltage, "V")}; an engineering estimate, the maker's life data decides.`,
   ];
-  if (cellVoltage > cell.ratedVoltage) assumptions.push(`The cell works above its rated voltage (${f(cellVoltage, 'V')}): its life is shortened accordingly.`);
+  if (cellVoltage > cell.ratedVoltage) assumptions.push(`The cell works above its rated voltage (${f(cellVoltage, "V")}): its life is shortened accordingly.`);
 
-  let cold: LifeEstimate['cold'] = null;
+  let cold: LifeEstimate["cold"] = null;
   if (cell.coldFactors && (cell.coldFactors.capacitance !== undefined || cell.coldFactors.esr !== undefined)) {
     const { capacitance: kc, esr: kr } = cell.coldFactors;
-    if (kc !== undefined) finite(kc, 'capacitance factor at cold', 0);
-    if (kr !== undefined) finite(kr, 'ESR factor at cold', 0);
+    if (kc !== undefined) finite(kc, "capacitance factor at cold", 0);
+    if (kr !== undefined) finite(kr, "ESR factor at cold", 0);
     cold = {
       temperature: cell.minTemperature ?? null,
       capacitance: kc !== undefined && cell.capacitance !== undefined ? cell.capacitance * kc : null,
@@ -208,8 +208,9 @@ export interface OptionLifeEstimate extends LifeEstimate {
 export function estimateOptionLife(input: OptionLifeInput): OptionLifeEstimate {
   const ns = input.seriesCount;
   const np = input.parallelCount;
-  if (!Number.isInteger(ns) || !Number.isInteger(np) || ns < 1 || np < 1) throw new RangeError('series and parallel counts must be whole numbers of at least 1');
-  finite(input.workingVoltage, 'working voltage', 0);
+  if (!Number.isInteger(ns) || !Number.isInteger(np) || ns < 1 || np < 1)
+    throw new RangeError("series and parallel counts must be whole numbers of at least 1");
+  finite(input.workingVoltage, "working voltage", 0);
   const cellVoltage = input.workingVoltage / ns;
   const cellRmsCurrent = (input.rmsCurrent ?? 0) / np;
   const estimate = estimateCellLife({
@@ -220,7 +221,7 @@ export function estimateOptionLife(input: OptionLifeInput): OptionLifeEstimate {
     ...(input.settings ? { settings: input.settings } : {}),
   });
   estimate.assumptions.unshift(
-    `Each cell works at ${formatQuantity(cellVoltage, 'V')} and carries ${formatQuantity(cellRmsCurrent, 'A')} rms (${input.topology === 'parallel-of-series-strings' ? 'strings' : 'parallel cells'} share the current equally).`,
+    `Each cell works at ${formatQuantity(cellVoltage, "V")} and carries ${formatQuantity(cellRmsCurrent, "A")} rms (${input.topology === "parallel-of-series-strings" ? "strings" : "parallel cells"} share the current equally).`,
   );
   const bankCold = estimate.cold
     ? {

@@ -1,5 +1,5 @@
-import { evaluateFlat, flattenNetwork, FLAT_SERIES } from './flat-network';
-import type { NetworkCell, NetworkNode } from './types';
+import { evaluateFlat, flattenNetwork, FLAT_SERIES } from "./flat-network";
+import type { NetworkCell, NetworkNode } from "./types";
 
 // a module-local copy for the per-node loop: bundlers read imported bindings through accessors
 const SERIES = FLAT_SERIES;

@@ -1,6 +1,6 @@
-import type { ArrangementOption } from './arrangement-search';
-import { constantCurrentDischarge, constantPowerDischarge, resistiveDischarge, type DischargePoint } from './discharge';
-import type { Requirement } from './types';
+import type { ArrangementOption } from "./arrangement-search";
+import { constantCurrentDischarge, constantPowerDischarge, resistiveDischarge, type DischargePoint } from "./discharge";
+import type { Requirement } from "./types";
 
 /**
  * The curves drawn beside an option, from the option's own figures (the charts compute no physics
@@ -9,7 +9,7 @@ import type { Requirement } from './types';
  */
 
 /** What the curves read of an option. */
-export type CurveOption = Pick<ArrangementOption, 'seriesCount' | 'worstCellVoltage' | 'capacitance' | 'esr' | 'discharge'>;
+export type CurveOption = Pick<ArrangementOption, "seriesCount" | "worstCellVoltage" | "capacitance" | "esr" | "discharge">;
 
 export interface ChargingVoltages {
   /** the weakest position (lowest capacitance within the matching tolerance): V_w */
@@ -32,7 +32,7 @@ export function chargingVoltages(option: CurveOption, maxVoltage: number): Charg
 }
 
 export interface DischargeCurve {
-  kind: 'constant-power' | 'constant-current' | 'resistive';
+  kind: "constant-power" | "constant-current" | "resistive";
   points: DischargePoint[];
   /** time to the curve's end voltage (s) */
   seconds: number;
@@ -57,15 +57,15 @@ export function dischargeCurve(option: CurveOption, requirement: Requirement, sa
   const esr = option.esr.endOfLife;
   if (requirement.backup) {
     const r = constantPowerDischarge({ capacitance: c, esr, v0, power: requirement.backup.power, vEnd, points: CURVE_POINTS });
-    return { kind: 'constant-power', points: r.points, seconds: r.seconds, requiredSeconds: requirement.backup.seconds };
+    return { kind: "constant-power", points: r.points, seconds: r.seconds, requiredSeconds: requirement.backup.seconds };
   }
   if (requirement.peakCurrent) {
     const r = constantCurrentDischarge({ capacitance: c, esr, v0, current: requirement.peakCurrent.current, vEnd, points: CURVE_POINTS });
-    return { kind: 'constant-current', points: r.points, seconds: r.seconds, requiredSeconds: null };
+    return { kind: "constant-current", points: r.points, seconds: r.seconds, requiredSeconds: null };
   }
   const { resistance, capacitance } = option.discharge;
   if (resistance === null || !(resistance > 0)) return null;
   const stop = Math.min(v0 / 4, vEnd > 0 ? 0.8 * vEnd : v0 / 4, 0.8 * safeVoltage);
   const d = resistiveDischarge({ capacitance, resistance, v0, vEnd: stop, points: CURVE_POINTS });
-  return { kind: 'resistive', points: d.points, seconds: d.seconds, requiredSeconds: null };
+  return { kind: "resistive", points: d.points, seconds: d.seconds, requiredSeconds: null };
 }

@@ -1,9 +1,9 @@
-import { MAX_CELLS_PER_BANK } from './bounds';
-import type { NetworkCell, NetworkNode, Topology } from './types';
+import { MAX_CELLS_PER_BANK } from "./bounds";
+import type { NetworkCell, NetworkNode, Topology } from "./types";
 
 export interface OptionNetworkInput {
   /** the cell's figures; every cell of the bank gets them */
-  cell: Omit<NetworkCell, 'kind' | 'id'>;
+  cell: Omit<NetworkCell, "kind" | "id">;
   topology: Topology;
   seriesCount: number;
   parallelCount: number;
@@ -17,22 +17,23 @@ export interface OptionNetworkInput {
  */
 export function optionNetwork(input: OptionNetworkInput): NetworkNode {
   const { cell, topology, seriesCount: ns, parallelCount: np } = input;
-  if (!Number.isInteger(ns) || !Number.isInteger(np) || ns < 1 || np < 1) throw new RangeError('series and parallel counts must be whole numbers of at least 1');
+  if (!Number.isInteger(ns) || !Number.isInteger(np) || ns < 1 || np < 1)
+    throw new RangeError("series and parallel counts must be whole numbers of at least 1");
   if (ns * np > MAX_CELLS_PER_BANK) throw new RangeError(`a bank may hold at most ${MAX_CELLS_PER_BANK} cells`);
-  if (topology === 'series-of-parallel-groups') {
+  if (topology === "series-of-parallel-groups") {
     return {
-      kind: 'series',
+      kind: "series",
       children: Array.from({ length: ns }, (_, s) => ({
-        kind: 'parallel' as const,
-        children: Array.from({ length: np }, (_, p): NetworkNode => ({ ...cell, kind: 'cell', id: `g${s + 1}-c${p + 1}` })),
+        kind: "parallel" as const,
+        children: Array.from({ length: np }, (_, p): NetworkNode => ({ ...cell, kind: "cell", id: `g${s + 1}-c${p + 1}` })),
       })),
     };
   }
   return {
-    kind: 'parallel',
+    kind: "parallel",
     children: Array.from({ length: np }, (_, p) => ({
-      kind: 'series' as const,
-      children: Array.from({ length: ns }, (_, s): NetworkNode => ({ ...cell, kind: 'cell', id: `s${p + 1}-c${s + 1}` })),
+      kind: "series" as const,
+      children: Array.from({ length: ns }, (_, s): NetworkNode => ({ ...cell, kind: "cell", id: `s${p + 1}-c${s + 1}` })),
     })),
   };
 }

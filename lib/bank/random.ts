@@ -35,7 +35,7 @@ export class Xoshiro128 {
 
   /** from four 32-bit state words, not all zero */
   constructor(state: readonly [number, number, number, number]) {
-    if (state.every((w) => (w | 0) === 0)) throw new RangeError('the state must not be all zero');
+    if (state.every((w) => (w | 0) === 0)) throw new RangeError("the state must not be all zero");
     [this.s0, this.s1, this.s2, this.s3] = state.map((w) => w | 0) as [number, number, number, number];
   }
 
@@ -44,7 +44,7 @@ export class Xoshiro128 {
    * its high 32 bits. Any seed gives a valid (non-zero) state.
    */
   static fromSeed(seed: number): Xoshiro128 {
-    if (!Number.isInteger(seed) || seed < 0 || seed > 0xffffffff) throw new RangeError('seed must be a whole number from 0 to 4294967295');
+    if (!Number.isInteger(seed) || seed < 0 || seed > 0xffffffff) throw new RangeError("seed must be a whole number from 0 to 4294967295");
     const [a, b] = splitMix64(BigInt(seed), 2) as [bigint, bigint];
     const word = (x: bigint, shift: bigint) => Number((x >> shift) & 0xffffffffn);
     return new Xoshiro128([word(a, 0n), word(a, 32n), word(b, 0n), word(b, 32n)]);

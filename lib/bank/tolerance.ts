@@ -1,11 +1,11 @@
-import { evaluateFlat, flattenNetwork, FLAT_CELL, FLAT_SERIES, type FlatNetwork } from './flat-network';
-import { normalCdf, normalQuantile, Xoshiro128 } from './random';
+import { evaluateFlat, flattenNetwork, FLAT_CELL, FLAT_SERIES, type FlatNetwork } from "./flat-network";
+import { normalCdf, normalQuantile, Xoshiro128 } from "./random";
 
 // Module-local copies for the per-sample loops: bundlers read imported bindings through accessors.
 const CELL = FLAT_CELL;
 const SERIES = FLAT_SERIES;
 const quantile = normalQuantile;
-import type { NetworkNode } from './types';
+import type { NetworkNode } from "./types";
 
 /**
  * Tolerance yield (DESIGN §3.5): a seeded Monte-Carlo over the bank. Each sample draws every
@@ -22,7 +22,7 @@ import type { NetworkNode } from './types';
  * normal keeps its centre and σ and is truncated there too.
  */
 
-export type ToleranceDistribution = 'uniform' | 'normal';
+export type ToleranceDistribution = "uniform" | "normal";
 
 /** Most samples in one run. */
 export const MAX_TOLERANCE_SAMPLES = 100_000;
@@ -118,18 +118,18 @@ function prepareSpread(tolerances: readonly { minus: number; plus: number }[], d
     pLo: new Float64Array(k),
     pSpan: new Float64Array(k),
   };
-  if (matching !== undefined) checkFraction(matching, 'matching tolerance', 1);
+  if (matching !== undefined) checkFraction(matching, "matching tolerance", 1);
   // Φ is integrated numerically: once per distinct band, not once per cell
   const cache = new Map<string, [number, number]>();
   for (let x = 0; x < k; x++) {
     const t = tolerances[x] as { minus: number; plus: number };
-    checkFraction(t.minus, 'toleranceMinus', 0.99);
-    checkFraction(t.plus, 'tolerancePlus', 1);
+    checkFraction(t.minus, "toleranceMinus", 0.99);
+    checkFraction(t.plus, "tolerancePlus", 1);
     const lo = -Math.min(t.minus, matching ?? Infinity);
     const hi = Math.min(t.plus, matching ?? Infinity);
     spread.lo[x] = lo;
     spread.hi[x] = hi;
-    if (distribution === 'normal' && hi > lo) {
+    if (distribution === "normal" && hi > lo) {
       const mu = (t.plus - t.minus) / 2;
       const sigma = (t.plus + t.minus) / 6;
       spread.mu[x] = mu;
@@ -188,7 +188,7 @@ export function sampleCellDeviations(
   const out = new Float64Array(count);
   for (let i = 0; i < count; i++) {
     rng.fillOpenUnit(u);
-    if (opts.distribution === 'uniform') drawUniform(spread, u, d);
+    if (opts.distribution === "uniform") drawUniform(spread, u, d);
     else drawNormal(spread, u, d);
     out[i] = d[0] as number;
   }
@@ -198,7 +198,7 @@ export function sampleCellDeviations(
 /** Mean, sample standard deviation and percentiles; sorts `values` in place. */
 export function summarizeSamples(values: Float64Array): DistributionSummary {
   const n = values.length;
-  if (n === 0) throw new RangeError('no samples to summarize');
+  if (n === 0) throw new RangeError("no samples to summarize");
   let sum = 0;
   for (let i = 0; i < n; i++) sum += values[i] as number;
   const mean = sum / n;
@@ -316,7 +316,7 @@ function sampleAll(
   const { cap, dev, flags } = scratch;
   for (let s = 0; s < capSamples.length; s++) {
     rng.fillOpenUnit(u);
-    if (distribution === 'uniform') drawUniform(spread, u, dev);
+    if (distribution === "uniform") drawUniform(spread, u, dev);
     else drawNormal(spread, u, dev);
     const f = evaluateSample(flat, scratch);
     const c = cap[0] as number;
@@ -336,14 +336,14 @@ function sampleAll(
  */
 export function runToleranceYield(input: ToleranceInput): ToleranceResult {
   const { appliedVoltage: V, samples: S, seed, distribution } = input;
-  if (!(V > 0) || !Number.isFinite(V)) throw new RangeError('applied voltage must be a positive number');
+  if (!(V > 0) || !Number.isFinite(V)) throw new RangeError("applied voltage must be a positive number");
   if (!Number.isInteger(S) || S < 1 || S > MAX_TOLERANCE_SAMPLES) throw new RangeError(`samples must be a whole number from 1 to ${MAX_TOLERANCE_SAMPLES}`);
   const bins = input.bins ?? DEFAULT_HISTOGRAM_BINS;
   if (!Number.isInteger(bins) || bins < 1 || bins > MAX_HISTOGRAM_BINS) throw new RangeError(`bins must be a whole number from 1 to ${MAX_HISTOGRAM_BINS}`);
   const flat: FlatNetwork = flattenNetwork(input.network);
   if (S * flat.size > MAX_TOLERANCE_WORK) {
     throw new RangeError(
-      `samples × network size (cells and groups) must be at most ${MAX_TOLERANCE_WORK.toLocaleString('en')}; here ${S.toLocaleString('en')} × ${flat.size.toLocaleString('en')}`,
+      `samples × network size (cells and groups) must be at most ${MAX_TOLERANCE_WORK.toLocaleString("en")}; here ${S.toLocaleString("en")} × ${flat.size.toLocaleString("en")}`,
     );
   }
   const rng = Xoshiro128.fromSeed(seed);
@@ -398,23 +398,27 @@ export function runToleranceYield(input: ToleranceInput): ToleranceResult {
       capacitance: histogram(capSamples, bins, capacitance.min, capacitance.max),
       maxCellVoltage: histogram(voltSamples, bins, maxCellVoltage.min, maxCellVoltage.max),
     },
-    shares: { withinSurge: tally.withinSurge / S, withinRating: tally.withinRating / S, meetingRequirement: requiredCapacitance === null ? null : tally.meeting / S },
+    shares: {
+      withinSurge: tally.withinSurge / S,
+      withinRating: tally.withinRating / S,
+      meetingRequirement: requiredCapacitance === null ? null : tally.meeting / S,
+    },
     requiredCapacitance,
   };
 }
 
 /** The capacitance that meets a capacitance and/or usable-energy requirement at voltage V. */
-function requiredCapacitanceOf(req: ToleranceInput['requirement'], V: number): number | null {
+function requiredCapacitanceOf(req: ToleranceInput["requirement"], V: number): number | null {
   if (!req || (req.capacitance === undefined && req.energy === undefined)) return null;
   let need = 0;
   if (req.capacitance !== undefined) {
-    if (!(req.capacitance > 0)) throw new RangeError('required capacitance must be positive');
+    if (!(req.capacitance > 0)) throw new RangeError("required capacitance must be positive");
     need = req.capacitance;
   }
   if (req.energy !== undefined) {
     const vMin = req.minVoltage ?? 0;
-    if (!(req.energy > 0)) throw new RangeError('required energy must be positive');
-    if (!(vMin >= 0 && vMin < V)) throw new RangeError('minimum voltage must be at least 0 and below the applied voltage');
+    if (!(req.energy > 0)) throw new RangeError("required energy must be positive");
+    if (!(vMin >= 0 && vMin < V)) throw new RangeError("minimum voltage must be at least 0 and below the applied voltage");
     need = Math.max(need, (2 * req.energy) / (V * V - vMin * vMin));
   }
   return need;

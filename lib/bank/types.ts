@@ -1,11 +1,11 @@
 /** Engine types. Physics in SI units as plain numbers (F, V, Ω, A, J, W, s, kg, m³). */
 
-export const TECHNOLOGIES = ['edlc', 'hybrid', 'electrolytic', 'film'] as const;
+export const TECHNOLOGIES = ["edlc", "hybrid", "electrolytic", "film"] as const;
 export type Technology = (typeof TECHNOLOGIES)[number];
 
 export type NetworkNode =
   | {
-      kind: 'cell';
+      kind: "cell";
       id: string;
       capacitance: number;
       ratedVoltage: number;
@@ -17,10 +17,10 @@ export type NetworkNode =
       toleranceMinus?: number;
       tolerancePlus?: number;
     }
-  | { kind: 'series' | 'parallel'; children: NetworkNode[] };
+  | { kind: "series" | "parallel"; children: NetworkNode[] };
 
 /** A cell of a network tree. */
-export type NetworkCell = Extract<NetworkNode, { kind: 'cell' }>;
+export type NetworkCell = Extract<NetworkNode, { kind: "cell" }>;
 
 /** A catalog cell as the engine sees it. */
 export interface EngineCell {
@@ -57,7 +57,7 @@ export interface BalancingBoard {
   leadTimeDays: number;
 }
 
-export type ResistorSeries = 'E12' | 'E24' | 'E48' | 'E96';
+export type ResistorSeries = "E12" | "E24" | "E48" | "E96";
 
 export interface DesignFactors {
   /** end-of-life capacitance fade f_C (fraction) */
@@ -83,7 +83,7 @@ export const DEFAULT_DESIGN_FACTORS: DesignFactors = {
   voltageDerating: 1.0,
   matchingTolerance: 0.05,
   balancingFactor: 10,
-  resistorSeries: 'E24',
+  resistorSeries: "E24",
   safeVoltage: 60,
   safeTime: 5,
 };
@@ -104,31 +104,25 @@ export interface Requirement {
   technology?: Technology;
 }
 
-export const TOPOLOGIES = ['series-of-parallel-groups', 'parallel-of-series-strings'] as const;
+export const TOPOLOGIES = ["series-of-parallel-groups", "parallel-of-series-strings"] as const;
 export type Topology = (typeof TOPOLOGIES)[number];
 
 /**
  * Bounding-box volume of a cell in m³. Cylinders pack on a square grid, so each takes d²·h
  * (common practice for bank layout estimates).
  */
-export function cellVolume(input: {
-  shape: 'cylinder' | 'box';
-  diameterMm?: number;
-  lengthMm?: number;
-  widthMm?: number;
-  heightMm: number;
-}): number {
+export function cellVolume(input: { shape: "cylinder" | "box"; diameterMm?: number; lengthMm?: number; widthMm?: number; heightMm: number }): number {
   const mm3ToM3 = 1e-9;
-  if (input.shape === 'cylinder') {
+  if (input.shape === "cylinder") {
     const d = input.diameterMm;
     if (d === undefined || !(d > 0) || !(input.heightMm > 0)) {
-      throw new RangeError('a cylinder needs a positive diameter and height');
+      throw new RangeError("a cylinder needs a positive diameter and height");
     }
     return d * d * input.heightMm * mm3ToM3;
   }
   const { lengthMm: l, widthMm: w, heightMm: h } = input;
   if (l === undefined || w === undefined || !(l > 0) || !(w > 0) || !(h > 0)) {
-    throw new RangeError('a box needs a positive length, width and height');
+    throw new RangeError("a box needs a positive length, width and height");
   }
   return l * w * h * mm3ToM3;
 }

@@ -29,5 +29,7 @@ export const limits = {
 
 /** 429 with Retry-After, for route handlers. */
 export function tooManyRequests(decision: Extract<RateDecision, { allowed: false }>): Response {
-  return jsonError(429, `Too many requests; try again in ${decision.retryAfterSeconds} s.`, undefined, { headers: { "retry-after": String(decision.retryAfterSeconds) } });
+  return jsonError(429, `Too many requests; try again in ${decision.retryAfterSeconds} s.`, undefined, {
+    headers: { "retry-after": String(decision.retryAfterSeconds) },
+  });
 }

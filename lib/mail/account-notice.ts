@@ -7,7 +7,7 @@ import { insertOutboxMessage } from "@/db/queries/outbox";
 import type { EmailOutboxRow } from "@/db/schema";
 import { inTransaction } from "@/db/tx";
 import { AccountExistsEmail, accountExistsSubject, type AccountExistsEmailProps } from "@/emails/account-exists";
-import { accountKey } from "@/lib/auth/sign-in-guard";
+import { accountKey } from "@/db/queries/sign-in-failures";
 import { mailSettings } from "./config";
 import { outboxMessageId, senderDomain } from "./format";
 import { dispatchOutbox } from "./outbox";
@@ -31,13 +31,15 @@ async function renderNotice(props: AccountExistsEmailProps) {
  */
 export async function enqueueAccountExists({ shopId, shopName, email }: { shopId: string; shopName: string; email: string }): Promise<void> {
   const day = new Date().toISOString().slice(0, 10);
-  await inTransaction((tx) => insertOutboxMessage(tx, shopId, {
-    kind: ACCOUNT_EXISTS_KIND,
-    dedupeKey: `${ACCOUNT_EXISTS_KIND}:${accountKey(email)}:${day}`,
-    toEmail: email,
-    subject: accountExistsSubject({ attempt: { kind: "join", shopName } }),
-    quoteRevisionId: null,
-  }));
+  await inTransaction((tx) =>
+    insertOutboxMessage(tx, shopId, {
+      kind: ACCOUNT_EXISTS_KIND,
+      dedupeKey: `${ACCOUNT_EXISTS_KIND}:${accountKey(email)}:${day}`,
+      toEmail: email,
+      subject: accountExistsSubject({ attempt: { kind: "join", shopName } }),
+      quoteRevisionId: null,
+    }),
+  );
   await dispatchOutbox();
 }
 
@@ -64,5 +66,7 @@ export function sendOpenShopNotice({ email, shopName }: { email: string; shopNam
     const settings = mailSettings();
     const { html, text, subject } = await renderNotice({ email, attempt: { kind: "open-shop", shopName }, signInUrl: signInUrl(settings.appUrl, "/my-shops") });
     await sendMessage({ to: email, subject, html, text, messageId: `<account-${randomUUID()}@${senderDomain(settings.from)}>` });
-  })().catch((error) => console.error(`[mail] the account notice for an open-shop attempt was not sent: ${error instanceof Error ? error.message : String(error)}`));
+  })().catch((error) =>
+    console.error(`[mail] the account notice for an open-shop attempt was not sent: ${error instanceof Error ? error.message : String(error)}`),
+  );
 }

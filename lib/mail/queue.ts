@@ -30,7 +30,13 @@ async function startBoss(): Promise<PgBoss> {
 /** Creates the queues, or brings their retry policy up to the current settings. */
 export async function ensureQueues(boss: PgBoss): Promise<void> {
   const s = mailSettings();
-  const options = { name: MAIL_QUEUE, retryLimit: s.retryLimit, retryDelay: s.retryDelaySeconds, retryBackoff: s.retryBackoff, expireInSeconds: s.expireInSeconds };
+  const options = {
+    name: MAIL_QUEUE,
+    retryLimit: s.retryLimit,
+    retryDelay: s.retryDelaySeconds,
+    retryBackoff: s.retryBackoff,
+    expireInSeconds: s.expireInSeconds,
+  };
   await boss.createQueue(MAIL_QUEUE, options);
   await boss.updateQueue(MAIL_QUEUE, options);
   await boss.createQueue(SWEEP_QUEUE, { name: SWEEP_QUEUE, retryLimit: 0, expireInSeconds: 60 });

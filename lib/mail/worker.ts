@@ -65,7 +65,9 @@ export async function startMailWorker({ retryOnFailure = true }: { retryOnFailur
     w.running = true;
     w.retryDelayMs = 2000;
     const s = mailSettings();
-    console.info(`[mail] e-mail worker started (SMTP ${s.smtpHost}:${s.smtpPort}, up to ${s.retryLimit} retries from ${s.retryDelaySeconds} s${s.retryBackoff ? ", doubling" : ""})`);
+    console.info(
+      `[mail] e-mail worker started (SMTP ${s.smtpHost}:${s.smtpPort}, up to ${s.retryLimit} retries from ${s.retryDelaySeconds} s${s.retryBackoff ? ", doubling" : ""})`,
+    );
     return true;
   } catch (error) {
     await stopBoss().catch(() => undefined);

@@ -1,4 +1,4 @@
-import { Dec, Decimal, parseDecimal } from './decimal';
+import { Dec, Decimal, parseDecimal } from "./decimal";
 
 /**
  * Minor units (decimal places) of the current currencies, from ISO 4217 list one
@@ -8,33 +8,155 @@ import { Dec, Decimal, parseDecimal } from './decimal';
  * Withdrawn codes (e.g. HRK, BGN, ANG, SLL, CUC) are left out as well.
  */
 const MINOR_UNITS_BY_DIGITS: Record<0 | 2 | 3 | 4, readonly string[]> = {
-  0: [
-    'BIF', 'CLP', 'DJF', 'GNF', 'ISK', 'JPY', 'KMF', 'KRW', 'PYG', 'RWF', 'UGX', 'UYI', 'VND',
-    'VUV', 'XAF', 'XOF', 'XPF',
-  ],
+  0: ["BIF", "CLP", "DJF", "GNF", "ISK", "JPY", "KMF", "KRW", "PYG", "RWF", "UGX", "UYI", "VND", "VUV", "XAF", "XOF", "XPF"],
   2: [
-    'AED', 'AFN', 'ALL', 'AMD', 'AOA', 'ARS', 'AUD', 'AWG', 'AZN', 'BAM', 'BBD', 'BDT', 'BMD',
-    'BND', 'BOB', 'BOV', 'BRL', 'BSD', 'BTN', 'BWP', 'BYN', 'BZD', 'CAD', 'CDF', 'CHE', 'CHF',
-    'CHW', 'CNY', 'COP', 'COU', 'CRC', 'CUP', 'CVE', 'CZK', 'DKK', 'DOP', 'DZD', 'EGP', 'ERN',
-    'ETB', 'EUR', 'FJD', 'FKP', 'GBP', 'GEL', 'GHS', 'GIP', 'GMD', 'GTQ', 'GYD', 'HKD', 'HNL',
-    'HTG', 'HUF', 'IDR', 'ILS', 'INR', 'IRR', 'JMD', 'KES', 'KGS', 'KHR', 'KPW', 'KYD', 'KZT',
-    'LAK', 'LBP', 'LKR', 'LRD', 'LSL', 'MAD', 'MDL', 'MGA', 'MKD', 'MMK', 'MNT', 'MOP', 'MRU',
-    'MUR', 'MVR', 'MWK', 'MXN', 'MXV', 'MYR', 'MZN', 'NAD', 'NGN', 'NIO', 'NOK', 'NPR', 'NZD',
-    'PAB', 'PEN', 'PGK', 'PHP', 'PKR', 'PLN', 'QAR', 'RON', 'RSD', 'RUB', 'SAR', 'SBD', 'SCR',
-    'SDG', 'SEK', 'SGD', 'SHP', 'SLE', 'SOS', 'SRD', 'SSP', 'STN', 'SVC', 'SYP', 'SZL', 'THB',
-    'TJS', 'TMT', 'TOP', 'TRY', 'TTD', 'TWD', 'TZS', 'UAH', 'USD', 'USN', 'UYU', 'UZS', 'VED',
-    'VES', 'WST', 'XCD', 'XCG', 'YER', 'ZAR', 'ZMW', 'ZWG',
+    "AED",
+    "AFN",
+    "ALL",
+    "AMD",
+    "AOA",
+    "ARS",
+    "AUD",
+    "AWG",
+    "AZN",
+    "BAM",
+    "BBD",
+    "BDT",
+    "BMD",
+    "BND",
+    "BOB",
+    "BOV",
+    "BRL",
+    "BSD",
+    "BTN",
+    "BWP",
+    "BYN",
+    "BZD",
+    "CAD",
+    "CDF",
+    "CHE",
+    "CHF",
+    "CHW",
+    "CNY",
+    "COP",
+    "COU",
+    "CRC",
+    "CUP",
+    "CVE",
+    "CZK",
+    "DKK",
+    "DOP",
+    "DZD",
+    "EGP",
+    "ERN",
+    "ETB",
+    "EUR",
+    "FJD",
+    "FKP",
+    "GBP",
+    "GEL",
+    "GHS",
+    "GIP",
+    "GMD",
+    "GTQ",
+    "GYD",
+    "HKD",
+    "HNL",
+    "HTG",
+    "HUF",
+    "IDR",
+    "ILS",
+    "INR",
+    "IRR",
+    "JMD",
+    "KES",
+    "KGS",
+    "KHR",
+    "KPW",
+    "KYD",
+    "KZT",
+    "LAK",
+    "LBP",
+    "LKR",
+    "LRD",
+    "LSL",
+    "MAD",
+    "MDL",
+    "MGA",
+    "MKD",
+    "MMK",
+    "MNT",
+    "MOP",
+    "MRU",
+    "MUR",
+    "MVR",
+    "MWK",
+    "MXN",
+    "MXV",
+    "MYR",
+    "MZN",
+    "NAD",
+    "NGN",
+    "NIO",
+    "NOK",
+    "NPR",
+    "NZD",
+    "PAB",
+    "PEN",
+    "PGK",
+    "PHP",
+    "PKR",
+    "PLN",
+    "QAR",
+    "RON",
+    "RSD",
+    "RUB",
+    "SAR",
+    "SBD",
+    "SCR",
+    "SDG",
+    "SEK",
+    "SGD",
+    "SHP",
+    "SLE",
+    "SOS",
+    "SRD",
+    "SSP",
+    "STN",
+    "SVC",
+    "SYP",
+    "SZL",
+    "THB",
+    "TJS",
+    "TMT",
+    "TOP",
+    "TRY",
+    "TTD",
+    "TWD",
+    "TZS",
+    "UAH",
+    "USD",
+    "USN",
+    "UYU",
+    "UZS",
+    "VED",
+    "VES",
+    "WST",
+    "XCD",
+    "XCG",
+    "YER",
+    "ZAR",
+    "ZMW",
+    "ZWG",
   ],
-  3: ['BHD', 'IQD', 'JOD', 'KWD', 'LYD', 'OMR', 'TND'],
-  4: ['CLF', 'UYW'],
+  3: ["BHD", "IQD", "JOD", "KWD", "LYD", "OMR", "TND"],
+  4: ["CLF", "UYW"],
 };
 
 /** ISO 4217 alphabetic code → number of minor-unit digits. */
 export const ISO_4217_MINOR_UNITS: Readonly<Record<string, number>> = Object.freeze(
   Object.fromEntries(
-    (Object.entries(MINOR_UNITS_BY_DIGITS) as [string, readonly string[]][]).flatMap(
-      ([digits, codes]) => codes.map((code) => [code, Number(digits)] as const),
-    ),
+    (Object.entries(MINOR_UNITS_BY_DIGITS) as [string, readonly string[]][]).flatMap(([digits, codes]) => codes.map((code) => [code, Number(digits)] as const)),
   ),
 );
 
@@ -46,19 +168,14 @@ export function isKnownCurrency(code: string): boolean {
 export function minorUnits(code: string): number {
   const digits = isKnownCurrency(code) ? ISO_4217_MINOR_UNITS[code] : undefined;
   if (digits === undefined) {
-    const hint =
-      typeof code === 'string' && isKnownCurrency(code.toUpperCase())
-        ? ` (codes are upper case: "${code.toUpperCase()}")`
-        : '';
-    throw new Error(
-      `Unknown currency code ${JSON.stringify(code)}: expected an ISO 4217 alphabetic code such as "EUR"${hint}`,
-    );
+    const hint = typeof code === "string" && isKnownCurrency(code.toUpperCase()) ? ` (codes are upper case: "${code.toUpperCase()}")` : "";
+    throw new Error(`Unknown currency code ${JSON.stringify(code)}: expected an ISO 4217 alphabetic code such as "EUR"${hint}`);
   }
   return digits;
 }
 
 function toDec(value: Decimal | string, what: string): Decimal {
-  if (typeof value === 'string') return parseDecimal(value, what);
+  if (typeof value === "string") return parseDecimal(value, what);
   if (!Decimal.isDecimal(value) || !value.isFinite()) {
     throw new Error(`${what} must be a finite Decimal or a decimal string`);
   }
@@ -72,7 +189,7 @@ function toDec(value: Decimal | string, what: string): Decimal {
  */
 export function roundMoney(value: Decimal | string, code: string): Decimal {
   const digits = minorUnits(code);
-  const rounded = toDec(value, 'amount').toDecimalPlaces(digits, Decimal.ROUND_HALF_UP);
+  const rounded = toDec(value, "amount").toDecimalPlaces(digits, Decimal.ROUND_HALF_UP);
   return rounded.isZero() ? new Dec(0) : rounded; // never "-0.00"
 }
 
@@ -87,11 +204,11 @@ export function moneyString(value: Decimal | string, code: string): string {
  * e.g. IQD with none); the amount is rounded half-up first and passed to Intl as an exact
  * decimal string, so large amounts keep every digit.
  */
-export function formatMoney(amount: string, code: string, locale = 'en-GB'): string {
+export function formatMoney(amount: string, code: string, locale = "en-GB"): string {
   const digits = minorUnits(code);
   const exact = moneyString(amount, code) as `${number}`;
   return new Intl.NumberFormat(locale, {
-    style: 'currency',
+    style: "currency",
     currency: code,
     minimumFractionDigits: digits,
     maximumFractionDigits: digits,
@@ -106,11 +223,9 @@ export function formatMoney(amount: string, code: string, locale = 'en-GB'): str
  */
 export function toMinorUnits(amount: Decimal | string, code: string): number {
   const digits = minorUnits(code);
-  const value = toDec(amount, 'amount');
+  const value = toDec(amount, "amount");
   if (value.decimalPlaces() > digits) {
-    throw new Error(
-      `Amount ${value.toString()} has more decimals than ${code} allows (${digits}); round it first`,
-    );
+    throw new Error(`Amount ${value.toString()} has more decimals than ${code} allows (${digits}); round it first`);
   }
   const minor = value.times(new Dec(10).pow(digits));
   if (minor.abs().greaterThan(Number.MAX_SAFE_INTEGER)) {

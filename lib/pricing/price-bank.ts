@@ -22,18 +22,10 @@
  * estimator, who prices a custom enclosure by hand. An empty enclosure list means the shop
  * quotes banks without an enclosure: no enclosure line.
  */
-import { minorUnits, roundMoney } from './currency';
-import { Dec, Decimal, isDecimalString } from './decimal';
-import type {
-  BankBill,
-  BankPrice,
-  PriceBankResult,
-  PriceLine,
-  PricingErrorCode,
-  PricingIssue,
-  PricingRules,
-} from './types';
-import { validateBankBill, validatePricingRules } from './validate';
+import { minorUnits, roundMoney } from "./currency";
+import { Dec, Decimal, isDecimalString } from "./decimal";
+import type { BankBill, BankPrice, PriceBankResult, PriceLine, PricingErrorCode, PricingIssue, PricingRules } from "./types";
+import { validateBankBill, validatePricingRules } from "./validate";
 
 /** An expected failure to price (bad rules or bill, nothing fits): callers may show it. */
 export class PricingError extends Error {
@@ -41,31 +33,24 @@ export class PricingError extends Error {
   readonly issues: PricingIssue[];
   constructor(code: PricingErrorCode, message: string, issues: PricingIssue[] = []) {
     super(message);
-    this.name = 'PricingError';
+    this.name = "PricingError";
     this.code = code;
     this.issues = issues;
   }
 }
 
-type Enclosure = PricingRules['enclosures'][number];
+type Enclosure = PricingRules["enclosures"][number];
 
 /**
  * The smallest enclosure that holds volumeM3 × packingFactor, or null when none does.
  * Throws nothing; the caller decides.
  */
-export function selectEnclosure(
-  volumeM3: number,
-  rules: Pick<PricingRules, 'enclosures' | 'enclosurePackingFactor'>,
-): Enclosure | null {
+export function selectEnclosure(volumeM3: number, rules: Pick<PricingRules, "enclosures" | "enclosurePackingFactor">): Enclosure | null {
   const needed = new Dec(volumeM3).times(rules.enclosurePackingFactor);
   let best: Enclosure | null = null;
   for (const e of rules.enclosures) {
     if (new Dec(e.maxVolumeM3).lessThan(needed)) continue;
-    if (
-      best === null ||
-      e.maxVolumeM3 < best.maxVolumeM3 ||
-      (e.maxVolumeM3 === best.maxVolumeM3 && new Dec(e.cost).lessThan(best.cost))
-    ) {
+    if (best === null || e.maxVolumeM3 < best.maxVolumeM3 || (e.maxVolumeM3 === best.maxVolumeM3 && new Dec(e.cost).lessThan(best.cost))) {
       best = e;
     }
   }
@@ -73,29 +58,26 @@ export function selectEnclosure(
 }
 
 /** The discount % for an ordered quantity: the largest break whose minQuantity ≤ quantity, else "0". */
-export function selectDiscountPct(
-  quantity: number,
-  breaks: PricingRules['quantityBreaks'],
-): string {
-  let best: PricingRules['quantityBreaks'][number] | null = null;
+export function selectDiscountPct(quantity: number, breaks: PricingRules["quantityBreaks"]): string {
+  let best: PricingRules["quantityBreaks"][number] | null = null;
   for (const b of breaks) {
     if (b.minQuantity <= quantity && (best === null || b.minQuantity > best.minQuantity)) best = b;
   }
-  return best === null ? '0' : new Dec(best.discountPct).toString();
+  return best === null ? "0" : new Dec(best.discountPct).toString();
 }
 
 const SI_PREFIXES: [number, string][] = [
-  [1e9, 'G'],
-  [1e6, 'M'],
-  [1e3, 'k'],
-  [1, ''],
-  [1e-3, 'm'],
+  [1e9, "G"],
+  [1e6, "M"],
+  [1e3, "k"],
+  [1, ""],
+  [1e-3, "m"],
 ];
 
 /** 1000 → "1 kΩ", 2200 → "2.2 kΩ", 330 → "330 Ω" (3 significant digits). */
 function formatSi(value: number, unit: string): string {
   const found = SI_PREFIXES.find(([scale]) => Math.abs(value) >= scale);
-  const [scale, prefix] = found ?? [1e-3, 'm'];
+  const [scale, prefix] = found ?? [1e-3, "m"];
   return `${Number((value / scale).toPrecision(3))} ${prefix}${unit}`;
 }
 
@@ -114,11 +96,11 @@ function pct(value: string): Decimal {
 export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
   const ruleIssues = validatePricingRules(rules);
   if (ruleIssues.length > 0) {
-    throw new PricingError('invalid-rules', 'The pricing rules are not valid', ruleIssues);
+    throw new PricingError("invalid-rules", "The pricing rules are not valid", ruleIssues);
   }
   const billIssues = validateBankBill(bill);
   if (billIssues.length > 0) {
-    throw new PricingError('invalid-bill', 'The bill of materials is not valid', billIssues);
+    throw new PricingError("invalid-bill", "The bill of materials is not valid", billIssues);
   }
 
   const currency = rules.currency;
@@ -127,13 +109,7 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
   const str = (v: Decimal): string => v.toFixed(digits);
 
   const materialLines: { line: PriceLine; amount: Decimal }[] = [];
-  const addMaterial = (
-    code: PriceLine['code'],
-    description: string,
-    quantity: number,
-    unit: string,
-    unitPriceRaw: Decimal | string,
-  ): void => {
+  const addMaterial = (code: PriceLine["code"], description: string, quantity: number, unit: string, unitPriceRaw: Decimal | string): void => {
     if (quantity <= 0) return;
     const unitPrice = round(unitPriceRaw);
     const amount = unitPrice.times(quantity);
@@ -141,7 +117,7 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
       amount,
       line: {
         code,
-        kind: 'material',
+        kind: "material",
         description,
         quantity,
         unit,
@@ -151,21 +127,15 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
     });
   };
 
-  addMaterial(
-    'cells',
-    bill.cell.description ? `${bill.cell.sku} — ${bill.cell.description}` : bill.cell.sku,
-    bill.cellCount,
-    'pc',
-    bill.cell.unitCost,
-  );
+  addMaterial("cells", bill.cell.description ? `${bill.cell.sku} — ${bill.cell.description}` : bill.cell.sku, bill.cellCount, "pc", bill.cell.unitCost);
 
   if (bill.balancingResistors) {
     const r = bill.balancingResistors;
     addMaterial(
-      'balancing-resistors',
-      `Balancing resistor ${formatSi(r.resistance, 'Ω')}, ${formatPlain(r.powerRating, 'W')}`,
+      "balancing-resistors",
+      `Balancing resistor ${formatSi(r.resistance, "Ω")}, ${formatPlain(r.powerRating, "W")}`,
       r.count,
-      'pc',
+      "pc",
       rules.balancingResistorCost,
     );
   }
@@ -173,33 +143,25 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
   if (bill.bleeder) {
     const b = bill.bleeder;
     addMaterial(
-      'bleeder',
-      `Bleeder resistor ${formatSi(b.resistance, 'Ω')}, ${formatPlain(b.power, 'W')}`,
+      "bleeder",
+      `Bleeder resistor ${formatSi(b.resistance, "Ω")}, ${formatPlain(b.power, "W")}`,
       1,
-      'pc',
+      "pc",
       new Dec(rules.bleederCostPerWatt).times(b.power),
     );
   }
 
-  addMaterial(
-    'interconnects',
-    'Cell interconnects',
-    bill.cellCount,
-    'pc',
-    rules.interconnectCostPerCell,
-  );
+  addMaterial("interconnects", "Cell interconnects", bill.cellCount, "pc", rules.interconnectCostPerCell);
 
   if (bill.activeBoards && bill.activeBoards.count > 0) {
     const a = bill.activeBoards;
-    const unitCost = a.unitCost !== '' ? a.unitCost : rules.balancingBoardCost;
+    const unitCost = a.unitCost !== "" ? a.unitCost : rules.balancingBoardCost;
     if (unitCost === undefined) {
-      throw new PricingError(
-        'missing-board-cost',
-        `Active balancing board ${a.sku} has no unit cost and the rules set no balancingBoardCost`,
-        [{ path: 'activeBoards.unitCost', message: 'no unit cost and no fallback in the rules' }],
-      );
+      throw new PricingError("missing-board-cost", `Active balancing board ${a.sku} has no unit cost and the rules set no balancingBoardCost`, [
+        { path: "activeBoards.unitCost", message: "no unit cost and no fallback in the rules" },
+      ]);
     }
-    addMaterial('balancing-boards', `Active balancing board ${a.sku}`, a.count, 'pc', unitCost);
+    addMaterial("balancing-boards", `Active balancing board ${a.sku}`, a.count, "pc", unitCost);
   }
 
   if (rules.enclosures.length > 0) {
@@ -208,31 +170,31 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
       const needed = new Dec(bill.volumeM3).times(rules.enclosurePackingFactor);
       const largest = Math.max(...rules.enclosures.map((e) => e.maxVolumeM3));
       throw new PricingError(
-        'no-enclosure-fits',
+        "no-enclosure-fits",
         `The bank needs an enclosure of ${needed.toString()} m³ (cells ${bill.volumeM3} m³ × ` +
           `packing ${rules.enclosurePackingFactor}); the largest enclosure holds ${largest} m³. ` +
-          'A custom enclosure must be priced by an estimator.',
-        [{ path: 'volumeM3', message: 'no enclosure in the rules is big enough' }],
+          "A custom enclosure must be priced by an estimator.",
+        [{ path: "volumeM3", message: "no enclosure in the rules is big enough" }],
       );
     }
-    addMaterial('enclosure', enclosure.name, 1, 'pc', enclosure.cost);
+    addMaterial("enclosure", enclosure.name, 1, "pc", enclosure.cost);
   }
 
-  addMaterial('terminals', 'Terminal set', 1, 'set', rules.terminalSetCost);
+  addMaterial("terminals", "Terminal set", 1, "set", rules.terminalSetCost);
 
   const rate = round(rules.labourRatePerHour);
   const labourLines: { line: PriceLine; amount: Decimal }[] = [];
-  const addLabour = (code: PriceLine['code'], description: string, minutes: Decimal): void => {
+  const addLabour = (code: PriceLine["code"], description: string, minutes: Decimal): void => {
     if (minutes.lessThanOrEqualTo(0)) return;
     const amount = round(rate.times(minutes).div(60));
     labourLines.push({
       amount,
       line: {
         code,
-        kind: 'labour',
+        kind: "labour",
         description,
         quantity: minutes.div(60).toDecimalPlaces(4, Decimal.ROUND_HALF_UP).toNumber(),
-        unit: 'h',
+        unit: "h",
         unitPrice: str(rate),
         amount: str(amount),
       },
@@ -241,16 +203,11 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
   const setup = new Dec(rules.setupMinutes);
   const assembly = new Dec(rules.minutesPerCell).times(bill.cellCount);
   const test = new Dec(rules.testMinutes);
-  addLabour('labour-setup', `Setup, ${setup.toString()} min`, setup);
-  addLabour(
-    'labour-assembly',
-    `Assembly, ${rules.minutesPerCell} min × ${bill.cellCount} cells = ${assembly.toString()} min`,
-    assembly,
-  );
-  addLabour('labour-test', `Test, ${test.toString()} min`, test);
+  addLabour("labour-setup", `Setup, ${setup.toString()} min`, setup);
+  addLabour("labour-assembly", `Assembly, ${rules.minutesPerCell} min × ${bill.cellCount} cells = ${assembly.toString()} min`, assembly);
+  addLabour("labour-test", `Test, ${test.toString()} min`, test);
 
-  const sum = (xs: { amount: Decimal }[]): Decimal =>
-    xs.reduce((acc, x) => acc.plus(x.amount), new Dec(0));
+  const sum = (xs: { amount: Decimal }[]): Decimal => xs.reduce((acc, x) => acc.plus(x.amount), new Dec(0));
   const materials = sum(materialLines);
   const labour = sum(labourLines);
   const overheadPct = new Dec(rules.overheadPct);
@@ -269,17 +226,14 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
   const tax = round(subtotal.times(pct(rules.taxRatePct)));
   const total = subtotal.plus(tax);
 
-  const lines: PriceLine[] = [
-    ...materialLines.map((x) => x.line),
-    ...labourLines.map((x) => x.line),
-  ];
+  const lines: PriceLine[] = [...materialLines.map((x) => x.line), ...labourLines.map((x) => x.line)];
   if (!overhead.isZero()) {
     lines.push({
-      code: 'overhead',
-      kind: 'overhead',
+      code: "overhead",
+      kind: "overhead",
       description: `Overhead, ${overheadPct.toString()} % of materials ${str(materials)}`,
       quantity: 1,
-      unit: 'lot',
+      unit: "lot",
       unitPrice: str(overhead),
       amount: str(overhead),
     });
@@ -321,31 +275,26 @@ export function tryPriceBank(bill: BankBill, rules: PricingRules): PriceBankResu
  * half-up, to the currency's minor unit. Unlike priceBank, the overhead here applies to the
  * whole cost. quickPrice("72", "0", "28", "EUR") → "100.00".
  */
-export function quickPrice(
-  cost: string,
-  overheadPct: string,
-  marginPct: string,
-  currency: string,
-): string {
+export function quickPrice(cost: string, overheadPct: string, marginPct: string, currency: string): string {
   const issues: PricingIssue[] = [];
   const digits = minorUnits(currency);
   const check = (path: string, value: string, max: number | null): Decimal | null => {
     if (!isDecimalString(value)) {
-      issues.push({ path, message: 'must be a decimal string' });
+      issues.push({ path, message: "must be a decimal string" });
       return null;
     }
     const d = new Dec(value);
-    if (d.isNegative() && !d.isZero()) issues.push({ path, message: 'must not be negative' });
+    if (d.isNegative() && !d.isZero()) issues.push({ path, message: "must not be negative" });
     if (max !== null && d.greaterThanOrEqualTo(max)) {
       issues.push({ path, message: `must be below ${max} %` });
     }
     return d;
   };
-  const c = check('cost', cost, null);
-  const o = check('overheadPct', overheadPct, null);
-  const m = check('marginPct', marginPct, 100);
+  const c = check("cost", cost, null);
+  const o = check("overheadPct", overheadPct, null);
+  const m = check("marginPct", marginPct, 100);
   if (issues.length > 0 || c === null || o === null || m === null) {
-    throw new PricingError('invalid-rules', 'quickPrice: invalid input', issues);
+    throw new PricingError("invalid-rules", "quickPrice: invalid input", issues);
   }
   const price = c.times(new Dec(1).plus(o.div(100))).div(new Dec(1).minus(m.div(100)));
   return roundMoney(price, currency).toFixed(digits);

@@ -50,20 +50,20 @@ export interface BankBill {
   quantity: number;
 }
 
-export type PriceLineKind = 'material' | 'labour' | 'overhead';
+export type PriceLineKind = "material" | "labour" | "overhead";
 
 export type PriceLineCode =
-  | 'cells'
-  | 'balancing-resistors'
-  | 'bleeder'
-  | 'interconnects'
-  | 'balancing-boards'
-  | 'enclosure'
-  | 'terminals'
-  | 'labour-setup'
-  | 'labour-assembly'
-  | 'labour-test'
-  | 'overhead';
+  | "cells"
+  | "balancing-resistors"
+  | "bleeder"
+  | "interconnects"
+  | "balancing-boards"
+  | "enclosure"
+  | "terminals"
+  | "labour-setup"
+  | "labour-assembly"
+  | "labour-test"
+  | "overhead";
 
 /** One line of the per-bank price build-up. */
 export interface PriceLine {
@@ -106,13 +106,6 @@ export interface PricingIssue {
   message: string;
 }
 
-export type PricingErrorCode =
-  | 'invalid-rules'
-  | 'invalid-bill'
-  | 'no-enclosure-fits'
-  | 'missing-board-cost';
+export type PricingErrorCode = "invalid-rules" | "invalid-bill" | "no-enclosure-fits" | "missing-board-cost";
 
-export type PriceBankResult =
-  | { ok: true; data: BankPrice }
-  | { ok: false; code: PricingErrorCode; message: string; issues: PricingIssue[] };
-
+export type PriceBankResult = { ok: true; data: BankPrice } | { ok: false; code: PricingErrorCode; message: string; issues: PricingIssue[] };

@@ -1,11 +1,11 @@
-import { isKnownCurrency, minorUnits } from './currency';
-import { Dec, isDecimalString } from './decimal';
-import type { BankBill, PricingIssue, PricingRules } from './types';
+import { isKnownCurrency, minorUnits } from "./currency";
+import { Dec, isDecimalString } from "./decimal";
+import type { BankBill, PricingIssue, PricingRules } from "./types";
 
 type Issues = PricingIssue[];
 
 function isObject(value: unknown): value is Record<string, unknown> {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
+  return typeof value === "object" && value !== null && !Array.isArray(value);
 }
 
 /** A money string: plain decimal, ≥ 0, and (when the currency is known) no finer than its minor unit. */
@@ -15,43 +15,32 @@ function checkMoney(issues: Issues, path: string, value: unknown, digits: number
     return;
   }
   const d = new Dec(value);
-  if (d.isNegative() && !d.isZero()) issues.push({ path, message: 'must not be negative' });
+  if (d.isNegative() && !d.isZero()) issues.push({ path, message: "must not be negative" });
   if (digits !== null && d.decimalPlaces() > digits) {
     issues.push({ path, message: `must have at most ${digits} decimal places for this currency` });
   }
 }
 
 /** A percentage string in [0, max) or [0, max]. */
-function checkPct(
-  issues: Issues,
-  path: string,
-  value: unknown,
-  max: number,
-  maxInclusive: boolean,
-): void {
+function checkPct(issues: Issues, path: string, value: unknown, max: number, maxInclusive: boolean): void {
   if (!isDecimalString(value)) {
     issues.push({ path, message: 'must be a decimal string percentage like "12.5"' });
     return;
   }
   const d = new Dec(value);
-  if (d.isNegative() && !d.isZero()) issues.push({ path, message: 'must not be negative' });
+  if (d.isNegative() && !d.isZero()) issues.push({ path, message: "must not be negative" });
   if (maxInclusive ? d.greaterThan(max) : d.greaterThanOrEqualTo(max)) {
-    issues.push({ path, message: `must be ${maxInclusive ? 'at most' : 'below'} ${max} %` });
+    issues.push({ path, message: `must be ${maxInclusive ? "at most" : "below"} ${max} %` });
   }
 }
 
-function checkNumber(
-  issues: Issues,
-  path: string,
-  value: unknown,
-  opts: { min: number; minExclusive?: boolean; integer?: boolean },
-): void {
-  if (typeof value !== 'number' || !Number.isFinite(value)) {
-    issues.push({ path, message: 'must be a finite number' });
+function checkNumber(issues: Issues, path: string, value: unknown, opts: { min: number; minExclusive?: boolean; integer?: boolean }): void {
+  if (typeof value !== "number" || !Number.isFinite(value)) {
+    issues.push({ path, message: "must be a finite number" });
     return;
   }
   if (opts.integer && !Number.isInteger(value)) {
-    issues.push({ path, message: 'must be a whole number' });
+    issues.push({ path, message: "must be a whole number" });
   }
   if (opts.minExclusive ? value <= opts.min : value < opts.min) {
     issues.push({
@@ -68,50 +57,44 @@ function checkNumber(
  */
 export function validatePricingRules(rules: PricingRules): PricingIssue[] {
   const issues: Issues = [];
-  if (!isObject(rules)) return [{ path: '', message: 'rules must be an object' }];
+  if (!isObject(rules)) return [{ path: "", message: "rules must be an object" }];
   const r = rules as unknown as Record<string, unknown>;
 
   let digits: number | null = null;
-  if (typeof r.currency !== 'string' || !isKnownCurrency(r.currency)) {
-    issues.push({ path: 'currency', message: 'must be an ISO 4217 alphabetic code such as "EUR"' });
+  if (typeof r.currency !== "string" || !isKnownCurrency(r.currency)) {
+    issues.push({ path: "currency", message: 'must be an ISO 4217 alphabetic code such as "EUR"' });
   } else {
     digits = minorUnits(r.currency);
   }
 
-  for (const key of [
-    'labourRatePerHour',
-    'interconnectCostPerCell',
-    'balancingResistorCost',
-    'bleederCostPerWatt',
-    'terminalSetCost',
-  ] as const) {
+  for (const key of ["labourRatePerHour", "interconnectCostPerCell", "balancingResistorCost", "bleederCostPerWatt", "terminalSetCost"] as const) {
     checkMoney(issues, key, r[key], digits);
   }
   if (r.balancingBoardCost !== undefined) {
-    checkMoney(issues, 'balancingBoardCost', r.balancingBoardCost, digits);
+    checkMoney(issues, "balancingBoardCost", r.balancingBoardCost, digits);
   }
 
-  for (const key of ['setupMinutes', 'minutesPerCell', 'testMinutes'] as const) {
+  for (const key of ["setupMinutes", "minutesPerCell", "testMinutes"] as const) {
     checkNumber(issues, key, r[key], { min: 0 });
   }
 
-  checkPct(issues, 'overheadPct', r.overheadPct, 1000, true);
+  checkPct(issues, "overheadPct", r.overheadPct, 1000, true);
   // Margin on price: 100 % would divide by zero, above it the price turns negative.
-  checkPct(issues, 'marginPct', r.marginPct, 100, false);
-  checkPct(issues, 'taxRatePct', r.taxRatePct, 100, true);
+  checkPct(issues, "marginPct", r.marginPct, 100, false);
+  checkPct(issues, "taxRatePct", r.taxRatePct, 100, true);
 
   if (!Array.isArray(r.enclosures)) {
-    issues.push({ path: 'enclosures', message: 'must be a list' });
+    issues.push({ path: "enclosures", message: "must be a list" });
   } else {
     const names = new Set<string>();
     r.enclosures.forEach((e: unknown, i) => {
       const p = `enclosures[${i}]`;
       if (!isObject(e)) {
-        issues.push({ path: p, message: 'must be an object' });
+        issues.push({ path: p, message: "must be an object" });
         return;
       }
-      if (typeof e.name !== 'string' || e.name.trim() === '') {
-        issues.push({ path: `${p}.name`, message: 'must not be empty' });
+      if (typeof e.name !== "string" || e.name.trim() === "") {
+        issues.push({ path: `${p}.name`, message: "must not be empty" });
       } else if (names.has(e.name.trim())) {
         issues.push({ path: `${p}.name`, message: `duplicates another enclosure's name` });
       } else {
@@ -121,22 +104,22 @@ export function validatePricingRules(rules: PricingRules): PricingIssue[] {
       checkMoney(issues, `${p}.cost`, e.cost, digits);
     });
   }
-  checkNumber(issues, 'enclosurePackingFactor', r.enclosurePackingFactor, { min: 1 });
+  checkNumber(issues, "enclosurePackingFactor", r.enclosurePackingFactor, { min: 1 });
 
   if (!Array.isArray(r.quantityBreaks)) {
-    issues.push({ path: 'quantityBreaks', message: 'must be a list' });
+    issues.push({ path: "quantityBreaks", message: "must be a list" });
   } else {
     const seen = new Set<number>();
     r.quantityBreaks.forEach((b: unknown, i) => {
       const p = `quantityBreaks[${i}]`;
       if (!isObject(b)) {
-        issues.push({ path: p, message: 'must be an object' });
+        issues.push({ path: p, message: "must be an object" });
         return;
       }
       checkNumber(issues, `${p}.minQuantity`, b.minQuantity, { min: 1, integer: true });
-      if (typeof b.minQuantity === 'number') {
+      if (typeof b.minQuantity === "number") {
         if (seen.has(b.minQuantity)) {
-          issues.push({ path: `${p}.minQuantity`, message: 'duplicates another break' });
+          issues.push({ path: `${p}.minQuantity`, message: "duplicates another break" });
         }
         seen.add(b.minQuantity);
       }
@@ -144,60 +127,60 @@ export function validatePricingRules(rules: PricingRules): PricingIssue[] {
     });
   }
 
-  checkNumber(issues, 'quoteValidityDays', r.quoteValidityDays, { min: 1, integer: true });
+  checkNumber(issues, "quoteValidityDays", r.quoteValidityDays, { min: 1, integer: true });
   return issues;
 }
 
 /** Checks a bill of one bank (counts whole and non-negative, costs decimal strings, volume > 0). */
 export function validateBankBill(bill: BankBill): PricingIssue[] {
   const issues: Issues = [];
-  if (!isObject(bill)) return [{ path: '', message: 'bill must be an object' }];
+  if (!isObject(bill)) return [{ path: "", message: "bill must be an object" }];
   const b = bill as unknown as Record<string, unknown>;
 
   if (!isObject(b.cell)) {
-    issues.push({ path: 'cell', message: 'must be an object' });
+    issues.push({ path: "cell", message: "must be an object" });
   } else {
-    if (typeof b.cell.sku !== 'string' || b.cell.sku.trim() === '') {
-      issues.push({ path: 'cell.sku', message: 'must not be empty' });
+    if (typeof b.cell.sku !== "string" || b.cell.sku.trim() === "") {
+      issues.push({ path: "cell.sku", message: "must not be empty" });
     }
-    if (typeof b.cell.description !== 'string') {
-      issues.push({ path: 'cell.description', message: 'must be a string' });
+    if (typeof b.cell.description !== "string") {
+      issues.push({ path: "cell.description", message: "must be a string" });
     }
-    checkMoney(issues, 'cell.unitCost', b.cell.unitCost, null);
+    checkMoney(issues, "cell.unitCost", b.cell.unitCost, null);
   }
-  checkNumber(issues, 'cellCount', b.cellCount, { min: 1, integer: true });
-  checkNumber(issues, 'quantity', b.quantity, { min: 1, integer: true });
-  checkNumber(issues, 'volumeM3', b.volumeM3, { min: 0, minExclusive: true });
+  checkNumber(issues, "cellCount", b.cellCount, { min: 1, integer: true });
+  checkNumber(issues, "quantity", b.quantity, { min: 1, integer: true });
+  checkNumber(issues, "volumeM3", b.volumeM3, { min: 0, minExclusive: true });
 
   if (b.balancingResistors !== null) {
     const r = b.balancingResistors;
     if (!isObject(r)) {
-      issues.push({ path: 'balancingResistors', message: 'must be an object or null' });
+      issues.push({ path: "balancingResistors", message: "must be an object or null" });
     } else {
-      checkNumber(issues, 'balancingResistors.count', r.count, { min: 0, integer: true });
-      checkNumber(issues, 'balancingResistors.resistance', r.resistance, { min: 0, minExclusive: true });
-      checkNumber(issues, 'balancingResistors.powerRating', r.powerRating, { min: 0, minExclusive: true });
+      checkNumber(issues, "balancingResistors.count", r.count, { min: 0, integer: true });
+      checkNumber(issues, "balancingResistors.resistance", r.resistance, { min: 0, minExclusive: true });
+      checkNumber(issues, "balancingResistors.powerRating", r.powerRating, { min: 0, minExclusive: true });
     }
   }
   if (b.bleeder !== null) {
     const r = b.bleeder;
     if (!isObject(r)) {
-      issues.push({ path: 'bleeder', message: 'must be an object or null' });
+      issues.push({ path: "bleeder", message: "must be an object or null" });
     } else {
-      checkNumber(issues, 'bleeder.resistance', r.resistance, { min: 0, minExclusive: true });
-      checkNumber(issues, 'bleeder.power', r.power, { min: 0, minExclusive: true });
+      checkNumber(issues, "bleeder.resistance", r.resistance, { min: 0, minExclusive: true });
+      checkNumber(issues, "bleeder.power", r.power, { min: 0, minExclusive: true });
     }
   }
   if (b.activeBoards !== null) {
     const a = b.activeBoards;
     if (!isObject(a)) {
-      issues.push({ path: 'activeBoards', message: 'must be an object or null' });
+      issues.push({ path: "activeBoards", message: "must be an object or null" });
     } else {
-      if (typeof a.sku !== 'string' || a.sku.trim() === '') {
-        issues.push({ path: 'activeBoards.sku', message: 'must not be empty' });
+      if (typeof a.sku !== "string" || a.sku.trim() === "") {
+        issues.push({ path: "activeBoards.sku", message: "must not be empty" });
       }
-      checkNumber(issues, 'activeBoards.count', a.count, { min: 0, integer: true });
-      if (a.unitCost !== '') checkMoney(issues, 'activeBoards.unitCost', a.unitCost, null);
+      checkNumber(issues, "activeBoards.count", a.count, { min: 0, integer: true });
+      if (a.unitCost !== "") checkMoney(issues, "activeBoards.unitCost", a.unitCost, null);
     }
   }
   return issues;

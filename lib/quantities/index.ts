@@ -11,11 +11,9 @@
  * and a point.
  */
 
-export type QuantityUnit = 'F' | 'V' | 'Ω' | 'A' | 'J' | 'W' | 's' | 'kg' | 'm³' | 'Wh';
+export type QuantityUnit = "F" | "V" | "Ω" | "A" | "J" | "W" | "s" | "kg" | "m³" | "Wh";
 
-export type ParseQuantityResult =
-  | { ok: true; value: number; unit: QuantityUnit | null }
-  | { ok: false; message: string };
+export type ParseQuantityResult = { ok: true; value: number; unit: QuantityUnit | null } | { ok: false; message: string };
 
 export interface ParseQuantityOptions {
   /** accept 0 (refused by default) */
@@ -24,10 +22,10 @@ export interface ParseQuantityOptions {
   allowNegative?: boolean;
 }
 
-const MICRO = '\u00b5'; // MICRO SIGN, the form we print
-const GREEK_MU = '\u03bc'; // GREEK SMALL LETTER MU, also accepted
-const OHM = '\u03a9'; // GREEK CAPITAL LETTER OMEGA, the form we print
-const OHM_SIGN = '\u2126'; // OHM SIGN, also accepted
+const MICRO = "\u00b5"; // MICRO SIGN, the form we print
+const GREEK_MU = "\u03bc"; // GREEK SMALL LETTER MU, also accepted
+const OHM = "\u03a9"; // GREEK CAPITAL LETTER OMEGA, the form we print
+const OHM_SIGN = "\u2126"; // OHM SIGN, also accepted
 
 /** SI prefix → power of ten */
 const PREFIXES: Record<string, number> = {
@@ -62,54 +60,54 @@ interface UnitDef {
 }
 
 const UNITS: Record<QuantityUnit, UnitDef> = {
-  F: { name: 'farads', barePrefix: true, symbols: [{ symbol: 'F', anyCase: true, prefixed: true }] },
-  V: { name: 'volts', barePrefix: true, symbols: [{ symbol: 'V', anyCase: true, prefixed: true }] },
+  F: { name: "farads", barePrefix: true, symbols: [{ symbol: "F", anyCase: true, prefixed: true }] },
+  V: { name: "volts", barePrefix: true, symbols: [{ symbol: "V", anyCase: true, prefixed: true }] },
   Ω: {
-    name: 'ohms',
+    name: "ohms",
     barePrefix: true,
     symbols: [
       { symbol: OHM, prefixed: true },
       { symbol: OHM_SIGN, prefixed: true },
-      { symbol: 'ohms', anyCase: true, prefixed: true },
-      { symbol: 'ohm', anyCase: true, prefixed: true },
+      { symbol: "ohms", anyCase: true, prefixed: true },
+      { symbol: "ohm", anyCase: true, prefixed: true },
     ],
   },
-  A: { name: 'amperes', barePrefix: true, symbols: [{ symbol: 'A', anyCase: true, prefixed: true }] },
-  J: { name: 'joules', barePrefix: true, symbols: [{ symbol: 'J', anyCase: true, prefixed: true }] },
-  W: { name: 'watts', barePrefix: true, symbols: [{ symbol: 'W', anyCase: true, prefixed: true }] },
+  A: { name: "amperes", barePrefix: true, symbols: [{ symbol: "A", anyCase: true, prefixed: true }] },
+  J: { name: "joules", barePrefix: true, symbols: [{ symbol: "J", anyCase: true, prefixed: true }] },
+  W: { name: "watts", barePrefix: true, symbols: [{ symbol: "W", anyCase: true, prefixed: true }] },
   s: {
-    name: 'seconds',
+    name: "seconds",
     barePrefix: true,
     symbols: [
-      { symbol: 's', prefixed: true },
-      { symbol: 'min', prefixed: false, factor: 60 },
-      { symbol: 'h', prefixed: false, factor: 3600 },
+      { symbol: "s", prefixed: true },
+      { symbol: "min", prefixed: false, factor: 60 },
+      { symbol: "h", prefixed: false, factor: 3600 },
     ],
   },
   kg: {
-    name: 'kilograms',
+    name: "kilograms",
     barePrefix: false,
     symbols: [
-      { symbol: 'kg', prefixed: false },
-      { symbol: 'g', prefixed: false, exponent: -3 },
-      { symbol: 'mg', prefixed: false, exponent: -6 },
+      { symbol: "kg", prefixed: false },
+      { symbol: "g", prefixed: false, exponent: -3 },
+      { symbol: "mg", prefixed: false, exponent: -6 },
     ],
   },
-  'm³': {
-    name: 'cubic metres',
+  "m³": {
+    name: "cubic metres",
     barePrefix: false,
     symbols: [
-      { symbol: 'm³', prefixed: false },
-      { symbol: 'm3', prefixed: false },
-      { symbol: 'L', anyCase: true, prefixed: false, exponent: -3 },
-      { symbol: 'mL', anyCase: true, prefixed: false, exponent: -6 },
-      { symbol: 'cm³', prefixed: false, exponent: -6 },
-      { symbol: 'cm3', prefixed: false, exponent: -6 },
-      { symbol: 'mm³', prefixed: false, exponent: -9 },
-      { symbol: 'mm3', prefixed: false, exponent: -9 },
+      { symbol: "m³", prefixed: false },
+      { symbol: "m3", prefixed: false },
+      { symbol: "L", anyCase: true, prefixed: false, exponent: -3 },
+      { symbol: "mL", anyCase: true, prefixed: false, exponent: -6 },
+      { symbol: "cm³", prefixed: false, exponent: -6 },
+      { symbol: "cm3", prefixed: false, exponent: -6 },
+      { symbol: "mm³", prefixed: false, exponent: -9 },
+      { symbol: "mm3", prefixed: false, exponent: -9 },
     ],
   },
-  Wh: { name: 'watt-hours', barePrefix: true, symbols: [{ symbol: 'Wh', anyCase: true, prefixed: true }] },
+  Wh: { name: "watt-hours", barePrefix: true, symbols: [{ symbol: "Wh", anyCase: true, prefixed: true }] },
 };
 
 const ALL_UNITS = Object.keys(UNITS) as QuantityUnit[];
@@ -133,7 +131,7 @@ function matchSuffix(suffix: string, unit: QuantityUnit, allowBarePrefix: boolea
     if (!same) continue;
     const head = suffix.slice(0, suffix.length - sym.symbol.length).trim();
     let prefixExp = 0;
-    if (head !== '') {
+    if (head !== "") {
       if (!sym.prefixed) continue;
       const p = PREFIXES[head];
       if (p === undefined) continue;
@@ -155,41 +153,35 @@ function matchSuffix(suffix: string, unit: QuantityUnit, allowBarePrefix: boolea
 function refuse(input: string, unit: QuantityUnit | undefined): { ok: false; message: string } {
   return {
     ok: false,
-    message: unit
-      ? `"${input}" is not a value in ${UNITS[unit].name}`
-      : `"${input}" is not a value with a known unit`,
+    message: unit ? `"${input}" is not a value in ${UNITS[unit].name}` : `"${input}" is not a value with a known unit`,
   };
 }
 
 /** Parse an engineering value; see the module comment for the accepted forms. */
-export function parseQuantity(
-  input: string,
-  unit?: QuantityUnit,
-  options: ParseQuantityOptions = {},
-): ParseQuantityResult {
+export function parseQuantity(input: string, unit?: QuantityUnit, options: ParseQuantityOptions = {}): ParseQuantityResult {
   const text = input.trim();
-  if (text === '') {
-    return { ok: false, message: unit ? `Enter a value in ${UNITS[unit].name}` : 'Enter a value' };
+  if (text === "") {
+    return { ok: false, message: unit ? `Enter a value in ${UNITS[unit].name}` : "Enter a value" };
   }
   const m = NUMBER_RE.exec(text);
   if (!m) return refuse(input, unit);
-  const sign = m[1] === '-' ? -1 : 1;
-  let mantissa = m[2] ?? '';
+  const sign = m[1] === "-" ? -1 : 1;
+  let mantissa = m[2] ?? "";
   const ownExp = m[3] ? Number(m[3]) : 0;
-  if (mantissa.includes(',')) {
+  if (mantissa.includes(",")) {
     if (/,\d{3}$/.test(mantissa)) {
       return {
         ok: false,
         message: `"${input}" is ambiguous: write the decimal mark as a point, without thousands separators`,
       };
     }
-    mantissa = mantissa.replace(',', '.');
+    mantissa = mantissa.replace(",", ".");
   }
   const suffix = text.slice(m[0].length).trim();
 
   let match: SuffixMatch | null = null;
-  if (suffix === '') {
-    match = { unit: unit ?? ('' as QuantityUnit), exponent: 0, factor: 1 };
+  if (suffix === "") {
+    match = { unit: unit ?? ("" as QuantityUnit), exponent: 0, factor: 1 };
   } else if (unit) {
     match = matchSuffix(suffix, unit, true);
   } else {
@@ -198,7 +190,7 @@ export function parseQuantity(
       if (match) break;
     }
     if (!match && PREFIXES[suffix] !== undefined) {
-      match = { unit: '' as QuantityUnit, exponent: PREFIXES[suffix] ?? 0, factor: 1 };
+      match = { unit: "" as QuantityUnit, exponent: PREFIXES[suffix] ?? 0, factor: 1 };
     }
   }
   if (!match) return refuse(input, unit);
@@ -215,19 +207,19 @@ export function parseQuantity(
   if (value === 0 && !options.allowZero) {
     return { ok: false, message: `"${input}" must be greater than zero` };
   }
-  const resultUnit = match.unit === ('' as QuantityUnit) ? (unit ?? null) : match.unit;
+  const resultUnit = match.unit === ("" as QuantityUnit) ? (unit ?? null) : match.unit;
   return { ok: true, value: value === 0 ? 0 : value, unit: resultUnit };
 }
 
 const FORMAT_PREFIXES: [number, string][] = [
-  [-12, 'p'],
-  [-9, 'n'],
+  [-12, "p"],
+  [-9, "n"],
   [-6, MICRO],
-  [-3, 'm'],
-  [0, ''],
-  [3, 'k'],
-  [6, 'M'],
-  [9, 'G'],
+  [-3, "m"],
+  [0, ""],
+  [3, "k"],
+  [6, "M"],
+  [9, "G"],
 ];
 
 function roundSig(x: number, digits: number): number {
@@ -242,7 +234,7 @@ function formatPrefixed(abs: number, symbol: string, digits: number, minExp: num
     exp3 += 3;
     mant = roundSig(abs / 10 ** exp3, digits);
   }
-  const prefix = FORMAT_PREFIXES.find(([e]) => e === exp3)?.[1] ?? '';
+  const prefix = FORMAT_PREFIXES.find(([e]) => e === exp3)?.[1] ?? "";
   return `${String(mant)} ${prefix}${symbol}`;
 }
 
@@ -253,22 +245,22 @@ function formatPrefixed(abs: number, symbol: string, digits: number, minExp: num
  */
 export function formatQuantity(value: number, unit: string, opts: { digits?: number } = {}): string {
   const digits = opts.digits ?? 3;
-  const symbol = unit === 'ohm' ? OHM : unit;
-  if (!Number.isFinite(value)) return '—';
+  const symbol = unit === "ohm" ? OHM : unit;
+  if (!Number.isFinite(value)) return "—";
   if (value === 0) return `0 ${symbol}`;
   if (value < 0) return `-${formatQuantity(-value, unit, opts)}`;
   switch (symbol) {
-    case 'kg':
+    case "kg":
       if (value >= 1) return `${String(roundSig(value, digits))} kg`;
       if (value >= 1e-3) return `${String(roundSig(value * 1e3, digits))} g`;
       return `${String(roundSig(value * 1e6, digits))} mg`;
-    case 'm³':
+    case "m³":
       if (value >= 1) return `${String(roundSig(value, digits))} m³`;
       if (value >= 1e-3) return `${String(roundSig(value * 1e3, digits))} L`;
       if (value >= 1e-6) return `${String(roundSig(value * 1e6, digits))} cm³`;
       return `${String(roundSig(value * 1e9, digits))} mm³`;
-    case 's':
-      return formatPrefixed(value, 's', digits, -12, 0);
+    case "s":
+      return formatPrefixed(value, "s", digits, -12, 0);
     default:
       return formatPrefixed(value, symbol, digits, -12, 9);
   }
@@ -276,9 +268,9 @@ export function formatQuantity(value: number, unit: string, opts: { digits?: num
 
 /** A duration as people read it: "4.2 s", "12 min", "3.5 h", "670 days"; "—" when it never ends. */
 export function formatDuration(seconds: number): string {
-  if (!Number.isFinite(seconds)) return '—';
+  if (!Number.isFinite(seconds)) return "—";
   const sig = (x: number) => String(Number(x.toPrecision(2 + (x >= 100 ? 1 : 0))));
-  if (seconds < 120) return formatQuantity(seconds, 's');
+  if (seconds < 120) return formatQuantity(seconds, "s");
   if (seconds < 2 * 3600) return `${sig(seconds / 60)} min`;
   if (seconds < 48 * 3600) return `${sig(seconds / 3600)} h`;
   return `${sig(seconds / 86400)} days`;

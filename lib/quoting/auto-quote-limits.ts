@@ -34,7 +34,9 @@ export function checkAutoQuoteLimits(subject: LimitSubject, limits: AutoQuoteLim
     reasons.push(`Voltage ${formatQuantity(subject.maxVoltage, "V")} is above the ${formatQuantity(limits.maxVoltage, "V")} this shop quotes automatically.`);
   }
   if (subject.storedEnergy > limits.maxStoredEnergy) {
-    reasons.push(`Stored energy ${formatQuantity(subject.storedEnergy, "J")} is above the ${formatQuantity(limits.maxStoredEnergy, "J")} this shop quotes automatically.`);
+    reasons.push(
+      `Stored energy ${formatQuantity(subject.storedEnergy, "J")} is above the ${formatQuantity(limits.maxStoredEnergy, "J")} this shop quotes automatically.`,
+    );
   }
   if (subject.cellCount > limits.maxCellCount) {
     reasons.push(`${subject.cellCount} cells per bank is above the ${limits.maxCellCount} this shop quotes automatically.`);

@@ -34,7 +34,12 @@ async function findEarlier(shopId: string, userId: string, key: string): Promise
   return { ok: true, data: { kind: "review", requestId: request.id } };
 }
 
-async function toReview(ctx: ShopContext, input: ChooseArrangementInput, reasons: string[], chosen: ChosenRecord | null): Promise<ActionResult<CreateQuoteResult>> {
+async function toReview(
+  ctx: ShopContext,
+  input: ChooseArrangementInput,
+  reasons: string[],
+  chosen: ChosenRecord | null,
+): Promise<ActionResult<CreateQuoteResult>> {
   const shopId = ctx.shop.id;
   const id = await inTransaction(async (tx) => {
     const requestId = await insertBankRequest(tx, shopId, {
@@ -77,7 +82,10 @@ export async function createQuoteFromChoice(ctx: ShopContext, input: ChooseArran
   const option = found.options[i];
   const record = found.records[i];
   if (!option || !record) return toReview(ctx, input, ["The chosen option is no longer offered by the catalog."], input.option);
-  const reasons = checkAutoQuoteLimits({ maxVoltage: requirement.maxVoltage, storedEnergy: option.storedEnergy, cellCount: option.cellCount }, catalog.autoQuoteLimits);
+  const reasons = checkAutoQuoteLimits(
+    { maxVoltage: requirement.maxVoltage, storedEnergy: option.storedEnergy, cellCount: option.cellCount },
+    catalog.autoQuoteLimits,
+  );
   if (record.price === null) reasons.push("The chosen option could not be priced automatically.");
   if (reasons.length > 0 || record.price === null) return toReview(ctx, input, reasons, option);
   const pricing = record.price;

@@ -103,6 +103,11 @@ function nthLowestPrice(candidates: readonly Candidate[], n: number): Decimal | 
 }
 
 /** The option the customer chose, found again among the options the server computes now; -1 when gone. */
-export function indexOfChosen(options: readonly PricedOption[], chosen: { cellSku: string; topology: string; seriesCount: number; parallelCount: number }): number {
-  return options.findIndex((o) => o.cell.sku === chosen.cellSku && o.topology === chosen.topology && o.seriesCount === chosen.seriesCount && o.parallelCount === chosen.parallelCount);
+export function indexOfChosen(
+  options: readonly PricedOption[],
+  chosen: { cellSku: string; topology: string; seriesCount: number; parallelCount: number },
+): number {
+  return options.findIndex(
+    (o) => o.cell.sku === chosen.cellSku && o.topology === chosen.topology && o.seriesCount === chosen.seriesCount && o.parallelCount === chosen.parallelCount,
+  );
 }

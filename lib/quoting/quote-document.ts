@@ -55,10 +55,14 @@ function describeArrangement(o: PricedOption): LabelledValue[] {
   ];
   const b = o.balancing;
   if (b.activeBoard) rows.push({ label: "Balancing", value: `${b.activeBoard.count} × active board ${b.activeBoard.sku}` });
-  else if (b.resistance !== null && b.count > 0) rows.push({ label: "Balancing", value: `${b.count} × ${q(b.resistance, "ohm")} resistor${b.powerRating ? `, ${q(b.powerRating, "W")} rated` : ""}` });
+  else if (b.resistance !== null && b.count > 0)
+    rows.push({ label: "Balancing", value: `${b.count} × ${q(b.resistance, "ohm")} resistor${b.powerRating ? `, ${q(b.powerRating, "W")} rated` : ""}` });
   else rows.push({ label: "Balancing", value: "None needed" });
   const bl = o.discharge.bleeder;
-  rows.push({ label: "Bleeder", value: bl ? `${q(bl.resistance, "ohm")}${bl.powerRating ? `, ${q(bl.powerRating, "W")} rated` : ""}${bl.switched ? ", switched" : ""}` : "None" });
+  rows.push({
+    label: "Bleeder",
+    value: bl ? `${q(bl.resistance, "ohm")}${bl.powerRating ? `, ${q(bl.powerRating, "W")} rated` : ""}${bl.switched ? ", switched" : ""}` : "None",
+  });
   return rows;
 }
 

@@ -58,7 +58,16 @@ const styles = StyleSheet.create({
   cAmount: { width: "16%", textAlign: "right" },
   totals: { marginTop: 6, marginLeft: "50%" },
   totalRow: { flexDirection: "row", justifyContent: "space-between", paddingVertical: 1.5 },
-  grandTotal: { flexDirection: "row", justifyContent: "space-between", borderTopWidth: 1, borderTopColor: ink, marginTop: 2, paddingTop: 3, fontSize: 11, fontWeight: 600 },
+  grandTotal: {
+    flexDirection: "row",
+    justifyContent: "space-between",
+    borderTopWidth: 1,
+    borderTopColor: ink,
+    marginTop: 2,
+    paddingTop: 3,
+    fontSize: 11,
+    fontWeight: 600,
+  },
   caution: { marginBottom: 2 },
   cautionBox: { borderWidth: 1, borderColor: "#c2410c", padding: 6, marginTop: 4 },
   footer: { position: "absolute", bottom: 24, left: 40, right: 40, flexDirection: "row", justifyContent: "space-between", color: muted, fontSize: 7.5 },
@@ -80,7 +89,13 @@ function KeyValues({ rows }: { rows: LabelledValue[] }) {
 export function QuotePdfLayout({ doc }: { doc: QuoteDocument }) {
   const totals = doc.totals.slice(0, -1);
   return (
-    <Document title={`Quote ${doc.number} revision ${doc.revision}`} author={doc.shopName} subject={`Quote ${doc.number}`} creator="Faradsmith" producer="Faradsmith">
+    <Document
+      title={`Quote ${doc.number} revision ${doc.revision}`}
+      author={doc.shopName}
+      subject={`Quote ${doc.number}`}
+      creator="Faradsmith"
+      producer="Faradsmith"
+    >
       <Page size="A4" style={styles.page}>
         <View style={styles.header} fixed>
           <View>

@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { z } from "zod";
 import {
   MAX_CAPACITANCE,
   MAX_CELLS_PER_BANK,
@@ -12,8 +12,8 @@ import {
   MAX_VOLTAGE,
   MAX_VOLUME,
   formatBound,
-} from '../bank/bounds';
-import { TECHNOLOGIES, type NetworkNode, type Requirement } from '../bank/types';
+} from "../bank/bounds";
+import { TECHNOLOGIES, type NetworkNode, type Requirement } from "../bank/types";
 
 /** Deepest network accepted (levels of groups and cells, the root is level 1). */
 export const MAX_NETWORK_DEPTH = 64;
@@ -35,30 +35,30 @@ function quantity(what: string, unit: string, max: number, { allowZero = false }
 }
 
 const cellSchema = z.strictObject({
-  kind: z.literal('cell'),
+  kind: z.literal("cell"),
   id: z.string().trim().min(1),
-  capacitance: quantity('Capacitance', 'F', MAX_CAPACITANCE),
-  ratedVoltage: quantity('Rated voltage', 'V', MAX_VOLTAGE),
-  esr: quantity('ESR', 'Ω', MAX_RESISTANCE, { allowZero: true }).optional(),
-  leakage: quantity('Leakage current', 'A', MAX_CURRENT, { allowZero: true }).optional(),
+  capacitance: quantity("Capacitance", "F", MAX_CAPACITANCE),
+  ratedVoltage: quantity("Rated voltage", "V", MAX_VOLTAGE),
+  esr: quantity("ESR", "Ω", MAX_RESISTANCE, { allowZero: true }).optional(),
+  leakage: quantity("Leakage current", "A", MAX_CURRENT, { allowZero: true }).optional(),
   // read by the failure and tolerance analyses (lib/validation/network-analysis.ts); others ignore them
-  surgeVoltage: quantity('Surge voltage', 'V', MAX_VOLTAGE).optional(),
+  surgeVoltage: quantity("Surge voltage", "V", MAX_VOLTAGE).optional(),
   toleranceMinus: z.number().min(0).max(0.99).optional(),
   tolerancePlus: z.number().min(0).max(1).optional(),
 });
 
 export const networkNodeSchema: z.ZodType<NetworkNode> = z.lazy(() =>
-  z.discriminatedUnion('kind', [
+  z.discriminatedUnion("kind", [
     cellSchema,
     z.strictObject({
-      kind: z.enum(['series', 'parallel']),
+      kind: z.enum(["series", "parallel"]),
       children: z.array(networkNodeSchema).min(1),
     }),
   ]),
 );
 
 export const evaluateNetworkSchema = z.strictObject({
-  appliedVoltage: quantity('Applied voltage', 'V', MAX_VOLTAGE).optional(),
+  appliedVoltage: quantity("Applied voltage", "V", MAX_VOLTAGE).optional(),
   network: networkNodeSchema,
 });
 
@@ -68,32 +68,32 @@ export const technologySchema = z.enum(TECHNOLOGIES);
 
 export const arrangementRequestSchema = z
   .strictObject({
-    maxVoltage: quantity('Maximum voltage', 'V', MAX_VOLTAGE),
-    minVoltage: quantity('Minimum voltage', 'V', MAX_VOLTAGE, { allowZero: true }).optional(),
-    capacitance: quantity('Capacitance', 'F', MAX_CAPACITANCE).optional(),
-    energy: quantity('Energy', 'J', MAX_ENERGY).optional(),
-    backup: z.strictObject({ power: quantity('Backup power', 'W', MAX_POWER), seconds: quantity('Backup time', 's', MAX_SECONDS) }).optional(),
-    peakCurrent: z.strictObject({ current: quantity('Peak current', 'A', MAX_CURRENT), maxDrop: quantity('Allowed drop', 'V', MAX_VOLTAGE) }).optional(),
-    maxMass: quantity('Mass limit', 'kg', MAX_MASS).optional(),
-    maxVolume: quantity('Volume limit', 'm³', MAX_VOLUME).optional(),
+    maxVoltage: quantity("Maximum voltage", "V", MAX_VOLTAGE),
+    minVoltage: quantity("Minimum voltage", "V", MAX_VOLTAGE, { allowZero: true }).optional(),
+    capacitance: quantity("Capacitance", "F", MAX_CAPACITANCE).optional(),
+    energy: quantity("Energy", "J", MAX_ENERGY).optional(),
+    backup: z.strictObject({ power: quantity("Backup power", "W", MAX_POWER), seconds: quantity("Backup time", "s", MAX_SECONDS) }).optional(),
+    peakCurrent: z.strictObject({ current: quantity("Peak current", "A", MAX_CURRENT), maxDrop: quantity("Allowed drop", "V", MAX_VOLTAGE) }).optional(),
+    maxMass: quantity("Mass limit", "kg", MAX_MASS).optional(),
+    maxVolume: quantity("Volume limit", "m³", MAX_VOLUME).optional(),
     quantity: z
       .number()
-      .int('Quantity must be a whole number of banks')
-      .min(1, 'Quantity must be at least 1')
-      .max(MAX_QUANTITY, `Quantity must be at most ${MAX_QUANTITY.toLocaleString('en-GB')}`)
+      .int("Quantity must be a whole number of banks")
+      .min(1, "Quantity must be at least 1")
+      .max(MAX_QUANTITY, `Quantity must be at most ${MAX_QUANTITY.toLocaleString("en-GB")}`)
       .default(1),
     technology: technologySchema.optional(),
   })
   .superRefine((value, ctx) => {
     if (value.capacitance === undefined && value.energy === undefined && value.backup === undefined) {
       ctx.addIssue({
-        code: 'custom',
-        path: ['capacitance'],
-        message: 'State at least one of capacitance, energy or backup',
+        code: "custom",
+        path: ["capacitance"],
+        message: "State at least one of capacitance, energy or backup",
       });
     }
     if (value.minVoltage !== undefined && !(value.minVoltage < value.maxVoltage)) {
-      ctx.addIssue({ code: 'custom', path: ['minVoltage'], message: 'Minimum voltage must be below the maximum voltage' });
+      ctx.addIssue({ code: "custom", path: ["minVoltage"], message: "Minimum voltage must be below the maximum voltage" });
     }
   });
 
@@ -108,10 +108,10 @@ export type ParseResult<T> = { ok: true; data: T } | { ok: false; error: string;
 
 /** ['network', 'children', 0, 'capacitance'] → "network.children[0].capacitance" */
 export function formatPath(path: readonly PropertyKey[]): string {
-  let out = '';
+  let out = "";
   for (const key of path) {
-    if (typeof key === 'number') out += `[${key}]`;
-    else out += out === '' ? String(key) : `.${String(key)}`;
+    if (typeof key === "number") out += `[${key}]`;
+    else out += out === "" ? String(key) : `.${String(key)}`;
   }
   return out;
 }
@@ -125,7 +125,7 @@ export function fromZod<T>(error: z.ZodError): ParseResult<T> {
   const first = issues[0];
   return {
     ok: false,
-    error: first ? (first.path ? `${first.path}: ${first.message}` : first.message) : 'Invalid request',
+    error: first ? (first.path ? `${first.path}: ${first.message}` : first.message) : "Invalid request",
     issues,
   };
 }
@@ -135,7 +135,7 @@ export function fromZod<T>(error: z.ZodError): ParseResult<T> {
  * cells or too many nodes, before any recursive parser sees it. Anything else that is wrong is
  * left to the schema. Returns null when the shape is within bounds.
  */
-export function checkNetworkBounds(network: unknown, rootPath = 'network'): ValidationIssue | null {
+export function checkNetworkBounds(network: unknown, rootPath = "network"): ValidationIssue | null {
   const nodes: unknown[] = [network];
   const depths: number[] = [1];
   const parents: number[] = [-1];
@@ -157,9 +157,9 @@ export function checkNetworkBounds(network: unknown, rootPath = 'network'): Vali
   while (head < nodes.length) {
     const i = head++;
     const node = nodes[i];
-    if (typeof node !== 'object' || node === null) continue;
+    if (typeof node !== "object" || node === null) continue;
     const kind = (node as { kind?: unknown }).kind;
-    if (kind === 'cell') {
+    if (kind === "cell") {
       cells++;
       if (cells > MAX_NETWORK_CELLS) return { path: pathOf(i), message: `A network may hold at most ${MAX_NETWORK_CELLS} cells` };
       continue;
@@ -185,8 +185,8 @@ export function checkNetworkBounds(network: unknown, rootPath = 'network'): Vali
 
 /** Parse a POST /api/v1/networks/evaluate body. */
 export function parseEvaluateRequest(json: unknown): ParseResult<EvaluateNetworkInput> {
-  if (typeof json !== 'object' || json === null || Array.isArray(json)) {
-    return fail('', 'The body must be a JSON object');
+  if (typeof json !== "object" || json === null || Array.isArray(json)) {
+    return fail("", "The body must be a JSON object");
   }
   const bounds = checkNetworkBounds((json as { network?: unknown }).network);
   if (bounds) return fail(bounds.path, bounds.message);
@@ -196,8 +196,8 @@ export function parseEvaluateRequest(json: unknown): ParseResult<EvaluateNetwork
 
 /** Parse an arrangement request (a customer's requirement). */
 export function parseArrangementRequest(json: unknown): ParseResult<ArrangementRequestInput & Requirement> {
-  if (typeof json !== 'object' || json === null || Array.isArray(json)) {
-    return fail('', 'The body must be a JSON object');
+  if (typeof json !== "object" || json === null || Array.isArray(json)) {
+    return fail("", "The body must be a JSON object");
   }
   const parsed = arrangementRequestSchema.safeParse(json);
   return parsed.success ? { ok: true, data: parsed.data } : fromZod(parsed.error);

@@ -30,7 +30,9 @@ interface ListSpec<F extends Choices, S extends string> {
   size: number;
 }
 
-type ListQuery<F extends Choices, S extends string> = { q: string; sort: S; dir: SortDir; page: number; size: number } & { -readonly [K in keyof F]: F[K][number] };
+type ListQuery<F extends Choices, S extends string> = { q: string; sort: S; dir: SortDir; page: number; size: number } & {
+  -readonly [K in keyof F]: F[K][number];
+};
 
 interface ListIssue {
   path: string;
@@ -57,8 +59,14 @@ export interface ListState {
 
 /** Search text as a list uses it: no control characters (PostgreSQL text cannot hold NUL), trimmed, bounded. */
 function cleanSearch(raw: string): string {
-  // eslint-disable-next-line no-control-regex
-  return raw.replace(/[\u0000-\u001f\u007f]/g, " ").trim().slice(0, MAX_LIST_SEARCH_LENGTH).trim();
+  return (
+    raw
+      // eslint-disable-next-line no-control-regex
+      .replace(/[\u0000-\u001f\u007f]/g, " ")
+      .trim()
+      .slice(0, MAX_LIST_SEARCH_LENGTH)
+      .trim()
+  );
 }
 
 /** A URL value as one string: the first of repeated values; anything else is absent. */
@@ -73,7 +81,8 @@ function read(input: unknown, key: string): string | undefined {
   return single((input as Record<string, unknown>)[key]);
 }
 
-const whole = (max: number) => z.coerce.number({ error: "Use a whole number." }).int("Use a whole number.").min(1, "Use a number from 1.").max(max, `Use a number up to ${max}.`);
+const whole = (max: number) =>
+  z.coerce.number({ error: "Use a whole number." }).int("Use a whole number.").min(1, "Use a number from 1.").max(max, `Use a number up to ${max}.`);
 
 export function defineList<const F extends Choices, const S extends string>(spec: ListSpec<F, S>) {
   type Q = ListQuery<F, S>;
@@ -136,7 +145,17 @@ export function defineList<const F extends Choices, const S extends string>(spec
   function state(base: string, q: Q, page: { page: number; size: number; total: number }): ListState {
     const shown = { ...q, page: page.page };
     const narrowed = q.q !== "" || Object.entries(spec.filters).some(([name, values]) => (q as Record<string, unknown>)[name] !== values[0]);
-    return { base, params: params(shown), sort: q.sort, dir: q.dir, firstDirs: { ...spec.sorts }, page: page.page, size: page.size, total: page.total, narrowed };
+    return {
+      base,
+      params: params(shown),
+      sort: q.sort,
+      dir: q.dir,
+      firstDirs: { ...spec.sorts },
+      page: page.page,
+      size: page.size,
+      total: page.total,
+      narrowed,
+    };
   }
 
   return { spec, defaults, parse, params, state };

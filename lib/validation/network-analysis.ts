@@ -1,7 +1,7 @@
-import { z } from 'zod';
-import { MAX_HISTOGRAM_BINS, MAX_TOLERANCE_SAMPLES, MAX_TOLERANCE_WORK } from '../bank/tolerance';
-import type { NetworkNode } from '../bank/types';
-import { checkNetworkBounds, fail, fromZod, networkNodeSchema, type ParseResult } from './bank';
+import { z } from "zod";
+import { MAX_HISTOGRAM_BINS, MAX_TOLERANCE_SAMPLES, MAX_TOLERANCE_WORK } from "../bank/tolerance";
+import type { NetworkNode } from "../bank/types";
+import { checkNetworkBounds, fail, fromZod, networkNodeSchema, type ParseResult } from "./bank";
 
 /** Highest applied voltage the analyses accept (V): far above any bank the engine sizes. */
 export const MAX_APPLIED_VOLTAGE = 1_000_000;
@@ -23,7 +23,7 @@ export const toleranceRequestSchema = z
     network: networkNodeSchema,
     samples: z.number().int().min(1).max(MAX_TOLERANCE_SAMPLES),
     seed: z.number().int().min(0).max(MAX_SEED),
-    distribution: z.enum(['uniform', 'normal']),
+    distribution: z.enum(["uniform", "normal"]),
     /** the shop's grading m: each cell's spread clipped to ±m of nominal */
     matchingTolerance: fraction(1).optional(),
     /** tolerance for cells that carry none */
@@ -40,7 +40,7 @@ export const toleranceRequestSchema = z
   .superRefine((value, ctx) => {
     const vMin = value.requirement?.minVoltage;
     if (vMin !== undefined && !(vMin < value.appliedVoltage)) {
-      ctx.addIssue({ code: 'custom', path: ['requirement', 'minVoltage'], message: 'Minimum voltage must be below the applied voltage' });
+      ctx.addIssue({ code: "custom", path: ["requirement", "minVoltage"], message: "Minimum voltage must be below the applied voltage" });
     }
   });
 export type ToleranceRequestInput = z.infer<typeof toleranceRequestSchema>;
@@ -50,20 +50,20 @@ export type ToleranceRequestInput = z.infer<typeof toleranceRequestSchema>;
  * surge voltage is below its rated voltage or whose id repeats an earlier one (when ids must be unique).
  */
 function inspectNetwork(network: NetworkNode, uniqueIds: boolean): { nodes: number; issue: { path: string; message: string } | null } {
-  const stack: { node: NetworkNode; path: string }[] = [{ node: network, path: 'network' }];
+  const stack: { node: NetworkNode; path: string }[] = [{ node: network, path: "network" }];
   const seen = new Set<string>();
   let nodes = 0;
   let issue: { path: string; message: string } | null = null;
   while (stack.length > 0) {
     const { node, path } = stack.pop() as { node: NetworkNode; path: string };
     nodes++;
-    if (node.kind !== 'cell') {
+    if (node.kind !== "cell") {
       for (let c = node.children.length - 1; c >= 0; c--) stack.push({ node: node.children[c] as NetworkNode, path: `${path}.children[${c}]` });
       continue;
     }
     if (issue) continue;
     if (node.surgeVoltage !== undefined && node.surgeVoltage < node.ratedVoltage) {
-      issue = { path: `${path}.surgeVoltage`, message: 'Surge voltage must be at least the rated voltage' };
+      issue = { path: `${path}.surgeVoltage`, message: "Surge voltage must be at least the rated voltage" };
     } else if (uniqueIds && seen.has(node.id)) {
       issue = { path: `${path}.id`, message: `Cell ids must be unique: "${node.id}" is used twice` };
     }
@@ -73,12 +73,12 @@ function inspectNetwork(network: NetworkNode, uniqueIds: boolean): { nodes: numb
 }
 
 function asObject(json: unknown): json is Record<string, unknown> {
-  return typeof json === 'object' && json !== null && !Array.isArray(json);
+  return typeof json === "object" && json !== null && !Array.isArray(json);
 }
 
 /** Parse a POST /api/v1/networks/failures body. Cell ids must be unique (the cases name cells by id). */
 export function parseFailuresRequest(json: unknown): ParseResult<FailuresRequestInput> {
-  if (!asObject(json)) return fail('', 'The body must be a JSON object');
+  if (!asObject(json)) return fail("", "The body must be a JSON object");
   const bounds = checkNetworkBounds(json.network);
   if (bounds) return fail(bounds.path, bounds.message);
   const parsed = failuresRequestSchema.safeParse(json);
@@ -93,7 +93,7 @@ export function parseFailuresRequest(json: unknown): ParseResult<FailuresRequest
  * (cells and groups) passes MAX_TOLERANCE_WORK, naming `samples`.
  */
 export function parseToleranceRequest(json: unknown): ParseResult<ToleranceRequestInput> {
-  if (!asObject(json)) return fail('', 'The body must be a JSON object');
+  if (!asObject(json)) return fail("", "The body must be a JSON object");
   const bounds = checkNetworkBounds(json.network);
   if (bounds) return fail(bounds.path, bounds.message);
   const parsed = toleranceRequestSchema.safeParse(json);
@@ -101,9 +101,9 @@ export function parseToleranceRequest(json: unknown): ParseResult<ToleranceReque
   const { nodes, issue } = inspectNetwork(parsed.data.network, false);
   if (issue) return fail(issue.path, issue.message);
   if (parsed.data.samples * nodes > MAX_TOLERANCE_WORK) {
-    const n = (x: number) => x.toLocaleString('en');
+    const n = (x: number) => x.toLocaleString("en");
     return fail(
-      'samples',
+      "samples",
       `samples × network size (cells and groups) may be at most ${n(MAX_TOLERANCE_WORK)}; here ${n(parsed.data.samples)} × ${n(nodes)}: use at most ${n(Math.floor(MAX_TOLERANCE_WORK / nodes))} samples`,
     );
   }

@@ -1,10 +1,10 @@
-import { z } from 'zod';
-import { formatBound, MAX_BY_UNIT } from '../bank/bounds';
-import { backupEnergy, capacitanceForEnergy, maxEsrFor, storedEnergy, usableEnergy as usableEnergyOf } from '../bank/energy';
-import type { Requirement, Technology } from '../bank/types';
-import { parseQuantity, type QuantityUnit } from '../quantities';
-import { technologySchema } from './bank';
-import { MAX_NOTES_LENGTH, MAX_QUANTITY } from './limits';
+import { z } from "zod";
+import { formatBound, MAX_BY_UNIT } from "../bank/bounds";
+import { backupEnergy, capacitanceForEnergy, maxEsrFor, storedEnergy, usableEnergy as usableEnergyOf } from "../bank/energy";
+import type { Requirement, Technology } from "../bank/types";
+import { parseQuantity, type QuantityUnit } from "../quantities";
+import { technologySchema } from "./bank";
+import { MAX_NOTES_LENGTH, MAX_QUANTITY } from "./limits";
 
 /**
  * The storefront's request form: what people type (`48 V`, `20 kJ`, `470 µF`, `5 kW`, `30 s`,
@@ -12,16 +12,15 @@ import { MAX_NOTES_LENGTH, MAX_QUANTITY } from './limits';
  * The same schema runs in the browser (react-hook-form) and in the server action.
  */
 
-export const SIZE_FOR = ['capacitance', 'energy', 'backup'] as const;
+export const SIZE_FOR = ["capacitance", "energy", "backup"] as const;
 export type SizeFor = (typeof SIZE_FOR)[number];
 
-
-const text = z.string().max(60, 'Keep this under 60 characters');
+const text = z.string().max(60, "Keep this under 60 characters");
 
 export const requestFormFieldsSchema = z.object({
   maxVoltage: text,
   minVoltage: text,
-  sizeFor: z.enum(SIZE_FOR, { message: 'Choose what to size the bank for' }),
+  sizeFor: z.enum(SIZE_FOR, { message: "Choose what to size the bank for" }),
   capacitance: text,
   energy: text,
   backupPower: text,
@@ -31,7 +30,7 @@ export const requestFormFieldsSchema = z.object({
   maxMass: text,
   maxVolume: text,
   quantity: text,
-  technology: z.union([z.literal(''), technologySchema], { message: 'Choose a technology from the list' }),
+  technology: z.union([z.literal(""), technologySchema], { message: "Choose a technology from the list" }),
   notes: z.string().max(MAX_NOTES_LENGTH, `Keep the notes under ${MAX_NOTES_LENGTH} characters`),
 });
 
@@ -39,20 +38,20 @@ export type RequestFormValues = z.infer<typeof requestFormFieldsSchema>;
 export type RequestFormField = keyof RequestFormValues;
 
 export const EMPTY_REQUEST_FORM: RequestFormValues = {
-  maxVoltage: '',
-  minVoltage: '',
-  sizeFor: 'energy',
-  capacitance: '',
-  energy: '',
-  backupPower: '',
-  backupTime: '',
-  peakCurrent: '',
-  maxDrop: '',
-  maxMass: '',
-  maxVolume: '',
-  quantity: '1',
-  technology: '',
-  notes: '',
+  maxVoltage: "",
+  minVoltage: "",
+  sizeFor: "energy",
+  capacitance: "",
+  energy: "",
+  backupPower: "",
+  backupTime: "",
+  peakCurrent: "",
+  maxDrop: "",
+  maxMass: "",
+  maxVolume: "",
+  quantity: "1",
+  technology: "",
+  notes: "",
 };
 
 export interface RequestFormResult {
@@ -64,29 +63,29 @@ type Issue = { field: RequestFormField; message: string };
 
 /** Label words used in messages, so each message names what it is about. */
 const WHAT: Record<string, string> = {
-  maxVoltage: 'maximum voltage',
-  minVoltage: 'minimum voltage',
-  capacitance: 'capacitance',
-  energy: 'usable energy',
-  backupPower: 'backup power',
-  backupTime: 'backup time',
-  peakCurrent: 'peak current',
-  maxDrop: 'allowed voltage drop',
-  maxMass: 'mass limit',
-  maxVolume: 'volume limit',
+  maxVoltage: "maximum voltage",
+  minVoltage: "minimum voltage",
+  capacitance: "capacitance",
+  energy: "usable energy",
+  backupPower: "backup power",
+  backupTime: "backup time",
+  peakCurrent: "peak current",
+  maxDrop: "allowed voltage drop",
+  maxMass: "mass limit",
+  maxVolume: "volume limit",
 };
 
 const EXAMPLES: Record<QuantityUnit, string> = {
-  V: '48 V',
-  F: '470 µF or 58 F',
-  J: '20 kJ (or 5.5 Wh)',
-  W: '5 kW',
-  s: '30 s or 2 min',
-  A: '200 A',
-  kg: '25 kg',
-  'm³': '12 L',
-  Ω: '10 mΩ',
-  Wh: '5.5 Wh',
+  V: "48 V",
+  F: "470 µF or 58 F",
+  J: "20 kJ (or 5.5 Wh)",
+  W: "5 kW",
+  s: "30 s or 2 min",
+  A: "200 A",
+  kg: "25 kg",
+  "m³": "12 L",
+  Ω: "10 mΩ",
+  Wh: "5.5 Wh",
 };
 
 /**
@@ -95,17 +94,17 @@ const EXAMPLES: Record<QuantityUnit, string> = {
  * (lib/bank/bounds.ts) is refused at the field.
  */
 function readQuantity(raw: string, field: RequestFormField, unit: QuantityUnit, issues: Issue[], allowZero = false): number | undefined {
-  if (raw.trim() === '') return undefined;
+  if (raw.trim() === "") return undefined;
   let parsed = parseQuantity(raw, unit, { allowZero });
-  if (!parsed.ok && unit === 'J') {
-    const wh = parseQuantity(raw, 'Wh', { allowZero });
-    if (wh.ok && wh.unit === 'Wh') parsed = { ok: true, value: wh.value * 3600, unit: 'J' };
+  if (!parsed.ok && unit === "J") {
+    const wh = parseQuantity(raw, "Wh", { allowZero });
+    if (wh.ok && wh.unit === "Wh") parsed = { ok: true, value: wh.value * 3600, unit: "J" };
   }
   if (!parsed.ok) {
     issues.push({ field, message: `${parsed.message}; write the ${WHAT[field] ?? field} like ${EXAMPLES[unit]}` });
     return undefined;
   }
-  const max = unit === 'Wh' ? MAX_BY_UNIT.J / 3600 : MAX_BY_UNIT[unit];
+  const max = unit === "Wh" ? MAX_BY_UNIT.J / 3600 : MAX_BY_UNIT[unit];
   if (parsed.value > max) {
     const what = WHAT[field] ?? field;
     issues.push({ field, message: `The ${what} must be at most ${formatBound(max, unit)}` });
@@ -115,7 +114,7 @@ function readQuantity(raw: string, field: RequestFormField, unit: QuantityUnit, 
 }
 
 function required(value: number | undefined, raw: string, field: RequestFormField, unit: QuantityUnit, issues: Issue[]): void {
-  if (value === undefined && raw.trim() === '') {
+  if (value === undefined && raw.trim() === "") {
     issues.push({ field, message: `Enter the ${WHAT[field] ?? field}, e.g. ${EXAMPLES[unit]}` });
   }
 }
@@ -126,62 +125,62 @@ function required(value: number | undefined, raw: string, field: RequestFormFiel
  */
 export function readRequestForm(values: RequestFormValues): { ok: true; data: RequestFormResult } | { ok: false; issues: Issue[] } {
   const issues: Issue[] = [];
-  const maxVoltage = readQuantity(values.maxVoltage, 'maxVoltage', 'V', issues);
-  required(maxVoltage, values.maxVoltage, 'maxVoltage', 'V', issues);
-  const minVoltage = readQuantity(values.minVoltage, 'minVoltage', 'V', issues, true);
+  const maxVoltage = readQuantity(values.maxVoltage, "maxVoltage", "V", issues);
+  required(maxVoltage, values.maxVoltage, "maxVoltage", "V", issues);
+  const minVoltage = readQuantity(values.minVoltage, "minVoltage", "V", issues, true);
   if (maxVoltage !== undefined && minVoltage !== undefined && !(minVoltage < maxVoltage)) {
-    issues.push({ field: 'minVoltage', message: 'The minimum voltage must be below the maximum voltage' });
+    issues.push({ field: "minVoltage", message: "The minimum voltage must be below the maximum voltage" });
   }
 
   const requirement: Requirement & { quantity: number } = { maxVoltage: maxVoltage ?? 0, quantity: 1 };
   if (minVoltage !== undefined) requirement.minVoltage = minVoltage;
 
-  if (values.sizeFor === 'capacitance') {
-    const c = readQuantity(values.capacitance, 'capacitance', 'F', issues);
-    required(c, values.capacitance, 'capacitance', 'F', issues);
+  if (values.sizeFor === "capacitance") {
+    const c = readQuantity(values.capacitance, "capacitance", "F", issues);
+    required(c, values.capacitance, "capacitance", "F", issues);
     if (c !== undefined) requirement.capacitance = c;
-  } else if (values.sizeFor === 'energy') {
-    const e = readQuantity(values.energy, 'energy', 'J', issues);
-    required(e, values.energy, 'energy', 'J', issues);
+  } else if (values.sizeFor === "energy") {
+    const e = readQuantity(values.energy, "energy", "J", issues);
+    required(e, values.energy, "energy", "J", issues);
     if (e !== undefined) requirement.energy = e;
   } else {
-    const p = readQuantity(values.backupPower, 'backupPower', 'W', issues);
-    required(p, values.backupPower, 'backupPower', 'W', issues);
-    const t = readQuantity(values.backupTime, 'backupTime', 's', issues);
-    required(t, values.backupTime, 'backupTime', 's', issues);
+    const p = readQuantity(values.backupPower, "backupPower", "W", issues);
+    required(p, values.backupPower, "backupPower", "W", issues);
+    const t = readQuantity(values.backupTime, "backupTime", "s", issues);
+    required(t, values.backupTime, "backupTime", "s", issues);
     if (p !== undefined && t !== undefined) requirement.backup = { power: p, seconds: t };
   }
 
-  const current = readQuantity(values.peakCurrent, 'peakCurrent', 'A', issues);
-  const drop = readQuantity(values.maxDrop, 'maxDrop', 'V', issues);
-  if (current !== undefined && drop === undefined && values.maxDrop.trim() === '') {
-    issues.push({ field: 'maxDrop', message: 'With a peak current, say how far the voltage may drop, e.g. 4 V' });
+  const current = readQuantity(values.peakCurrent, "peakCurrent", "A", issues);
+  const drop = readQuantity(values.maxDrop, "maxDrop", "V", issues);
+  if (current !== undefined && drop === undefined && values.maxDrop.trim() === "") {
+    issues.push({ field: "maxDrop", message: "With a peak current, say how far the voltage may drop, e.g. 4 V" });
   }
-  if (drop !== undefined && current === undefined && values.peakCurrent.trim() === '') {
-    issues.push({ field: 'peakCurrent', message: 'Say the peak current this drop is allowed at, e.g. 200 A' });
+  if (drop !== undefined && current === undefined && values.peakCurrent.trim() === "") {
+    issues.push({ field: "peakCurrent", message: "Say the peak current this drop is allowed at, e.g. 200 A" });
   }
   if (current !== undefined && drop !== undefined) {
     if (maxVoltage !== undefined && !(drop < maxVoltage)) {
-      issues.push({ field: 'maxDrop', message: 'The allowed drop must be below the maximum voltage' });
+      issues.push({ field: "maxDrop", message: "The allowed drop must be below the maximum voltage" });
     } else {
       requirement.peakCurrent = { current, maxDrop: drop };
     }
   }
 
-  const mass = readQuantity(values.maxMass, 'maxMass', 'kg', issues);
+  const mass = readQuantity(values.maxMass, "maxMass", "kg", issues);
   if (mass !== undefined) requirement.maxMass = mass;
-  const volume = readQuantity(values.maxVolume, 'maxVolume', 'm³', issues);
+  const volume = readQuantity(values.maxVolume, "maxVolume", "m³", issues);
   if (volume !== undefined) requirement.maxVolume = volume;
 
   const q = values.quantity.trim();
-  if (q === '') {
+  if (q === "") {
     requirement.quantity = 1;
   } else if (!/^\d+$/.test(q) || Number(q) < 1 || Number(q) > MAX_QUANTITY) {
-    issues.push({ field: 'quantity', message: `Enter a whole number of banks from 1 to ${MAX_QUANTITY.toLocaleString('en-GB')}` });
+    issues.push({ field: "quantity", message: `Enter a whole number of banks from 1 to ${MAX_QUANTITY.toLocaleString("en-GB")}` });
   } else {
     requirement.quantity = Number(q);
   }
-  if (values.technology !== '') requirement.technology = values.technology as Technology;
+  if (values.technology !== "") requirement.technology = values.technology as Technology;
 
   return issues.length > 0 ? { ok: false, issues } : { ok: true, data: { requirement, notes: values.notes.trim() } };
 }
@@ -190,12 +189,12 @@ export function readRequestForm(values: RequestFormValues): { ok: true; data: Re
 export const requestFormSchema = requestFormFieldsSchema
   .superRefine((values, ctx) => {
     const r = readRequestForm(values);
-    if (!r.ok) for (const issue of r.issues) ctx.addIssue({ code: 'custom', path: [issue.field], message: issue.message });
+    if (!r.ok) for (const issue of r.issues) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
   })
   .transform((values): RequestFormResult => {
     const r = readRequestForm(values);
     // superRefine has refused every failing input before the transform runs
-    if (!r.ok) throw new Error('unreachable: request form refused after refinement');
+    if (!r.ok) throw new Error("unreachable: request form refused after refinement");
     return r.data;
   });
 
@@ -216,14 +215,14 @@ export interface DerivedFigures {
 }
 
 /** A field's value when it reads as a quantity within its bound, else null (the field shows why). */
-function quiet(raw: string, unit: Exclude<QuantityUnit, 'Wh'>, allowZero = false): number | null {
-  if (raw.trim() === '') return null;
+function quiet(raw: string, unit: Exclude<QuantityUnit, "Wh">, allowZero = false): number | null {
+  if (raw.trim() === "") return null;
   let value: number | null = null;
   const r = parseQuantity(raw, unit, { allowZero });
   if (r.ok) value = r.value;
-  else if (unit === 'J') {
-    const wh = parseQuantity(raw, 'Wh', { allowZero });
-    if (wh.ok && wh.unit === 'Wh') value = wh.value * 3600;
+  else if (unit === "J") {
+    const wh = parseQuantity(raw, "Wh", { allowZero });
+    if (wh.ok && wh.unit === "Wh") value = wh.value * 3600;
   }
   return value !== null && value <= MAX_BY_UNIT[unit] ? value : null;
 }
@@ -235,28 +234,28 @@ function quiet(raw: string, unit: Exclude<QuantityUnit, 'Wh'>, allowZero = false
  * ½·C·V_max²; and ESR_max = ΔV / I_pk.
  */
 export function deriveFigures(values: RequestFormValues): DerivedFigures {
-  const vmax = quiet(values.maxVoltage, 'V');
-  const vmin = quiet(values.minVoltage, 'V', true) ?? (values.minVoltage.trim() === '' ? 0 : null);
+  const vmax = quiet(values.maxVoltage, "V");
+  const vmin = quiet(values.minVoltage, "V", true) ?? (values.minVoltage.trim() === "" ? 0 : null);
   const voltages = vmax !== null && vmin !== null && vmin < vmax ? { max: vmax, min: vmin } : null;
 
   let capacitance: number | null = null;
   let usableEnergy: number | null = null;
-  if (values.sizeFor === 'capacitance') {
-    capacitance = quiet(values.capacitance, 'F');
+  if (values.sizeFor === "capacitance") {
+    capacitance = quiet(values.capacitance, "F");
     if (capacitance !== null && voltages) usableEnergy = usableEnergyOf(capacitance, voltages.max, voltages.min);
   } else {
-    if (values.sizeFor === 'energy') {
-      usableEnergy = quiet(values.energy, 'J');
+    if (values.sizeFor === "energy") {
+      usableEnergy = quiet(values.energy, "J");
     } else {
-      const p = quiet(values.backupPower, 'W');
-      const t = quiet(values.backupTime, 's');
+      const p = quiet(values.backupPower, "W");
+      const t = quiet(values.backupTime, "s");
       if (p !== null && t !== null) usableEnergy = backupEnergy(p, t);
     }
     if (usableEnergy !== null && voltages) capacitance = capacitanceForEnergy(usableEnergy, voltages.max, voltages.min);
   }
   const stored = capacitance !== null && voltages ? storedEnergy(capacitance, voltages.max) : null;
-  const current = quiet(values.peakCurrent, 'A');
-  const drop = quiet(values.maxDrop, 'V');
+  const current = quiet(values.peakCurrent, "A");
+  const drop = quiet(values.maxDrop, "V");
   const maxEsr = current !== null && drop !== null ? maxEsrFor(drop, current) : null;
   return { voltages, capacitance, usableEnergy, storedEnergy: stored, maxEsr };
 }

@@ -4,8 +4,8 @@
  * Monte-Carlo (100,000 samples of a 100-cell network) and the one-cell failures of 20,000 cells.
  * Run: npx tsx tests/bench/engine-bench.ts
  */
-import { analyzeNetworkFailures, DEFAULT_DESIGN_FACTORS, evaluateNetwork, runToleranceYield, searchArrangements, type NetworkNode } from '../../lib/bank';
-import { generateCatalog } from '../unit/bank/catalog-fixture';
+import { analyzeNetworkFailures, DEFAULT_DESIGN_FACTORS, evaluateNetwork, runToleranceYield, searchArrangements, type NetworkNode } from "../../lib/bank";
+import { generateCatalog } from "../unit/bank/catalog-fixture";
 
 const EVALUATION_TARGET_MS = 5;
 const SEARCH_MEDIAN_TARGET_MS = 25;
@@ -31,11 +31,11 @@ function time(fn: () => unknown, runs: number, warmup: number): number[] {
 
 function stringsOfCells(strings: number, perString: number): NetworkNode {
   return {
-    kind: 'parallel',
+    kind: "parallel",
     children: Array.from({ length: strings }, (_, s) => ({
-      kind: 'series' as const,
+      kind: "series" as const,
       children: Array.from({ length: perString }, (_, i) => ({
-        kind: 'cell' as const,
+        kind: "cell" as const,
         id: `s${s}-c${i}`,
         capacitance: 350 * (1 + 0.01 * Math.sin(s * 131 + i)),
         ratedVoltage: 2.7,
@@ -47,11 +47,11 @@ function stringsOfCells(strings: number, perString: number): NetworkNode {
 
 function groupsInSeries(groups: number, perGroup: number): NetworkNode {
   return {
-    kind: 'series',
+    kind: "series",
     children: Array.from({ length: groups }, (_, g) => ({
-      kind: 'parallel' as const,
+      kind: "parallel" as const,
       children: Array.from({ length: perGroup }, (_, i) => ({
-        kind: 'cell' as const,
+        kind: "cell" as const,
         id: `g${g}-c${i}`,
         capacitance: 350 * (1 + 0.01 * Math.cos(g * 17 + i)),
         ratedVoltage: 2.7,
@@ -68,12 +68,12 @@ export async function runEngineBench(): Promise<string[]> {
   const runs = 50;
 
   for (const [name, tree] of [
-    ['100 strings of 100 cells in series, in parallel', stringsOfCells(100, 100)],
-    ['100 groups of 100 parallel cells, in series', groupsInSeries(100, 100)],
+    ["100 strings of 100 cells in series, in parallel", stringsOfCells(100, 100)],
+    ["100 groups of 100 parallel cells, in series", groupsInSeries(100, 100)],
   ] as const) {
     const s = stats(time(() => evaluateNetwork(tree), runs, 20));
     lines.push(
-      `evaluateNetwork, 10,000 cells (${name}): median ${ms(s.median)} ms, p95 ${ms(s.p95)} ms — target < ${EVALUATION_TARGET_MS} ms: ${s.median < EVALUATION_TARGET_MS ? 'holds' : 'MISSED'}`,
+      `evaluateNetwork, 10,000 cells (${name}): median ${ms(s.median)} ms, p95 ${ms(s.p95)} ms — target < ${EVALUATION_TARGET_MS} ms: ${s.median < EVALUATION_TARGET_MS ? "holds" : "MISSED"}`,
     );
   }
 
@@ -90,39 +90,62 @@ export async function runEngineBench(): Promise<string[]> {
     ),
   );
   lines.push(
-    `searchArrangements, 10,000-cell catalog, 48 V → 24 V, 5 kW for 10 s backup (${optionCount} options): median ${ms(s.median)} ms, p95 ${ms(s.p95)} ms — target median < ${SEARCH_MEDIAN_TARGET_MS} ms: ${s.median < SEARCH_MEDIAN_TARGET_MS ? 'holds' : 'MISSED'}`,
+    `searchArrangements, 10,000-cell catalog, 48 V → 24 V, 5 kW for 10 s backup (${optionCount} options): median ${ms(s.median)} ms, p95 ${ms(s.p95)} ms — target median < ${SEARCH_MEDIAN_TARGET_MS} ms: ${s.median < SEARCH_MEDIAN_TARGET_MS ? "holds" : "MISSED"}`,
   );
 
   // tolerance yield: 25 groups of 4 graded cells in series (100 cells), 100,000 samples
   const graded: NetworkNode = {
-    kind: 'series',
+    kind: "series",
     children: Array.from({ length: 25 }, (_, g) => ({
-      kind: 'parallel' as const,
-      children: Array.from({ length: 4 }, (_, i) => ({ kind: 'cell' as const, id: `g${g}-c${i}`, capacitance: 3000, ratedVoltage: 2.7, surgeVoltage: 2.85, toleranceMinus: 0.1, tolerancePlus: 0.2 })),
+      kind: "parallel" as const,
+      children: Array.from({ length: 4 }, (_, i) => ({
+        kind: "cell" as const,
+        id: `g${g}-c${i}`,
+        capacitance: 3000,
+        ratedVoltage: 2.7,
+        surgeVoltage: 2.85,
+        toleranceMinus: 0.1,
+        tolerancePlus: 0.2,
+      })),
     })),
   };
-  for (const distribution of ['uniform', 'normal'] as const) {
-    const t = stats(time(() => runToleranceYield({ network: graded, appliedVoltage: 62.5, samples: 100_000, seed: 1, distribution, matchingTolerance: 0.05, requirement: { capacitance: 450 } }), 7, 2));
+  for (const distribution of ["uniform", "normal"] as const) {
+    const t = stats(
+      time(
+        () =>
+          runToleranceYield({
+            network: graded,
+            appliedVoltage: 62.5,
+            samples: 100_000,
+            seed: 1,
+            distribution,
+            matchingTolerance: 0.05,
+            requirement: { capacitance: 450 },
+          }),
+        7,
+        2,
+      ),
+    );
     lines.push(
-      `runToleranceYield, 100,000 samples × 100-cell network (25 groups of 4, ${distribution}): median ${ms(t.median)} ms, p95 ${ms(t.p95)} ms — target < ${TOLERANCE_TARGET_MS} ms: ${t.median < TOLERANCE_TARGET_MS ? 'holds' : 'MISSED'}`,
+      `runToleranceYield, 100,000 samples × 100-cell network (25 groups of 4, ${distribution}): median ${ms(t.median)} ms, p95 ${ms(t.p95)} ms — target < ${TOLERANCE_TARGET_MS} ms: ${t.median < TOLERANCE_TARGET_MS ? "holds" : "MISSED"}`,
     );
   }
 
   // one-cell failures: every cell shorted and opened, 20,000 cells
   for (const [name, tree] of [
-    ['200 strings of 100 cells', stringsOfCells(200, 100)],
-    ['100 groups of 200 cells', groupsInSeries(100, 200)],
+    ["200 strings of 100 cells", stringsOfCells(200, 100)],
+    ["100 groups of 200 cells", groupsInSeries(100, 200)],
   ] as const) {
     const v = evaluateNetwork(tree).maxVoltage;
     const f = stats(time(() => analyzeNetworkFailures(tree, v), 5, 1));
     lines.push(
-      `analyzeNetworkFailures, 20,000 cells × short and open (${name}): median ${ms(f.median)} ms, p95 ${ms(f.p95)} ms — target < ${FAILURES_TARGET_MS} ms: ${f.median < FAILURES_TARGET_MS ? 'holds' : 'MISSED'}`,
+      `analyzeNetworkFailures, 20,000 cells × short and open (${name}): median ${ms(f.median)} ms, p95 ${ms(f.p95)} ms — target < ${FAILURES_TARGET_MS} ms: ${f.median < FAILURES_TARGET_MS ? "holds" : "MISSED"}`,
     );
   }
   return lines;
 }
 
-if (process.argv[1]?.replace(/\\/g, '/').endsWith('tests/bench/engine-bench.ts')) {
+if (process.argv[1]?.replace(/\\/g, "/").endsWith("tests/bench/engine-bench.ts")) {
   void runEngineBench().then((lines) => {
     for (const line of lines) console.log(line);
   });

@@ -28,7 +28,9 @@ async function main() {
   times.sort((a, b) => a - b);
   const median = percentile(times, 50);
   const p95 = percentile(times, 95);
-  console.log(`quote PDF (${warm.byteLength} bytes): first render ${firstMs.toFixed(0)} ms; over ${RUNS} renders median ${median.toFixed(1)} ms, p95 ${p95.toFixed(1)} ms`);
+  console.log(
+    `quote PDF (${warm.byteLength} bytes): first render ${firstMs.toFixed(0)} ms; over ${RUNS} renders median ${median.toFixed(1)} ms, p95 ${p95.toFixed(1)} ms`,
+  );
   console.log(`median under ${TARGET_MEDIAN_MS} ms: ${median < TARGET_MEDIAN_MS ? "yes" : "NO"}`);
 }
 

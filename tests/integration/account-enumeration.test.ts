@@ -49,9 +49,18 @@ describe("join answers alike for a new and an existing e-mail", () => {
 
     const [account] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(users.email, existing.email));
     expect(account?.name).toBe(existing.name);
-    expect(await db.select({ id: members.id }).from(members).where(and(eq(members.shopId, shop.id), eq(members.userId, account!.id)))).toEqual([]);
+    expect(
+      await db
+        .select({ id: members.id })
+        .from(members)
+        .where(and(eq(members.shopId, shop.id), eq(members.userId, account!.id))),
+    ).toEqual([]);
 
-    const notices = () => db.select().from(emailOutbox).where(and(eq(emailOutbox.shopId, shop.id), eq(emailOutbox.toEmail, existing.email), eq(emailOutbox.kind, "account-exists")));
+    const notices = () =>
+      db
+        .select()
+        .from(emailOutbox)
+        .where(and(eq(emailOutbox.shopId, shop.id), eq(emailOutbox.toEmail, existing.email), eq(emailOutbox.kind, "account-exists")));
     expect(await notices()).toHaveLength(1);
     // asking again the same day sends nothing more: the form cannot flood an inbox
     await actAs(null);
@@ -77,10 +86,24 @@ describe("open-shop answers alike for a new and an existing e-mail", () => {
   it("same answer; no shop and no account for the existing e-mail; its owner is told by e-mail", async () => {
     const id = Date.now().toString(36);
     await actAs(null);
-    const forNew = await openShop({ name: "Ada Quill", email: `ada.${id}@north-coast.example`, password: "a-long-enough-password", shopName: "North Coast Banks", slug: `north-coast-${id}`, currency: "EUR" });
+    const forNew = await openShop({
+      name: "Ada Quill",
+      email: `ada.${id}@north-coast.example`,
+      password: "a-long-enough-password",
+      shopName: "North Coast Banks",
+      slug: `north-coast-${id}`,
+      currency: "EUR",
+    });
     await actAs(null);
     const slug = `north-coast-${id}-b`;
-    const forExisting = await openShop({ name: "Ada Quill", email: existing.email, password: "a-long-enough-password", shopName: "Westerly Banks", slug, currency: "EUR" });
+    const forExisting = await openShop({
+      name: "Ada Quill",
+      email: existing.email,
+      password: "a-long-enough-password",
+      shopName: "Westerly Banks",
+      slug,
+      currency: "EUR",
+    });
     expect(forExisting).toEqual({ ok: true, data: { slug } });
     expect(forNew).toEqual({ ok: true, data: { slug: `north-coast-${id}` } });
     expect(await db.select({ id: shops.id }).from(shops).where(eq(shops.slug, slug))).toEqual([]);
@@ -92,7 +115,14 @@ describe("open-shop answers alike for a new and an existing e-mail", () => {
 
   it("still says at the field that a shop address is taken: addresses are public", async () => {
     await actAs(null);
-    const r = await openShop({ name: "Ada Quill", email: `ada.${Date.now()}@north-coast.example`, password: "a-long-enough-password", shopName: "Kestrel Again", slug: K, currency: "EUR" });
+    const r = await openShop({
+      name: "Ada Quill",
+      email: `ada.${Date.now()}@north-coast.example`,
+      password: "a-long-enough-password",
+      shopName: "Kestrel Again",
+      slug: K,
+      currency: "EUR",
+    });
     expect(r).toMatchObject({ ok: false, code: "conflict", fieldErrors: { slug: ["That address is taken; choose another."] } });
   });
 });

@@ -20,7 +20,11 @@ import { actAs, request, sessionCookie } from "./helpers";
 // Smallest files of each kind from their specifications: PDF header (ISO 32000-1 §7.5.2), PNG
 // signature + IHDR (ISO/IEC 15948 §5.2), ASCII DXF opening group "0 / SECTION" (DXF reference, from memory).
 const PDF = Buffer.from("%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n", "latin1");
-const PNG = Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13]), Buffer.from("IHDR"), Buffer.from([0, 0, 0, 1, 0, 0, 0, 1, 8, 2, 0, 0, 0, 0x90, 0x77, 0x53, 0xde])]);
+const PNG = Buffer.concat([
+  Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13]),
+  Buffer.from("IHDR"),
+  Buffer.from([0, 0, 0, 1, 0, 0, 0, 1, 8, 2, 0, 0, 0, 0x90, 0x77, 0x53, 0xde]),
+]);
 const DXF = Buffer.from("  0\r\nSECTION\r\n  2\r\nENTITIES\r\n  0\r\nENDSEC\r\n  0\r\nEOF\r\n", "latin1");
 // A Windows program starts "MZ" (Microsoft PE/COFF specification); here it is named like a drawing.
 const EXE = Buffer.concat([Buffer.from("MZ"), Buffer.alloc(62), Buffer.from("This program cannot be run in DOS mode.")]);
@@ -30,7 +34,10 @@ const params = <T extends Record<string, string>>(p: T) => ({ params: Promise.re
 async function upload(email: string | null, slug: string, name: string, bytes: Buffer) {
   const form = new FormData();
   form.set("file", new File([new Uint8Array(bytes)], name));
-  return uploadRoute(request(`/api/v1/shops/${slug}/attachments`, { method: "POST", body: form, cookie: email ? await sessionCookie(email) : "" }), params({ shop: slug }));
+  return uploadRoute(
+    request(`/api/v1/shops/${slug}/attachments`, { method: "POST", body: form, cookie: email ? await sessionCookie(email) : "" }),
+    params({ shop: slug }),
+  );
 }
 
 async function download(email: string | null, slug: string, id: string) {
@@ -130,8 +137,14 @@ describe("attachments", () => {
     if (!r.ok) throw new Error(JSON.stringify(r));
     const requestId = r.data.kind === "review" ? r.data.requestId : null;
     expect(requestId).not.toBeNull();
-    const [m] = await db.select().from(requestAttachments).where(and(eq(requestAttachments.shopId, kShopId), eq(requestAttachments.id, mine.id)));
-    const [t] = await db.select().from(requestAttachments).where(and(eq(requestAttachments.shopId, kShopId), eq(requestAttachments.id, theirs.id)));
+    const [m] = await db
+      .select()
+      .from(requestAttachments)
+      .where(and(eq(requestAttachments.shopId, kShopId), eq(requestAttachments.id, mine.id)));
+    const [t] = await db
+      .select()
+      .from(requestAttachments)
+      .where(and(eq(requestAttachments.shopId, kShopId), eq(requestAttachments.id, theirs.id)));
     expect(m?.requestId).toBe(requestId);
     expect(t?.requestId).toBeNull();
   });

@@ -121,7 +121,13 @@ describe("better-auth endpoints over HTTP", () => {
     it("answers 404 to every role", async () => {
       for (const role of ROLES) {
         const query = `?organizationId=${kShopId}`;
-        const res = await call(method, path, cookies[role], { organizationId: kShopId, slug: "desk", name: "Probe", email: people.customer, password: "long-enough-password", role: "manager", memberId: "x" }, query);
+        const res = await call(
+          method,
+          path,
+          cookies[role],
+          { organizationId: kShopId, slug: "desk", name: "Probe", email: people.customer, password: "long-enough-password", role: "manager", memberId: "x" },
+          query,
+        );
         expect(res.status, `${role}`).toBe(404);
       }
     });
@@ -156,7 +162,11 @@ describe("better-auth endpoints over HTTP", () => {
   });
 
   it("a write from another site is refused before anything else", async () => {
-    const request = new Request(`${BASE}/api/auth/sign-out`, { method: "POST", headers: { origin: "https://evil.example", cookie: cookies.customer, "content-type": "application/json" }, body: "{}" });
+    const request = new Request(`${BASE}/api/auth/sign-out`, {
+      method: "POST",
+      headers: { origin: "https://evil.example", cookie: cookies.customer, "content-type": "application/json" },
+      body: "{}",
+    });
     expect((await authPost(request)).status).toBe(403);
   });
 });
@@ -184,7 +194,9 @@ describe("the plugin called by our own server code obeys our rules", () => {
 
   it("refuses a slug change to a reserved or malformed address", async () => {
     for (const slug of ["api", "a/../x", "Desk"]) {
-      await expect(auth.api.updateOrganization({ body: { organizationId: kShopId, data: { slug } }, headers: await headersOf(people.manager) })).rejects.toMatchObject({ statusCode: 400 });
+      await expect(
+        auth.api.updateOrganization({ body: { organizationId: kShopId, data: { slug } }, headers: await headersOf(people.manager) }),
+      ).rejects.toMatchObject({ statusCode: 400 });
     }
     expect((await shopBySlug(K)).slug).toBe(K);
   });
@@ -193,15 +205,21 @@ describe("the plugin called by our own server code obeys our rules", () => {
     const customer = await memberOf(K, demoPeople[K].customers[1].email);
     const founder = await memberOf(K, people.manager);
     const h = await headersOf(people.manager);
-    await expect(auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: customer.id, role: "manager" }, headers: h })).rejects.toMatchObject({ statusCode: 403 });
+    await expect(auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: customer.id, role: "manager" }, headers: h })).rejects.toMatchObject({
+      statusCode: 403,
+    });
     expect((await memberOf(K, demoPeople[K].customers[1].email)).role).toBe("customer");
     // a shop with a second manager (the data allows one): the co-manager cannot demote the founder
     const coManagerEmail = demoPeople[K].customers[0].email;
     const coManager = await memberOf(K, coManagerEmail);
     await db.update(members).set({ role: "manager" }).where(eq(members.id, coManager.id));
     try {
-      await expect(auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: founder.id, role: "customer" }, headers: await headersOf(coManagerEmail) })).rejects.toMatchObject({ statusCode: 403 });
-      await expect(auth.api.removeMember({ body: { organizationId: kShopId, memberIdOrEmail: people.manager }, headers: await headersOf(coManagerEmail) })).rejects.toMatchObject({ statusCode: 403 });
+      await expect(
+        auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: founder.id, role: "customer" }, headers: await headersOf(coManagerEmail) }),
+      ).rejects.toMatchObject({ statusCode: 403 });
+      await expect(
+        auth.api.removeMember({ body: { organizationId: kShopId, memberIdOrEmail: people.manager }, headers: await headersOf(coManagerEmail) }),
+      ).rejects.toMatchObject({ statusCode: 403 });
     } finally {
       await db.update(members).set({ role: "customer" }).where(eq(members.id, coManager.id));
     }
@@ -215,14 +233,28 @@ describe("the plugin called by our own server code obeys our rules", () => {
   it("adds nobody as manager to a shop that has one, and invites nobody", async () => {
     const [outsider] = await db.select({ id: users.id }).from(users).where(eq(users.email, demoPeople[M].customers[1].email));
     await expect(auth.api.addMember({ body: { userId: outsider!.id, organizationId: kShopId, role: "manager" } })).rejects.toMatchObject({ statusCode: 403 });
-    expect(await db.select({ id: members.id }).from(members).where(and(eq(members.shopId, kShopId), eq(members.userId, outsider!.id)))).toEqual([]);
-    await expect(auth.api.createInvitation({ body: { organizationId: kShopId, email: "probe@nowhere.example", role: "estimator" }, headers: await headersOf(people.manager) })).rejects.toMatchObject({ statusCode: 403 });
+    expect(
+      await db
+        .select({ id: members.id })
+        .from(members)
+        .where(and(eq(members.shopId, kShopId), eq(members.userId, outsider!.id))),
+    ).toEqual([]);
+    await expect(
+      auth.api.createInvitation({
+        body: { organizationId: kShopId, email: "probe@nowhere.example", role: "estimator" },
+        headers: await headersOf(people.manager),
+      }),
+    ).rejects.toMatchObject({ statusCode: 403 });
   });
 
   it("lists a shop's members to its manager only: not to a customer, an estimator or another shop's manager", async () => {
     for (const email of [people.customer, people.estimator, people.otherManager]) {
-      await expect(auth.api.listMembers({ query: { organizationId: kShopId }, headers: await headersOf(email) }), email).rejects.toMatchObject({ statusCode: 403 });
-      await expect(auth.api.getFullOrganization({ query: { organizationId: kShopId }, headers: await headersOf(email) }), email).rejects.toMatchObject({ statusCode: 403 });
+      await expect(auth.api.listMembers({ query: { organizationId: kShopId }, headers: await headersOf(email) }), email).rejects.toMatchObject({
+        statusCode: 403,
+      });
+      await expect(auth.api.getFullOrganization({ query: { organizationId: kShopId }, headers: await headersOf(email) }), email).rejects.toMatchObject({
+        statusCode: 403,
+      });
     }
     const list = await auth.api.listMembers({ query: { organizationId: kShopId }, headers: await headersOf(people.manager) });
     expect(list.members.length).toBeGreaterThan(2);
@@ -231,19 +263,34 @@ describe("the plugin called by our own server code obeys our rules", () => {
   it("the app's own uses keep working: open a shop, join it, change a role", async () => {
     const id = Date.now().toString(36);
     await actAs(null);
-    const opened = await openShop({ name: "Ada Quill", email: `ada.${id}@north-coast.example`, password: "a-long-enough-password", shopName: "North Coast Banks", slug: `north-coast-${id}`, currency: "GBP" });
+    const opened = await openShop({
+      name: "Ada Quill",
+      email: `ada.${id}@north-coast.example`,
+      password: "a-long-enough-password",
+      shopName: "North Coast Banks",
+      slug: `north-coast-${id}`,
+      currency: "GBP",
+    });
     expect(opened).toEqual({ ok: true, data: { slug: `north-coast-${id}` } });
     const shop = await shopBySlug(`north-coast-${id}`);
-    const [settings] = await db.select({ currency: shopSettings.currency, pricing: shopSettings.pricingRules }).from(shopSettings).where(eq(shopSettings.shopId, shop.id));
+    const [settings] = await db
+      .select({ currency: shopSettings.currency, pricing: shopSettings.pricingRules })
+      .from(shopSettings)
+      .where(eq(shopSettings.shopId, shop.id));
     expect(settings?.currency).toBe("GBP");
     expect(settings?.pricing.currency).toBe("GBP");
     expect((await memberOf(`north-coast-${id}`, `ada.${id}@north-coast.example`)).role).toBe("manager");
 
-    expect(await joinShop(`north-coast-${id}`, { name: "Bram Tollis", email: `bram.${id}@tollis-cranes.example`, password: "another-long-password" })).toEqual({ ok: true, data: { slug: `north-coast-${id}` } });
+    expect(await joinShop(`north-coast-${id}`, { name: "Bram Tollis", email: `bram.${id}@tollis-cranes.example`, password: "another-long-password" })).toEqual({
+      ok: true,
+      data: { slug: `north-coast-${id}` },
+    });
     const bram = await memberOf(`north-coast-${id}`, `bram.${id}@tollis-cranes.example`);
     expect(bram.role).toBe("customer");
 
-    (globalThis as { __requestHeaders?: Headers }).__requestHeaders = new Headers({ cookie: await sessionCookie(`ada.${id}@north-coast.example`, "a-long-enough-password") });
+    (globalThis as { __requestHeaders?: Headers }).__requestHeaders = new Headers({
+      cookie: await sessionCookie(`ada.${id}@north-coast.example`, "a-long-enough-password"),
+    });
     expect(await changeMemberRole(`north-coast-${id}`, { memberId: bram.id, role: "estimator" })).toMatchObject({ ok: true });
     expect((await memberOf(`north-coast-${id}`, `bram.${id}@tollis-cranes.example`)).role).toBe("estimator");
   });

@@ -66,11 +66,15 @@ async function admin(statement: string) {
 function pdfText(databaseUrl: string, shopId: string, revisionId: string): string {
   const out = path.join(backupDir, `quote-${Math.random().toString(36).slice(2)}.pdf`);
   // tests/support/tsconfig.render.json maps "server-only" to an empty module, as vitest does
-  const r = spawnSync(path.resolve("node_modules/.bin/tsx"), ["--tsconfig", "tests/support/tsconfig.render.json", "tests/support/render-quote-pdf.ts", shopId, revisionId, out], {
-    encoding: "utf8",
-    env: { ...process.env, DATABASE_URL: databaseUrl, MAIL_WORKER: "off" },
-    timeout: 120_000,
-  });
+  const r = spawnSync(
+    path.resolve("node_modules/.bin/tsx"),
+    ["--tsconfig", "tests/support/tsconfig.render.json", "tests/support/render-quote-pdf.ts", shopId, revisionId, out],
+    {
+      encoding: "utf8",
+      env: { ...process.env, DATABASE_URL: databaseUrl, MAIL_WORKER: "off" },
+      timeout: 120_000,
+    },
+  );
   if (r.status !== 0) throw new Error(`rendering failed: ${r.stdout}${r.stderr}`);
   return execFileSync("pdftotext", ["-layout", out, "-"], { encoding: "utf8" });
 }
@@ -121,7 +125,15 @@ describe("backup and restore", () => {
     const before = await rowCounts(env.DATABASE_URL);
     const after = await rowCounts(urlOf(restored));
     expect(Object.keys(after)).toEqual(Object.keys(before));
-    for (const table of ["public.shops", "public.users", "public.members", "public.quotes", "public.quote_revisions", "public.quote_lines", "public.catalog_cells"]) {
+    for (const table of [
+      "public.shops",
+      "public.users",
+      "public.members",
+      "public.quotes",
+      "public.quote_revisions",
+      "public.quote_lines",
+      "public.catalog_cells",
+    ]) {
       expect(after[table], table).toBe(before[table]);
       expect(after[table], table).toBeGreaterThan(0);
     }

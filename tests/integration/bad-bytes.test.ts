@@ -52,7 +52,13 @@ describe("NUL in the URL is refused before any route runs", () => {
 
 describe("server-action requests Next.js could not decode are refused before it tries", () => {
   const action = (body: string, headers: Record<string, string> = {}) =>
-    proxy(new NextRequest(`${env.APP_URL}/s/${K}/join`, { method: "POST", body, headers: { "next-action": "a".repeat(42), "content-type": "text/plain;charset=UTF-8", origin: new URL(env.APP_URL).origin, ...headers } }));
+    proxy(
+      new NextRequest(`${env.APP_URL}/s/${K}/join`, {
+        method: "POST",
+        body,
+        headers: { "next-action": "a".repeat(42), "content-type": "text/plain;charset=UTF-8", origin: new URL(env.APP_URL).origin, ...headers },
+      }),
+    );
 
   it.each([
     ["a body that is not JSON", "not json {"],
@@ -83,7 +89,10 @@ describe("route handlers, behind the proxy as well", () => {
     ["an object key", { maxVoltage: 48, energy: 20_000, [`x${NUL}`]: 1 }, `x${NUL}`],
     ["a nested value", { maxVoltage: 48, energy: 20_000, backup: { power: 1, seconds: 1, note: [`a${NUL}`] } }, "backup.note.0"],
   ])("a JSON body with NUL in %s is a 400 naming the field", async (_label, body, field) => {
-    const res = await arrangementsRoute(request(`/api/v1/shops/${K}/arrangements`, { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } }), params({ shop: K }));
+    const res = await arrangementsRoute(
+      request(`/api/v1/shops/${K}/arrangements`, { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
+      params({ shop: K }),
+    );
     expect(res.status).toBe(400);
     expect(((await res.json()) as { issues: { path: string }[] }).issues[0]?.path).toBe(field);
   });
@@ -107,8 +116,16 @@ describe("server actions", () => {
 
   it("a NUL in a form field comes back as that field's error", async () => {
     await actAs(null);
-    expect(await joinShop(K, { ...newAccount(), name: `Tobin${NUL}` })).toMatchObject({ ok: false, code: "invalid", fieldErrors: { name: [expect.stringContaining("NUL")] } });
-    expect(await openShop({ ...newAccount(), shopName: `North${NUL}Coast`, slug: `north-${Date.now()}`, currency: "EUR" })).toMatchObject({ ok: false, code: "invalid", fieldErrors: { shopName: [expect.any(String)] } });
+    expect(await joinShop(K, { ...newAccount(), name: `Tobin${NUL}` })).toMatchObject({
+      ok: false,
+      code: "invalid",
+      fieldErrors: { name: [expect.stringContaining("NUL")] },
+    });
+    expect(await openShop({ ...newAccount(), shopName: `North${NUL}Coast`, slug: `north-${Date.now()}`, currency: "EUR" })).toMatchObject({
+      ok: false,
+      code: "invalid",
+      fieldErrors: { shopName: [expect.any(String)] },
+    });
     await actAs(kManager);
     expect(await changeMemberRole(K, { memberId: `x${NUL}`, role: "estimator" })).toMatchObject({ ok: false, code: "invalid" });
     await actAs(kCustomer);

@@ -10,14 +10,26 @@ import { createShop, type TestShop } from "./fixtures";
 import { actAs } from "./helpers";
 
 const post = (path: string, body: unknown, raw = false) =>
-  new Request(`http://127.0.0.1:3100${path}`, { method: "POST", headers: { "content-type": "application/json" }, body: raw ? (body as string) : JSON.stringify(body) });
+  new Request(`http://127.0.0.1:3100${path}`, {
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body: raw ? (body as string) : JSON.stringify(body),
+  });
 const params = (shop: string) => ({ params: Promise.resolve({ shop }) });
-const cell = (id: string, capacitance: number, ratedVoltage: number, esr?: number) => ({ kind: "cell", id, capacitance, ratedVoltage, ...(esr ? { esr } : {}) });
+const cell = (id: string, capacitance: number, ratedVoltage: number, esr?: number) => ({
+  kind: "cell",
+  id,
+  capacitance,
+  ratedVoltage,
+  ...(esr ? { esr } : {}),
+});
 
 describe("POST /api/v1/networks/evaluate", () => {
   it("evaluates two mismatched cells in series at an applied voltage", async () => {
     // Series: 1/C = 1/100 + 1/50 → C = 33.33 F; Q = C·V; V₁ = Q/100, V₂ = Q/50 (DESIGN.md §3.1, charge sharing).
-    const res = await evaluate(post("/api/v1/networks/evaluate", { appliedVoltage: 3, network: { kind: "series", children: [cell("a", 100, 2.7, 0.01), cell("b", 50, 2.7, 0.02)] } }));
+    const res = await evaluate(
+      post("/api/v1/networks/evaluate", { appliedVoltage: 3, network: { kind: "series", children: [cell("a", 100, 2.7, 0.01), cell("b", 50, 2.7, 0.02)] } }),
+    );
     expect(res.status).toBe(200);
     const body = await res.json();
     expect(body.capacitance).toBeCloseTo(100 / 3, 9);
@@ -69,7 +81,12 @@ describe("POST /api/v1/networks/evaluate", () => {
   });
 
   it("answers 400, not a crash, for a 100,000-deep network", async () => {
-    const text = '{"network":' + '{"kind":"series","children":['.repeat(100_000) + '{"kind":"cell","id":"x","capacitance":1,"ratedVoltage":1}' + "]}".repeat(100_000) + "}";
+    const text =
+      '{"network":' +
+      '{"kind":"series","children":['.repeat(100_000) +
+      '{"kind":"cell","id":"x","capacitance":1,"ratedVoltage":1}' +
+      "]}".repeat(100_000) +
+      "}";
     const res = await evaluate(post("/api/v1/networks/evaluate", text, true));
     expect(res.status).toBe(400);
   });
@@ -116,9 +133,18 @@ describe("POST /api/v1/networks/failures", () => {
       shortCircuit: false,
     });
     // s0c0 open: its string drops out, the other string keeps 2.5 V per cell
-    expect(body.cases[1]).toMatchObject({ cellId: "s0c0", mode: "open", capacitance: expect.closeTo(25, 9), maxCellVoltage: expect.closeTo(2.5, 9), overstressedCount: 0, shortCircuit: false });
+    expect(body.cases[1]).toMatchObject({
+      cellId: "s0c0",
+      mode: "open",
+      capacitance: expect.closeTo(25, 9),
+      maxCellVoltage: expect.closeTo(2.5, 9),
+      overstressedCount: 0,
+      shortCircuit: false,
+    });
     expect(body.summary.short).toMatchObject({ mode: "short", survives: false, withinRating: false });
-    expect(body.summary.short.text).toBe("Survives one shorted cell: no — with cell s0c0 shorted, cell s0c1 reaches 3.33 V, surge 2.85 V (3 cells past surge).");
+    expect(body.summary.short.text).toBe(
+      "Survives one shorted cell: no — with cell s0c0 shorted, cell s0c1 reaches 3.33 V, surge 2.85 V (3 cells past surge).",
+    );
     expect(body.summary.open).toMatchObject({ mode: "open", survives: true, withinRating: true });
   });
 
@@ -144,7 +170,10 @@ describe("POST /api/v1/networks/failures", () => {
   });
 
   it("answers 400 for more than 20,000 cells and for a body over 1 MB", async () => {
-    const many = { appliedVoltage: 1, network: { kind: "parallel", children: Array.from({ length: 20_001 }, (_, i) => ({ kind: "cell", id: `c${i}`, capacitance: 1, ratedVoltage: 1 })) } };
+    const many = {
+      appliedVoltage: 1,
+      network: { kind: "parallel", children: Array.from({ length: 20_001 }, (_, i) => ({ kind: "cell", id: `c${i}`, capacitance: 1, ratedVoltage: 1 })) },
+    };
     expect((await failures(post("/api/v1/networks/failures", many))).status).toBe(400);
     const big = await failures(post("/api/v1/networks/failures", JSON.stringify({ appliedVoltage: 1, network: rated("a"), pad: "x".repeat(1_100_000) }), true));
     expect(big.status).toBe(400);
@@ -155,13 +184,31 @@ describe("POST /api/v1/networks/failures", () => {
 describe("POST /api/v1/networks/tolerance", () => {
   const graded = (id: string) => ({ kind: "cell", id, capacitance: 350, ratedVoltage: 2.7, surgeVoltage: 2.85, toleranceMinus: 0.1, tolerancePlus: 0.2 });
   const string = { kind: "series", children: Array.from({ length: 10 }, (_, i) => graded(`c${i}`)) };
-  const run = { appliedVoltage: 26, network: string, samples: 20_000, seed: 12345, distribution: "normal", matchingTolerance: 0.05, requirement: { capacitance: 35 } };
+  const run = {
+    appliedVoltage: 26,
+    network: string,
+    samples: 20_000,
+    seed: 12345,
+    distribution: "normal",
+    matchingTolerance: 0.05,
+    requirement: { capacitance: 35 },
+  };
 
   it("answers the distributions, histograms and shares, the same for the same body and seed", async () => {
     const res = await tolerance(post("/api/v1/networks/tolerance", run));
     expect(res.status).toBe(200);
     const body = await res.json();
-    expect(Object.keys(body).sort()).toEqual(["capacitance", "distribution", "histogram", "maxCellVoltage", "nominal", "requiredCapacitance", "samples", "seed", "shares"]);
+    expect(Object.keys(body).sort()).toEqual([
+      "capacitance",
+      "distribution",
+      "histogram",
+      "maxCellVoltage",
+      "nominal",
+      "requiredCapacitance",
+      "samples",
+      "seed",
+      "shares",
+    ]);
     expect(body.samples).toBe(20_000);
     for (const d of [body.capacitance, body.maxCellVoltage]) {
       expect(Object.keys(d).sort()).toEqual(["max", "mean", "min", "p01", "p50", "p99", "std"]);

@@ -49,11 +49,23 @@ export async function createShop(like: "kestrel" | "marlow" = "kestrel"): Promis
   const name = `${like === "kestrel" ? "Kestrel" : "Marlow"} test shop ${tag}`;
   const currency = like === "kestrel" ? "EUR" : "GBP";
   const person = (who: string) => ({ name: `${who[0]?.toUpperCase()}${who.slice(1)} ${tag}`, email: `${who}.${tag}@${slug}.example` });
-  const people = { manager: person("manager"), estimator: person("estimator"), customers: [person("customer"), person("other")] as [ReturnType<typeof person>, ReturnType<typeof person>] };
+  const people = {
+    manager: person("manager"),
+    estimator: person("estimator"),
+    customers: [person("customer"), person("other")] as [ReturnType<typeof person>, ReturnType<typeof person>],
+  };
   const catalog = demoCatalogs[like === "kestrel" ? "kestrel-bank-works" : "marlow-pulse"];
   const { shopId, userIds } = await seedShop(db, { slug, name, currency, people, catalog }, await passwordHash);
   const withId = (p: { name: string; email: string }): TestPerson => ({ ...p, id: userIds.get(p.email) ?? "" });
-  return { id: shopId, slug, name, currency, manager: withId(people.manager), estimator: withId(people.estimator), customers: [withId(people.customers[0]), withId(people.customers[1])] };
+  return {
+    id: shopId,
+    slug,
+    name,
+    currency,
+    manager: withId(people.manager),
+    estimator: withId(people.estimator),
+    customers: [withId(people.customers[0]), withId(people.customers[1])],
+  };
 }
 
 /** The context a member of `shop` has, as the guards would build it. */
@@ -75,7 +87,11 @@ export async function cheapestOption(shopId: string, requirement: Requirement) {
 }
 
 /** A customer's choice of an option, as the storefront sends it. */
-export function choiceOf(requirement: Requirement, option: { cell: { sku: string }; topology: "series-of-parallel-groups" | "parallel-of-series-strings"; seriesCount: number; parallelCount: number }, key = randomUUID()) {
+export function choiceOf(
+  requirement: Requirement,
+  option: { cell: { sku: string }; topology: "series-of-parallel-groups" | "parallel-of-series-strings"; seriesCount: number; parallelCount: number },
+  key = randomUUID(),
+) {
   return chooseArrangementSchema.parse({
     idempotencyKey: key,
     requirement,

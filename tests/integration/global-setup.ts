@@ -10,7 +10,8 @@ import { isDatabaseEmpty, seedDemo } from "@/db/seed";
  */
 export default async function setup() {
   const url = process.env.DATABASE_URL;
-  if (!url || !/_test(_\d+)?$/.test(url)) throw new Error(`integration tests need DATABASE_URL pointing at a *_test database (got ${url ?? "nothing"}); run them with npm test`);
+  if (!url || !/_test(_\d+)?$/.test(url))
+    throw new Error(`integration tests need DATABASE_URL pointing at a *_test database (got ${url ?? "nothing"}); run them with npm test`);
   const { db, pool } = createDb(url, 2);
   try {
     await migrate(db, { migrationsFolder: path.resolve("drizzle") });

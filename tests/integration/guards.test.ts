@@ -24,7 +24,9 @@ async function answers(slug: string, email: string | null) {
   const page = await pageAnswer(() => TeamPage({ params: Promise.resolve({ shop: slug }), searchParams: Promise.resolve({}) }));
   // an empty input: past the guard it is refused at its fields, which changes nothing
   const action = await changeMemberRole(slug, {});
-  const route = await membersRoute(request(`/api/v1/shops/${slug}/members`, { cookie: email ? await sessionCookie(email) : "" }), { params: Promise.resolve({ shop: slug }) });
+  const route = await membersRoute(request(`/api/v1/shops/${slug}/members`, { cookie: email ? await sessionCookie(email) : "" }), {
+    params: Promise.resolve({ shop: slug }),
+  });
   return { page, action: action.ok ? "ok" : action.code, route: route.status };
 }
 

@@ -57,7 +57,8 @@ export async function pageAnswer(render: () => Promise<unknown>): Promise<string
   try {
     // a page that hands its work to a server component: render that one too
     let node = await render();
-    for (let depth = 0; depth < 3 && isElement(node) && typeof node.type === "function"; depth++) node = await (node.type as (p: unknown) => unknown)(node.props);
+    for (let depth = 0; depth < 3 && isElement(node) && typeof node.type === "function"; depth++)
+      node = await (node.type as (p: unknown) => unknown)(node.props);
     return "ok";
   } catch (error) {
     const digest = (error as { digest?: unknown }).digest;

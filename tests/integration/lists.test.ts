@@ -64,7 +64,8 @@ describe("paging", () => {
   it("pages through a list without repeating or skipping a row", async () => {
     const all = (await listCatalogCells(shop.id, { ...catalogList.defaults, size: 100 })).rows.map((r) => r.id);
     const paged: string[] = [];
-    for (let page = 1; page <= Math.ceil(all.length / 7); page++) paged.push(...(await listCatalogCells(shop.id, { ...catalogList.defaults, size: 7, page })).rows.map((r) => r.id));
+    for (let page = 1; page <= Math.ceil(all.length / 7); page++)
+      paged.push(...(await listCatalogCells(shop.id, { ...catalogList.defaults, size: 7, page })).rows.map((r) => r.id));
     expect(paged).toEqual(all);
   });
 });
@@ -85,7 +86,10 @@ describe("sorting", () => {
     const s = await createShop("kestrel");
     await createQuote(s, s.customers[0], SMALL);
     // above 40 V goes to the estimators
-    await db.update(shopSettings).set({ autoQuoteLimits: { maxVoltage: 40, maxStoredEnergy: 2_000_000, maxCellCount: 400 } }).where(eq(shopSettings.shopId, s.id));
+    await db
+      .update(shopSettings)
+      .set({ autoQuoteLimits: { maxVoltage: 40, maxStoredEnergy: 2_000_000, maxCellCount: 400 } })
+      .where(eq(shopSettings.shopId, s.id));
     await actAs(s.customers[1].email);
     const r = await chooseArrangement(s.slug, choiceOf(KESTREL_REQUIREMENT, await cheapestOption(s.id, KESTREL_REQUIREMENT)));
     expect(r).toMatchObject({ ok: true, data: { kind: "review" } });

@@ -71,8 +71,17 @@ let mailDir = "";
 let maildev: ChildProcess | null = null;
 
 async function startMaildev() {
-  maildev = spawn(path.resolve("node_modules/.bin/maildev"), ["--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "--smtp", String(smtpPort), "--web", String(webPort), "--mail-directory", mailDir, "--silent"], { stdio: "ignore" });
-  await waitFor("maildev to listen", async () => (await portOpen(smtpPort)) && (await portOpen(webPort)), (up) => up, 20_000);
+  maildev = spawn(
+    path.resolve("node_modules/.bin/maildev"),
+    ["--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "--smtp", String(smtpPort), "--web", String(webPort), "--mail-directory", mailDir, "--silent"],
+    { stdio: "ignore" },
+  );
+  await waitFor(
+    "maildev to listen",
+    async () => (await portOpen(smtpPort)) && (await portOpen(webPort)),
+    (up) => up,
+    20_000,
+  );
 }
 
 async function stopMaildev() {
@@ -90,7 +99,8 @@ async function inbox(): Promise<MaildevEmail[]> {
   return (await res.json()) as MaildevEmail[];
 }
 
-const messagesFor = async (quoteNumber: string) => (await inbox()).filter((m) => m.subject.includes(`${quoteNumber} `) && m.to.some((t) => t.address === shop.customers[0].email));
+const messagesFor = async (quoteNumber: string) =>
+  (await inbox()).filter((m) => m.subject.includes(`${quoteNumber} `) && m.to.some((t) => t.address === shop.customers[0].email));
 
 /** A real quote through the quoting path for the shop's customer, and the outbox row announcing it. */
 async function makeQuote(): Promise<{ shopId: string; outboxId: string; quoteNumber: string }> {
@@ -113,7 +123,9 @@ async function outboxRow(shopId: string, id: string) {
 
 /** Every job the queue holds for an outbox row (the dispatcher keys them by the row's id). */
 async function jobsFor(outboxId: string): Promise<{ state: string }[]> {
-  const result = await db.execute<{ state: string }>(sql`SELECT state::text AS state FROM ${sql.identifier(PGBOSS_SCHEMA)}.job WHERE name = ${MAIL_QUEUE} AND singleton_key = ${outboxId}`);
+  const result = await db.execute<{ state: string }>(
+    sql`SELECT state::text AS state FROM ${sql.identifier(PGBOSS_SCHEMA)}.job WHERE name = ${MAIL_QUEUE} AND singleton_key = ${outboxId}`,
+  );
   return result.rows;
 }
 
@@ -123,7 +135,15 @@ beforeAll(async () => {
   webPort = await freePort();
   mailDir = fs.mkdtempSync(path.join(os.tmpdir(), "faradsmith-mail-test-"));
   // short waits so an outage of a few seconds is retried several times within the test
-  configureMail({ smtpHost: "127.0.0.1", smtpPort, smtpTimeoutSeconds: 5, retryLimit: 8, retryDelaySeconds: 1, retryBackoff: true, pollingIntervalSeconds: 0.5 });
+  configureMail({
+    smtpHost: "127.0.0.1",
+    smtpPort,
+    smtpTimeoutSeconds: 5,
+    retryLimit: 8,
+    retryDelaySeconds: 1,
+    retryBackoff: true,
+    pollingIntervalSeconds: 0.5,
+  });
 });
 
 afterAll(async () => {
@@ -139,7 +159,11 @@ describe("e-mail through the outbox and the job queue", () => {
     const { shopId, outboxId, quoteNumber } = await makeQuote();
 
     // down: attempts grow, the row keeps waiting with the reason, nothing is lost
-    const waiting = await waitFor("two failed attempts", () => outboxRow(shopId, outboxId), (r) => r.attempts >= 2);
+    const waiting = await waitFor(
+      "two failed attempts",
+      () => outboxRow(shopId, outboxId),
+      (r) => r.attempts >= 2,
+    );
     expect(waiting.status).toBe("waiting");
     expect(waiting.sentAt).toBeNull();
     expect(waiting.lastError).toMatch(/ECONNREFUSED/);
@@ -147,7 +171,11 @@ describe("e-mail through the outbox and the job queue", () => {
 
     // back up: the next retry delivers it
     await startMaildev();
-    const sent = await waitFor("the row to be sent", () => outboxRow(shopId, outboxId), (r) => r.status === "sent");
+    const sent = await waitFor(
+      "the row to be sent",
+      () => outboxRow(shopId, outboxId),
+      (r) => r.status === "sent",
+    );
     expect(sent.attempts).toBeGreaterThanOrEqual(3);
     expect(sent.sentAt).not.toBeNull();
     expect(sent.messageId).toBe(outboxMessageId(outboxId, mailSettings().from));
@@ -155,7 +183,11 @@ describe("e-mail through the outbox and the job queue", () => {
     // more dispatches and a late delivery attempt change nothing
     await dispatchOutbox();
     expect(await deliverOutboxRow(shopId, outboxId)).toBe("skipped");
-    await waitFor("the job to complete", () => jobsFor(outboxId), (jobs) => jobs.length === 1 && jobs[0]?.state === "completed");
+    await waitFor(
+      "the job to complete",
+      () => jobsFor(outboxId),
+      (jobs) => jobs.length === 1 && jobs[0]?.state === "completed",
+    );
 
     const mails = await messagesFor(quoteNumber);
     expect(mails).toHaveLength(1);
@@ -190,7 +222,11 @@ describe("e-mail through the outbox and the job queue", () => {
 
     // the queued job, when a worker takes it, finds the row sent and sends nothing
     await startMailWorker({ retryOnFailure: false });
-    await waitFor("the job to complete", () => jobsFor(outboxId), (jobs) => jobs[0]?.state === "completed");
+    await waitFor(
+      "the job to complete",
+      () => jobsFor(outboxId),
+      (jobs) => jobs[0]?.state === "completed",
+    );
     expect(await messagesFor(quoteNumber)).toHaveLength(1);
   });
 

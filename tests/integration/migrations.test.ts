@@ -35,7 +35,18 @@ describe("migrations", () => {
       await migrate(db, { migrationsFolder: path.resolve("drizzle") });
       const tables = await db.execute<{ table_name: string }>(sql`select table_name from information_schema.tables where table_schema = 'public' order by 1`);
       const names = tables.rows.map((r) => r.table_name);
-      for (const t of ["users", "sessions", "accounts", "verifications", "shops", "members", "invitations", "shop_settings", "catalog_cells", "catalog_components"]) {
+      for (const t of [
+        "users",
+        "sessions",
+        "accounts",
+        "verifications",
+        "shops",
+        "members",
+        "invitations",
+        "shop_settings",
+        "catalog_cells",
+        "catalog_components",
+      ]) {
         expect(names).toContain(t);
       }
       // Every table with a shop_id column: shop_id is NOT NULL and every index on it starts with it.

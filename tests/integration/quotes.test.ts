@@ -78,8 +78,14 @@ describe("quotes from a chosen arrangement", () => {
     const number = await createQuote(shop, shop.customers[0]);
     const quote = await getQuoteByNumber(shop.id, number);
     const before = await getRevision(shop.id, quote!.revisionId);
-    const [cell] = await db.select().from(catalogCells).where(and(eq(catalogCells.shopId, shop.id), eq(catalogCells.sku, option.cell.sku)));
-    await db.update(catalogCells).set({ unitCost: "999.0000", capacitanceF: cell!.capacitanceF * 2 }).where(eq(catalogCells.id, cell!.id));
+    const [cell] = await db
+      .select()
+      .from(catalogCells)
+      .where(and(eq(catalogCells.shopId, shop.id), eq(catalogCells.sku, option.cell.sku)));
+    await db
+      .update(catalogCells)
+      .set({ unitCost: "999.0000", capacitanceF: cell!.capacitanceF * 2 })
+      .where(eq(catalogCells.id, cell!.id));
     expect(await getRevision(shop.id, quote!.revisionId)).toEqual(before);
     // and a new search does see the new price, so the change was real
     const now = await searchOptions(shop.id, KESTREL_REQUIREMENT);
@@ -88,13 +94,19 @@ describe("quotes from a chosen arrangement", () => {
 
   it("beyond the auto-quote limits the request goes to the estimators as needs-review with the reason, and makes no quote", async () => {
     const shop = await createShop("kestrel");
-    await db.update(shopSettings).set({ autoQuoteLimits: { maxVoltage: 40, maxStoredEnergy: 2_000_000, maxCellCount: 400 } }).where(eq(shopSettings.shopId, shop.id));
+    await db
+      .update(shopSettings)
+      .set({ autoQuoteLimits: { maxVoltage: 40, maxStoredEnergy: 2_000_000, maxCellCount: 400 } })
+      .where(eq(shopSettings.shopId, shop.id));
     const input = choiceOf(KESTREL_REQUIREMENT, await cheapestOption(shop.id, KESTREL_REQUIREMENT));
     await actAs(shop.customers[0].email);
     const r = await chooseArrangement(shop.slug, input);
     if (!r.ok || r.data.kind !== "review") throw new Error(`expected review: ${JSON.stringify(r)}`);
     expect(await chooseArrangement(shop.slug, input)).toEqual(r);
-    const [row] = await db.select().from(bankRequests).where(and(eq(bankRequests.shopId, shop.id), eq(bankRequests.id, r.data.requestId)));
+    const [row] = await db
+      .select()
+      .from(bankRequests)
+      .where(and(eq(bankRequests.shopId, shop.id), eq(bankRequests.id, r.data.requestId)));
     expect(row?.status).toBe("needs-review");
     expect(row?.reviewReasons.join(" ")).toMatch(/Voltage 48 V is above the 40 V/);
     expect((await db.select({ n: count() }).from(quotes).where(eq(quotes.shopId, shop.id)))[0]?.n).toBe(0);
@@ -107,7 +119,11 @@ describe("quotes from a chosen arrangement", () => {
     await actAs(shop.customers[0].email);
     const none = await chooseArrangement(shop.slug, { idempotencyKey: randomUUID(), requirement: KESTREL_REQUIREMENT });
     expect(none).toMatchObject({ ok: true, data: { kind: "review" } });
-    const bogus = await chooseArrangement(shop.slug, { idempotencyKey: randomUUID(), requirement: KESTREL_REQUIREMENT, option: { cellSku: "NO-SUCH-CELL", topology: "series-of-parallel-groups", seriesCount: 19, parallelCount: 1 } });
+    const bogus = await chooseArrangement(shop.slug, {
+      idempotencyKey: randomUUID(),
+      requirement: KESTREL_REQUIREMENT,
+      option: { cellSku: "NO-SUCH-CELL", topology: "series-of-parallel-groups", seriesCount: 19, parallelCount: 1 },
+    });
     expect(bogus).toMatchObject({ ok: true, data: { kind: "review" } });
   });
 
@@ -144,7 +160,8 @@ describe("quotes from a chosen arrangement", () => {
     const [shop, other] = await Promise.all([createShop("kestrel"), createShop("marlow")]);
     await createQuote(shop, shop.customers[0]);
     const number = await createQuote(shop, shop.customers[0]);
-    const call = async (email: string | null, slug = shop.slug) => pdfRoute(request(`/api/v1/shops/${slug}/quotes/${number}/pdf`, { cookie: email ? await sessionCookie(email) : "" }), params({ shop: slug, number }));
+    const call = async (email: string | null, slug = shop.slug) =>
+      pdfRoute(request(`/api/v1/shops/${slug}/quotes/${number}/pdf`, { cookie: email ? await sessionCookie(email) : "" }), params({ shop: slug, number }));
     const own = await call(shop.customers[0].email);
     expect(own.status).toBe(200);
     expect(own.headers.get("content-type")).toBe("application/pdf");
@@ -161,7 +178,8 @@ describe("quotes from a chosen arrangement", () => {
     const shop = await createShop("kestrel");
     const mine = [await createQuote(shop, shop.customers[0]), await createQuote(shop, shop.customers[0])];
     const theirs = [await createQuote(shop, shop.customers[1])];
-    const get = async (email: string, query = "") => quotesRoute(request(`/api/v1/shops/${shop.slug}/quotes${query}`, { cookie: await sessionCookie(email) }), params({ shop: shop.slug }));
+    const get = async (email: string, query = "") =>
+      quotesRoute(request(`/api/v1/shops/${shop.slug}/quotes${query}`, { cookie: await sessionCookie(email) }), params({ shop: shop.slug }));
     const numbers = async (res: Response) => ((await res.json()) as { rows: { number: string }[] }).rows.map((r) => r.number);
     expect(await numbers(await get(shop.customers[0].email, "?sort=number&dir=asc"))).toEqual(mine);
     expect(await numbers(await get(shop.customers[1].email))).toEqual(theirs);

@@ -22,7 +22,7 @@ import { db } from "@/db";
 import { createDb } from "@/db/client";
 import { rateLimits, signInFailures } from "@/db/schema";
 import { DEMO_PASSWORD, demoPeople } from "@/db/seed/people";
-import { accountKey } from "@/lib/auth/sign-in-guard";
+import { accountKey } from "@/db/queries/sign-in-failures";
 import { env } from "@/lib/env";
 import { createPostgresRateLimitStore, sweepRateLimits } from "@/db/queries/rate-limits";
 
@@ -36,14 +36,22 @@ const forwarded = (forged: string, connection: string) => `${forged}, ${connecti
 
 function search(xff: string) {
   return arrangementsRoute(
-    new Request(`${env.APP_URL}/api/v1/shops/${K}/arrangements`, { method: "POST", headers: { "content-type": "application/json", "x-forwarded-for": xff, "x-real-ip": xff.split(",")[0] ?? "" }, body: JSON.stringify({ maxVoltage: 48, minVoltage: 24, energy: 20_000 }) }),
+    new Request(`${env.APP_URL}/api/v1/shops/${K}/arrangements`, {
+      method: "POST",
+      headers: { "content-type": "application/json", "x-forwarded-for": xff, "x-real-ip": xff.split(",")[0] ?? "" },
+      body: JSON.stringify({ maxVoltage: 48, minVoltage: 24, energy: 20_000 }),
+    }),
     { params: Promise.resolve({ shop: K }) },
   );
 }
 
 function signIn(email: string, password: string, xff: string) {
   return authPost(
-    new Request(`${env.BETTER_AUTH_URL}/api/auth/sign-in/email`, { method: "POST", headers: { "content-type": "application/json", origin: env.BETTER_AUTH_URL, "x-forwarded-for": xff }, body: JSON.stringify({ email, password }) }),
+    new Request(`${env.BETTER_AUTH_URL}/api/auth/sign-in/email`, {
+      method: "POST",
+      headers: { "content-type": "application/json", origin: env.BETTER_AUTH_URL, "x-forwarded-for": xff },
+      body: JSON.stringify({ email, password }),
+    }),
   );
 }
 
@@ -62,7 +70,8 @@ describe("limits per client address", () => {
   it("sign-in: a new forged header per try buys no extra tries, and one address's tries lock out no other", async () => {
     const connection = peer();
     const statuses = [];
-    for (let i = 1; i <= 5; i += 1) statuses.push((await signIn(`nobody-${i}.${connection}@nowhere.example`, "wrong-password", forwarded(`198.51.100.${i}`, connection))).status);
+    for (let i = 1; i <= 5; i += 1)
+      statuses.push((await signIn(`nobody-${i}.${connection}@nowhere.example`, "wrong-password", forwarded(`198.51.100.${i}`, connection))).status);
     expect(statuses).toEqual([401, 401, 401, 429, 429]);
     expect((await signIn(demoPeople[K].estimator.email, DEMO_PASSWORD, peer())).status).toBe(200);
   });
@@ -76,7 +85,11 @@ describe("failed sign-ins per account", () => {
     const sixth = await signIn(email, DEMO_PASSWORD, peer());
     return { statuses, sixth };
   }
-  const unlock = (email: string) => db.update(signInFailures).set({ lockedUntil: sql`now() - interval '1 second'` }).where(eq(signInFailures.accountKey, accountKey(email)));
+  const unlock = (email: string) =>
+    db
+      .update(signInFailures)
+      .set({ lockedUntil: sql`now() - interval '1 second'` })
+      .where(eq(signInFailures.accountKey, accountKey(email)));
 
   it("after five failures from five addresses the account waits, even for the right password, and the wait doubles", async () => {
     const email = demoPeople[K].customers[1].email;
@@ -96,7 +109,12 @@ describe("failed sign-ins per account", () => {
     // after the wait the right password works and the count starts again
     await unlock(email);
     expect((await signIn(email, DEMO_PASSWORD, peer())).status).toBe(200);
-    expect(await db.select().from(signInFailures).where(eq(signInFailures.accountKey, accountKey(email)))).toEqual([]);
+    expect(
+      await db
+        .select()
+        .from(signInFailures)
+        .where(eq(signInFailures.accountKey, accountKey(email))),
+    ).toEqual([]);
   });
 
   it("an e-mail no account has is answered exactly alike, so the lock tells nothing", async () => {
@@ -138,7 +156,10 @@ describe("the PostgreSQL store", () => {
     const key = `test:window:${peer()}`;
     await store.consume(key, { limit: 1, windowSeconds: 60 });
     expect(await store.consume(key, { limit: 1, windowSeconds: 60 })).toMatchObject({ allowed: false });
-    await db.update(rateLimits).set({ windowEndsAt: sql`now() - interval '1 second'` }).where(eq(rateLimits.key, key));
+    await db
+      .update(rateLimits)
+      .set({ windowEndsAt: sql`now() - interval '1 second'` })
+      .where(eq(rateLimits.key, key));
     expect(await store.consume(key, { limit: 1, windowSeconds: 60 })).toEqual({ allowed: true, remaining: 0 });
 
     const old = [`test:old:${peer()}`, `test:old:${peer()}`];

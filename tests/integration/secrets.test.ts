@@ -42,7 +42,11 @@ describe("the session secret", () => {
   });
 
   it("the server's start-up hook stops the process instead of serving with it", () => {
-    const r = load(`import("./instrumentation.ts").then((m) => m.register()).then(() => console.log("served"))`, { NODE_ENV: "production", NEXT_RUNTIME: "nodejs", MAIL_WORKER: "off" });
+    const r = load(`import("./instrumentation.ts").then((m) => m.register()).then(() => console.log("served"))`, {
+      NODE_ENV: "production",
+      NEXT_RUNTIME: "nodejs",
+      MAIL_WORKER: "off",
+    });
     expect(r.status).toBe(1);
     expect(r.output).toContain("not starting");
     expect(r.output).not.toContain("served");
@@ -51,7 +55,14 @@ describe("the session secret", () => {
   it("npm start generates one into the data folder, mode 0600, and reuses it", () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), "faradsmith-secret-"));
     const ensure = () =>
-      spawnSync(process.execPath, ["-e", `import("./scripts/services.mjs").then((m) => process.stdout.write("\\n" + m.ensureAuthSecret({ dir: ${JSON.stringify(dir)}, env: {} })))`], { encoding: "utf8" }).stdout.trim().split("\n").pop() ?? "";
+      spawnSync(
+        process.execPath,
+        ["-e", `import("./scripts/services.mjs").then((m) => process.stdout.write("\\n" + m.ensureAuthSecret({ dir: ${JSON.stringify(dir)}, env: {} })))`],
+        { encoding: "utf8" },
+      )
+        .stdout.trim()
+        .split("\n")
+        .pop() ?? "";
     const first = ensure();
     const file = path.join(dir, "auth-secret");
     expect(first.length).toBeGreaterThanOrEqual(32);
@@ -69,7 +80,14 @@ describe("the session secret", () => {
   it("a secret given in the environment wins and nothing is written", () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), "faradsmith-secret-"));
     const given = "given-secret-".padEnd(40, "z");
-    const out = spawnSync(process.execPath, ["-e", `import("./scripts/services.mjs").then((m) => process.stdout.write(m.ensureAuthSecret({ dir: ${JSON.stringify(dir)}, env: { BETTER_AUTH_SECRET: ${JSON.stringify(given)} } })))`], { encoding: "utf8" }).stdout;
+    const out = spawnSync(
+      process.execPath,
+      [
+        "-e",
+        `import("./scripts/services.mjs").then((m) => process.stdout.write(m.ensureAuthSecret({ dir: ${JSON.stringify(dir)}, env: { BETTER_AUTH_SECRET: ${JSON.stringify(given)} } })))`,
+      ],
+      { encoding: "utf8" },
+    ).stdout;
     expect(out.trim().endsWith(given)).toBe(true);
     expect(fs.existsSync(path.join(dir, "auth-secret"))).toBe(false);
   });

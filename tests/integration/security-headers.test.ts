@@ -38,7 +38,9 @@ describe("page headers", () => {
   });
 
   it("JSON answers get a policy that loads nothing and sits in no frame", async () => {
-    expect((await proxy(new NextRequest(`${env.APP_URL}/api/v1/shops/${K}/members`))).headers.get("content-security-policy")).toBe("default-src 'none'; frame-ancestors 'none'");
+    expect((await proxy(new NextRequest(`${env.APP_URL}/api/v1/shops/${K}/members`))).headers.get("content-security-policy")).toBe(
+      "default-src 'none'; frame-ancestors 'none'",
+    );
   });
 
   it("every response gets nosniff, a referrer policy, a permissions policy and no framing", async () => {
@@ -58,7 +60,13 @@ describe("cross-site writes to route handlers", () => {
     form.set("file", new File([new Uint8Array(PDF)], "spec.pdf"));
     return uploadRoute(request(`/api/v1/shops/${K}/attachments`, { method: "POST", body: form, cookie: await sessionCookie(kCustomer), headers }), params);
   }
-  const stored = async () => (await db.select({ n: count() }).from(attachments).where(eq(attachments.shopId, (await shopBySlug(K)).id)))[0]?.n ?? 0;
+  const stored = async () =>
+    (
+      await db
+        .select({ n: count() })
+        .from(attachments)
+        .where(eq(attachments.shopId, (await shopBySlug(K)).id))
+    )[0]?.n ?? 0;
 
   it.each([
     ["another site's Origin", { origin: "https://evil.example" }],
@@ -79,7 +87,10 @@ describe("cross-site writes to route handlers", () => {
   });
 
   it("leaves reads alone whatever their Origin", async () => {
-    const res = await membersRoute(request(`/api/v1/shops/${K}/members`, { cookie: await sessionCookie(demoPeople[K].manager.email), headers: { origin: "https://evil.example" } }), params);
+    const res = await membersRoute(
+      request(`/api/v1/shops/${K}/members`, { cookie: await sessionCookie(demoPeople[K].manager.email), headers: { origin: "https://evil.example" } }),
+      params,
+    );
     expect(res.status).toBe(200);
   });
 });

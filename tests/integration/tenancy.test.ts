@@ -62,8 +62,18 @@ async function upload(shop: string, cookie: string) {
  * cookie, with what it answers the shop's own member who may use it.
  */
 const ROUTES: { name: string; call: (shop: TestShop, cookie: string) => Promise<Response>; own: (shop: TestShop) => TestShop["manager"]; ok: number }[] = [
-  { name: "GET /api/v1/shops/[shop]/members", call: (s, cookie) => listMembersRoute(request(`/api/v1/shops/${s.slug}/members`, { cookie }), shopParams(s.slug)), own: (s) => s.manager, ok: 200 },
-  { name: "GET /api/v1/shops/[shop]/quotes", call: (s, cookie) => listQuotesRoute(request(`/api/v1/shops/${s.slug}/quotes`, { cookie }), shopParams(s.slug)), own: (s) => s.estimator, ok: 200 },
+  {
+    name: "GET /api/v1/shops/[shop]/members",
+    call: (s, cookie) => listMembersRoute(request(`/api/v1/shops/${s.slug}/members`, { cookie }), shopParams(s.slug)),
+    own: (s) => s.manager,
+    ok: 200,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/quotes",
+    call: (s, cookie) => listQuotesRoute(request(`/api/v1/shops/${s.slug}/quotes`, { cookie }), shopParams(s.slug)),
+    own: (s) => s.estimator,
+    ok: 200,
+  },
   {
     name: "GET /api/v1/shops/[shop]/quotes/[number]/pdf",
     call: (s, cookie) => {
@@ -77,7 +87,10 @@ const ROUTES: { name: string; call: (shop: TestShop, cookie: string) => Promise<
   {
     name: "GET /api/v1/shops/[shop]/attachments/[id]",
     // A's attachment, asked for through each shop's URL
-    call: (s, cookie) => downloadAttachmentRoute(request(`/api/v1/shops/${s.slug}/attachments/${aAttachment}`, { cookie }), { params: Promise.resolve({ shop: s.slug, id: aAttachment }) }),
+    call: (s, cookie) =>
+      downloadAttachmentRoute(request(`/api/v1/shops/${s.slug}/attachments/${aAttachment}`, { cookie }), {
+        params: Promise.resolve({ shop: s.slug, id: aAttachment }),
+      }),
     own: (s) => s.estimator,
     ok: 200,
   },
@@ -97,16 +110,36 @@ const PUBLIC_SHOP_ROUTES = new Set(["POST /api/v1/shops/[shop]/arrangements"]);
 const ACTIONS = new Set(["changeMemberRole", "chooseArrangement", "exploreArrangements", "joinShop", "openShop"]);
 
 /** The engine's network analyses: open to visitors, holding no shop's data, so every caller gets the same answer. */
-const ENGINE_NETWORK = { kind: "series", children: [0, 1, 2].map((i) => ({ kind: "cell", id: `c${i}`, capacitance: 100, ratedVoltage: 2.7, surgeVoltage: 2.85, toleranceMinus: 0.1, tolerancePlus: 0.2 })) };
+const ENGINE_NETWORK = {
+  kind: "series",
+  children: [0, 1, 2].map((i) => ({
+    kind: "cell",
+    id: `c${i}`,
+    capacitance: 100,
+    ratedVoltage: 2.7,
+    surgeVoltage: 2.85,
+    toleranceMinus: 0.1,
+    tolerancePlus: 0.2,
+  })),
+};
 const ENGINE_ROUTES: { name: string; call: (cookie: string) => Promise<Response> }[] = [
   {
     name: "POST /api/v1/networks/failures",
-    call: (cookie) => networkFailuresRoute(request("/api/v1/networks/failures", { method: "POST", cookie, body: JSON.stringify({ appliedVoltage: 7, network: ENGINE_NETWORK }) })),
+    call: (cookie) =>
+      networkFailuresRoute(
+        request("/api/v1/networks/failures", { method: "POST", cookie, body: JSON.stringify({ appliedVoltage: 7, network: ENGINE_NETWORK }) }),
+      ),
   },
   {
     name: "POST /api/v1/networks/tolerance",
     call: (cookie) =>
-      networkToleranceRoute(request("/api/v1/networks/tolerance", { method: "POST", cookie, body: JSON.stringify({ appliedVoltage: 7, network: ENGINE_NETWORK, samples: 500, seed: 3, distribution: "uniform" }) })),
+      networkToleranceRoute(
+        request("/api/v1/networks/tolerance", {
+          method: "POST",
+          cookie,
+          body: JSON.stringify({ appliedVoltage: 7, network: ENGINE_NETWORK, samples: 500, seed: 3, distribution: "uniform" }),
+        }),
+      ),
   },
 ];
 
@@ -144,14 +177,21 @@ describe("tenancy", () => {
   it("lists every route handler and server action the app has", () => {
     const routes = filesUnder("app", "route.ts").flatMap((file) => {
       const source = fs.readFileSync(file, "utf8");
-      const methods = [...source.matchAll(/export (?:async function|const \{?) ?([A-Z, ]+)/g)].flatMap((m) => (m[1] ?? "").split(",").map((s) => s.trim()).filter(Boolean));
+      const methods = [...source.matchAll(/export (?:async function|const \{?) ?([A-Z, ]+)/g)].flatMap((m) =>
+        (m[1] ?? "")
+          .split(",")
+          .map((s) => s.trim())
+          .filter(Boolean),
+      );
       const route = `/${path.relative("app", path.dirname(file)).split(path.sep).join("/")}`;
       return methods.map((m) => `${m} ${route}`);
     });
     const covered = new Set([...ROUTES.map((r) => r.name), ...NOT_SHOP_SCOPED, ...PUBLIC_SHOP_ROUTES]);
     expect(routes.filter((r) => !covered.has(r))).toEqual([]);
     expect(new Set(routes)).toEqual(covered);
-    const actions = filesUnder("app", "actions.ts").flatMap((file) => [...fs.readFileSync(file, "utf8").matchAll(/export (?:async function|const) (\w+)/g)].map((m) => m[1]));
+    const actions = filesUnder("app", "actions.ts").flatMap((file) =>
+      [...fs.readFileSync(file, "utf8").matchAll(/export (?:async function|const) (\w+)/g)].map((m) => m[1]),
+    );
     expect(new Set(actions)).toEqual(ACTIONS);
   });
 
@@ -168,22 +208,36 @@ describe("tenancy", () => {
 
   it("another shop's quote number and attachment id, asked through one's own shop, are not found", async () => {
     const bCookie = await sessionCookie(B.estimator.email);
-    const pdf = await quotePdfRoute(request(`/api/v1/shops/${B.slug}/quotes/${aQuote}/pdf`, { cookie: bCookie }), { params: Promise.resolve({ shop: B.slug, number: aQuote }) });
+    const pdf = await quotePdfRoute(request(`/api/v1/shops/${B.slug}/quotes/${aQuote}/pdf`, { cookie: bCookie }), {
+      params: Promise.resolve({ shop: B.slug, number: aQuote }),
+    });
     expect(pdf.status).toBe(404);
-    const file = await downloadAttachmentRoute(request(`/api/v1/shops/${B.slug}/attachments/${aAttachment}`, { cookie: bCookie }), { params: Promise.resolve({ shop: B.slug, id: aAttachment }) });
+    const file = await downloadAttachmentRoute(request(`/api/v1/shops/${B.slug}/attachments/${aAttachment}`, { cookie: bCookie }), {
+      params: Promise.resolve({ shop: B.slug, id: aAttachment }),
+    });
     expect(file.status).toBe(404);
   });
 
   it("the members and quotes routes list only the shop's own rows", async () => {
-    const members = (await (await listMembersRoute(request(`/api/v1/shops/${A.slug}/members?size=100`, { cookie: await sessionCookie(A.manager.email) }), shopParams(A.slug))).json()) as { rows: { email: string }[]; total: number };
+    const members = (await (
+      await listMembersRoute(request(`/api/v1/shops/${A.slug}/members?size=100`, { cookie: await sessionCookie(A.manager.email) }), shopParams(A.slug))
+    ).json()) as { rows: { email: string }[]; total: number };
     expect(members.rows.map((r) => r.email).sort()).toEqual([A.manager, A.estimator, ...A.customers].map((p) => p.email).sort());
-    const quotes = (await (await listQuotesRoute(request(`/api/v1/shops/${A.slug}/quotes`, { cookie: await sessionCookie(A.estimator.email) }), shopParams(A.slug))).json()) as { rows: { number: string; customerEmail: string }[] };
+    const quotes = (await (
+      await listQuotesRoute(request(`/api/v1/shops/${A.slug}/quotes`, { cookie: await sessionCookie(A.estimator.email) }), shopParams(A.slug))
+    ).json()) as { rows: { number: string; customerEmail: string }[] };
     expect(quotes.rows.map((r) => r.customerEmail)).toEqual([A.customers[0].email, A.customers[0].email]);
   });
 
   it("the public arrangements route searches only the named shop's catalog", async () => {
-    for (const [shop, requirement] of [[A, KESTREL_REQUIREMENT], [B, MARLOW_REQUIREMENT]] as const) {
-      const res = await arrangementsRoute(new Request(`http://127.0.0.1/api/v1/shops/${shop.slug}/arrangements`, { method: "POST", body: JSON.stringify(requirement) }), shopParams(shop.slug));
+    for (const [shop, requirement] of [
+      [A, KESTREL_REQUIREMENT],
+      [B, MARLOW_REQUIREMENT],
+    ] as const) {
+      const res = await arrangementsRoute(
+        new Request(`http://127.0.0.1/api/v1/shops/${shop.slug}/arrangements`, { method: "POST", body: JSON.stringify(requirement) }),
+        shopParams(shop.slug),
+      );
       const body = (await res.json()) as { options: { cell: { sku: string } }[] };
       const own = new Set((await listActiveCells(shop.id)).map((c) => c.sku));
       expect(body.options.length).toBeGreaterThan(0);

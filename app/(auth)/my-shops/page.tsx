@@ -25,20 +25,31 @@ export default async function MyShopsPage({ searchParams }: { searchParams: Prom
       <h1 className="mt-8 text-xl font-semibold">Your shops</h1>
       {rows.length === 0 ? (
         <p className="mt-2 text-sm text-ink-600">
-          You are not a member of any shop yet. <Link href="/open-shop" className="text-copper-700 hover:underline">Open a shop</Link> or visit a shop&apos;s storefront from the{" "}
-          <Link href="/" className="text-copper-700 hover:underline">front page</Link>.
+          You are not a member of any shop yet.{" "}
+          <Link href="/open-shop" className="text-copper-700 hover:underline">
+            Open a shop
+          </Link>{" "}
+          or visit a shop&apos;s storefront from the{" "}
+          <Link href="/" className="text-copper-700 hover:underline">
+            front page
+          </Link>
+          .
         </p>
       ) : (
         <ul className="mt-4 space-y-2">
           {rows.map((r) => (
             <li key={r.slug} className="flex items-center justify-between rounded-md bg-white p-3 ring-1 ring-ink-100">
-              <Link href={homeOf(r.slug, r.role)} className="font-medium hover:underline">{r.name}</Link>
+              <Link href={homeOf(r.slug, r.role)} className="font-medium hover:underline">
+                {r.name}
+              </Link>
               <span className="text-xs text-ink-500">{ROLE_LABELS[r.role]}</span>
             </li>
           ))}
         </ul>
       )}
-      <p className="mt-6"><SignOutButton /></p>
+      <p className="mt-6">
+        <SignOutButton />
+      </p>
     </main>
   );
 }

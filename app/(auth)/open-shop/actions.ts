@@ -23,7 +23,8 @@ export async function openShop(input: unknown): Promise<ActionResult<{ slug: str
   if (!parsed.success) return invalidResult(parsed.error);
   const v = parsed.data;
   // shop addresses are public (every storefront has one): saying one is taken tells nothing private
-  if (await isSlugTaken(v.slug)) return { ok: false, code: "conflict", message: "Please correct the marked fields.", fieldErrors: { slug: ["That address is taken; choose another."] } };
+  if (await isSlugTaken(v.slug))
+    return { ok: false, code: "conflict", message: "Please correct the marked fields.", fieldErrors: { slug: ["That address is taken; choose another."] } };
   if (await isEmailTaken(v.email)) {
     await hashPassword(v.password); // as long as creating the account would take
     sendOpenShopNotice({ email: v.email, shopName: v.shopName });

@@ -22,7 +22,9 @@ export default async function DeskLayout({ children, params }: { children: React
       </aside>
       <div className="flex-1">
         <header className="flex flex-wrap items-center justify-between gap-2 border-b border-ink-200 bg-white px-6 py-3 text-sm">
-          <Link href={`/s/${shop}`} className="text-ink-600 hover:underline">View storefront</Link>
+          <Link href={`/s/${shop}`} className="text-ink-600 hover:underline">
+            View storefront
+          </Link>
           <div className="flex items-center gap-4">
             <span>
               {ctx.user.name} · <span className="text-ink-500">{ROLE_LABELS[ctx.role]}</span>

@@ -13,14 +13,16 @@ export default async function DeskTodayPage({ params }: { params: Promise<{ shop
       <div>
         <h1 className="text-2xl font-semibold">Today at {ctx.shop.name}</h1>
         <p className="mt-1 text-sm text-ink-600">
-          Signed in as {ctx.user.name} ({ROLE_LABELS[ctx.role].toLowerCase()}). Requests waiting for review, quotes about to lapse and orders due to
-          ship will gather here.
+          Signed in as {ctx.user.name} ({ROLE_LABELS[ctx.role].toLowerCase()}). Requests waiting for review, quotes about to lapse and orders due to ship will
+          gather here.
         </p>
       </div>
       <ul className="grid gap-4 sm:grid-cols-2 xl:grid-cols-3">
         {sections.map((s) => (
           <li key={s.path} className="rounded-lg bg-white p-4 ring-1 ring-ink-100">
-            <Link href={`/desk/${shop}/${s.path}`} className="font-semibold hover:underline">{s.label}</Link>
+            <Link href={`/desk/${shop}/${s.path}`} className="font-semibold hover:underline">
+              {s.label}
+            </Link>
             <p className="mt-1 text-sm text-ink-600">{s.summary}</p>
           </li>
         ))}

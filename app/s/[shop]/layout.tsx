@@ -17,29 +17,43 @@ export default async function StorefrontLayout({ children, params }: { children:
             <Link href="/" aria-label="Faradsmith home">
               <img src="/logo-mark.svg" alt="" width={28} height={28} />
             </Link>
-            <Link href={`/s/${slug}`} className="text-lg font-semibold tracking-tight">{shop?.name}</Link>
+            <Link href={`/s/${slug}`} className="text-lg font-semibold tracking-tight">
+              {shop?.name}
+            </Link>
           </div>
           <nav aria-label="Storefront" className="flex flex-wrap items-center gap-4 text-sm">
-            <Link href={`/s/${slug}`} className="hover:underline">Design a bank</Link>
+            <Link href={`/s/${slug}`} className="hover:underline">
+              Design a bank
+            </Link>
             {r.status === "ok" ? (
               <>
                 {r.ctx.role === "customer" ? (
-                  <Link href={`/s/${slug}/quotes`} className="hover:underline">My quotes</Link>
+                  <Link href={`/s/${slug}/quotes`} className="hover:underline">
+                    My quotes
+                  </Link>
                 ) : (
-                  <Link href={`/desk/${slug}`} className="hover:underline">Staff desk</Link>
+                  <Link href={`/desk/${slug}`} className="hover:underline">
+                    Staff desk
+                  </Link>
                 )}
                 <span className="text-ink-500">{r.ctx.user.name}</span>
                 <SignOutButton to={`/s/${slug}`} />
               </>
             ) : r.status === "not-member" ? (
               <>
-                <Link href={`/s/${slug}/join`} className="hover:underline">Join as a customer</Link>
+                <Link href={`/s/${slug}/join`} className="hover:underline">
+                  Join as a customer
+                </Link>
                 <SignOutButton to={`/s/${slug}`} />
               </>
             ) : (
               <>
-                <Link href={`/sign-in?shop=${slug}&next=/s/${slug}`} className="hover:underline">Sign in</Link>
-                <Link href={`/s/${slug}/join`} className="rounded-md bg-copper-500 px-3 py-1.5 font-medium text-white hover:bg-copper-600">Create an account</Link>
+                <Link href={`/sign-in?shop=${slug}&next=/s/${slug}`} className="hover:underline">
+                  Sign in
+                </Link>
+                <Link href={`/s/${slug}/join`} className="rounded-md bg-copper-500 px-3 py-1.5 font-medium text-white hover:bg-copper-600">
+                  Create an account
+                </Link>
               </>
             )}
           </nav>
@@ -47,7 +61,10 @@ export default async function StorefrontLayout({ children, params }: { children:
       </header>
       <div className="mx-auto w-full max-w-6xl flex-1 px-4 py-8">{children}</div>
       <footer className="border-t border-ink-200 bg-white py-4 text-center text-xs text-ink-500">
-        {shop?.name} · quotes by <Link href="/" className="hover:underline">Faradsmith</Link>
+        {shop?.name} · quotes by{" "}
+        <Link href="/" className="hover:underline">
+          Faradsmith
+        </Link>
       </footer>
     </div>
   );

@@ -29,7 +29,9 @@ export default async function StorefrontPage({ params, searchParams }: { params:
         {settings?.description ? <p className="mt-3 max-w-3xl text-sm text-ink-600">{settings.description}</p> : null}
       </section>
       <section aria-labelledby="stock">
-        <h2 id="stock" className="text-sm font-semibold uppercase tracking-wide text-ink-500">Cells in stock to build from</h2>
+        <h2 id="stock" className="text-sm font-semibold uppercase tracking-wide text-ink-500">
+          Cells in stock to build from
+        </h2>
         <ul className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
           {families.map((f) => (
             <li key={f.technology} className="rounded-lg bg-white p-4 ring-1 ring-ink-100">

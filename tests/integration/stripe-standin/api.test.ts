@@ -53,10 +53,13 @@ async function paidSession(params = sessionParams()) {
   return stripe.checkout.sessions.retrieve(created.id);
 }
 
-useTestStandin((s, sdk) => {
-  standin = s;
-  stripe = sdk;
-}, { onApiAnswer: (a) => answers.push(a) });
+useTestStandin(
+  (s, sdk) => {
+    standin = s;
+    stripe = sdk;
+  },
+  { onApiAnswer: (a) => answers.push(a) },
+);
 afterEach(() => {
   const sent = answers.splice(0);
   for (const a of sent) if (a.op && a.status === 200) answeredOps.add(a.op);
@@ -177,7 +180,13 @@ describe("parameters refused as the description and the real API refuse them", (
   const base = sessionParams();
   const line = base.line_items?.[0] as Stripe.Checkout.SessionCreateParams.LineItem;
   const cases: { what: string; params: unknown; code?: string; param: string; message: RegExp }[] = [
-    { what: "an unknown parameter", params: { ...base, colour: "teal" }, code: "parameter_unknown", param: "colour", message: /^Received unknown parameter: colour$/ },
+    {
+      what: "an unknown parameter",
+      params: { ...base, colour: "teal" },
+      code: "parameter_unknown",
+      param: "colour",
+      message: /^Received unknown parameter: colour$/,
+    },
     {
       what: "an unknown nested parameter",
       params: { ...base, line_items: [{ ...line, price_data: { ...line.price_data, product_data: { name: "Module", colour: "teal" } } }] },
@@ -185,13 +194,45 @@ describe("parameters refused as the description and the real API refuse them", (
       param: "line_items[0][price_data][product_data][colour]",
       message: /Received unknown parameter: line_items\[0\]\[price_data\]\[product_data\]\[colour\]/,
     },
-    { what: "a quantity that is not an integer", params: { ...base, line_items: [{ ...line, quantity: "two" }] }, code: "parameter_invalid_integer", param: "line_items[0][quantity]", message: /Invalid integer: two/ },
-    { what: "an amount with a fraction", params: { ...base, line_items: [{ ...line, price_data: { ...line.price_data, unit_amount: 12.5 } }] }, code: "parameter_invalid_integer", param: "line_items[0][price_data][unit_amount]", message: /Invalid integer: 12.5/ },
-    { what: "a mode outside its enum", params: { ...base, mode: "rental" }, param: "mode", message: /Invalid mode: must be one of payment, setup, or subscription/ },
-    { what: "a submit_type outside its enum", params: { ...base, submit_type: "buy" }, param: "submit_type", message: /must be one of auto, book, donate, or pay/ },
+    {
+      what: "a quantity that is not an integer",
+      params: { ...base, line_items: [{ ...line, quantity: "two" }] },
+      code: "parameter_invalid_integer",
+      param: "line_items[0][quantity]",
+      message: /Invalid integer: two/,
+    },
+    {
+      what: "an amount with a fraction",
+      params: { ...base, line_items: [{ ...line, price_data: { ...line.price_data, unit_amount: 12.5 } }] },
+      code: "parameter_invalid_integer",
+      param: "line_items[0][price_data][unit_amount]",
+      message: /Invalid integer: 12.5/,
+    },
+    {
+      what: "a mode outside its enum",
+      params: { ...base, mode: "rental" },
+      param: "mode",
+      message: /Invalid mode: must be one of payment, setup, or subscription/,
+    },
+    {
+      what: "a submit_type outside its enum",
+      params: { ...base, submit_type: "buy" },
+      param: "submit_type",
+      message: /must be one of auto, book, donate, or pay/,
+    },
     { what: "a locale outside its enum", params: { ...base, locale: "xx" }, param: "locale", message: /Invalid locale/ },
-    { what: "a boolean that is not true or false", params: { ...base, phone_number_collection: { enabled: "yes" } }, param: "phone_number_collection[enabled]", message: /Invalid boolean: yes/ },
-    { what: "a client_reference_id over its 200 characters", params: { ...base, client_reference_id: "r".repeat(201) }, param: "client_reference_id", message: /at most 200 characters/ },
+    {
+      what: "a boolean that is not true or false",
+      params: { ...base, phone_number_collection: { enabled: "yes" } },
+      param: "phone_number_collection[enabled]",
+      message: /Invalid boolean: yes/,
+    },
+    {
+      what: "a client_reference_id over its 200 characters",
+      params: { ...base, client_reference_id: "r".repeat(201) },
+      param: "client_reference_id",
+      message: /at most 200 characters/,
+    },
     { what: "metadata that is not a hash", params: { ...base, metadata: "quote" }, param: "metadata", message: /^Invalid hash$/ },
     { what: "line_items that is not a list", params: { ...base, line_items: "many" }, param: "line_items", message: /^Invalid array$/ },
   ];
@@ -223,20 +264,48 @@ describe("parameters refused as the description and the real API refuse them", (
     expect(await refusal(stripe.refunds.create(bad as Stripe.RefundCreateParams))).toMatchObject({ statusCode: 400, param: "reason" });
     const filter = { status: "succeeded" };
     expect(spec.request("GET", "/v1/refunds", filter).ok).toBe(false);
-    expect(await refusal(stripe.refunds.list(filter as Stripe.RefundListParams))).toMatchObject({ statusCode: 400, code: "parameter_unknown", param: "status" });
+    expect(await refusal(stripe.refunds.list(filter as Stripe.RefundListParams))).toMatchObject({
+      statusCode: 400,
+      code: "parameter_unknown",
+      param: "status",
+    });
     const limit = { limit: "ten" };
     expect(spec.request("GET", "/v1/events", limit).ok).toBe(false);
-    expect(await refusal(stripe.events.list(limit as unknown as Stripe.EventListParams))).toMatchObject({ statusCode: 400, code: "parameter_invalid_integer", param: "limit" });
+    expect(await refusal(stripe.events.list(limit as unknown as Stripe.EventListParams))).toMatchObject({
+      statusCode: 400,
+      code: "parameter_invalid_integer",
+      param: "limit",
+    });
   });
 
   it.each([
     ["without success_url", { success_url: undefined }, "success_url", "parameter_missing"],
     ["with a success_url that is not a URL", { success_url: "paid-page" }, "success_url", "url_invalid"],
     ["without line items", { line_items: [] }, "line_items", "parameter_missing"],
-    ["below the currency's minimum charge (EUR 0.50)", { line_items: [{ quantity: 1, price_data: { currency: "eur", unit_amount: 49, product_data: { name: "Fuse" } } }] }, "line_items", "amount_too_small"],
-    ["above the largest amount (99,999,999 minor units)", { line_items: [{ quantity: 2, price_data: { currency: "eur", unit_amount: 50_000_000, product_data: { name: "Bank" } } }] }, "line_items", "amount_too_large"],
-    ["in a currency that does not exist", { line_items: [{ quantity: 1, price_data: { currency: "xyz", unit_amount: 500, product_data: { name: "Bank" } } }] }, "line_items[0][price_data][currency]", undefined],
-    ["with line items in two currencies", { line_items: [line, { quantity: 1, price_data: { currency: "gbp", unit_amount: 500, product_data: { name: "Link" } } }] }, "line_items[1][price_data][currency]", undefined],
+    [
+      "below the currency's minimum charge (EUR 0.50)",
+      { line_items: [{ quantity: 1, price_data: { currency: "eur", unit_amount: 49, product_data: { name: "Fuse" } } }] },
+      "line_items",
+      "amount_too_small",
+    ],
+    [
+      "above the largest amount (99,999,999 minor units)",
+      { line_items: [{ quantity: 2, price_data: { currency: "eur", unit_amount: 50_000_000, product_data: { name: "Bank" } } }] },
+      "line_items",
+      "amount_too_large",
+    ],
+    [
+      "in a currency that does not exist",
+      { line_items: [{ quantity: 1, price_data: { currency: "xyz", unit_amount: 500, product_data: { name: "Bank" } } }] },
+      "line_items[0][price_data][currency]",
+      undefined,
+    ],
+    [
+      "with line items in two currencies",
+      { line_items: [line, { quantity: 1, price_data: { currency: "gbp", unit_amount: 500, product_data: { name: "Link" } } }] },
+      "line_items[1][price_data][currency]",
+      undefined,
+    ],
   ])("refuses a session %s", async (_, overrides, param, code) => {
     const e = await refusal(stripe.checkout.sessions.create({ ...base, ...overrides } as Stripe.Checkout.SessionCreateParams));
     expect(e).toMatchObject({ statusCode: 400, rawType: "invalid_request_error", param });
@@ -264,9 +333,25 @@ describe("paying, PaymentIntents and declines", () => {
     expect(done.customer_details).toMatchObject({ email: "buyer@tollmere-tramways.example", name: "Renske Haddow" });
     const pi = done.payment_intent as Stripe.PaymentIntent;
     expect(pi.id).toMatch(/^pi_[A-Za-z0-9]{24}$/);
-    expect(pi).toMatchObject({ object: "payment_intent", status: "succeeded", amount: 25190, amount_received: 25190, currency: "eur", metadata: { quote: "Q-2026-0007" }, description: "Quote Q-2026-0007" });
+    expect(pi).toMatchObject({
+      object: "payment_intent",
+      status: "succeeded",
+      amount: 25190,
+      amount_received: 25190,
+      currency: "eur",
+      metadata: { quote: "Q-2026-0007" },
+      description: "Quote Q-2026-0007",
+    });
     const charge = pi.latest_charge as Stripe.Charge;
-    expect(charge).toMatchObject({ object: "charge", paid: true, status: "succeeded", amount: 25190, amount_refunded: 0, refunded: false, payment_intent: pi.id });
+    expect(charge).toMatchObject({
+      object: "charge",
+      paid: true,
+      status: "succeeded",
+      amount: 25190,
+      amount_refunded: 0,
+      refunded: false,
+      payment_intent: pi.id,
+    });
 
     const again = await stripe.paymentIntents.retrieve(pi.id);
     expect(again.latest_charge).toBe(charge.id);
@@ -325,7 +410,15 @@ describe("refunds", () => {
     valid(spec.request("POST", "/v1/refunds", params));
     const part = await stripe.refunds.create(params);
     expect(part.id).toMatch(/^re_/);
-    expect(part).toMatchObject({ object: "refund", amount: 5000, currency: "eur", status: "succeeded", payment_intent: piId, reason: "requested_by_customer", metadata: { note: "one module returned" } });
+    expect(part).toMatchObject({
+      object: "refund",
+      amount: 5000,
+      currency: "eur",
+      status: "succeeded",
+      payment_intent: piId,
+      reason: "requested_by_customer",
+      metadata: { note: "one module returned" },
+    });
 
     const over = await refusal(stripe.refunds.create({ payment_intent: piId, amount: 20191 }));
     expect(over).toMatchObject({ statusCode: 400, code: "amount_too_large", param: "amount" });

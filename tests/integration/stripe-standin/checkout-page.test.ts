@@ -74,7 +74,11 @@ describe("the hosted payment page", () => {
     expect(p.status).toBe(303);
     expect(p.headers.get("location")).toBe(`http://127.0.0.1:3999/paid?session=${s.id}`);
     const done = await stripe.checkout.sessions.retrieve(s.id);
-    expect(done).toMatchObject({ status: "complete", payment_status: "paid", customer_details: { email: "renske.haddow@tollmere-tramways.example", name: "Renske Haddow" } });
+    expect(done).toMatchObject({
+      status: "complete",
+      payment_status: "paid",
+      customer_details: { email: "renske.haddow@tollmere-tramways.example", name: "Renske Haddow" },
+    });
     expect((await stripe.events.list({ type: "checkout.session.completed" })).data).toHaveLength(1);
     // The page of a paid session says so and links back to the shop.
     const after = await page(`${standin.url}/checkout/${s.id}`);

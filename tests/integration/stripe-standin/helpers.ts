@@ -33,7 +33,12 @@ export function answerProblems(answer: Answer): string[] {
   const problems: string[] = [];
   const whole = spec.response(method.toUpperCase() as "GET" | "POST", path, answer.status, body);
   if (!whole.ok) problems.push(`${answer.op} ${answer.status}: ${whole.errors}`);
-  const events = body.object === "event" ? [body] : body.object === "list" && Array.isArray(body.data) ? (body.data as { object?: string }[]).filter((x) => x.object === "event") : [];
+  const events =
+    body.object === "event"
+      ? [body]
+      : body.object === "list" && Array.isArray(body.data)
+        ? (body.data as { object?: string }[]).filter((x) => x.object === "event")
+        : [];
   for (const e of events) problems.push(...eventProblems(e));
   return problems;
 }
@@ -87,7 +92,12 @@ export function sdkFor(standin: Standin, key = env.STRIPE_SECRET_KEY): Stripe {
   return new Stripe(key, { host: "127.0.0.1", port: standin.port, protocol: "http" });
 }
 
-export async function control<T = Record<string, unknown>>(standin: Standin, method: "GET" | "POST", path: string, body?: unknown): Promise<{ status: number; body: T }> {
+export async function control<T = Record<string, unknown>>(
+  standin: Standin,
+  method: "GET" | "POST",
+  path: string,
+  body?: unknown,
+): Promise<{ status: number; body: T }> {
   const res = await fetch(`${standin.url}${path}`, {
     method,
     headers: body === undefined ? {} : { "content-type": "application/json" },

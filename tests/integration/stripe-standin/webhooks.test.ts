@@ -52,7 +52,12 @@ describe("signed delivery", () => {
     const r = await receiver();
     const s = await paidSession();
     await settle(standin);
-    expect(r.received.map((x) => x.event.type)).toEqual(["payment_intent.created", "charge.succeeded", "payment_intent.succeeded", "checkout.session.completed"]);
+    expect(r.received.map((x) => x.event.type)).toEqual([
+      "payment_intent.created",
+      "charge.succeeded",
+      "payment_intent.succeeded",
+      "checkout.session.completed",
+    ]);
     for (const x of r.received) {
       expect(x.headers["content-type"]).toBe("application/json; charset=utf-8");
       expect(x.headers["stripe-signature"]).toMatch(/^t=\d+,v1=[0-9a-f]{64}$/);
@@ -143,7 +148,9 @@ describe("retries with back-off", () => {
     await control(standin, "POST", "/_standin/webhooks", { url: r.url });
     await settle(standin);
     expect(first.every((d) => d.outcome === "retrying" && d.status === null && d.error !== null)).toBe(true);
-    expect(new Set(r.received.map((x) => x.event.type))).toEqual(new Set(["payment_intent.created", "charge.succeeded", "payment_intent.succeeded", "checkout.session.completed"]));
+    expect(new Set(r.received.map((x) => x.event.type))).toEqual(
+      new Set(["payment_intent.created", "charge.succeeded", "payment_intent.succeeded", "checkout.session.completed"]),
+    );
   });
 
   it("gives up after the last attempt; the events list still shows the failed delivery", async () => {
@@ -177,7 +184,12 @@ describe("test switches: duplicates and order", () => {
     const r = await receiver();
     await paidSession();
     await settle(standin);
-    expect(r.received.map((x) => x.event.type)).toEqual(["checkout.session.completed", "payment_intent.succeeded", "charge.succeeded", "payment_intent.created"]);
+    expect(r.received.map((x) => x.event.type)).toEqual([
+      "checkout.session.completed",
+      "payment_intent.succeeded",
+      "charge.succeeded",
+      "payment_intent.created",
+    ]);
   });
 
   it("holds events and flushes them in reverse: the refund arrives before the payment it refunds", async () => {
@@ -192,7 +204,14 @@ describe("test switches: duplicates and order", () => {
     expect(flushed.body.flushed).toBe(6);
     await settle(standin);
     const types = r.received.map((x) => x.event.type);
-    expect(types).toEqual(["refund.created", "charge.refunded", "checkout.session.completed", "payment_intent.succeeded", "charge.succeeded", "payment_intent.created"]);
+    expect(types).toEqual([
+      "refund.created",
+      "charge.refunded",
+      "checkout.session.completed",
+      "payment_intent.succeeded",
+      "charge.succeeded",
+      "payment_intent.created",
+    ]);
   });
 
   it("turning hold off sends what was held, in order", async () => {

@@ -49,7 +49,11 @@ describe("role permissions", () => {
 });
 
 describe("who sees which owned records", () => {
-  const ctx = (role: Role, userId = "u-1"): ShopContext => ({ user: { id: userId, name: "Test", email: "t@shop.example" }, shop: { id: "s-1", slug: "shop", name: "Shop" }, role });
+  const ctx = (role: Role, userId = "u-1"): ShopContext => ({
+    user: { id: userId, name: "Test", email: "t@shop.example" },
+    shop: { id: "s-1", slug: "shop", name: "Shop" },
+    role,
+  });
 
   it.each([
     // role, quote owned by self, quote owned by someone else

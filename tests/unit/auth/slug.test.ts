@@ -31,7 +31,14 @@ describe("shop slug validation", () => {
   });
 
   it("puts the slug's message on the slug field of the open-shop form", () => {
-    const r = openShopSchema.safeParse({ name: "Ada Quill", email: "ada@example.com", password: "long-enough-pw", shopName: "North Coast", slug: "north coast", currency: "EUR" });
+    const r = openShopSchema.safeParse({
+      name: "Ada Quill",
+      email: "ada@example.com",
+      password: "long-enough-pw",
+      shopName: "North Coast",
+      slug: "north coast",
+      currency: "EUR",
+    });
     expect(r.success).toBe(false);
     if (!r.success) expect(r.error.issues.map((i) => i.path.join("."))).toEqual(["slug"]);
   });

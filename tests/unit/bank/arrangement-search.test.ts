@@ -1,5 +1,5 @@
-import fc from 'fast-check';
-import { describe, expect, it } from 'vitest';
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
 import {
   DEFAULT_DESIGN_FACTORS,
   searchArrangements,
@@ -8,17 +8,17 @@ import {
   type DesignFactors,
   type EngineCell,
   type Requirement,
-} from '@/lib/bank';
-import { arbFactors } from './arbitraries';
-import { generateCatalog } from './catalog-fixture';
-import { rk4ConstantPower } from './reference';
+} from "@/lib/bank";
+import { arbFactors } from "./arbitraries";
+import { generateCatalog } from "./catalog-fixture";
+import { rk4ConstantPower } from "./reference";
 
 /** Invented cell (invented maker prefix and part number). */
 function edlc(overrides: Partial<EngineCell> = {}): EngineCell {
   return {
-    id: 'cell-qz350',
-    sku: 'QZ-350-27',
-    technology: 'edlc',
+    id: "cell-qz350",
+    sku: "QZ-350-27",
+    technology: "edlc",
     capacitance: 350,
     toleranceMinus: 0,
     tolerancePlus: 0.2,
@@ -37,13 +37,13 @@ function edlc(overrides: Partial<EngineCell> = {}): EngineCell {
   };
 }
 
-const board: BalancingBoard = { id: 'b6', sku: 'BAL-6CH-27', channels: 6, maxCellVoltage: 2.7, unitCost: 14, leadTimeDays: 10 };
+const board: BalancingBoard = { id: "b6", sku: "BAL-6CH-27", channels: 6, maxCellVoltage: 2.7, unitCost: 14, leadTimeDays: 10 };
 
-describe('searchArrangements: hand-worked example (DESIGN §3.2)', () => {
+describe("searchArrangements: hand-worked example (DESIGN §3.2)", () => {
   const factors: DesignFactors = { ...DEFAULT_DESIGN_FACTORS, matchingTolerance: 0.02 };
   const requirement: Requirement = { maxVoltage: 48, capacitance: 10 };
 
-  it('N_s = ceil(48/2.7) = 18 needs active balancing (V_w = 2.769 V > 2.7 V); without a board the shortest safe string is 19, and 20 is the longer-life variant', () => {
+  it("N_s = ceil(48/2.7) = 18 needs active balancing (V_w = 2.769 V > 2.7 V); without a board the shortest safe string is 19, and 20 is the longer-life variant", () => {
     const { options, reasons } = searchArrangements({ requirement, cells: [edlc()], factors });
     expect(reasons).toEqual([]);
     expect(options.map((o) => [o.seriesCount, o.longerLife])).toEqual([
@@ -72,47 +72,47 @@ describe('searchArrangements: hand-worked example (DESIGN §3.2)', () => {
     expect(o.balancing.activeBoard).toBeNull();
   });
 
-  it('with a 6-channel board that clamps at 2.7 V, N_s = 18 is offered too, with ceil(18/6) = 3 boards', () => {
+  it("with a 6-channel board that clamps at 2.7 V, N_s = 18 is offered too, with ceil(18/6) = 3 boards", () => {
     const { options } = searchArrangements({ requirement, cells: [edlc()], factors, balancingBoards: [board] });
     const o18 = options.find((o) => o.seriesCount === 18)!;
     expect(o18).toBeDefined();
-    expect(o18.balancing.activeBoard).toEqual({ sku: 'BAL-6CH-27', count: 3 });
+    expect(o18.balancing.activeBoard).toEqual({ sku: "BAL-6CH-27", count: 3 });
     expect(o18.costEstimate).toBeCloseTo(18 * 9.5 + 3 * 14, 9);
-    expect(o18.warnings.some((w) => w.startsWith('Balancing needed'))).toBe(true);
+    expect(o18.warnings.some((w) => w.startsWith("Balancing needed"))).toBe(true);
     expect(o18.leadTimeDays).toBe(10); // the board's lead time
   });
 
-  it('refuses a string whose worst-case cell voltage exceeds the surge rating, and takes the next one up', () => {
+  it("refuses a string whose worst-case cell voltage exceeds the surge rating, and takes the next one up", () => {
     // with the default 5 % matching, N_s = 18 gives V_w = 2.930 V > 2.85 V surge: refused even with a board;
     // 19 gives 2.777 V (above 2.7 V: 4 boards clamp it), 20 gives 2.637 V (passive balancing is enough)
     const { options } = searchArrangements({ requirement, cells: [edlc()], factors: DEFAULT_DESIGN_FACTORS, balancingBoards: [board] });
     expect(options.map((o) => o.seriesCount).sort()).toEqual([19, 20]);
     const o19 = options.find((o) => o.seriesCount === 19)!;
     const o20 = options.find((o) => o.seriesCount === 20)!;
-    expect(o19.balancing.activeBoard).toEqual({ sku: 'BAL-6CH-27', count: 4 });
+    expect(o19.balancing.activeBoard).toEqual({ sku: "BAL-6CH-27", count: 4 });
     expect(o19.longerLife).toBe(false);
     expect(o20.balancing.activeBoard).toBeNull();
     expect(o20.longerLife).toBe(true);
   });
 
-  it('offers both topologies when N_p > 1, with one balancing resistor per group or per cell', () => {
+  it("offers both topologies when N_p > 1, with one balancing resistor per group or per cell", () => {
     const { options } = searchArrangements({ requirement: { maxVoltage: 48, capacitance: 30 }, cells: [edlc()], factors });
     // N_p ≥ 30·19/280 = 2.04 → 3
-    const groups = options.find((o) => o.topology === 'series-of-parallel-groups')!;
-    const strings = options.find((o) => o.topology === 'parallel-of-series-strings')!;
+    const groups = options.find((o) => o.topology === "series-of-parallel-groups")!;
+    const strings = options.find((o) => o.topology === "parallel-of-series-strings")!;
     expect(groups.parallelCount).toBe(3);
     expect(groups.balancing.count).toBe(19);
     expect(strings.balancing.count).toBe(57);
   });
 });
 
-describe('searchArrangements: warnings, cautions and reasons', () => {
-  it('a 400 V electrolytic bank carries shock, burn/arc and handling cautions, and a switched discharge warning', () => {
+describe("searchArrangements: warnings, cautions and reasons", () => {
+  it("a 400 V electrolytic bank carries shock, burn/arc and handling cautions, and a switched discharge warning", () => {
     const cap: EngineCell = {
       ...edlc(),
-      id: 'el-1',
-      sku: 'EL-4700-450',
-      technology: 'electrolytic',
+      id: "el-1",
+      sku: "EL-4700-450",
+      technology: "electrolytic",
       capacitance: 4700e-6,
       toleranceMinus: 0.2,
       tolerancePlus: 0.2,
@@ -135,33 +135,33 @@ describe('searchArrangements: warnings, cautions and reasons', () => {
     expect(o.seriesCount).toBe(1);
     // C_d = 4.7 mF·0.8·0.8 = 3.008 mF; N_p ≥ 2·1000/(3.008 mF·400²) = 4.16 → 5
     expect(o.parallelCount).toBe(5);
-    expect(o.cautions.some((c) => c.startsWith('Shock hazard'))).toBe(true);
-    expect(o.cautions.some((c) => c.startsWith('Burn and arc hazard'))).toBe(true);
-    expect(o.cautions.some((c) => c.includes('short its terminals'))).toBe(true);
-    expect(o.cautions.some((c) => c.includes('shorting link'))).toBe(true);
-    expect(o.cautions.some((c) => c.includes('engineering estimate'))).toBe(true);
+    expect(o.cautions.some((c) => c.startsWith("Shock hazard"))).toBe(true);
+    expect(o.cautions.some((c) => c.startsWith("Burn and arc hazard"))).toBe(true);
+    expect(o.cautions.some((c) => c.includes("short its terminals"))).toBe(true);
+    expect(o.cautions.some((c) => c.includes("shorting link"))).toBe(true);
+    expect(o.cautions.some((c) => c.includes("engineering estimate"))).toBe(true);
     expect(o.discharge.bleeder?.switched).toBe(true);
     expect(o.discharge.secondsToSafe).toBeLessThanOrEqual(5);
-    expect(o.warnings.some((w) => w.includes('switched discharge circuit'))).toBe(true);
-    expect(o.warnings.some((w) => w.startsWith('Stock covers 3 of the 10 cells'))).toBe(true);
-    expect(o.warnings.some((w) => w.startsWith('Long lead time'))).toBe(true);
+    expect(o.warnings.some((w) => w.includes("switched discharge circuit"))).toBe(true);
+    expect(o.warnings.some((w) => w.startsWith("Stock covers 3 of the 10 cells"))).toBe(true);
+    expect(o.warnings.some((w) => w.startsWith("Long lead time"))).toBe(true);
     expect(o.leadTimeDays).toBe(45);
   });
 
-  it('a low-voltage bank has no shock caution but keeps the handling cautions', () => {
+  it("a low-voltage bank has no shock caution but keeps the handling cautions", () => {
     const { options } = searchArrangements({ requirement: { maxVoltage: 5, capacitance: 50 }, cells: [edlc()], factors: DEFAULT_DESIGN_FACTORS });
     const o = options[0]!;
-    expect(o.cautions.some((c) => c.startsWith('Shock hazard'))).toBe(false);
-    expect(o.cautions.some((c) => c.includes('engineering estimate'))).toBe(true);
+    expect(o.cautions.some((c) => c.startsWith("Shock hazard"))).toBe(false);
+    expect(o.cautions.some((c) => c.includes("engineering estimate"))).toBe(true);
     expect(o.discharge).toMatchObject({ secondsToSafe: 0, bleeder: null });
   });
 
-  it('explains per technology what ruled every cell out', () => {
+  it("explains per technology what ruled every cell out", () => {
     const film: EngineCell = {
       ...edlc(),
-      id: 'fm-1',
-      sku: 'FM-470-800',
-      technology: 'film',
+      id: "fm-1",
+      sku: "FM-470-800",
+      technology: "film",
       capacitance: 470e-6,
       toleranceMinus: 0.05,
       tolerancePlus: 0.05,
@@ -178,24 +178,24 @@ describe('searchArrangements: warnings, cautions and reasons', () => {
       factors: DEFAULT_DESIGN_FACTORS,
     });
     expect(options).toEqual([]);
-    expect(reasons).toContain('film: no cell reaches 20 kJ usable within 50 kg');
+    expect(reasons).toContain("film: no cell reaches 20 kJ usable within 50 kg");
     // 260 EDLC cells would do for the voltage, but with 5 % matching the shortest passive string is
     // N_s = ceil(1 + (700/2.7 − 1)·1.05/0.95) = 287 cells, 1,435 kg at 5 kg each
-    expect(reasons).toContain('edlc: even one string of 287 cells in series is beyond 50 kg');
-    expect(reasons).toContain('electrolytic: no electrolytic cells in the catalog');
+    expect(reasons).toContain("edlc: even one string of 287 cells in series is beyond 50 kg");
+    expect(reasons).toContain("electrolytic: no electrolytic cells in the catalog");
   });
 
-  it('a technology filter keeps other families out', () => {
+  it("a technology filter keeps other families out", () => {
     const { options, reasons } = searchArrangements({
-      requirement: { maxVoltage: 48, capacitance: 10, technology: 'hybrid' },
+      requirement: { maxVoltage: 48, capacitance: 10, technology: "hybrid" },
       cells: [edlc()],
       factors: DEFAULT_DESIGN_FACTORS,
     });
     expect(options).toEqual([]);
-    expect(reasons).toEqual(['hybrid: no hybrid cells in the catalog']);
+    expect(reasons).toEqual(["hybrid: no hybrid cells in the catalog"]);
   });
 
-  it('returns at most `limit` options, in the order of the cost estimate, from a generated catalog', () => {
+  it("returns at most `limit` options, in the order of the cost estimate, from a generated catalog", () => {
     const cells = generateCatalog(2000, 7);
     const { options } = searchArrangements({
       requirement: { maxVoltage: 48, minVoltage: 24, backup: { power: 2000, seconds: 10 } },
@@ -212,7 +212,7 @@ describe('searchArrangements: warnings, cautions and reasons', () => {
 
 const arbCell: fc.Arbitrary<EngineCell> = fc
   .record({
-    technology: fc.constantFrom('edlc' as const, 'hybrid' as const, 'electrolytic' as const, 'film' as const),
+    technology: fc.constantFrom("edlc" as const, "hybrid" as const, "electrolytic" as const, "film" as const),
     capacitance: fc.double({ min: 1e-4, max: 3000, noNaN: true }),
     toleranceMinus: fc.double({ min: 0, max: 0.2, noNaN: true }),
     tolerancePlus: fc.double({ min: 0, max: 0.3, noNaN: true }),
@@ -260,22 +260,21 @@ const arbRequirement: fc.Arbitrary<Requirement> = fc
     }),
     maxMass: fc.option(fc.double({ min: 0.1, max: 500, noNaN: true }), { nil: undefined }),
     maxVolume: fc.option(fc.double({ min: 1e-4, max: 0.5, noNaN: true }), { nil: undefined }),
-    technology: fc.option(fc.constantFrom('edlc' as const, 'hybrid' as const, 'electrolytic' as const, 'film' as const), { nil: undefined }),
+    technology: fc.option(fc.constantFrom("edlc" as const, "hybrid" as const, "electrolytic" as const, "film" as const), { nil: undefined }),
   })
   .filter((r) => r.capacitance !== undefined || r.energy !== undefined || r.backup !== undefined)
   .map(({ minFraction, ...r }) => {
     const out: Requirement = { maxVoltage: r.maxVoltage, minVoltage: r.maxVoltage * minFraction };
-    for (const key of ['capacitance', 'energy', 'backup', 'peakCurrent', 'maxMass', 'maxVolume', 'technology'] as const) {
+    for (const key of ["capacitance", "energy", "backup", "peakCurrent", "maxMass", "maxVolume", "technology"] as const) {
       if (r[key] !== undefined) (out as unknown as Record<string, unknown>)[key] = r[key];
     }
     return out;
   });
 
-
 const arbBoards: fc.Arbitrary<BalancingBoard[]> = fc.array(
   fc.record({
-    id: fc.constant('board'),
-    sku: fc.constantFrom('BAL-A', 'BAL-B'),
+    id: fc.constant("board"),
+    sku: fc.constantFrom("BAL-A", "BAL-B"),
     channels: fc.integer({ min: 1, max: 16 }),
     maxCellVoltage: fc.double({ min: 2, max: 500, noNaN: true }),
     unitCost: fc.double({ min: 1, max: 50, noNaN: true }),
@@ -300,8 +299,8 @@ function meets(o: ArrangementOption, np: number, req: Requirement, f: DesignFact
   return true;
 }
 
-describe('searchArrangements properties (fast-check)', () => {
-  it('every option meets every stated requirement, with the smallest N_p, within the limits', () => {
+describe("searchArrangements properties (fast-check)", () => {
+  it("every option meets every stated requirement, with the smallest N_p, within the limits", () => {
     fc.assert(
       fc.property(fc.array(arbCell, { minLength: 1, maxLength: 5 }), arbRequirement, arbFactors, arbBoards, (cells, req, factors, boards) => {
         const { options, reasons } = searchArrangements({ requirement: req, cells, factors, balancingBoards: boards });

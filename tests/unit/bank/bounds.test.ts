@@ -3,8 +3,8 @@
  * or reasons) or refuses with a RangeError, and every option it returns stays within the caps.
  * Non-termination would show as this file never finishing; no assertion here is timed.
  */
-import fc from 'fast-check';
-import { describe, expect, it } from 'vitest';
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
 import {
   DEFAULT_DESIGN_FACTORS,
   MAX_CELLS_PER_BANK,
@@ -14,14 +14,14 @@ import {
   type BalancingBoard,
   type EngineCell,
   type Requirement,
-} from '@/lib/bank';
-import { arrangementRequestSchema } from '@/lib/validation/bank';
-import { generateCatalog } from './catalog-fixture';
+} from "@/lib/bank";
+import { arrangementRequestSchema } from "@/lib/validation/bank";
+import { generateCatalog } from "./catalog-fixture";
 
 const cells: EngineCell[] = generateCatalog(60, 11);
 const boards: BalancingBoard[] = [
-  { id: 'b1', sku: 'TB-BAL-27-06', channels: 6, maxCellVoltage: 2.7, unitCost: 30, leadTimeDays: 3 },
-  { id: 'b2', sku: 'TB-BAL-38-12', channels: 12, maxCellVoltage: 3.8, unitCost: 70, leadTimeDays: 5 },
+  { id: "b1", sku: "TB-BAL-27-06", channels: 6, maxCellVoltage: 2.7, unitCost: 30, leadTimeDays: 3 },
+  { id: "b2", sku: "TB-BAL-38-12", channels: 12, maxCellVoltage: 3.8, unitCost: 70, leadTimeDays: 5 },
 ];
 
 /** Every finite double, with the awkward ones drawn often: ±0, subnormals, 1e308, the largest double. */
@@ -42,13 +42,13 @@ const anyRequirement: fc.Arbitrary<Requirement> = fc
       maxMass: anyDouble,
       maxVolume: anyDouble,
       quantity: anyDouble,
-      technology: fc.constantFrom('edlc' as const, 'hybrid' as const, 'electrolytic' as const, 'film' as const),
+      technology: fc.constantFrom("edlc" as const, "hybrid" as const, "electrolytic" as const, "film" as const),
     },
-    { requiredKeys: ['maxVoltage'] },
+    { requiredKeys: ["maxVoltage"] },
   )
   .map((r) => r as Requirement);
 
-function searchOrRefuse(requirement: Requirement): 'returned' | 'refused' {
+function searchOrRefuse(requirement: Requirement): "returned" | "refused" {
   try {
     const { options, reasons } = searchArrangements({ requirement, cells, factors: DEFAULT_DESIGN_FACTORS, balancingBoards: boards });
     expect(options.length > 0 || reasons.length > 0).toBe(true);
@@ -58,21 +58,26 @@ function searchOrRefuse(requirement: Requirement): 'returned' | 'refused' {
       expect(o.cellCount).toBe(o.seriesCount * o.parallelCount);
       expect(o.cellCount).toBeLessThanOrEqual(MAX_CELLS_PER_BANK);
     }
-    return 'returned';
+    return "returned";
   } catch (error) {
     expect(error).toBeInstanceOf(RangeError);
-    return 'refused';
+    return "refused";
   }
 }
 
-describe('the search is bounded for every input', () => {
-  it('3e16 V (where ceil(V/V_r) passes 2^53 and a counting loop stops counting) answers with reasons', () => {
-    const { options, reasons } = searchArrangements({ requirement: { maxVoltage: 3e16, energy: 1 }, cells, factors: DEFAULT_DESIGN_FACTORS, balancingBoards: boards });
+describe("the search is bounded for every input", () => {
+  it("3e16 V (where ceil(V/V_r) passes 2^53 and a counting loop stops counting) answers with reasons", () => {
+    const { options, reasons } = searchArrangements({
+      requirement: { maxVoltage: 3e16, energy: 1 },
+      cells,
+      factors: DEFAULT_DESIGN_FACTORS,
+      balancingBoards: boards,
+    });
     expect(options).toEqual([]);
-    expect(reasons.join('\n')).toMatch(/at most 5,000 cells in series/);
+    expect(reasons.join("\n")).toMatch(/at most 5,000 cells in series/);
   });
 
-  it('over the whole finite double range (1e308, subnormals, −0, negatives) it returns or refuses with a RangeError', () => {
+  it("over the whole finite double range (1e308, subnormals, −0, negatives) it returns or refuses with a RangeError", () => {
     fc.assert(
       fc.property(anyRequirement, (requirement) => {
         searchOrRefuse(requirement);
@@ -81,7 +86,7 @@ describe('the search is bounded for every input', () => {
     );
   }, 120_000);
 
-  it('never refuses a requirement the public schema accepts', () => {
+  it("never refuses a requirement the public schema accepts", () => {
     // values spread over the schema's own range, so most draws pass it
     const inRange = (max: number) => fc.oneof(fc.double({ min: Number.MIN_VALUE, max, noNaN: true }), fc.constantFrom(Number.MIN_VALUE, 1e-300, max));
     const accepted = fc
@@ -97,14 +102,14 @@ describe('the search is bounded for every input', () => {
           maxVolume: inRange(1e3),
           quantity: fc.integer({ min: 1, max: 100_000 }),
         },
-        { requiredKeys: ['maxVoltage'] },
+        { requiredKeys: ["maxVoltage"] },
       )
       .map((r) => arrangementRequestSchema.safeParse(r))
       .filter((p) => p.success)
       .map((p) => p.data as Requirement);
     fc.assert(
       fc.property(accepted, (requirement) => {
-        expect(searchOrRefuse(requirement)).toBe('returned');
+        expect(searchOrRefuse(requirement)).toBe("returned");
       }),
       { numRuns: 1000 },
     );

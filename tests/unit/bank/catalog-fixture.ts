@@ -2,7 +2,7 @@
  * Invented catalog data for tests and benchmarks: invented maker prefixes, invented part numbers.
  * Figures are plausible for each technology (common practice ranges), not copied from any datasheet.
  */
-import type { EngineCell, Technology } from '@/lib/bank';
+import type { EngineCell, Technology } from "@/lib/bank";
 
 /** Small deterministic PRNG (mulberry32) so generated catalogs are the same on every run. */
 export function seededRandom(seed: number): () => number {
@@ -16,35 +16,35 @@ export function seededRandom(seed: number): () => number {
   };
 }
 
-const PREFIX: Record<Technology, string> = { edlc: 'QZ', hybrid: 'HV', electrolytic: 'EL', film: 'FM' };
+const PREFIX: Record<Technology, string> = { edlc: "QZ", hybrid: "HV", electrolytic: "EL", film: "FM" };
 
 export function generateCatalog(count: number, seed = 1): EngineCell[] {
   const rnd = seededRandom(seed);
-  const pick = <T,>(xs: readonly T[]): T => xs[Math.floor(rnd() * xs.length)] as T;
+  const pick = <T>(xs: readonly T[]): T => xs[Math.floor(rnd() * xs.length)] as T;
   const cells: EngineCell[] = [];
   for (let i = 0; i < count; i++) {
-    const technology = pick(['edlc', 'edlc', 'hybrid', 'electrolytic', 'film'] as const);
+    const technology = pick(["edlc", "edlc", "hybrid", "electrolytic", "film"] as const);
     let capacitance: number;
     let ratedVoltage: number;
     let esr: number;
     let leakage: number;
     let energyDensity: number; // J/kg, sets the mass
     switch (technology) {
-      case 'edlc':
+      case "edlc":
         capacitance = pick([10, 25, 50, 100, 150, 350, 650, 1200, 3000]);
         ratedVoltage = pick([2.5, 2.7, 3.0]);
         esr = 0.6 / capacitance ** 0.9;
         leakage = capacitance * 3e-6;
         energyDensity = 15_000;
         break;
-      case 'hybrid':
+      case "hybrid":
         capacitance = pick([40, 100, 250, 500]);
         ratedVoltage = 3.8;
         esr = 0.4 / capacitance ** 0.9;
         leakage = capacitance * 1e-6;
         energyDensity = 30_000;
         break;
-      case 'electrolytic':
+      case "electrolytic":
         capacitance = pick([470e-6, 1000e-6, 2200e-6, 4700e-6, 10_000e-6]);
         ratedVoltage = pick([63, 100, 250, 400, 450]);
         esr = 0.02 + 0.05 * rnd();
@@ -62,17 +62,17 @@ export function generateCatalog(count: number, seed = 1): EngineCell[] {
     const mass = Math.max(0.002, energy / energyDensity) * (0.8 + 0.4 * rnd());
     cells.push({
       id: `cell-${i}`,
-      sku: `${PREFIX[technology]}-${String(i).padStart(5, '0')}`,
+      sku: `${PREFIX[technology]}-${String(i).padStart(5, "0")}`,
       technology,
       capacitance,
       toleranceMinus: pick([0, 0.1, 0.2]),
       tolerancePlus: pick([0.1, 0.2]),
       ratedVoltage,
-      surgeVoltage: ratedVoltage * (technology === 'film' ? 1.5 : 1.1),
+      surgeVoltage: ratedVoltage * (technology === "film" ? 1.5 : 1.1),
       esr,
       leakageCurrent: leakage,
-      continuousCurrent: technology === 'edlc' || technology === 'hybrid' ? capacitance * 0.2 + 5 : 5,
-      peakCurrent: technology === 'edlc' || technology === 'hybrid' ? capacitance * 1.5 + 20 : 50,
+      continuousCurrent: technology === "edlc" || technology === "hybrid" ? capacitance * 0.2 + 5 : 5,
+      peakCurrent: technology === "edlc" || technology === "hybrid" ? capacitance * 1.5 + 20 : 50,
       mass,
       volume: mass / 1500,
       unitCost: 0.5 + mass * (20 + 30 * rnd()),

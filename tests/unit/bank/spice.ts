@@ -2,11 +2,11 @@
  * Test helper: write a network tree as an ngspice netlist and run it.
  * The bank is charged from a DC source through a resistor; every capacitor starts at 0 V.
  */
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import type { NetworkNode } from '@/lib/bank';
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import type { NetworkNode } from "@/lib/bank";
 
 export interface SpiceNetlist {
   text: string;
@@ -29,30 +29,30 @@ export function networkToNetlist(
     chargeResistance: number;
     equivalentCapacitance: number;
     /** failed cells: a short becomes a 1 mΩ resistor, an open is left out */
-    faults?: ReadonlyMap<string, 'short' | 'open'>;
+    faults?: ReadonlyMap<string, "short" | "open">;
   },
 ): SpiceNetlist {
-  const lines: string[] = ['* network charged through a resistor', `V1 src 0 DC ${opts.sourceVoltage}`, `R1 src top ${opts.chargeResistance}`];
+  const lines: string[] = ["* network charged through a resistor", `V1 src 0 DC ${opts.sourceVoltage}`, `R1 src top ${opts.chargeResistance}`];
   const cellNodes = new Map<string, { top: string; bottom: string }>();
-  const nodes = new Set<string>(['top']);
+  const nodes = new Set<string>(["top"]);
   let nodeCounter = 0;
   let capCounter = 0;
-  const work: { node: NetworkNode; top: string; bottom: string }[] = [{ node: tree, top: 'top', bottom: '0' }];
+  const work: { node: NetworkNode; top: string; bottom: string }[] = [{ node: tree, top: "top", bottom: "0" }];
   while (work.length > 0) {
     const { node, top, bottom } = work.pop()!;
-    if (node.kind === 'cell') {
+    if (node.kind === "cell") {
       capCounter++;
       const fault = opts.faults?.get(node.id);
-      if (fault === 'short') lines.push(`Rshort${capCounter} ${top} ${bottom} 1e-3`);
-      else if (fault !== 'open') lines.push(`C${capCounter} ${top} ${bottom} ${node.capacitance} IC=0`);
+      if (fault === "short") lines.push(`Rshort${capCounter} ${top} ${bottom} 1e-3`);
+      else if (fault !== "open") lines.push(`C${capCounter} ${top} ${bottom} ${node.capacitance} IC=0`);
       cellNodes.set(node.id, { top, bottom });
-    } else if (node.kind === 'parallel') {
+    } else if (node.kind === "parallel") {
       for (const child of node.children) work.push({ node: child, top, bottom });
     } else {
       let upper = top;
       node.children.forEach((child, i) => {
         const lower = i === node.children.length - 1 ? bottom : `n${++nodeCounter}`;
-        if (lower !== '0') nodes.add(lower);
+        if (lower !== "0") nodes.add(lower);
         work.push({ node: child, top: upper, bottom: lower });
         upper = lower;
       });
@@ -66,17 +66,17 @@ export function networkToNetlist(
   lines.push(`.tran ${(tau / 100).toPrecision(12)} ${stopTime.toPrecision(12)} 0 ${(tau / 200).toPrecision(12)} uic`);
   lines.push(`.meas tran qsrc INTEG i(V1) FROM=0 TO=${readAt}`);
   for (const n of nodes) lines.push(`.meas tran v_${n} FIND v(${n}) AT=${readAt}`);
-  lines.push('.end');
-  return { text: lines.join('\n') + '\n', cellNodes, nodes: [...nodes], stopTime };
+  lines.push(".end");
+  return { text: lines.join("\n") + "\n", cellNodes, nodes: [...nodes], stopTime };
 }
 
 /** Run ngspice in batch mode and return its `.meas` results by lower-case name. */
 export function runNgspice(netlist: string): Map<string, number> {
-  const dir = mkdtempSync(join(tmpdir(), 'faradsmith-spice-'));
+  const dir = mkdtempSync(join(tmpdir(), "faradsmith-spice-"));
   try {
-    const file = join(dir, 'bank.cir');
+    const file = join(dir, "bank.cir");
     writeFileSync(file, netlist);
-    const run = spawnSync('ngspice', ['-b', file], { encoding: 'utf8', timeout: 60_000 });
+    const run = spawnSync("ngspice", ["-b", file], { encoding: "utf8", timeout: 60_000 });
     if (run.error) {
       throw new Error(`ngspice could not be run (${run.error.message}); install the Debian package "ngspice"`);
     }
@@ -94,7 +94,7 @@ export function runNgspice(netlist: string): Map<string, number> {
 /** A cell's voltage, v(top) − v(bottom), from a run's `.meas` results (node "0" is ground). */
 export function cellVoltageFrom(spice: Map<string, number>, nodes: { top: string; bottom: string }): number {
   const at = (node: string): number => {
-    if (node === '0') return 0;
+    if (node === "0") return 0;
     const v = spice.get(`v_${node}`);
     if (v === undefined) throw new Error(`ngspice did not report v(${node})`);
     return v;

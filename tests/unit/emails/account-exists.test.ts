@@ -9,7 +9,11 @@ const join: AccountExistsEmailProps = {
   attempt: { kind: "join", shopName: "Kestrel Bank Works" },
   signInUrl: "http://127.0.0.1:3000/sign-in?shop=kestrel-bank-works&next=%2Fs%2Fkestrel-bank-works%2Fjoin",
 };
-const openShop: AccountExistsEmailProps = { ...join, attempt: { kind: "open-shop", shopName: "North Coast Banks" }, signInUrl: "http://127.0.0.1:3000/sign-in?next=%2Fmy-shops" };
+const openShop: AccountExistsEmailProps = {
+  ...join,
+  attempt: { kind: "open-shop", shopName: "North Coast Banks" },
+  signInUrl: "http://127.0.0.1:3000/sign-in?next=%2Fmy-shops",
+};
 
 const plain = async (p: AccountExistsEmailProps) => (await render(createElement(AccountExistsEmail, p), { plainText: true })).replace(/\s+/g, " ");
 

@@ -1,7 +1,13 @@
 import { describe, expect, it } from "vitest";
 import { contentSecurityPolicy, createNonce, urlHasNulByte } from "@/lib/http/security-headers";
 
-const directives = (policy: string) => new Map(policy.split(";").map((d) => d.trim().split(/\s+/)).map(([name, ...values]) => [name, values]));
+const directives = (policy: string) =>
+  new Map(
+    policy
+      .split(";")
+      .map((d) => d.trim().split(/\s+/))
+      .map(([name, ...values]) => [name, values]),
+  );
 
 // Directive names and keywords from CSP Level 3 (W3C), §6.
 describe("the page Content-Security-Policy", () => {

@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { jsonNesting, MAX_ACTION_NESTING, serverActionBodyProblem } from "@/lib/http/server-action-body";
 
-const post = (body: BodyInit, type = "text/plain;charset=UTF-8") => new Request("http://127.0.0.1:3000/s/x/join", { method: "POST", headers: { "content-type": type, "next-action": "a".repeat(42) }, body });
+const post = (body: BodyInit, type = "text/plain;charset=UTF-8") =>
+  new Request("http://127.0.0.1:3000/s/x/join", { method: "POST", headers: { "content-type": type, "next-action": "a".repeat(42) }, body });
 const form = (fields: Record<string, string>) => {
   const f = new FormData();
   for (const [k, v] of Object.entries(fields)) f.set(k, v);

@@ -12,7 +12,9 @@ describe("the list-query parser", () => {
   });
 
   it("reads a route's URLSearchParams the same way", () => {
-    expect(quoteList.parse(new URLSearchParams("q=Q-2026&status=accepted&sort=total&dir=asc&page=3&size=50")).query).toEqual(quoteList.parse({ q: "Q-2026", status: "accepted", sort: "total", dir: "asc", page: "3", size: "50" }).query);
+    expect(quoteList.parse(new URLSearchParams("q=Q-2026&status=accepted&sort=total&dir=asc&page=3&size=50")).query).toEqual(
+      quoteList.parse({ q: "Q-2026", status: "accepted", sort: "total", dir: "asc", page: "3", size: "50" }).query,
+    );
   });
 
   it("sorts a column its useful way when the URL names no direction", () => {

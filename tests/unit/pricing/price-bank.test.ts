@@ -1,5 +1,5 @@
-import fc from 'fast-check';
-import { describe, expect, it } from 'vitest';
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
 import {
   DEFAULT_PRICING_RULES,
   PricingError,
@@ -11,7 +11,7 @@ import {
   type BankBill,
   type BankPrice,
   type PricingRules,
-} from '@/lib/pricing';
+} from "@/lib/pricing";
 
 // All parts, part numbers and shops below are invented.
 const rules = (over: Partial<PricingRules> = {}): PricingRules => ({
@@ -20,7 +20,7 @@ const rules = (over: Partial<PricingRules> = {}): PricingRules => ({
 });
 
 const sixCellBill: BankBill = {
-  cell: { sku: 'QX-350F-2V7', description: 'EDLC cell 350 F 2.7 V', unitCost: '6.40' },
+  cell: { sku: "QX-350F-2V7", description: "EDLC cell 350 F 2.7 V", unitCost: "6.40" },
   cellCount: 6,
   balancingResistors: { count: 6, resistance: 1000, powerRating: 0.25 },
   bleeder: { resistance: 330, power: 2 },
@@ -29,10 +29,9 @@ const sixCellBill: BankBill = {
   quantity: 10,
 };
 
-const lineAmounts = (p: BankPrice): Record<string, string> =>
-  Object.fromEntries(p.lines.map((l) => [l.code, l.amount]));
+const lineAmounts = (p: BankPrice): Record<string, string> => Object.fromEntries(p.lines.map((l) => [l.code, l.amount]));
 
-describe('priceBank — hand-worked example, EUR, default rules', () => {
+describe("priceBank — hand-worked example, EUR, default rules", () => {
   // Arithmetic by hand (EUR, 2 minor digits per ISO 4217; half-up rounding, common practice):
   // materials, per bank
   //   cells            6 × 6.40            =  38.40
@@ -58,85 +57,83 @@ describe('priceBank — hand-worked example, EUR, default rules', () => {
   //   total     4168.35 + 833.67            = 5002.02
   const p = priceBank(sixCellBill, rules());
 
-  it('prices every line', () => {
+  it("prices every line", () => {
     expect(lineAmounts(p)).toEqual({
-      cells: '38.40',
-      'balancing-resistors': '2.10',
-      bleeder: '1.80',
-      interconnects: '10.80',
-      enclosure: '38.00',
-      terminals: '24.00',
-      'labour-setup': '102.00',
-      'labour-assembly': '40.80',
-      'labour-test': '51.00',
-      overhead: '13.81',
+      cells: "38.40",
+      "balancing-resistors": "2.10",
+      bleeder: "1.80",
+      interconnects: "10.80",
+      enclosure: "38.00",
+      terminals: "24.00",
+      "labour-setup": "102.00",
+      "labour-assembly": "40.80",
+      "labour-test": "51.00",
+      overhead: "13.81",
     });
-    expect(p.lines.find((l) => l.code === 'enclosure')?.description).toBe('Enclosure S, 2 L');
-    expect(p.lines.find((l) => l.code === 'bleeder')).toMatchObject({
+    expect(p.lines.find((l) => l.code === "enclosure")?.description).toBe("Enclosure S, 2 L");
+    expect(p.lines.find((l) => l.code === "bleeder")).toMatchObject({
       quantity: 1,
-      unitPrice: '1.80',
-      description: 'Bleeder resistor 330 Ω, 2 W',
+      unitPrice: "1.80",
+      description: "Bleeder resistor 330 Ω, 2 W",
     });
-    expect(p.lines.find((l) => l.code === 'balancing-resistors')?.description).toBe(
-      'Balancing resistor 1 kΩ, 0.25 W',
-    );
-    expect(p.lines.find((l) => l.code === 'labour-assembly')).toMatchObject({
-      kind: 'labour',
+    expect(p.lines.find((l) => l.code === "balancing-resistors")?.description).toBe("Balancing resistor 1 kΩ, 0.25 W");
+    expect(p.lines.find((l) => l.code === "labour-assembly")).toMatchObject({
+      kind: "labour",
       quantity: 0.6,
-      unit: 'h',
-      unitPrice: '68.00',
+      unit: "h",
+      unitPrice: "68.00",
     });
   });
 
-  it('totals the quote', () => {
+  it("totals the quote", () => {
     expect(p).toMatchObject({
-      currency: 'EUR',
-      materials: '115.10',
-      overhead: '13.81',
-      labour: '193.80',
-      cost: '322.71',
-      marginPct: '28',
-      unitPrice: '448.21',
+      currency: "EUR",
+      materials: "115.10",
+      overhead: "13.81",
+      labour: "193.80",
+      cost: "322.71",
+      marginPct: "28",
+      unitPrice: "448.21",
       quantity: 10,
-      discountPct: '7',
-      discount: '313.75',
-      subtotal: '4168.35',
-      taxPct: '20',
-      tax: '833.67',
-      total: '5002.02',
+      discountPct: "7",
+      discount: "313.75",
+      subtotal: "4168.35",
+      taxPct: "20",
+      tax: "833.67",
+      total: "5002.02",
     });
   });
 });
 
-describe('priceBank — hand-worked example, JPY (0 minor digits, ISO 4217)', () => {
+describe("priceBank — hand-worked example, JPY (0 minor digits, ISO 4217)", () => {
   const jpyRules = rules({
-    currency: 'JPY',
-    labourRatePerHour: '6000',
+    currency: "JPY",
+    labourRatePerHour: "6000",
     setupMinutes: 60,
     minutesPerCell: 5,
     testMinutes: 30,
-    overheadPct: '10',
-    marginPct: '25',
-    taxRatePct: '10',
-    interconnectCostPerCell: '250',
-    balancingResistorCost: '50',
-    bleederCostPerWatt: '120',
-    balancingBoardCost: '2500',
-    terminalSetCost: '3000',
+    overheadPct: "10",
+    marginPct: "25",
+    taxRatePct: "10",
+    interconnectCostPerCell: "250",
+    balancingResistorCost: "50",
+    bleederCostPerWatt: "120",
+    balancingBoardCost: "2500",
+    terminalSetCost: "3000",
     enclosures: [
-      { name: 'Box B', maxVolumeM3: 0.05, cost: '20000' },
-      { name: 'Box A', maxVolumeM3: 0.01, cost: '9000' },
+      { name: "Box B", maxVolumeM3: 0.05, cost: "20000" },
+      { name: "Box A", maxVolumeM3: 0.01, cost: "9000" },
     ],
     enclosurePackingFactor: 1.5,
-    quantityBreaks: [{ minQuantity: 2, discountPct: '3' }],
+    quantityBreaks: [{ minQuantity: 2, discountPct: "3" }],
     quoteValidityDays: 14,
   });
   const bill: BankBill = {
-    cell: { sku: 'NV-60F-2V7', description: '', unitCost: '1234.5' },
+    cell: { sku: "NV-60F-2V7", description: "", unitCost: "1234.5" },
     cellCount: 12,
     balancingResistors: null,
     bleeder: { resistance: 47, power: 5 },
-    activeBoards: { sku: 'AB-6S', count: 2, unitCost: '' },
+    activeBoards: { sku: "AB-6S", count: 2, unitCost: "" },
     volumeM3: 0.0072,
     quantity: 3,
   };
@@ -155,63 +152,63 @@ describe('priceBank — hand-worked example, JPY (0 minor digits, ISO 4217)', ()
   // tax          10 % × 256322 = 25632.2      → 25632; total 281954
   const p = priceBank(bill, jpyRules);
 
-  it('prices lines and totals with no decimals', () => {
+  it("prices lines and totals with no decimals", () => {
     expect(lineAmounts(p)).toEqual({
-      cells: '14820',
-      bleeder: '600',
-      interconnects: '3000',
-      'balancing-boards': '5000',
-      enclosure: '20000',
-      terminals: '3000',
-      'labour-setup': '6000',
-      'labour-assembly': '6000',
-      'labour-test': '3000',
-      overhead: '4642',
+      cells: "14820",
+      bleeder: "600",
+      interconnects: "3000",
+      "balancing-boards": "5000",
+      enclosure: "20000",
+      terminals: "3000",
+      "labour-setup": "6000",
+      "labour-assembly": "6000",
+      "labour-test": "3000",
+      overhead: "4642",
     });
-    expect(p.lines.find((l) => l.code === 'cells')).toMatchObject({
-      unitPrice: '1235',
-      description: 'NV-60F-2V7',
+    expect(p.lines.find((l) => l.code === "cells")).toMatchObject({
+      unitPrice: "1235",
+      description: "NV-60F-2V7",
     });
-    expect(p.lines.find((l) => l.code === 'enclosure')?.description).toBe('Box B');
+    expect(p.lines.find((l) => l.code === "enclosure")?.description).toBe("Box B");
     expect(p).toMatchObject({
-      materials: '46420',
-      overhead: '4642',
-      labour: '15000',
-      cost: '66062',
-      unitPrice: '88083',
-      discountPct: '3',
-      discount: '7927',
-      subtotal: '256322',
-      tax: '25632',
-      total: '281954',
+      materials: "46420",
+      overhead: "4642",
+      labour: "15000",
+      cost: "66062",
+      unitPrice: "88083",
+      discountPct: "3",
+      discount: "7927",
+      subtotal: "256322",
+      tax: "25632",
+      total: "281954",
     });
   });
 });
 
-describe('priceBank — hand-worked example, KWD (3 minor digits, ISO 4217)', () => {
+describe("priceBank — hand-worked example, KWD (3 minor digits, ISO 4217)", () => {
   const kwdRules = rules({
-    currency: 'KWD',
-    labourRatePerHour: '12.500',
+    currency: "KWD",
+    labourRatePerHour: "12.500",
     setupMinutes: 20,
     minutesPerCell: 7,
     testMinutes: 13,
-    overheadPct: '8.5',
-    marginPct: '30',
-    taxRatePct: '5',
-    interconnectCostPerCell: '0.550',
-    balancingResistorCost: '0.105',
-    bleederCostPerWatt: '0.275',
-    terminalSetCost: '7.250',
+    overheadPct: "8.5",
+    marginPct: "30",
+    taxRatePct: "5",
+    interconnectCostPerCell: "0.550",
+    balancingResistorCost: "0.105",
+    bleederCostPerWatt: "0.275",
+    terminalSetCost: "7.250",
     enclosures: [
-      { name: 'Case 1', maxVolumeM3: 0.0056, cost: '11.000' },
-      { name: 'Case 2', maxVolumeM3: 0.02, cost: '19.000' },
+      { name: "Case 1", maxVolumeM3: 0.0056, cost: "11.000" },
+      { name: "Case 2", maxVolumeM3: 0.02, cost: "19.000" },
     ],
     enclosurePackingFactor: 1.6,
     quantityBreaks: [],
     quoteValidityDays: 10,
   });
   const bill: BankBill = {
-    cell: { sku: 'RK-100F-3V0', description: 'EDLC cell 100 F 3.0 V', unitCost: '3.1415' },
+    cell: { sku: "RK-100F-3V0", description: "EDLC cell 100 F 3.0 V", unitCost: "3.1415" },
     cellCount: 4,
     balancingResistors: { count: 4, resistance: 2200, powerRating: 0.5 },
     bleeder: { resistance: 1500, power: 0.5 },
@@ -235,212 +232,212 @@ describe('priceBank — hand-worked example, KWD (3 minor digits, ISO 4217)', ()
   // no breaks: discount 0.000; subtotal 70.197; tax 5 % = 3.50985 → 3.510; total 73.707
   const p = priceBank(bill, kwdRules);
 
-  it('prices lines and totals with three decimals', () => {
+  it("prices lines and totals with three decimals", () => {
     expect(lineAmounts(p)).toEqual({
-      cells: '12.568',
-      'balancing-resistors': '0.420',
-      bleeder: '0.138',
-      interconnects: '2.200',
-      enclosure: '11.000',
-      terminals: '7.250',
-      'labour-setup': '4.167',
-      'labour-assembly': '5.833',
-      'labour-test': '2.708',
-      overhead: '2.854',
+      cells: "12.568",
+      "balancing-resistors": "0.420",
+      bleeder: "0.138",
+      interconnects: "2.200",
+      enclosure: "11.000",
+      terminals: "7.250",
+      "labour-setup": "4.167",
+      "labour-assembly": "5.833",
+      "labour-test": "2.708",
+      overhead: "2.854",
     });
-    expect(p.lines.find((l) => l.code === 'enclosure')?.description).toBe('Case 1');
+    expect(p.lines.find((l) => l.code === "enclosure")?.description).toBe("Case 1");
     expect(p).toMatchObject({
-      materials: '33.576',
-      overhead: '2.854',
-      labour: '12.708',
-      cost: '49.138',
-      marginPct: '30',
-      unitPrice: '70.197',
-      discountPct: '0',
-      discount: '0.000',
-      subtotal: '70.197',
-      taxPct: '5',
-      tax: '3.510',
-      total: '73.707',
+      materials: "33.576",
+      overhead: "2.854",
+      labour: "12.708",
+      cost: "49.138",
+      marginPct: "30",
+      unitPrice: "70.197",
+      discountPct: "0",
+      discount: "0.000",
+      subtotal: "70.197",
+      taxPct: "5",
+      tax: "3.510",
+      total: "73.707",
     });
   });
 });
 
-describe('margin on price', () => {
+describe("margin on price", () => {
   // Margin on price: price = cost / (1 − m). 72 / (1 − 0.28) = 100.00.
   // A 28 % markup on cost would give 72 × 1.28 = 92.16 — the common mistake.
-  it('quickPrice: cost 72 at 28 % margin → 100.00, not 92.16', () => {
-    expect(quickPrice('72', '0', '28', 'EUR')).toBe('100.00');
-    expect(quickPrice('72', '0', '28', 'EUR')).not.toBe('92.16');
+  it("quickPrice: cost 72 at 28 % margin → 100.00, not 92.16", () => {
+    expect(quickPrice("72", "0", "28", "EUR")).toBe("100.00");
+    expect(quickPrice("72", "0", "28", "EUR")).not.toBe("92.16");
   });
 
-  it('quickPrice applies overhead then margin, rounded once', () => {
+  it("quickPrice applies overhead then margin, rounded once", () => {
     // 100 × 1.12 / 0.72 = 155.5555… → 155.56
-    expect(quickPrice('100', '12', '28', 'EUR')).toBe('155.56');
+    expect(quickPrice("100", "12", "28", "EUR")).toBe("155.56");
     // 100 × 1.12 / 0.72 = 155.5555… → 156 in JPY; 155.556 in KWD
-    expect(quickPrice('100', '12', '28', 'JPY')).toBe('156');
-    expect(quickPrice('100', '12', '28', 'KWD')).toBe('155.556');
+    expect(quickPrice("100", "12", "28", "JPY")).toBe("156");
+    expect(quickPrice("100", "12", "28", "KWD")).toBe("155.556");
   });
 
-  it('quickPrice refuses a margin of 100 % or more and bad input', () => {
-    expect(() => quickPrice('72', '0', '100', 'EUR')).toThrow(PricingError);
-    expect(() => quickPrice('72', '0', '150', 'EUR')).toThrow(PricingError);
-    expect(() => quickPrice('abc', '0', '28', 'EUR')).toThrow(PricingError);
-    expect(() => quickPrice('72', '0', '28', 'XYZ')).toThrow(/Unknown currency code/);
+  it("quickPrice refuses a margin of 100 % or more and bad input", () => {
+    expect(() => quickPrice("72", "0", "100", "EUR")).toThrow(PricingError);
+    expect(() => quickPrice("72", "0", "150", "EUR")).toThrow(PricingError);
+    expect(() => quickPrice("abc", "0", "28", "EUR")).toThrow(PricingError);
+    expect(() => quickPrice("72", "0", "28", "XYZ")).toThrow(/Unknown currency code/);
   });
 
-  it('priceBank: a bank costing 72.00 sells at 100.00 with a 28 % margin', () => {
+  it("priceBank: a bank costing 72.00 sells at 100.00 with a 28 % margin", () => {
     const bare = rules({
       setupMinutes: 0,
       minutesPerCell: 0,
       testMinutes: 0,
-      overheadPct: '0',
-      taxRatePct: '0',
-      interconnectCostPerCell: '0',
-      terminalSetCost: '0',
+      overheadPct: "0",
+      taxRatePct: "0",
+      interconnectCostPerCell: "0",
+      terminalSetCost: "0",
       enclosures: [],
     });
     const p = priceBank(
-      { ...sixCellBill, cell: { ...sixCellBill.cell, unitCost: '72' }, cellCount: 1,
-        balancingResistors: null, bleeder: null, quantity: 1 },
+      { ...sixCellBill, cell: { ...sixCellBill.cell, unitCost: "72" }, cellCount: 1, balancingResistors: null, bleeder: null, quantity: 1 },
       bare,
     );
     // cells 72.00; free interconnects and terminals still listed at 0.00; no labour lines
     expect(p.lines.map((l) => [l.code, l.amount])).toEqual([
-      ['cells', '72.00'],
-      ['interconnects', '0.00'],
-      ['terminals', '0.00'],
+      ["cells", "72.00"],
+      ["interconnects", "0.00"],
+      ["terminals", "0.00"],
     ]);
-    expect(p.cost).toBe('72.00');
-    expect(p.unitPrice).toBe('100.00');
-    expect(p.total).toBe('100.00');
+    expect(p.cost).toBe("72.00");
+    expect(p.unitPrice).toBe("100.00");
+    expect(p.total).toBe("100.00");
   });
 });
 
-describe('quantity breaks (default rules: 5 → 4 %, 10 → 7 %, 25 → 10 %)', () => {
+describe("quantity breaks (default rules: 5 → 4 %, 10 → 7 %, 25 → 10 %)", () => {
   it.each([
-    [1, '0'], [4, '0'], [5, '4'], [6, '4'], [9, '4'], [10, '7'], [11, '7'],
-    [24, '7'], [25, '10'], [26, '10'], [1000, '10'],
-  ] as const)('quantity %i → %s %%', (quantity, pct) => {
+    [1, "0"],
+    [4, "0"],
+    [5, "4"],
+    [6, "4"],
+    [9, "4"],
+    [10, "7"],
+    [11, "7"],
+    [24, "7"],
+    [25, "10"],
+    [26, "10"],
+    [1000, "10"],
+  ] as const)("quantity %i → %s %%", (quantity, pct) => {
     expect(selectDiscountPct(quantity, DEFAULT_PRICING_RULES.quantityBreaks)).toBe(pct);
     expect(priceBank({ ...sixCellBill, quantity }, rules()).discountPct).toBe(pct);
   });
 
-  it('takes the largest break reached whatever the list order', () => {
+  it("takes the largest break reached whatever the list order", () => {
     const breaks = [
-      { minQuantity: 25, discountPct: '10' },
-      { minQuantity: 5, discountPct: '4' },
-      { minQuantity: 10, discountPct: '7' },
+      { minQuantity: 25, discountPct: "10" },
+      { minQuantity: 5, discountPct: "4" },
+      { minQuantity: 10, discountPct: "7" },
     ];
-    expect(selectDiscountPct(12, breaks)).toBe('7');
+    expect(selectDiscountPct(12, breaks)).toBe("7");
   });
 
-  it('discounts the order: 4 banks at 448.21 pay no discount, 5 pay 4 %', () => {
+  it("discounts the order: 4 banks at 448.21 pay no discount, 5 pay 4 %", () => {
     // 4 × 448.21 = 1792.84, no discount; tax 20 % = 358.568 → 358.57; total 2151.41
     const four = priceBank({ ...sixCellBill, quantity: 4 }, rules());
-    expect([four.discount, four.subtotal, four.tax, four.total]).toEqual([
-      '0.00', '1792.84', '358.57', '2151.41',
-    ]);
+    expect([four.discount, four.subtotal, four.tax, four.total]).toEqual(["0.00", "1792.84", "358.57", "2151.41"]);
     // 5 × 448.21 = 2241.05; 4 % = 89.642 → 89.64; subtotal 2151.41; tax 430.282 → 430.28;
     // total 2581.69
     const five = priceBank({ ...sixCellBill, quantity: 5 }, rules());
-    expect([five.discount, five.subtotal, five.tax, five.total]).toEqual([
-      '89.64', '2151.41', '430.28', '2581.69',
-    ]);
+    expect([five.discount, five.subtotal, five.tax, five.total]).toEqual(["89.64", "2151.41", "430.28", "2581.69"]);
   });
 });
 
-describe('enclosure choice by volume (default rules, packing factor 1.6)', () => {
+describe("enclosure choice by volume (default rules, packing factor 1.6)", () => {
   // Required volume = cell volume × 1.6; enclosures hold 0.002, 0.008, 0.03, 0.12 m³.
   it.each([
-    [0.0001, 'Enclosure S, 2 L'], // 0.00016
-    [0.00125, 'Enclosure S, 2 L'], // 0.002 exactly: fits
-    [0.00126, 'Enclosure M, 8 L'], // 0.002016
-    [0.005, 'Enclosure M, 8 L'], // 0.008 exactly
-    [0.0175, 'Enclosure L, 30 L'], // 0.028
-    [0.075, 'Cabinet XL, 120 L'], // 0.12 exactly
-  ] as const)('%f m³ of cells → %s', (volumeM3, name) => {
+    [0.0001, "Enclosure S, 2 L"], // 0.00016
+    [0.00125, "Enclosure S, 2 L"], // 0.002 exactly: fits
+    [0.00126, "Enclosure M, 8 L"], // 0.002016
+    [0.005, "Enclosure M, 8 L"], // 0.008 exactly
+    [0.0175, "Enclosure L, 30 L"], // 0.028
+    [0.075, "Cabinet XL, 120 L"], // 0.12 exactly
+  ] as const)("%f m³ of cells → %s", (volumeM3, name) => {
     expect(selectEnclosure(volumeM3, DEFAULT_PRICING_RULES)?.name).toBe(name);
     const p = priceBank({ ...sixCellBill, volumeM3 }, rules());
-    expect(p.lines.find((l) => l.code === 'enclosure')?.description).toBe(name);
+    expect(p.lines.find((l) => l.code === "enclosure")?.description).toBe(name);
   });
 
-  it('takes the smallest that fits whatever the list order, the cheaper of equal ones', () => {
+  it("takes the smallest that fits whatever the list order, the cheaper of equal ones", () => {
     const enclosures = [
-      { name: 'Big', maxVolumeM3: 0.05, cost: '90.00' },
-      { name: 'Small dear', maxVolumeM3: 0.01, cost: '40.00' },
-      { name: 'Small cheap', maxVolumeM3: 0.01, cost: '35.00' },
-      { name: 'Tiny', maxVolumeM3: 0.001, cost: '20.00' },
+      { name: "Big", maxVolumeM3: 0.05, cost: "90.00" },
+      { name: "Small dear", maxVolumeM3: 0.01, cost: "40.00" },
+      { name: "Small cheap", maxVolumeM3: 0.01, cost: "35.00" },
+      { name: "Tiny", maxVolumeM3: 0.001, cost: "20.00" },
     ];
-    expect(selectEnclosure(0.005, { enclosures, enclosurePackingFactor: 1.6 })?.name).toBe(
-      'Small cheap',
-    );
+    expect(selectEnclosure(0.005, { enclosures, enclosurePackingFactor: 1.6 })?.name).toBe("Small cheap");
   });
 
-  it('does not auto-price a bank no enclosure holds: a typed no-enclosure-fits failure', () => {
+  it("does not auto-price a bank no enclosure holds: a typed no-enclosure-fits failure", () => {
     const bill = { ...sixCellBill, volumeM3: 0.0751 }; // needs 0.12016 m³ > 0.12
     expect(selectEnclosure(bill.volumeM3, DEFAULT_PRICING_RULES)).toBeNull();
     expect(() => priceBank(bill, rules())).toThrow(PricingError);
     const result = tryPriceBank(bill, rules());
     expect(result.ok).toBe(false);
     if (!result.ok) {
-      expect(result.code).toBe('no-enclosure-fits');
+      expect(result.code).toBe("no-enclosure-fits");
       expect(result.message).toMatch(/custom enclosure/);
-      expect(result.issues[0]?.path).toBe('volumeM3');
+      expect(result.issues[0]?.path).toBe("volumeM3");
     }
   });
 
-  it('quotes without an enclosure line when the shop lists no enclosures', () => {
+  it("quotes without an enclosure line when the shop lists no enclosures", () => {
     const p = priceBank({ ...sixCellBill, volumeM3: 5 }, rules({ enclosures: [] }));
-    expect(p.lines.some((l) => l.code === 'enclosure')).toBe(false);
+    expect(p.lines.some((l) => l.code === "enclosure")).toBe(false);
     // 115.10 − 38.00 = 77.10 of materials
-    expect(p.materials).toBe('77.10');
+    expect(p.materials).toBe("77.10");
   });
 });
 
-describe('active balancing boards', () => {
+describe("active balancing boards", () => {
   const withBoards = (unitCost: string): BankBill => ({
     ...sixCellBill,
-    activeBoards: { sku: 'AB-6S', count: 2, unitCost },
+    activeBoards: { sku: "AB-6S", count: 2, unitCost },
   });
 
-  it('uses the board unit cost, rounded half-up', () => {
+  it("uses the board unit cost, rounded half-up", () => {
     // 21.125 → 21.13; 2 × 21.13 = 42.26
-    const p = priceBank(withBoards('21.125'), rules());
-    expect(p.lines.find((l) => l.code === 'balancing-boards')).toMatchObject({
-      quantity: 2, unitPrice: '21.13', amount: '42.26',
+    const p = priceBank(withBoards("21.125"), rules());
+    expect(p.lines.find((l) => l.code === "balancing-boards")).toMatchObject({
+      quantity: 2,
+      unitPrice: "21.13",
+      amount: "42.26",
     });
   });
 
-  it('falls back to the rules board cost, or fails typed when there is none', () => {
-    const p = priceBank(withBoards(''), rules());
-    expect(p.lines.find((l) => l.code === 'balancing-boards')?.amount).toBe('37.00'); // 2 × 18.50
+  it("falls back to the rules board cost, or fails typed when there is none", () => {
+    const p = priceBank(withBoards(""), rules());
+    expect(p.lines.find((l) => l.code === "balancing-boards")?.amount).toBe("37.00"); // 2 × 18.50
     const noFallback = { ...rules() };
     delete noFallback.balancingBoardCost;
-    const result = tryPriceBank(withBoards(''), noFallback);
-    expect(result.ok === false && result.code).toBe('missing-board-cost');
+    const result = tryPriceBank(withBoards(""), noFallback);
+    expect(result.ok === false && result.code).toBe("missing-board-cost");
   });
 });
 
-describe('invalid input', () => {
-  it('refuses invalid rules and bills with typed failures listing the issues', () => {
-    const badRules = tryPriceBank(sixCellBill, rules({ marginPct: '100' }));
-    expect(badRules).toMatchObject({ ok: false, code: 'invalid-rules' });
-    expect(badRules.ok === false && badRules.issues.map((i) => i.path)).toEqual(['marginPct']);
+describe("invalid input", () => {
+  it("refuses invalid rules and bills with typed failures listing the issues", () => {
+    const badRules = tryPriceBank(sixCellBill, rules({ marginPct: "100" }));
+    expect(badRules).toMatchObject({ ok: false, code: "invalid-rules" });
+    expect(badRules.ok === false && badRules.issues.map((i) => i.path)).toEqual(["marginPct"]);
 
     const badBill = tryPriceBank({ ...sixCellBill, cellCount: 0, quantity: 2.5 }, rules());
-    expect(badBill).toMatchObject({ ok: false, code: 'invalid-bill' });
-    expect(badBill.ok === false && badBill.issues.map((i) => i.path)).toEqual([
-      'cellCount',
-      'quantity',
-    ]);
+    expect(badBill).toMatchObject({ ok: false, code: "invalid-bill" });
+    expect(badBill.ok === false && badBill.issues.map((i) => i.path)).toEqual(["cellCount", "quantity"]);
   });
 });
 
-describe('the quote always adds up (arithmetic identities over generated bills)', () => {
-  const money = (digits: number, max: number) =>
-    fc.integer({ min: 0, max }).map((n) => (n / 10 ** digits).toFixed(digits));
-  it('lines sum to the totals; unit price × count = amount; exact minor digits', () => {
+describe("the quote always adds up (arithmetic identities over generated bills)", () => {
+  const money = (digits: number, max: number) => fc.integer({ min: 0, max }).map((n) => (n / 10 ** digits).toFixed(digits));
+  it("lines sum to the totals; unit price × count = amount; exact minor digits", () => {
     fc.assert(
       fc.property(
         fc.record({
@@ -472,19 +469,18 @@ describe('the quote always adds up (arithmetic identities over generated bills)'
             expect(s).toMatch(/^\d+\.\d{2}$/);
             return Math.round(Number(s) * 100);
           };
-          const byKind = (k: string) =>
-            p.lines.filter((l) => l.kind === k).reduce((a, l) => a + cents(l.amount), 0);
-          for (const l of p.lines.filter((x) => x.kind === 'material')) {
+          const byKind = (k: string) => p.lines.filter((l) => l.kind === k).reduce((a, l) => a + cents(l.amount), 0);
+          for (const l of p.lines.filter((x) => x.kind === "material")) {
             expect(cents(l.unitPrice) * l.quantity).toBe(cents(l.amount));
           }
-          expect(byKind('material')).toBe(cents(p.materials));
-          expect(byKind('labour')).toBe(cents(p.labour));
-          expect(byKind('overhead')).toBe(cents(p.overhead));
+          expect(byKind("material")).toBe(cents(p.materials));
+          expect(byKind("labour")).toBe(cents(p.labour));
+          expect(byKind("overhead")).toBe(cents(p.overhead));
           expect(cents(p.materials) + cents(p.overhead) + cents(p.labour)).toBe(cents(p.cost));
           expect(cents(p.unitPrice) * p.quantity - cents(p.discount)).toBe(cents(p.subtotal));
           expect(cents(p.subtotal) + cents(p.tax)).toBe(cents(p.total));
           // margin on price: the rounded price is within half a cent of cost / (1 − m)
-          const exact = (cents(p.cost) / (1 - Number(g.marginPct) / 100));
+          const exact = cents(p.cost) / (1 - Number(g.marginPct) / 100);
           expect(Math.abs(cents(p.unitPrice) - exact)).toBeLessThanOrEqual(0.5 + 1e-6);
         },
       ),

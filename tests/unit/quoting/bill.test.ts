@@ -27,7 +27,19 @@ const BOX: CatalogCell = {
 describe("catalog row → engine cell", () => {
   it("turns percentages into fractions, the cost string into a number and the shape into a volume", () => {
     const c = toEngineCell(SAMPLE_CELL);
-    expect(c).toMatchObject({ id: SAMPLE_CELL.id, sku: "BWC-3000-27", technology: "edlc", capacitance: 3000, toleranceMinus: 0, tolerancePlus: 0.2, ratedVoltage: 2.7, surgeVoltage: 2.85, unitCost: 38.5, stock: 400, leadTimeDays: 10 });
+    expect(c).toMatchObject({
+      id: SAMPLE_CELL.id,
+      sku: "BWC-3000-27",
+      technology: "edlc",
+      capacitance: 3000,
+      toleranceMinus: 0,
+      tolerancePlus: 0.2,
+      ratedVoltage: 2.7,
+      surgeVoltage: 2.85,
+      unitCost: 38.5,
+      stock: 400,
+      leadTimeDays: 10,
+    });
     // a cylinder takes a square of its diameter: 60.7 mm × 60.7 mm × 138 mm
     expect(c.volume).toBeCloseTo(60.7 * 60.7 * 138e-9, 15);
     const b = toEngineCell(BOX);
@@ -53,7 +65,12 @@ describe("component row → balancing board", () => {
 
 describe("option → bill of materials", () => {
   const search = (maxVoltage: number, boards: CatalogComponent[]) =>
-    searchArrangements({ requirement: { maxVoltage, energy: 20_000 }, cells: [toEngineCell(SAMPLE_CELL)], factors: DEFAULT_DESIGN_FACTORS, balancingBoards: balancingBoardsOf(boards) }).options;
+    searchArrangements({
+      requirement: { maxVoltage, energy: 20_000 },
+      cells: [toEngineCell(SAMPLE_CELL)],
+      factors: DEFAULT_DESIGN_FACTORS,
+      balancingBoards: balancingBoardsOf(boards),
+    }).options;
 
   it("bills the cells, the balancing resistors and the board the engine fitted, at the board's own unit cost", () => {
     const withBoard = search(48, [SAMPLE_BOARD]).find((o) => o.balancing.activeBoard !== null)!;
@@ -61,7 +78,11 @@ describe("option → bill of materials", () => {
     expect(bill.cell).toEqual({ sku: "BWC-3000-27", description: "Brightwater Cells BW-K", unitCost: "38.5000" });
     expect(bill.cellCount).toBe(withBoard.cellCount);
     expect(bill.activeBoards).toEqual({ sku: "BWC-BAL6", count: withBoard.balancing.activeBoard!.count, unitCost: "21.4000" });
-    expect(bill.balancingResistors).toEqual({ count: withBoard.balancing.count, resistance: withBoard.balancing.resistance, powerRating: withBoard.balancing.powerRating });
+    expect(bill.balancingResistors).toEqual({
+      count: withBoard.balancing.count,
+      resistance: withBoard.balancing.resistance,
+      powerRating: withBoard.balancing.powerRating,
+    });
     expect(bill.volumeM3).toBe(withBoard.volume);
     expect(bill.quantity).toBe(3);
   });

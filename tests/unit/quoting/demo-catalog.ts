@@ -33,6 +33,14 @@ export function demoCatalog(slug: keyof typeof SEEDS): ShopCatalog {
       })),
     components: seed.components
       .filter((c) => c.isActive !== false)
-      .map((c) => ({ id: c.id ?? c.sku, kind: c.kind, sku: c.sku, name: c.name, unitCost: c.unitCost, specs: c.specs ?? {}, leadTimeDays: c.leadTimeDays ?? 0 })),
+      .map((c) => ({
+        id: c.id ?? c.sku,
+        kind: c.kind,
+        sku: c.sku,
+        name: c.name,
+        unitCost: c.unitCost,
+        specs: c.specs ?? {},
+        leadTimeDays: c.leadTimeDays ?? 0,
+      })),
   };
 }

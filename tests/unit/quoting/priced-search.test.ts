@@ -43,10 +43,11 @@ const arbRules: fc.Arbitrary<PricingRules> = fc.constantFrom(...CURRENCIES).chai
     bleederCostPerWatt: money(digits, 3 * scale),
     balancingBoardCost: money(digits, 80 * scale),
     terminalSetCost: money(digits, 60 * scale),
-    enclosures: fc.array(
-      fc.record({ name: fc.constant(""), maxVolumeM3: fc.double({ min: 0.001, max: 2, noNaN: true }), cost: money(digits, 500 * scale) }),
-      { maxLength: 3 },
-    ).map((es) => es.map((e, i) => ({ ...e, name: `Enclosure ${i + 1}` }))),
+    enclosures: fc
+      .array(fc.record({ name: fc.constant(""), maxVolumeM3: fc.double({ min: 0.001, max: 2, noNaN: true }), cost: money(digits, 500 * scale) }), {
+        maxLength: 3,
+      })
+      .map((es) => es.map((e, i) => ({ ...e, name: `Enclosure ${i + 1}` }))),
     enclosurePackingFactor: fc.double({ min: 1, max: 2, noNaN: true }),
     quantityBreaks: fc.constant([{ minQuantity: 5, discountPct: "4" }]),
     quoteValidityDays: fc.constant(30),
@@ -98,9 +99,16 @@ const arbBoards: fc.Arbitrary<CatalogComponent[]> = fc
     { maxLength: 3 },
   )
   .map((bs) =>
-    bs.map((b, i) => ({ id: `board-${i}`, kind: "balancing-board" as const, sku: `TQ-BAL-${i}`, name: "Board", unitCost: b.unitCost, specs: { channels: b.channels, maxCellVoltage: b.maxCellVoltage }, leadTimeDays: 5 })),
+    bs.map((b, i) => ({
+      id: `board-${i}`,
+      kind: "balancing-board" as const,
+      sku: `TQ-BAL-${i}`,
+      name: "Board",
+      unitCost: b.unitCost,
+      specs: { channels: b.channels, maxCellVoltage: b.maxCellVoltage },
+      leadTimeDays: 5,
+    })),
   );
-
 
 const arbRequirement: fc.Arbitrary<Requirement> = fc
   .record({
@@ -141,8 +149,14 @@ function everyOptionPriced(catalog: ShopCatalog, requirement: Requirement) {
   });
 }
 
-const identity = (o: { cell: { sku: string }; topology: string; seriesCount: number; parallelCount: number; price: { perBank: string } | null; pareto: boolean }) =>
-  [o.cell.sku, o.topology, o.seriesCount, o.parallelCount, o.price?.perBank ?? null, o.pareto] as const;
+const identity = (o: {
+  cell: { sku: string };
+  topology: string;
+  seriesCount: number;
+  parallelCount: number;
+  price: { perBank: string } | null;
+  pareto: boolean;
+}) => [o.cell.sku, o.topology, o.seriesCount, o.parallelCount, o.price?.perBank ?? null, o.pareto] as const;
 
 describe("searchPricedOptions: the pre-cut never changes the best dozen", () => {
   it("returns exactly the dozen, order and Pareto marks that pricing every feasible option gives", () => {
@@ -193,7 +207,14 @@ describe("searchPricedOptions over the demo catalog", () => {
       expect(o).not.toHaveProperty("cellId");
     });
     const chosen = found.options[3]!;
-    expect(indexOfChosen(found.options, { cellSku: chosen.cell.sku, topology: chosen.topology, seriesCount: chosen.seriesCount, parallelCount: chosen.parallelCount })).toBe(3);
+    expect(
+      indexOfChosen(found.options, {
+        cellSku: chosen.cell.sku,
+        topology: chosen.topology,
+        seriesCount: chosen.seriesCount,
+        parallelCount: chosen.parallelCount,
+      }),
+    ).toBe(3);
     expect(indexOfChosen(found.options, { cellSku: "NO-SUCH", topology: chosen.topology, seriesCount: 1, parallelCount: 1 })).toBe(-1);
   });
 

@@ -17,7 +17,13 @@ describe("quote numbers", () => {
     expect(isQuoteNumber(expected)).toBe(true);
   });
 
-  it.each([[2026, 0], [2026, -1], [2026, 1.5], [99, 1], [20260, 1]])("refuses year %s, sequence %s", (year, seq) => {
+  it.each([
+    [2026, 0],
+    [2026, -1],
+    [2026, 1.5],
+    [99, 1],
+    [20260, 1],
+  ])("refuses year %s, sequence %s", (year, seq) => {
     expect(() => formatQuoteNumber(year, seq)).toThrow(RangeError);
   });
 

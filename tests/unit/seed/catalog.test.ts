@@ -56,13 +56,50 @@ const RANGES: Record<
   }
 > = {
   // EDLC: 2.7 V or 3.0 V cells, surge about +0.15 V, tolerance −10/+20 % or −0/+20 %
-  edlc: { capacitanceF: [1, 3400], ratedVoltageV: [2.7, 3.0], surgeOverRated: [1.03, 1.07], esrOhm: [0.1e-3, 100e-3], tolerances: [[10, 20], [0, 20]], energyWhPerKg: [1, 10] },
+  edlc: {
+    capacitanceF: [1, 3400],
+    ratedVoltageV: [2.7, 3.0],
+    surgeOverRated: [1.03, 1.07],
+    esrOhm: [0.1e-3, 100e-3],
+    tolerances: [
+      [10, 20],
+      [0, 20],
+    ],
+    energyWhPerKg: [1, 10],
+  },
   // lithium-ion capacitor: 3.8 V rated, 4.0 V surge
-  hybrid: { capacitanceF: [200, 3300], ratedVoltageV: [3.8, 3.8], surgeOverRated: [4.0 / 3.8, 4.0 / 3.8], esrOhm: [0.7e-3, 10e-3], tolerances: [[10, 20], [0, 20]], energyWhPerKg: [5, 25] },
+  hybrid: {
+    capacitanceF: [200, 3300],
+    ratedVoltageV: [3.8, 3.8],
+    surgeOverRated: [4.0 / 3.8, 4.0 / 3.8],
+    esrOhm: [0.7e-3, 10e-3],
+    tolerances: [
+      [10, 20],
+      [0, 20],
+    ],
+    energyWhPerKg: [5, 25],
+  },
   // aluminium electrolytic: surge 1.1–1.15 × rated, ±20 %
-  electrolytic: { capacitanceF: [100e-6, 47e-3], ratedVoltageV: [25, 550], surgeOverRated: [1.1, 1.15], esrOhm: [10e-3, 10], tolerances: [[20, 20]], energyWhPerKg: [0.01, 1] },
+  electrolytic: {
+    capacitanceF: [100e-6, 47e-3],
+    ratedVoltageV: [25, 550],
+    surgeOverRated: [1.1, 1.15],
+    esrOhm: [10e-3, 10],
+    tolerances: [[20, 20]],
+    energyWhPerKg: [0.01, 1],
+  },
   // polypropylene film: surge 1.2–1.5 × rated, ±5 % or ±10 %
-  film: { capacitanceF: [1e-6, 2e-3], ratedVoltageV: [450, 3000], surgeOverRated: [1.2, 1.5], esrOhm: [0.1e-3, 10e-3], tolerances: [[5, 5], [10, 10]], energyWhPerKg: [0.005, 0.5] },
+  film: {
+    capacitanceF: [1e-6, 2e-3],
+    ratedVoltageV: [450, 3000],
+    surgeOverRated: [1.2, 1.5],
+    esrOhm: [0.1e-3, 10e-3],
+    tolerances: [
+      [5, 5],
+      [10, 10],
+    ],
+    energyWhPerKg: [0.005, 0.5],
+  },
 };
 
 describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
@@ -95,7 +132,9 @@ describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
     const positive = (x: number | null | undefined) => typeof x === "number" && Number.isFinite(x) && x > 0;
     expect(
       failing(cells, (c) =>
-        [c.capacitanceF, c.ratedVoltageV, c.surgeVoltageV, c.esrOhm, c.leakageCurrentA, c.continuousCurrentA, c.peakCurrentA, c.massKg, c.heightMm].every(positive),
+        [c.capacitanceF, c.ratedVoltageV, c.surgeVoltageV, c.esrOhm, c.leakageCurrentA, c.continuousCurrentA, c.peakCurrentA, c.massKg, c.heightMm].every(
+          positive,
+        ),
       ),
     ).toEqual([]);
     expect(failing(cells, (c) => c.toleranceMinusPct >= 0 && c.toleranceMinusPct < 100 && c.tolerancePlusPct >= 0)).toEqual([]);
@@ -135,10 +174,12 @@ describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
   it("keeps EDLC cells to 2.7 V or 3.0 V, 0.01–0.52 kg, cylinders d 8–60 mm and h 20–140 mm (common practice)", () => {
     const edlc = cells.filter((c) => c.technology === "edlc");
     expect(
-      failing(edlc, (c) =>
-        [2.7, 3.0].includes(c.ratedVoltageV) &&
-        within(c.massKg, 0.01, 0.52) &&
-        (c.shape !== "cylinder" || (within(c.diameterMm ?? 0, 8, 60) && within(c.heightMm, 20, 140))),
+      failing(
+        edlc,
+        (c) =>
+          [2.7, 3.0].includes(c.ratedVoltageV) &&
+          within(c.massKg, 0.01, 0.52) &&
+          (c.shape !== "cylinder" || (within(c.diameterMm ?? 0, 8, 60) && within(c.heightMm, 20, 140))),
       ),
     ).toEqual([]);
   });
@@ -172,7 +213,10 @@ describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
   it("has at least 8 components covering every kind, with the specs each kind needs", () => {
     expect(components.length).toBeGreaterThanOrEqual(8);
     for (const kind of ["balancing-board", "interconnect", "terminal", "enclosure"] as const) {
-      expect(components.some((c) => c.kind === kind), kind).toBe(true);
+      expect(
+        components.some((c) => c.kind === kind),
+        kind,
+      ).toBe(true);
     }
     const num = (x: unknown) => typeof x === "number" && Number.isFinite(x) && x > 0;
     const specsOk = (c: Component) => {

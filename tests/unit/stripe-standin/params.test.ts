@@ -50,7 +50,13 @@ describe("coerce: form strings to the schema's types", () => {
 
   it.each([
     ["an unknown parameter", "colour=teal", "parameter_unknown", "colour", "Received unknown parameter: colour"],
-    ["an unknown nested parameter", "payment_intent_data[colour]=teal", "parameter_unknown", "payment_intent_data[colour]", "Received unknown parameter: payment_intent_data[colour]"],
+    [
+      "an unknown nested parameter",
+      "payment_intent_data[colour]=teal",
+      "parameter_unknown",
+      "payment_intent_data[colour]",
+      "Received unknown parameter: payment_intent_data[colour]",
+    ],
     ["an integer with letters", "expires_at=tomorrow", "parameter_invalid_integer", "expires_at", "Invalid integer: tomorrow"],
     ["an integer too large to be exact", "expires_at=99999999999999999", "parameter_invalid_integer", "expires_at", "Invalid integer: 99999999999999999"],
     ["a boolean that is not true/false", "phone_number_collection[enabled]=1", undefined, "phone_number_collection[enabled]", "Invalid boolean: 1"],
@@ -58,8 +64,20 @@ describe("coerce: form strings to the schema's types", () => {
     ["a string in place of a hash", "metadata=quote", undefined, "metadata", "Invalid hash"],
     ["a string in place of a list", "line_items=many", undefined, "line_items", "Invalid array"],
     ["a list with a named key", "line_items[first][quantity]=1", undefined, "line_items", "Invalid array"],
-    ["a missing required nested parameter", "line_items[0][price_data][currency]=eur&line_items[0][price_data][product_data][description]=x", "parameter_missing", "line_items[0][price_data][product_data][name]", "Missing required param: line_items[0][price_data][product_data][name]."],
-    ["an empty string that cannot unset", "client_reference_id=", "parameter_invalid_empty", "client_reference_id", "You passed an empty string for 'client_reference_id'"],
+    [
+      "a missing required nested parameter",
+      "line_items[0][price_data][currency]=eur&line_items[0][price_data][product_data][description]=x",
+      "parameter_missing",
+      "line_items[0][price_data][product_data][name]",
+      "Missing required param: line_items[0][price_data][product_data][name].",
+    ],
+    [
+      "an empty string that cannot unset",
+      "client_reference_id=",
+      "parameter_invalid_empty",
+      "client_reference_id",
+      "You passed an empty string for 'client_reference_id'",
+    ],
   ])("refuses %s", (_, text, code, param, message) => {
     const r = refusal(() => coerce(decodeForm(text), schemaOf("post /v1/checkout/sessions"), []));
     expect(r.status).toBe(400);

@@ -1,6 +1,16 @@
 import { describe, expect, it } from "vitest";
 import type { Requirement } from "@/lib/bank";
-import { describeRequirement, OUTBOX_STATUS_LABELS, QUOTE_STATUS_LABELS, REQUEST_STATUS_LABELS, requirementFacts, ROLE_LABELS, TECHNOLOGY_LABELS, TECHNOLOGY_SHORT, TOPOLOGY_LABELS } from "@/lib/vocabulary";
+import {
+  describeRequirement,
+  OUTBOX_STATUS_LABELS,
+  QUOTE_STATUS_LABELS,
+  REQUEST_STATUS_LABELS,
+  requirementFacts,
+  ROLE_LABELS,
+  TECHNOLOGY_LABELS,
+  TECHNOLOGY_SHORT,
+  TOPOLOGY_LABELS,
+} from "@/lib/vocabulary";
 
 describe("one description of a requirement", () => {
   it.each<[string, Requirement, string]>([
@@ -9,7 +19,16 @@ describe("one description of a requirement", () => {
     ["a minimum of 0 V reads as no minimum", { maxVoltage: 48, minVoltage: 0, capacitance: 58, quantity: 1 }, "48 V, 58 F, 1 bank"],
     [
       "a backup with peak current, limits and a technology",
-      { maxVoltage: 400, minVoltage: 200, backup: { power: 5000, seconds: 30 }, peakCurrent: { current: 200, maxDrop: 4 }, maxMass: 25, maxVolume: 0.012, technology: "hybrid", quantity: 12_000 },
+      {
+        maxVoltage: 400,
+        minVoltage: 200,
+        backup: { power: 5000, seconds: 30 },
+        peakCurrent: { current: 200, maxDrop: 4 },
+        maxMass: 25,
+        maxVolume: 0.012,
+        technology: "hybrid",
+        quantity: 12_000,
+      },
       "400 V → 200 V, 5 kW for 30 s, 200 A peak with at most 4 V drop, at most 25 kg, at most 12 L, Hybrid lithium-ion capacitor only, 12,000 banks",
     ],
   ])("%s", (_name, requirement, line) => {

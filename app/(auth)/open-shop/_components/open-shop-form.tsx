@@ -41,7 +41,15 @@ export function OpenShopForm() {
         <legend className="text-sm font-semibold text-ink-700">You</legend>
         <TextField id="name" label="Your name" autoComplete="name" error={formState.errors.name?.message} {...register("name")} />
         <TextField id="email" label="E-mail" type="email" autoComplete="email" error={formState.errors.email?.message} {...register("email")} />
-        <TextField id="password" label="Password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_LENGTH} characters.`} error={formState.errors.password?.message} {...register("password")} />
+        <TextField
+          id="password"
+          label="Password"
+          type="password"
+          autoComplete="new-password"
+          hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
+          error={formState.errors.password?.message}
+          {...register("password")}
+        />
       </fieldset>
       <fieldset className="space-y-4">
         <legend className="text-sm font-semibold text-ink-700">Your shop</legend>

@@ -18,7 +18,11 @@ export function SignInForm({ next, shop }: { next?: string; shop?: string }) {
     setMessage(null);
     const { error } = await authClient.signIn.email({ email: values.email, password: values.password });
     if (error) {
-      setMessage(error.status === 401 || error.code === "INVALID_EMAIL_OR_PASSWORD" ? "That e-mail and password do not match an account." : (error.message ?? "Sign-in failed; try again."));
+      setMessage(
+        error.status === 401 || error.code === "INVALID_EMAIL_OR_PASSWORD"
+          ? "That e-mail and password do not match an account."
+          : (error.message ?? "Sign-in failed; try again."),
+      );
       return;
     }
     router.push(next ?? (shop ? `/my-shops?shop=${shop}` : "/my-shops"));
@@ -28,7 +32,14 @@ export function SignInForm({ next, shop }: { next?: string; shop?: string }) {
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <TextField id="email" label="E-mail" type="email" autoComplete="email" error={formState.errors.email?.message} {...register("email")} />
-      <TextField id="password" label="Password" type="password" autoComplete="current-password" error={formState.errors.password?.message} {...register("password")} />
+      <TextField
+        id="password"
+        label="Password"
+        type="password"
+        autoComplete="current-password"
+        error={formState.errors.password?.message}
+        {...register("password")}
+      />
       <FormMessage>{message}</FormMessage>
       <Button type="submit" disabled={formState.isSubmitting} className="w-full">
         {formState.isSubmitting ? "Signing in…" : "Sign in"}
@@ -36,11 +47,17 @@ export function SignInForm({ next, shop }: { next?: string; shop?: string }) {
       <p className="text-center text-sm text-ink-600">
         {shop ? (
           <>
-            New here? <Link className="font-medium text-copper-700 hover:underline" href={`/s/${shop}/join`}>Create a customer account</Link>
+            New here?{" "}
+            <Link className="font-medium text-copper-700 hover:underline" href={`/s/${shop}/join`}>
+              Create a customer account
+            </Link>
           </>
         ) : (
           <>
-            Running a shop? <Link className="font-medium text-copper-700 hover:underline" href="/open-shop">Open one</Link>
+            Running a shop?{" "}
+            <Link className="font-medium text-copper-700 hover:underline" href="/open-shop">
+              Open one
+            </Link>
           </>
         )}
       </p>

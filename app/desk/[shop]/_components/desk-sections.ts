@@ -3,7 +3,12 @@ import type { Permission } from "@/lib/auth/permissions";
 /** The desk's sections, each with the permission its page requires (the nav shows only those the role has). */
 export const DESK_SECTIONS: { path: string; label: string; permission: Permission; summary: string }[] = [
   { path: "", label: "Today", permission: "desk:enter", summary: "What needs attention in the shop today." },
-  { path: "requests", label: "Requests", permission: "request:read-all", summary: "Customers' bank requests, with those the engine could not auto-quote marked for review." },
+  {
+    path: "requests",
+    label: "Requests",
+    permission: "request:read-all",
+    summary: "Customers' bank requests, with those the engine could not auto-quote marked for review.",
+  },
   { path: "quotes", label: "Quotes", permission: "quote:read-all", summary: "Every quote and its numbered revisions." },
   { path: "catalog", label: "Catalog", permission: "catalog:read", summary: "Cells and parts the shop builds from." },
   { path: "pricing", label: "Pricing rules", permission: "pricing:read", summary: "Labour, overhead, margin, quantity breaks and tax." },

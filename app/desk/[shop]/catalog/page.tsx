@@ -12,7 +12,13 @@ import { TECHNOLOGY_LABELS, TECHNOLOGY_SHORT } from "@/lib/vocabulary";
 
 export const metadata: Metadata = { title: "Catalog" };
 
-export default async function CatalogPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string | string[]>> }) {
+export default async function CatalogPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ shop: string }>;
+  searchParams: Promise<Record<string, string | string[]>>;
+}) {
   const { shop } = await params;
   const ctx = await requireShopPage(shop, "catalog:read", `/desk/${shop}/catalog`);
   const { query: q } = catalogList.parse(await searchParams);
@@ -28,7 +34,12 @@ export default async function CatalogPage({ params, searchParams }: { params: Pr
         empty={{ none: "No cells in the catalog yet.", noMatch: "No cells match." }}
         filters={[
           { name: "q", label: "SKU, maker or family", value: q.q },
-          { name: "technology", label: "Technology", value: q.technology, options: [{ value: "all", label: "All" }, ...TECHNOLOGIES.map((t) => ({ value: t, label: TECHNOLOGY_LABELS[t] }))] },
+          {
+            name: "technology",
+            label: "Technology",
+            value: q.technology,
+            options: [{ value: "all", label: "All" }, ...TECHNOLOGIES.map((t) => ({ value: t, label: TECHNOLOGY_LABELS[t] }))],
+          },
         ]}
         columns={[
           { label: "SKU", sortKey: "sku" },

@@ -13,7 +13,13 @@ function when(d: Date | null): string {
   return d ? `${d.toISOString().slice(0, 16).replace("T", " ")} UTC` : "—";
 }
 
-export default async function OutboxPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string | string[]>> }) {
+export default async function OutboxPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ shop: string }>;
+  searchParams: Promise<Record<string, string | string[]>>;
+}) {
   const { shop } = await params;
   const ctx = await requireShopPage(shop, "outbox:read", `/desk/${shop}/outbox`);
   const { query: q } = outboxList.parse(await searchParams);
@@ -22,7 +28,8 @@ export default async function OutboxPage({ params, searchParams }: { params: Pro
   return (
     <div className="space-y-6">
       <PageHeader title="Outbox">
-        Every e-mail {ctx.shop.name} sends. A message that cannot be delivered waits and is tried again with growing pauses; after the last try it is marked failed with the reason.
+        Every e-mail {ctx.shop.name} sends. A message that cannot be delivered waits and is tried again with growing pauses; after the last try it is marked
+        failed with the reason.
       </PageHeader>
       <dl className="flex flex-wrap gap-3 text-sm" aria-label="Messages by state">
         {OUTBOX_STATUSES.map((s) => (
@@ -40,7 +47,12 @@ export default async function OutboxPage({ params, searchParams }: { params: Pro
         empty={{ none: "No e-mail yet: messages appear here when the shop issues a quote.", noMatch: "No messages match." }}
         filters={[
           { name: "q", label: "Recipient or subject", value: q.q },
-          { name: "status", label: "State", value: q.status, options: [{ value: "all", label: "All states" }, ...OUTBOX_STATUSES.map((s) => ({ value: s, label: OUTBOX_STATUS_LABELS[s] }))] },
+          {
+            name: "status",
+            label: "State",
+            value: q.status,
+            options: [{ value: "all", label: "All states" }, ...OUTBOX_STATUSES.map((s) => ({ value: s, label: OUTBOX_STATUS_LABELS[s] }))],
+          },
         ]}
         columns={[
           { label: "Created", sortKey: "created" },

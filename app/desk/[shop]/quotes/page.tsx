@@ -9,7 +9,13 @@ import { quoteList } from "@/lib/validation/lists";
 export const metadata: Metadata = { title: "Quotes" };
 
 /** Every quote of the shop: staff read quotes here, on the desk (the storefront's list is the customer's). */
-export default async function DeskQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string | string[]>> }) {
+export default async function DeskQuotesPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ shop: string }>;
+  searchParams: Promise<Record<string, string | string[]>>;
+}) {
   const { shop } = await params;
   const ctx = await requireShopPage(shop, "quote:read-all", `/desk/${shop}/quotes`);
   const { query: q } = quoteList.parse(await searchParams);

@@ -15,7 +15,13 @@ const BADGE: Record<RequestStatus, string> = {
   closed: "font-medium bg-ink-100 text-ink-700",
 };
 
-export default async function DeskRequestsPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string | string[]>> }) {
+export default async function DeskRequestsPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ shop: string }>;
+  searchParams: Promise<Record<string, string | string[]>>;
+}) {
   const { shop } = await params;
   const ctx = await requireShopPage(shop, "request:read-all", `/desk/${shop}/requests`);
   const { query: q } = requestList.parse(await searchParams);
@@ -23,14 +29,21 @@ export default async function DeskRequestsPage({ params, searchParams }: { param
   const state = requestList.state(`/desk/${shop}/requests`, q, page);
   return (
     <div className="space-y-6">
-      <PageHeader title="Requests">Customers&apos; bank requests. Those beyond the shop&apos;s auto-quote limits, or with no option that fits, wait here for an estimator.</PageHeader>
+      <PageHeader title="Requests">
+        Customers&apos; bank requests. Those beyond the shop&apos;s auto-quote limits, or with no option that fits, wait here for an estimator.
+      </PageHeader>
       <ListView
         state={state}
         caption="Requests"
         empty={{ none: "No requests yet: they appear here when a customer chooses an arrangement or asks for a review.", noMatch: "No requests match." }}
         filters={[
           { name: "q", label: "Customer", value: q.q },
-          { name: "status", label: "Status", value: q.status, options: [{ value: "all", label: "All" }, ...REQUEST_STATUSES.map((s) => ({ value: s, label: REQUEST_STATUS_LABELS[s] }))] },
+          {
+            name: "status",
+            label: "Status",
+            value: q.status,
+            options: [{ value: "all", label: "All" }, ...REQUEST_STATUSES.map((s) => ({ value: s, label: REQUEST_STATUS_LABELS[s] }))],
+          },
         ]}
         columns={[
           { label: "Received", sortKey: "created" },
@@ -41,7 +54,12 @@ export default async function DeskRequestsPage({ params, searchParams }: { param
         ]}
       >
         {page.rows.map((r) => (
-          <tr key={r.id} className={`border-t border-ink-100 align-top ${r.status === "needs-review" ? "bg-hazard-100/40" : ""}`} data-testid={`request-${r.id}`} data-status={r.status}>
+          <tr
+            key={r.id}
+            className={`border-t border-ink-100 align-top ${r.status === "needs-review" ? "bg-hazard-100/40" : ""}`}
+            data-testid={`request-${r.id}`}
+            data-status={r.status}
+          >
             <td className="num whitespace-nowrap px-3 py-2 text-ink-600">{r.createdAt.toISOString().slice(0, 16).replace("T", " ")}</td>
             <td className="px-3 py-2">
               {r.customerName}

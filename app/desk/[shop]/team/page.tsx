@@ -10,7 +10,13 @@ import { RoleSelect } from "./_components/role-select";
 
 export const metadata: Metadata = { title: "Team" };
 
-export default async function TeamPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string | string[]>> }) {
+export default async function TeamPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ shop: string }>;
+  searchParams: Promise<Record<string, string | string[]>>;
+}) {
   const { shop } = await params;
   const ctx = await requireShopPage(shop, "team:read", `/desk/${shop}/team`);
   const { query: q } = memberList.parse(await searchParams);
@@ -25,7 +31,12 @@ export default async function TeamPage({ params, searchParams }: { params: Promi
         empty={{ none: "No members yet.", noMatch: "No members match." }}
         filters={[
           { name: "q", label: "Name or e-mail", value: q.q },
-          { name: "role", label: "Role", value: q.role, options: [{ value: "all", label: "All roles" }, ...ROLES.map((r) => ({ value: r, label: ROLE_PLURALS[r] }))] },
+          {
+            name: "role",
+            label: "Role",
+            value: q.role,
+            options: [{ value: "all", label: "All roles" }, ...ROLES.map((r) => ({ value: r, label: ROLE_PLURALS[r] }))],
+          },
         ]}
         columns={[
           { label: "Name", sortKey: "name" },
@@ -38,7 +49,9 @@ export default async function TeamPage({ params, searchParams }: { params: Promi
           <tr key={m.id} className="border-t border-ink-100" data-testid={`member-${m.email}`}>
             <td className="px-3 py-2 font-medium">{m.name}</td>
             <td className="px-3 py-2">{m.email}</td>
-            <td className="px-3 py-2">{m.role === "manager" || m.userId === ctx.user.id ? ROLE_LABELS[m.role] : <RoleSelect shop={shop} memberId={m.id} name={m.name} role={m.role} />}</td>
+            <td className="px-3 py-2">
+              {m.role === "manager" || m.userId === ctx.user.id ? ROLE_LABELS[m.role] : <RoleSelect shop={shop} memberId={m.id} name={m.name} role={m.role} />}
+            </td>
             <td className="num whitespace-nowrap px-3 py-2 text-ink-600">{m.joinedAt.toISOString().slice(0, 10)}</td>
           </tr>
         ))}

@@ -128,7 +128,13 @@ export function ArrangementResults({
               onSelect={onFocus}
               points={options
                 .filter((o) => o.price !== null)
-                .map((o) => ({ id: optionId(o), label: `${o.cell.sku} ${arrangementLabel(o)}`, massKg: o.mass, price: o.price?.perBank ?? "0", pareto: o.pareto }))}
+                .map((o) => ({
+                  id: optionId(o),
+                  label: `${o.cell.sku} ${arrangementLabel(o)}`,
+                  massKg: o.mass,
+                  price: o.price?.perBank ?? "0",
+                  pareto: o.pareto,
+                }))}
             />
           </section>
         </>

@@ -6,7 +6,6 @@ import { MAX_ATTACHMENT_SIZE_TEXT, MAX_ATTACHMENTS_PER_REQUEST } from "@/lib/val
 import type { UploadedFile } from "./saved-request";
 import type { Viewer } from "./viewer";
 
-
 function size(bytes: number): string {
   if (bytes >= 1024 * 1024) return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
   if (bytes >= 1024) return `${Math.round(bytes / 1024)} kB`;
@@ -14,7 +13,17 @@ function size(bytes: number): string {
 }
 
 /** Drawings and specifications for signed-in customers, uploaded as they are picked. */
-export function AttachmentsField({ slug, viewer, files, onChange }: { slug: string; viewer: Viewer; files: UploadedFile[]; onChange: (next: UploadedFile[]) => void }) {
+export function AttachmentsField({
+  slug,
+  viewer,
+  files,
+  onChange,
+}: {
+  slug: string;
+  viewer: Viewer;
+  files: UploadedFile[];
+  onChange: (next: UploadedFile[]) => void;
+}) {
   const id = useId();
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -102,7 +111,12 @@ export function AttachmentsField({ slug, viewer, files, onChange }: { slug: stri
               <span className="truncate">{f.fileName}</span>
               <span className="flex shrink-0 items-center gap-3 text-xs text-ink-500">
                 {size(f.sizeBytes)}
-                <button type="button" className="text-danger-700 hover:underline" onClick={() => onChange(files.filter((x) => x.id !== f.id))} aria-label={`Remove ${f.fileName}`}>
+                <button
+                  type="button"
+                  className="text-danger-700 hover:underline"
+                  onClick={() => onChange(files.filter((x) => x.id !== f.id))}
+                  aria-label={`Remove ${f.fileName}`}
+                >
                   Remove
                 </button>
               </span>

@@ -103,7 +103,11 @@ export function ChoosePanel({
       )}
       {askSignIn ? (
         <div role="status" className="rounded-md bg-ink-50 px-4 py-3 text-sm text-ink-800 ring-1 ring-ink-100" data-testid="sign-in-prompt">
-          <p>{viewer.kind === "not-member" ? `You are signed in as ${viewer.email} but not yet a customer of this shop.` : "To choose, sign in or create a customer account. What you entered is kept and you come back to this arrangement."}</p>
+          <p>
+            {viewer.kind === "not-member"
+              ? `You are signed in as ${viewer.email} but not yet a customer of this shop.`
+              : "To choose, sign in or create a customer account. What you entered is kept and you come back to this arrangement."}
+          </p>
           <div className="mt-3 flex flex-wrap gap-2">
             {viewer.kind === "visitor" ? (
               <Link className={buttonClass("secondary")} href={`/sign-in?shop=${slug}&next=${encodeURIComponent(back)}`}>

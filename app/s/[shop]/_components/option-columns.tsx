@@ -48,12 +48,34 @@ export function optionColumns(currency: string) {
       ),
     }),
     col.accessor("cellCount", { header: "Cells", ...first(false), cell: (c) => <span className="num">{c.getValue()}</span> }),
-    col.accessor((o) => o.capacitance.design, { id: "capacitance", header: "C design", ...first(true), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "F")}</span> }),
-    col.accessor("usableEnergy", { header: "Usable energy", ...first(true), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "J")}</span> }),
-    col.accessor((o) => o.esr.endOfLife, { id: "esr", header: "ESR end of life", ...first(false), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "Ω")}</span> }),
+    col.accessor((o) => o.capacitance.design, {
+      id: "capacitance",
+      header: "C design",
+      ...first(true),
+      cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "F")}</span>,
+    }),
+    col.accessor("usableEnergy", {
+      header: "Usable energy",
+      ...first(true),
+      cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "J")}</span>,
+    }),
+    col.accessor((o) => o.esr.endOfLife, {
+      id: "esr",
+      header: "ESR end of life",
+      ...first(false),
+      cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "Ω")}</span>,
+    }),
     col.accessor("mass", { header: "Mass", ...first(false), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "kg")}</span> }),
-    col.accessor("volume", { header: "Volume", ...first(false), cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "m³")}</span> }),
-    col.accessor("leadTimeDays", { header: "Lead time", ...first(false), cell: (c) => <span className="num whitespace-nowrap">{c.getValue() === 0 ? "stock" : `${c.getValue()} d`}</span> }),
+    col.accessor("volume", {
+      header: "Volume",
+      ...first(false),
+      cell: (c) => <span className="num whitespace-nowrap">{formatQuantity(c.getValue(), "m³")}</span>,
+    }),
+    col.accessor("leadTimeDays", {
+      header: "Lead time",
+      ...first(false),
+      cell: (c) => <span className="num whitespace-nowrap">{c.getValue() === 0 ? "stock" : `${c.getValue()} d`}</span>,
+    }),
     col.accessor((o) => o.price?.perBank ?? null, {
       id: "price",
       header: "Price / bank",
@@ -65,7 +87,11 @@ export function optionColumns(currency: string) {
         return (
           <span className="num whitespace-nowrap font-medium">
             {formatMoney(p.perBank, currency)}
-            {p.quantity > 1 ? <span className="block text-xs font-normal text-ink-500">{formatMoney(p.amount, currency)} for {p.quantity}</span> : null}
+            {p.quantity > 1 ? (
+              <span className="block text-xs font-normal text-ink-500">
+                {formatMoney(p.amount, currency)} for {p.quantity}
+              </span>
+            ) : null}
           </span>
         );
       },

@@ -43,7 +43,17 @@ export function OptionCautions({ option }: { option: PricedOption }) {
   );
 }
 
-export function OptionFigures({ option, requirement, factors, currency }: { option: PricedOption; requirement: Requirement; factors: DesignFactors; currency: string }) {
+export function OptionFigures({
+  option,
+  requirement,
+  factors,
+  currency,
+}: {
+  option: PricedOption;
+  requirement: Requirement;
+  factors: DesignFactors;
+  currency: string;
+}) {
   const b = option.balancing;
   const bleeder = option.discharge.bleeder;
   return (
@@ -75,7 +85,8 @@ export function OptionFigures({ option, requirement, factors, currency }: { opti
       <dl>
         <p className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-500">Balancing and discharge</p>
         <Row label="Worst-case cell voltage">
-          <span className={option.worstCellVoltage > option.cell.ratedVoltage ? "text-danger-700" : undefined}>{q(option.worstCellVoltage, "V")}</span> of {q(option.cell.ratedVoltage, "V")} rated
+          <span className={option.worstCellVoltage > option.cell.ratedVoltage ? "text-danger-700" : undefined}>{q(option.worstCellVoltage, "V")}</span> of{" "}
+          {q(option.cell.ratedVoltage, "V")} rated
         </Row>
         {b.resistance !== null ? (
           <>

@@ -7,10 +7,28 @@ import { arrangementLabel } from "@/lib/vocabulary";
 import { optionColumns } from "./option-columns";
 
 /** The options as a sortable table; a row's radio (or a click on the row) puts it in focus. */
-export function OptionTable({ options, currency, focus, onFocus }: { options: PricedOption[]; currency: string; focus: string | null; onFocus: (id: string) => void }) {
+export function OptionTable({
+  options,
+  currency,
+  focus,
+  onFocus,
+}: {
+  options: PricedOption[];
+  currency: string;
+  focus: string | null;
+  onFocus: (id: string) => void;
+}) {
   const [sorting, setSorting] = useState<SortingState>([]);
   const columns = useMemo(() => optionColumns(currency), [currency]);
-  const table = useReactTable({ data: options, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel(), getRowId: optionId });
+  const table = useReactTable({
+    data: options,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getRowId: optionId,
+  });
   return (
     <div className="relative overflow-x-auto rounded-lg bg-white shadow-sm ring-1 ring-ink-100">
       <table className="min-w-full text-left text-sm" data-testid="options-table">
@@ -25,7 +43,11 @@ export function OptionTable({ options, currency, focus, onFocus }: { options: Pr
                 const dir = h.column.getIsSorted();
                 return (
                   <th key={h.id} scope="col" aria-sort={dir === "asc" ? "ascending" : dir === "desc" ? "descending" : "none"} className="px-2 py-2 font-medium">
-                    <button type="button" onClick={h.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 text-left uppercase hover:text-ink-900">
+                    <button
+                      type="button"
+                      onClick={h.column.getToggleSortingHandler()}
+                      className="inline-flex items-center gap-1 text-left uppercase hover:text-ink-900"
+                    >
                       {flexRender(h.column.columnDef.header, h.getContext())}
                       <span aria-hidden="true" className="text-ink-400">
                         {dir === "asc" ? "▲" : dir === "desc" ? "▼" : "↕"}
@@ -42,7 +64,13 @@ export function OptionTable({ options, currency, focus, onFocus }: { options: Pr
             const focused = row.id === focus;
             const o = row.original;
             return (
-              <tr key={row.id} onClick={() => onFocus(row.id)} className={`cursor-pointer ${focused ? "bg-copper-50" : "hover:bg-ink-50"}`} aria-selected={focused} data-option={row.id}>
+              <tr
+                key={row.id}
+                onClick={() => onFocus(row.id)}
+                className={`cursor-pointer ${focused ? "bg-copper-50" : "hover:bg-ink-50"}`}
+                aria-selected={focused}
+                data-option={row.id}
+              >
                 <td className="px-2 py-2">
                   <input
                     type="radio"

@@ -13,8 +13,16 @@ import type { Viewer } from "./viewer";
 
 const SIZE_CHOICES: { value: SizeFor; label: string; explain: string }[] = [
   { value: "energy", label: "Usable energy", explain: "The energy the bank must give between the maximum and the minimum voltage, e.g. 20 kJ (or 5.5 Wh)." },
-  { value: "capacitance", label: "Capacitance", explain: "The capacitance at the bank's terminals, e.g. 58 F for a supercapacitor module or 4700 µF for a DC link." },
-  { value: "backup", label: "Backup power for a time", explain: "A constant power the bank must carry for a time down to the minimum voltage, e.g. 5 kW for 30 s." },
+  {
+    value: "capacitance",
+    label: "Capacitance",
+    explain: "The capacitance at the bank's terminals, e.g. 58 F for a supercapacitor module or 4700 µF for a DC link.",
+  },
+  {
+    value: "backup",
+    label: "Backup power for a time",
+    explain: "A constant power the bank must carry for a time down to the minimum voltage, e.g. 5 kW for 30 s.",
+  },
 ];
 
 type Form = UseFormReturn<RequestFormValues, unknown, RequestFormOutput>;
@@ -29,9 +37,12 @@ function Derived({ form }: { form: Form }) {
       `Needs at least ${formatQuantity(d.capacitance, "F")} at the terminals: C = 2E / (V max² − V min²) = 2 × ${formatQuantity(d.usableEnergy ?? 0, "J")} / (${formatQuantity(d.voltages.max, "V")}² − ${formatQuantity(d.voltages.min, "V")}²).`,
     );
   }
-  if (values.sizeFor === "backup" && d.usableEnergy !== null) lines.push(`A backup of P × t needs at least ${formatQuantity(d.usableEnergy, "J")} usable (more once ESR losses count).`);
-  if (values.sizeFor === "capacitance" && d.usableEnergy !== null) lines.push(`Gives ${formatQuantity(d.usableEnergy, "J")} usable between the voltages: ½·C·(V max² − V min²).`);
-  if (d.storedEnergy !== null && d.voltages) lines.push(`Stores ${formatQuantity(d.storedEnergy, "J")} at ${formatQuantity(d.voltages.max, "V")} (½·C·V max²).`);
+  if (values.sizeFor === "backup" && d.usableEnergy !== null)
+    lines.push(`A backup of P × t needs at least ${formatQuantity(d.usableEnergy, "J")} usable (more once ESR losses count).`);
+  if (values.sizeFor === "capacitance" && d.usableEnergy !== null)
+    lines.push(`Gives ${formatQuantity(d.usableEnergy, "J")} usable between the voltages: ½·C·(V max² − V min²).`);
+  if (d.storedEnergy !== null && d.voltages)
+    lines.push(`Stores ${formatQuantity(d.storedEnergy, "J")} at ${formatQuantity(d.voltages.max, "V")} (½·C·V max²).`);
   if (d.maxEsr !== null) lines.push(`Allows at most ${formatQuantity(d.maxEsr, "Ω")} of ESR at end of life (ΔV / I).`);
   if (lines.length === 0) return null;
   return (
@@ -71,7 +82,14 @@ export function RequestForm({
     <form onSubmit={onSubmit} noValidate className="mt-6 space-y-6" aria-label="Describe your bank">
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-500">Voltage</legend>
-        <TextField id="maxVoltage" label="Maximum voltage" placeholder="48 V" hint="The highest voltage the bank is charged to." error={errors.maxVoltage?.message} {...register("maxVoltage")} />
+        <TextField
+          id="maxVoltage"
+          label="Maximum voltage"
+          placeholder="48 V"
+          hint="The highest voltage the bank is charged to."
+          error={errors.maxVoltage?.message}
+          {...register("maxVoltage")}
+        />
         <TextField
           id="minVoltage"
           label="Minimum voltage (optional)"
@@ -86,7 +104,10 @@ export function RequestForm({
         <legend className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-500">Size the bank for</legend>
         <div role="radiogroup" aria-label="Size the bank for" className="inline-flex flex-wrap rounded-md bg-ink-50 p-1 ring-1 ring-ink-100">
           {SIZE_CHOICES.map((c) => (
-            <label key={c.value} className={`cursor-pointer rounded px-3 py-1.5 text-sm font-medium ${sizeFor === c.value ? "bg-white text-ink-900 shadow-sm ring-1 ring-ink-200" : "text-ink-600 hover:text-ink-900"}`}>
+            <label
+              key={c.value}
+              className={`cursor-pointer rounded px-3 py-1.5 text-sm font-medium ${sizeFor === c.value ? "bg-white text-ink-900 shadow-sm ring-1 ring-ink-200" : "text-ink-600 hover:text-ink-900"}`}
+            >
               <input type="radio" value={c.value} className="sr-only" {...register("sizeFor")} />
               {c.label}
             </label>
@@ -94,12 +115,23 @@ export function RequestForm({
         </div>
         <p className="text-sm text-ink-600">{choice?.explain}</p>
         <div className="grid gap-4 sm:grid-cols-2">
-          {sizeFor === "energy" ? <TextField id="energy" label="Usable energy needed" placeholder="20 kJ" error={errors.energy?.message} {...register("energy")} /> : null}
-          {sizeFor === "capacitance" ? <TextField id="capacitance" label="Capacitance needed" placeholder="58 F" error={errors.capacitance?.message} {...register("capacitance")} /> : null}
+          {sizeFor === "energy" ? (
+            <TextField id="energy" label="Usable energy needed" placeholder="20 kJ" error={errors.energy?.message} {...register("energy")} />
+          ) : null}
+          {sizeFor === "capacitance" ? (
+            <TextField id="capacitance" label="Capacitance needed" placeholder="58 F" error={errors.capacitance?.message} {...register("capacitance")} />
+          ) : null}
           {sizeFor === "backup" ? (
             <>
               <TextField id="backupPower" label="Backup power" placeholder="5 kW" error={errors.backupPower?.message} {...register("backupPower")} />
-              <TextField id="backupTime" label="Backup time" placeholder="30 s" hint="Seconds, or 2 min." error={errors.backupTime?.message} {...register("backupTime")} />
+              <TextField
+                id="backupTime"
+                label="Backup time"
+                placeholder="30 s"
+                hint="Seconds, or 2 min."
+                error={errors.backupTime?.message}
+                {...register("backupTime")}
+              />
             </>
           ) : null}
         </div>
@@ -108,15 +140,36 @@ export function RequestForm({
 
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-500">Peak current (optional)</legend>
-        <TextField id="peakCurrent" label="Peak current" placeholder="200 A" hint="The largest current the load draws." error={errors.peakCurrent?.message} {...register("peakCurrent")} />
-        <TextField id="maxDrop" label="Allowed voltage drop at that current" placeholder="4 V" hint="Sets the most ESR the bank may have." error={errors.maxDrop?.message} {...register("maxDrop")} />
+        <TextField
+          id="peakCurrent"
+          label="Peak current"
+          placeholder="200 A"
+          hint="The largest current the load draws."
+          error={errors.peakCurrent?.message}
+          {...register("peakCurrent")}
+        />
+        <TextField
+          id="maxDrop"
+          label="Allowed voltage drop at that current"
+          placeholder="4 V"
+          hint="Sets the most ESR the bank may have."
+          error={errors.maxDrop?.message}
+          {...register("maxDrop")}
+        />
       </fieldset>
 
       <fieldset className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <legend className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-500">Limits and quantity</legend>
         <TextField id="maxMass" label="Mass limit (optional)" placeholder="25 kg" error={errors.maxMass?.message} {...register("maxMass")} />
         <TextField id="maxVolume" label="Volume limit (optional)" placeholder="12 L" error={errors.maxVolume?.message} {...register("maxVolume")} />
-        <TextField id="quantity" label="Quantity" inputMode="numeric" hint="How many identical banks." error={errors.quantity?.message} {...register("quantity")} />
+        <TextField
+          id="quantity"
+          label="Quantity"
+          inputMode="numeric"
+          hint="How many identical banks."
+          error={errors.quantity?.message}
+          {...register("quantity")}
+        />
         <SelectField id="technology" label="Technology" error={errors.technology?.message} {...register("technology")}>
           <option value="">Any the shop builds</option>
           {TECHNOLOGIES.map((t) => (
@@ -128,7 +181,12 @@ export function RequestForm({
       </fieldset>
 
       <div className="grid gap-4 lg:grid-cols-2">
-        <FieldShell id="notes" label="Notes (optional)" hint={`Anything the shop should know: mounting, connectors, ambient temperature… up to ${MAX_NOTES_LENGTH} characters.`} error={errors.notes?.message}>
+        <FieldShell
+          id="notes"
+          label="Notes (optional)"
+          hint={`Anything the shop should know: mounting, connectors, ambient temperature… up to ${MAX_NOTES_LENGTH} characters.`}
+          error={errors.notes?.message}
+        >
           <textarea
             id="notes"
             rows={4}

@@ -30,7 +30,9 @@ export function loadSavedRequest(slug: string): SavedRequest | null {
       if (typeof v === "string") (values as Record<string, string>)[k] = v;
     }
     const attachments = Array.isArray(parsed.attachments)
-      ? parsed.attachments.filter((a): a is UploadedFile => typeof a?.id === "string" && typeof a.fileName === "string" && typeof a.sizeBytes === "number").slice(0, MAX_ATTACHMENTS_PER_REQUEST)
+      ? parsed.attachments
+          .filter((a): a is UploadedFile => typeof a?.id === "string" && typeof a.fileName === "string" && typeof a.sizeBytes === "number")
+          .slice(0, MAX_ATTACHMENTS_PER_REQUEST)
       : [];
     return { values, attachments, focus: typeof parsed.focus === "string" ? parsed.focus : null };
   } catch {

@@ -36,7 +36,11 @@ export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: st
 
   const persist = useCallback(
     (over: { focus?: string | null; attachments?: UploadedFile[] } = {}) => {
-      saveRequest(slug, { values: form.getValues(), attachments: over.attachments ?? attachmentsRef.current, focus: over.focus === undefined ? focusRef.current : over.focus });
+      saveRequest(slug, {
+        values: form.getValues(),
+        attachments: over.attachments ?? attachmentsRef.current,
+        focus: over.focus === undefined ? focusRef.current : over.focus,
+      });
     },
     [slug, form],
   );
@@ -92,12 +96,14 @@ export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: st
   return (
     <div className="space-y-10">
       <section aria-labelledby="describe" className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-ink-100 sm:p-6">
-        <h2 id="describe" className="text-xl font-semibold">Describe your bank</h2>
+        <h2 id="describe" className="text-xl font-semibold">
+          Describe your bank
+        </h2>
         <p className="mt-1 max-w-3xl text-sm text-ink-600">
-          Say what the bank must do and compare the arrangements {shopName} can build from its stock, with their figures, cautions and prices. Exploring needs no account; choosing an
-          arrangement asks you to sign in. Type values with their units: <span className="font-mono">48 V</span>, <span className="font-mono">20 kJ</span>,{" "}
-          <span className="font-mono">470 µF</span>, <span className="font-mono">5 kW</span>, <span className="font-mono">30 s</span>, <span className="font-mono">25 kg</span>,{" "}
-          <span className="font-mono">12 L</span>.
+          Say what the bank must do and compare the arrangements {shopName} can build from its stock, with their figures, cautions and prices. Exploring needs
+          no account; choosing an arrangement asks you to sign in. Type values with their units: <span className="font-mono">48 V</span>,{" "}
+          <span className="font-mono">20 kJ</span>, <span className="font-mono">470 µF</span>, <span className="font-mono">5 kW</span>,{" "}
+          <span className="font-mono">30 s</span>, <span className="font-mono">25 kg</span>, <span className="font-mono">12 L</span>.
         </p>
         <RequestForm
           form={form}

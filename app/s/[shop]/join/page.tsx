@@ -24,7 +24,9 @@ export default async function JoinShopPage({ params, searchParams }: { params: P
           <p className="mt-2 text-sm text-ink-600">You are already a member of this shop.</p>
         ) : (
           <>
-            <p className="mt-1 text-sm text-ink-600">Ask for quotes, accept them and follow your orders. Your account belongs to you; this shop sees your requests, quotes and orders with it.</p>
+            <p className="mt-1 text-sm text-ink-600">
+              Ask for quotes, accept them and follow your orders. Your account belongs to you; this shop sees your requests, quotes and orders with it.
+            </p>
             <div className="mt-6">
               <JoinShopForm slug={slug} next={next} signedInAs={r.status === "not-member" ? r.user.email : null} />
             </div>

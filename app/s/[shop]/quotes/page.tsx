@@ -10,7 +10,13 @@ import { quoteList } from "@/lib/validation/lists";
 export const metadata: Metadata = { title: "My quotes" };
 
 /** A customer's own quotes, each with its PDF. Staff read the shop's quotes on the desk. */
-export default async function MyQuotesPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<Record<string, string | string[]>> }) {
+export default async function MyQuotesPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ shop: string }>;
+  searchParams: Promise<Record<string, string | string[]>>;
+}) {
   const { shop } = await params;
   const ctx = await requireShopPage(shop, reads("quote"), `/s/${shop}/quotes`);
   const scope = ownerScope(ctx, "quote");

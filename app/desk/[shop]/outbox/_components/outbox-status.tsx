@@ -11,7 +11,9 @@ const STYLES: Record<Status, string> = {
 export function OutboxStatus({ status, attempts, lastError }: Pick<OutboxListRow, "status" | "attempts" | "lastError">) {
   return (
     <div className="space-y-1">
-      <span className={`inline-block rounded px-2 py-0.5 text-xs font-medium ${STYLES[status]}`}>{status === "waiting" && attempts > 0 ? "Waiting to retry" : OUTBOX_STATUS_LABELS[status]}</span>
+      <span className={`inline-block rounded px-2 py-0.5 text-xs font-medium ${STYLES[status]}`}>
+        {status === "waiting" && attempts > 0 ? "Waiting to retry" : OUTBOX_STATUS_LABELS[status]}
+      </span>
       {lastError && status !== "sent" ? <p className="max-w-xs break-words text-xs text-ink-600">{lastError}</p> : null}
     </div>
   );

@@ -11,7 +11,9 @@ export function RoleSelect({ shop, memberId, name, role }: { shop: string; membe
   const id = `role-${memberId}`;
   return (
     <div className="flex items-center gap-2">
-      <label htmlFor={id} className="sr-only">Role of {name}</label>
+      <label htmlFor={id} className="sr-only">
+        Role of {name}
+      </label>
       <select
         id={id}
         value={value}

@@ -34,7 +34,9 @@ export function JoinShopForm({ slug, signedInAs, next }: { slug: string; signedI
   if (signedInAs) {
     return (
       <div className="space-y-4">
-        <p className="text-sm text-ink-700">You are signed in as <strong>{signedInAs}</strong>.</p>
+        <p className="text-sm text-ink-700">
+          You are signed in as <strong>{signedInAs}</strong>.
+        </p>
         <FormMessage>{message}</FormMessage>
         <Button
           type="button"
@@ -57,13 +59,24 @@ export function JoinShopForm({ slug, signedInAs, next }: { slug: string; signedI
       <TextField id="name" label="Your name" autoComplete="name" error={formState.errors.name?.message} {...register("name")} />
       <TextField id="company" label="Company (optional)" autoComplete="organization" error={formState.errors.company?.message} {...register("company")} />
       <TextField id="email" label="E-mail" type="email" autoComplete="email" error={formState.errors.email?.message} {...register("email")} />
-      <TextField id="password" label="Password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_LENGTH} characters.`} error={formState.errors.password?.message} {...register("password")} />
+      <TextField
+        id="password"
+        label="Password"
+        type="password"
+        autoComplete="new-password"
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
+        error={formState.errors.password?.message}
+        {...register("password")}
+      />
       <FormMessage>{message}</FormMessage>
       <Button type="submit" disabled={formState.isSubmitting} className="w-full">
         {formState.isSubmitting ? "Creating your account…" : "Create my account"}
       </Button>
       <p className="text-center text-sm text-ink-600">
-        Have an account? <Link href={`/sign-in?shop=${slug}&next=${encodeURIComponent(next ?? `/s/${slug}/join`)}`} className="font-medium text-copper-700 hover:underline">Sign in</Link>
+        Have an account?{" "}
+        <Link href={`/sign-in?shop=${slug}&next=${encodeURIComponent(next ?? `/s/${slug}/join`)}`} className="font-medium text-copper-700 hover:underline">
+          Sign in
+        </Link>
       </p>
     </form>
   );

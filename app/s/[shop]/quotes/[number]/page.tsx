@@ -10,5 +10,7 @@ export default async function QuotePage({ params }: { params: Promise<{ shop: st
   const { shop, number } = await params;
   const ctx = await requireShopPage(shop, reads("quote"), `/s/${shop}/quotes/${number}`);
   if (ownerScope(ctx, "quote").all) redirect(`/desk/${shop}/quotes/${encodeURIComponent(number)}`);
-  return <QuotePageBody shop={ctx.shop} number={number} back={{ href: `/s/${shop}/quotes`, label: "My quotes" }} maySee={(owner) => maySee(ctx, "quote", owner)} />;
+  return (
+    <QuotePageBody shop={ctx.shop} number={number} back={{ href: `/s/${shop}/quotes`, label: "My quotes" }} maySee={(owner) => maySee(ctx, "quote", owner)} />
+  );
 }

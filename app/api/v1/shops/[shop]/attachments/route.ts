@@ -9,7 +9,8 @@ import { MAX_ATTACHMENT_BYTES, MAX_ATTACHMENT_SIZE_TEXT } from "@/lib/validation
 /** Room for the multipart boundaries and part headers around one file. */
 const MULTIPART_OVERHEAD = 64 * 1024;
 
-const tooLarge = () => jsonError(400, `A file may be at most ${MAX_ATTACHMENT_SIZE_TEXT}.`, [{ path: "file", message: `The file is larger than ${MAX_ATTACHMENT_SIZE_TEXT}.` }]);
+const tooLarge = () =>
+  jsonError(400, `A file may be at most ${MAX_ATTACHMENT_SIZE_TEXT}.`, [{ path: "file", message: `The file is larger than ${MAX_ATTACHMENT_SIZE_TEXT}.` }]);
 
 /**
  * POST /api/v1/shops/{shop}/attachments — multipart `file`: a drawing or specification (PDF, PNG,

@@ -14,7 +14,12 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
     if (!quote || !maySee(ctx, "quote", quote.customerUserId)) return jsonError(404, "No such quote.");
     const { buffer, fileName } = await loadQuotePdf(ctx.shop.id, quote.revisionId);
     return new Response(new Uint8Array(buffer), {
-      headers: { "content-type": "application/pdf", "content-length": String(buffer.byteLength), "content-disposition": contentDisposition(fileName), "cache-control": "private, no-store" },
+      headers: {
+        "content-type": "application/pdf",
+        "content-length": String(buffer.byteLength),
+        "content-disposition": contentDisposition(fileName),
+        "cache-control": "private, no-store",
+      },
     });
   });
 }

@@ -45,7 +45,10 @@ export async function recordSignInFailure(email: string, limit: number): Promise
     .insert(signInFailures)
     .values({ accountKey: accountKey(email), failures: 1, lastFailureAt: sql`now()`, lockedUntil: wait(sql`1`) })
     .onConflictDoUpdate({ target: signInFailures.accountKey, set: { failures: next, lastFailureAt: sql`now()`, lockedUntil: wait(next) } })
-    .returning({ failures: signInFailures.failures, waitSeconds: sql<number>`coalesce(ceil(extract(epoch FROM ${signInFailures.lockedUntil} - now()))::int, 0)` });
+    .returning({
+      failures: signInFailures.failures,
+      waitSeconds: sql<number>`coalesce(ceil(extract(epoch FROM ${signInFailures.lockedUntil} - now()))::int, 0)`,
+    });
   return { failures: row?.failures ?? 1, waitSeconds: row?.waitSeconds ?? 0 };
 }
 
@@ -56,5 +59,9 @@ export async function clearSignInFailures(email: string): Promise<void> {
 
 /** Failures older than a day are of no use to the back-off. */
 export async function sweepSignInFailures(): Promise<void> {
-  await db.delete(signInFailures).where(sql`${signInFailures.lastFailureAt} < now() - interval '1 day' AND (${signInFailures.lockedUntil} IS NULL OR ${signInFailures.lockedUntil} < now())`);
+  await db
+    .delete(signInFailures)
+    .where(
+      sql`${signInFailures.lastFailureAt} < now() - interval '1 day' AND (${signInFailures.lockedUntil} IS NULL OR ${signInFailures.lockedUntil} < now())`,
+    );
 }
