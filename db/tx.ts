@@ -1,4 +1,5 @@
 import "server-only";
+import { sql } from "drizzle-orm";
 import type { Db } from "./client";
 import { db } from "./index";
 
@@ -17,6 +18,19 @@ export type Executor = Tx | Db;
  */
 export function inTransaction<T>(fn: (tx: Tx) => Promise<T>): Promise<T> {
   return db.transaction(fn);
+}
+
+/**
+ * Runs `fn` in one transaction scoped to one shop: `app.shop_id` is set for the transaction (and
+ * only for it), which the row-level security policies on tenant tables read, so a query that forgot
+ * its `where shop_id` still sees nothing of another shop. Tenant reads and writes in db/queries run
+ * through it; functions that take a caller's `tx` rely on the caller having opened it this way.
+ */
+export function withShop<T>(shopId: string, fn: (tx: Tx) => Promise<T>): Promise<T> {
+  return db.transaction(async (tx) => {
+    await tx.execute(sql`select set_config('app.shop_id', ${shopId}, true)`);
+    return fn(tx);
+  });
 }
 
 /** Whether PostgreSQL refused a write for a unique constraint (SQLSTATE 23505), however the driver wrapped it. */

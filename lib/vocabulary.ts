@@ -39,6 +39,10 @@ export const REQUEST_STATUSES = ["quoted", "needs-review", "closed"] as const;
 export type RequestStatus = (typeof REQUEST_STATUSES)[number];
 export const REQUEST_STATUS_LABELS: Record<RequestStatus, string> = { "needs-review": "Needs review", quoted: "Quoted", closed: "Closed" };
 
+/** What a shop's own systems can hear of through outbound webhooks (db/schema/records.ts). */
+export const SHOP_EVENT_TYPES = ["quote.issued", "quote.accepted", "order.status_changed", "payment.refunded", "catalog.imported"] as const;
+export type ShopEventType = (typeof SHOP_EVENT_TYPES)[number];
+
 export const OUTBOX_STATUSES = ["waiting", "sent", "failed"] as const;
 export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
 export const OUTBOX_STATUS_LABELS: Record<OutboxStatus, string> = { waiting: "Waiting", sent: "Sent", failed: "Failed" };

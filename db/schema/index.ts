@@ -4,3 +4,4 @@ export * from "./settings";
 export * from "./quotes";
 export * from "./mail";
 export * from "./security";
+export * from "./records";
