@@ -36,7 +36,8 @@ ensureDebianPackages(["postgresql"]);
 ensureNpmPackages();
 
 const pg = await ensurePostgres({ name: "pg", port: PG_PORT });
-const databaseUrl = await pg.ensureDatabase("faradsmith");
+// the app connects as a role under row-level security; migrations run as the tables' owner
+const { appUrl: databaseUrl, ownerUrl } = await pg.ensureDatabase("faradsmith");
 const appUrl = `http://127.0.0.1:${PORT}`;
 const env = {
   ...process.env,
@@ -67,9 +68,9 @@ process.on("SIGINT", () => shutdown(0));
 process.on("SIGTERM", () => shutdown(0));
 
 const bin = (name) => path.join(root, "node_modules", ".bin", name);
-const step = (label, cmd, args) => {
+const step = (label, cmd, args, extraEnv = {}) => {
   log(label);
-  const r = spawnSync(cmd, args, { cwd: root, env, stdio: "inherit" });
+  const r = spawnSync(cmd, args, { cwd: root, env: { ...env, ...extraEnv }, stdio: "inherit" });
   if (r.status !== 0) {
     log(`${label} failed`);
     shutdown(1);
@@ -78,7 +79,8 @@ const step = (label, cmd, args) => {
   return true;
 };
 
-if (step("applying migrations and demo data", bin("tsx"), ["scripts/db.ts", "setup"])) {
+// only this step holds the owner's URL; the app's processes never see it
+if (step("applying migrations and demo data", bin("tsx"), ["scripts/db.ts", "setup"], { MIGRATION_DATABASE_URL: ownerUrl })) {
   await startMaildev({ smtpPort: SMTP_PORT, webPort: INBOX_PORT, name: "maildev" });
   await startStripeStandin({ apiBase: env.STRIPE_API_BASE, webhookUrl: `${appUrl}/api/webhooks/stripe`, env });
   if (dev) {

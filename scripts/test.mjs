@@ -27,12 +27,15 @@ const out = path.join(root, ".data", "test-results");
 fs.mkdirSync(out, { recursive: true });
 
 const pg = await ensurePostgres({ name: "pg-test", port: PG_PORT, fast: true });
-const databaseUrl = await pg.ensureDatabase(DB_NAME, { recreate: true });
+// the app (and the tests' app code) connect as the role under row-level security; migrations,
+// fixtures that work behind the app's back, and backups use the tables' owner
+const { appUrl: databaseUrl, ownerUrl } = await pg.ensureDatabase(DB_NAME, { recreate: true });
 const appUrl = `http://127.0.0.1:${APP_PORT}`;
 const env = {
   ...process.env,
   NODE_ENV: undefined,
   DATABASE_URL: databaseUrl,
+  MIGRATION_DATABASE_URL: ownerUrl,
   APP_URL: appUrl,
   BETTER_AUTH_URL: appUrl,
   // the browser tests run a production server, which refuses the development secret

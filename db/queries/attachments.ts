@@ -1,8 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
-import { db } from "@/db";
 import { requestAttachments } from "@/db/schema";
-import type { Tx } from "@/db/tx";
+import { withShop, type Tx } from "@/db/tx";
 
 export interface NewAttachment {
   id: string;
@@ -15,40 +14,46 @@ export interface NewAttachment {
 }
 
 export async function createAttachment(shopId: string, a: NewAttachment) {
-  const [row] = await db
-    .insert(requestAttachments)
-    .values({ shopId, ...a })
-    .returning({
-      id: requestAttachments.id,
-      fileName: requestAttachments.fileName,
-      sizeBytes: requestAttachments.sizeBytes,
-      contentType: requestAttachments.contentType,
-    });
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .insert(requestAttachments)
+      .values({ shopId, ...a })
+      .returning({
+        id: requestAttachments.id,
+        fileName: requestAttachments.fileName,
+        sizeBytes: requestAttachments.sizeBytes,
+        contentType: requestAttachments.contentType,
+      }),
+  );
   if (!row) throw new Error("attachment insert returned no row");
   return row;
 }
 
 /** One attachment of the shop; null when it is another shop's or does not exist. */
 export async function getAttachment(shopId: string, attachmentId: string) {
-  const [row] = await db
-    .select()
-    .from(requestAttachments)
-    .where(and(eq(requestAttachments.shopId, shopId), eq(requestAttachments.id, attachmentId)))
-    .limit(1);
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .select()
+      .from(requestAttachments)
+      .where(and(eq(requestAttachments.shopId, shopId), eq(requestAttachments.id, attachmentId)))
+      .limit(1),
+  );
   return row ?? null;
 }
 
 export async function listRequestAttachments(shopId: string, requestId: string) {
-  return db
-    .select({
-      id: requestAttachments.id,
-      fileName: requestAttachments.fileName,
-      sizeBytes: requestAttachments.sizeBytes,
-      contentType: requestAttachments.contentType,
-    })
-    .from(requestAttachments)
-    .where(and(eq(requestAttachments.shopId, shopId), eq(requestAttachments.requestId, requestId)))
-    .orderBy(asc(requestAttachments.createdAt));
+  return withShop(shopId, (tx) =>
+    tx
+      .select({
+        id: requestAttachments.id,
+        fileName: requestAttachments.fileName,
+        sizeBytes: requestAttachments.sizeBytes,
+        contentType: requestAttachments.contentType,
+      })
+      .from(requestAttachments)
+      .where(and(eq(requestAttachments.shopId, shopId), eq(requestAttachments.requestId, requestId)))
+      .orderBy(asc(requestAttachments.createdAt)),
+  );
 }
 
 /** Links the uploader's own unlinked files in this shop to a request; anyone else's ids are ignored. */

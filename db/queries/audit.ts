@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { auditEvents, type AuditChange } from "@/db/schema";
-import type { Executor, Tx } from "@/db/tx";
+import { withShop, type Tx } from "@/db/tx";
 
 export interface AuditEntry {
   /** the signed-in person who acted, or null for an API key or the system */
@@ -42,11 +42,13 @@ export function changedFields<T extends Record<string, unknown>>(before: T, afte
 }
 
 /** The audit entries of one record, newest first (for a record's own history panel). */
-export async function listAuditForSubject(ex: Executor, shopId: string, subjectType: string, subjectId: string, limit = 50) {
-  return ex
-    .select()
-    .from(auditEvents)
-    .where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.subjectType, subjectType), eq(auditEvents.subjectId, subjectId)))
-    .orderBy(desc(auditEvents.createdAt))
-    .limit(Math.min(Math.max(1, limit), 500));
+export async function listAuditForSubject(shopId: string, subjectType: string, subjectId: string, limit = 50) {
+  return withShop(shopId, (tx) =>
+    tx
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.subjectType, subjectType), eq(auditEvents.subjectId, subjectId)))
+      .orderBy(desc(auditEvents.createdAt))
+      .limit(Math.min(Math.max(1, limit), 500)),
+  );
 }

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, count, eq } from "drizzle-orm";
-import { db } from "@/db";
 import { catalogCells, catalogComponents } from "@/db/schema";
+import { withShop } from "@/db/tx";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
 import { DEFAULT_PRICING_RULES } from "@/lib/pricing/defaults";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
@@ -11,17 +11,21 @@ import type { CatalogListQuery } from "@/lib/validation/lists";
 import { containsText, readPage, sortedBy } from "./paging";
 
 export async function listActiveCells(shopId: string) {
-  return db
-    .select()
-    .from(catalogCells)
-    .where(and(eq(catalogCells.shopId, shopId), eq(catalogCells.isActive, true)));
+  return withShop(shopId, (tx) =>
+    tx
+      .select()
+      .from(catalogCells)
+      .where(and(eq(catalogCells.shopId, shopId), eq(catalogCells.isActive, true))),
+  );
 }
 
 export async function listActiveComponents(shopId: string) {
-  return db
-    .select()
-    .from(catalogComponents)
-    .where(and(eq(catalogComponents.shopId, shopId), eq(catalogComponents.isActive, true)));
+  return withShop(shopId, (tx) =>
+    tx
+      .select()
+      .from(catalogComponents)
+      .where(and(eq(catalogComponents.shopId, shopId), eq(catalogComponents.isActive, true))),
+  );
 }
 
 /**
@@ -30,7 +34,12 @@ export async function listActiveComponents(shopId: string) {
  * components. Searching and quoting are pure functions of this (lib/quoting/priced-search.ts).
  */
 export async function loadShopCatalog(shopId: string): Promise<ShopCatalog> {
-  const [settings, cells, components] = await Promise.all([getShopSettings(shopId), listActiveCells(shopId), listActiveComponents(shopId)]);
+  // one transaction: the three reads see the same committed state
+  const [settings, cells, components] = await withShop(shopId, async () => [
+    await getShopSettings(shopId),
+    await listActiveCells(shopId),
+    await listActiveComponents(shopId),
+  ]);
   return {
     factors: settings?.designFactors ?? DEFAULT_DESIGN_FACTORS,
     rules: settings?.pricingRules ?? DEFAULT_PRICING_RULES,
@@ -42,12 +51,14 @@ export async function loadShopCatalog(shopId: string): Promise<ShopCatalog> {
 
 /** Active catalog lines per technology, for the storefront's "what we build from". */
 export async function countActiveCellsByTechnology(shopId: string) {
-  return db
-    .select({ technology: catalogCells.technology, lines: count() })
-    .from(catalogCells)
-    .where(and(eq(catalogCells.shopId, shopId), eq(catalogCells.isActive, true)))
-    .groupBy(catalogCells.technology)
-    .orderBy(asc(catalogCells.technology));
+  return withShop(shopId, (tx) =>
+    tx
+      .select({ technology: catalogCells.technology, lines: count() })
+      .from(catalogCells)
+      .where(and(eq(catalogCells.shopId, shopId), eq(catalogCells.isActive, true)))
+      .groupBy(catalogCells.technology)
+      .orderBy(asc(catalogCells.technology)),
+  );
 }
 
 const CATALOG_SORTS = {
@@ -67,16 +78,18 @@ export async function listCatalogCells(shopId: string, q: CatalogListQuery) {
     q.technology === "all" ? undefined : eq(catalogCells.technology, q.technology),
     containsText(q.q, catalogCells.sku, catalogCells.manufacturer, catalogCells.series),
   );
-  return readPage(
-    q,
-    () => db.select({ n: count() }).from(catalogCells).where(where),
-    (limit, offset) =>
-      db
-        .select()
-        .from(catalogCells)
-        .where(where)
-        .orderBy(...sortedBy(CATALOG_SORTS, q, asc(catalogCells.sku), asc(catalogCells.id)))
-        .limit(limit)
-        .offset(offset),
+  return withShop(shopId, (tx) =>
+    readPage(
+      q,
+      () => tx.select({ n: count() }).from(catalogCells).where(where),
+      (limit, offset) =>
+        tx
+          .select()
+          .from(catalogCells)
+          .where(where)
+          .orderBy(...sortedBy(CATALOG_SORTS, q, asc(catalogCells.sku), asc(catalogCells.id)))
+          .limit(limit)
+          .offset(offset),
+    ),
   );
 }

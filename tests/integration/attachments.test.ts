@@ -10,7 +10,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as downloadRoute } from "@/app/api/v1/shops/[shop]/attachments/[id]/route";
 import { POST as uploadRoute } from "@/app/api/v1/shops/[shop]/attachments/route";
 import { chooseArrangement } from "@/app/s/[shop]/actions";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { getAttachment } from "@/db/queries/attachments";
 import { requestAttachments } from "@/db/schema";
 import { env } from "@/lib/env";

@@ -1,5 +1,5 @@
 import { and, eq } from "drizzle-orm";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { members, shops, users } from "@/db/schema";
 import { DEMO_PASSWORD } from "@/db/seed/people";
 import { auth } from "@/lib/auth/server";

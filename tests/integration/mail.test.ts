@@ -6,7 +6,8 @@ import os from "node:os";
 import path from "node:path";
 import { and, eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { db } from "@/db";
+import { db as appDb } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { getOutboxRow, listOutbox } from "@/db/queries/outbox";
 import { emailOutbox, quoteRevisions, quotes } from "@/db/schema";
 import { configureMail, mailSettings } from "@/lib/mail/config";
@@ -121,9 +122,9 @@ async function outboxRow(shopId: string, id: string) {
   return row;
 }
 
-/** Every job the queue holds for an outbox row (the dispatcher keys them by the row's id). */
+/** Every job the queue holds for an outbox row (the dispatcher keys them by the row's id; the queue's schema is the app role's). */
 async function jobsFor(outboxId: string): Promise<{ state: string }[]> {
-  const result = await db.execute<{ state: string }>(
+  const result = await appDb.execute<{ state: string }>(
     sql`SELECT state::text AS state FROM ${sql.identifier(PGBOSS_SCHEMA)}.job WHERE name = ${MAIL_QUEUE} AND singleton_key = ${outboxId}`,
   );
   return result.rows;

@@ -18,7 +18,7 @@ vi.hoisted(() => {
 
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { POST as arrangementsRoute } from "@/app/api/v1/shops/[shop]/arrangements/route";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { createDb } from "@/db/client";
 import { rateLimits, signInFailures } from "@/db/schema";
 import { DEMO_PASSWORD, demoPeople } from "@/db/seed/people";

@@ -29,7 +29,8 @@ import { chooseArrangement, exploreArrangements } from "@/app/s/[shop]/actions";
 import { joinShop } from "@/app/s/[shop]/join/actions";
 import MyQuotesPage from "@/app/s/[shop]/quotes/page";
 import StorefrontQuotePage from "@/app/s/[shop]/quotes/[number]/page";
-import { db } from "@/db";
+import { withShop } from "@/db/tx";
+import { ownerDb as db } from "./owner-db";
 import { listActiveCells, listCatalogCells } from "@/db/queries/catalog";
 import { getMember, getMemberRole, listMembers, updateMemberRole } from "@/db/queries/members";
 import { listOutbox } from "@/db/queries/outbox";
@@ -325,7 +326,7 @@ describe("tenancy", () => {
     it("reads and updates by id do not reach another shop's rows", async () => {
       const target = await getMemberIdOf(B, B.estimator.id);
       expect(await getMember(A.id, target)).toBeNull();
-      expect(await updateMemberRole(A.id, target, "customer")).toBeNull();
+      expect(await withShop(A.id, (tx) => updateMemberRole(tx, A.id, target, "customer"))).toBeNull();
       expect(await getMemberRole(B.id, B.estimator.id)).toBe("estimator");
       const bQuoteRow = await getQuoteByNumber(B.id, bQuote);
       expect(bQuoteRow).not.toBeNull();
