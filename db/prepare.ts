@@ -51,13 +51,14 @@ export async function checkAppRole(owner: Db, appRole: string, ownerRole: string
   }
 }
 
-/** What the app's role may do: read and write rows, never change tables; audit entries are append-only; shops are never deleted. */
+/** What the app's role may do: read and write rows, never change tables; audit entries are only added; shops are never deleted. */
 async function grantAppRole(owner: Db, appRole: string): Promise<void> {
   const r = sql.identifier(appRole);
   await owner.execute(sql`grant usage on schema public to ${r}`);
   await owner.execute(sql`grant select, insert, update, delete on all tables in schema public to ${r}`);
   await owner.execute(sql`grant usage, select on all sequences in schema public to ${r}`);
   await owner.execute(sql`revoke delete on shops from ${r}`);
+  await owner.execute(sql`revoke update, delete, truncate on audit_events from ${r}`);
   for (const fn of CROSS_SHOP_FUNCTIONS) await owner.execute(sql.raw(`grant execute on function ${fn} to "${appRole.replace(/"/g, '""')}"`));
 }
 

@@ -158,6 +158,21 @@ export function databaseUrls(port, db) {
   return { appUrl: `postgres://${APP_ROLE}@127.0.0.1:${port}/${db}`, ownerUrl: `postgres://${OWNER_ROLE}@127.0.0.1:${port}/${db}` };
 }
 
+/**
+ * Restarts a cluster this machine runs (`pg_ctl restart -m fast`: open connections are cut, the
+ * server comes back with the same options); for the fault tests. Resolves when it accepts
+ * connections again.
+ */
+export function restartPostgres(dir) {
+  const args = [path.join(pgBin(), "pg_ctl"), "-D", dir, "-m", "fast", "-w", "-t", "60", "restart"];
+  const [cmd, ...rest] = isRoot ? ["runuser", "-u", "postgres", "--", ...args] : args;
+  return new Promise((resolve, reject) => {
+    const child = spawn(cmd, rest, { stdio: "ignore" });
+    child.once("error", reject);
+    child.once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`pg_ctl restart exited with ${code}`))));
+  });
+}
+
 const children = new Set();
 /** Spawns a long-running child in its own process group; stopAll() ends them. */
 export function spawnService(label, cmd, args, opts = {}) {

@@ -36,6 +36,8 @@ const env = {
   NODE_ENV: undefined,
   DATABASE_URL: databaseUrl,
   MIGRATION_DATABASE_URL: ownerUrl,
+  // the fault tests restart this cluster while requests are in flight
+  TEST_PG_DATA_DIR: pg.dir,
   APP_URL: appUrl,
   BETTER_AUTH_URL: appUrl,
   // the browser tests run a production server, which refuses the development secret

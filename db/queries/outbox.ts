@@ -167,3 +167,22 @@ export async function recordOutboxFailure(shopId: string, outboxId: string, reas
       .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "waiting"))),
   );
 }
+
+/**
+ * A failed row goes back to waiting, in the caller's transaction: answers what it was, or null when
+ * it is not failed (sent, waiting, gone, or another shop's). Attempts and the last reason stay.
+ */
+export async function requeueFailedOutboxRow(tx: Tx, shopId: string, outboxId: string) {
+  const [row] = await tx
+    .update(emailOutbox)
+    .set({ status: "waiting", updatedAt: new Date() })
+    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "failed")))
+    .returning({
+      id: emailOutbox.id,
+      toEmail: emailOutbox.toEmail,
+      subject: emailOutbox.subject,
+      attempts: emailOutbox.attempts,
+      lastError: emailOutbox.lastError,
+    });
+  return row ?? null;
+}

@@ -14,7 +14,8 @@ export const STATEMENTS = {
   order: ["read-own", "read-all", "update-status"],
   team: ["read", "update-role"],
   settings: ["read", "write"],
-  outbox: ["read"],
+  outbox: ["read", "requeue"],
+  audit: ["read"],
 } as const;
 
 type Statements = typeof STATEMENTS;

@@ -54,3 +54,17 @@ export const outboxList = defineList({
   size: 20,
 });
 export type OutboxListQuery = ListQueryOf<typeof outboxList>;
+
+/**
+ * The audit log. Actions, subjects and people come and go with the shop, so they are open filters:
+ * an action (`member.role`, or its family `member`), a subject type, a person's user id.
+ */
+export const auditList = defineList({
+  search: true,
+  filters: {},
+  open: { action: /[a-z][a-z0-9-]*(\.[a-z][a-z0-9-]*)*/, subject: /[a-z][a-z0-9-]*/, actor: /[A-Za-z0-9_-]{1,64}/ },
+  sorts: { created: "desc", action: "asc", actor: "asc", subject: "asc" },
+  sort: "created",
+  size: 25,
+});
+export type AuditListQuery = ListQueryOf<typeof auditList>;

@@ -9,6 +9,7 @@ import path from "node:path";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { changeMemberRole } from "@/app/desk/[shop]/team/actions";
+import { requeueMessage } from "@/app/desk/[shop]/outbox/actions";
 import { openShop } from "@/app/(auth)/open-shop/actions";
 import { GET as listMembersRoute } from "@/app/api/v1/shops/[shop]/members/route";
 import { GET as downloadAttachmentRoute } from "@/app/api/v1/shops/[shop]/attachments/[id]/route";
@@ -21,6 +22,7 @@ import { GET as listQuotesRoute } from "@/app/api/v1/shops/[shop]/quotes/route";
 import DeskCatalogPage from "@/app/desk/[shop]/catalog/page";
 import DeskLayout from "@/app/desk/[shop]/layout";
 import DeskOutboxPage from "@/app/desk/[shop]/outbox/page";
+import DeskAuditPage from "@/app/desk/[shop]/audit/page";
 import DeskQuotePage from "@/app/desk/[shop]/quotes/[number]/page";
 import DeskQuotesPage from "@/app/desk/[shop]/quotes/page";
 import DeskRequestsPage from "@/app/desk/[shop]/requests/page";
@@ -30,14 +32,14 @@ import { joinShop } from "@/app/s/[shop]/join/actions";
 import MyQuotesPage from "@/app/s/[shop]/quotes/page";
 import StorefrontQuotePage from "@/app/s/[shop]/quotes/[number]/page";
 import { withShop } from "@/db/tx";
-import { ownerDb as db } from "./owner-db";
+import { ownerDb as db, ownerDb } from "./owner-db";
 import { listActiveCells, listCatalogCells } from "@/db/queries/catalog";
 import { getMember, getMemberRole, listMembers, updateMemberRole } from "@/db/queries/members";
-import { listOutbox } from "@/db/queries/outbox";
+import { getOutboxRow, listOutbox } from "@/db/queries/outbox";
 import { getQuoteByNumber, listQuotes } from "@/db/queries/quotes";
 import { getRequest, listRequests } from "@/db/queries/requests";
 import { getShopSettings, isSlugTaken } from "@/db/queries/shops";
-import { bankRequests, shops } from "@/db/schema";
+import { bankRequests, emailOutbox, shops } from "@/db/schema";
 import { catalogList, memberList, outboxList, quoteList, requestList } from "@/lib/validation/lists";
 import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
 import { createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, type TestShop } from "./fixtures";
@@ -108,7 +110,7 @@ const NOT_SHOP_SCOPED = new Set([
 ]);
 /** Public, but reads only the shop its URL names: tested below. */
 const PUBLIC_SHOP_ROUTES = new Set(["POST /api/v1/shops/[shop]/arrangements"]);
-const ACTIONS = new Set(["changeMemberRole", "chooseArrangement", "exploreArrangements", "joinShop", "openShop"]);
+const ACTIONS = new Set(["changeMemberRole", "chooseArrangement", "exploreArrangements", "joinShop", "openShop", "requeueMessage"]);
 
 /** The engine's network analyses: open to visitors, holding no shop's data, so every caller gets the same answer. */
 const ENGINE_NETWORK = {
@@ -256,6 +258,18 @@ describe("tenancy", () => {
       expect(await getMemberRole(B.id, B.estimator.id)).toBe("estimator");
     });
 
+    it("requeueMessage refuses the other shop's manager; the other shop's message is not found through one's own", async () => {
+      const [bMessage] = (await listOutbox(B.id, { ...outboxList.defaults, size: 1 })).rows;
+      expect(bMessage).toBeDefined();
+      await ownerDb.update(emailOutbox).set({ status: "failed" }).where(eq(emailOutbox.id, bMessage!.id));
+      await actAs(A.manager.email);
+      expect(await requeueMessage(B.slug, { outboxId: bMessage!.id })).toMatchObject({ ok: false, code: "forbidden" });
+      expect(await requeueMessage(A.slug, { outboxId: bMessage!.id })).toMatchObject({ ok: false, code: "not-found" });
+      await actAs(B.estimator.email);
+      expect(await requeueMessage(B.slug, { outboxId: bMessage!.id })).toMatchObject({ ok: false, code: "forbidden" });
+      expect((await getOutboxRow(B.id, bMessage!.id))?.status).toBe("failed");
+    });
+
     it("chooseArrangement refuses another shop's customer and makes nothing", async () => {
       const key = crypto.randomUUID();
       await actAs(A.customers[0].email);
@@ -302,6 +316,7 @@ describe("tenancy", () => {
       ["catalog", (s: string) => DeskCatalogPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["team", (s: string) => DeskTeamPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["outbox", (s: string) => DeskOutboxPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
+      ["audit log", (s: string) => DeskAuditPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
     ] as const;
 
     it.each(desk)("the desk's %s refuses the other shop's manager and opens for the shop's own", async (_name, render) => {

@@ -15,6 +15,7 @@ export const DESK_SECTIONS: { path: string; label: string; permission: Permissio
   { path: "orders", label: "Orders", permission: "order:read-all", summary: "Paid orders through kitting, assembly, test and shipping." },
   { path: "team", label: "Team", permission: "team:read", summary: "The shop's members and their roles." },
   { path: "outbox", label: "Outbox", permission: "outbox:read", summary: "E-mail sent, waiting and failed." },
+  { path: "audit", label: "Audit log", permission: "audit:read", summary: "Who changed what in the shop, and when." },
   { path: "settings", label: "Settings", permission: "settings:write", summary: "Design factors, auto-quote limits and storefront text." },
 ];
 
