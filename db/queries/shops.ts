@@ -13,9 +13,13 @@ const SLUG_SHAPE = /^[a-z0-9-]{1,64}$/;
  * The shop a URL's slug names, or null: the first step of every shop context. `shops` is the
  * directory of tenants (name and slug, public on every storefront), not a tenant table.
  */
-export async function getShopBySlug(slug: string): Promise<{ id: string; slug: string; name: string } | null> {
+export async function getShopBySlug(slug: string): Promise<{ id: string; slug: string; name: string; catalogVersion: number } | null> {
   if (!SLUG_SHAPE.test(slug)) return null;
-  const [shop] = await db.select({ id: shops.id, slug: shops.slug, name: shops.name }).from(shops).where(eq(shops.slug, slug)).limit(1);
+  const [shop] = await db
+    .select({ id: shops.id, slug: shops.slug, name: shops.name, catalogVersion: shops.catalogVersion })
+    .from(shops)
+    .where(eq(shops.slug, slug))
+    .limit(1);
   return shop ?? null;
 }
 

@@ -1,11 +1,11 @@
 "use server";
 import { headers } from "next/headers";
 import { loadShopCatalog } from "@/db/queries/catalog";
-import { getShopBySlug } from "@/db/queries/shops";
+import { getListedShopBySlug } from "@/db/queries/shop-directory";
 import { invalidResult, refusedResult, shopAction, type ActionResult } from "@/lib/auth/guards";
 import type { DesignFactors, Requirement } from "@/lib/bank";
 import { limits, requestClient } from "@/lib/http/limits";
-import { searchPricedOptions } from "@/lib/quoting/priced-search";
+import { memoizedSearch } from "@/lib/quoting/search-memo";
 import type { PricedOption } from "@/lib/quoting/types";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { arrangementRequestSchema } from "@/lib/validation/bank";
@@ -31,7 +31,7 @@ export async function exploreArrangements(shopSlug: string, input: unknown): Pro
   // the same budget per client as the public arrangements endpoint: a search is not free
   const gate = await limits.storefrontSearch.hit(requestClient(await headers()));
   if (!gate.allowed) return { ok: false, code: "rate-limited", message: `Too many searches; try again in ${gate.retryAfterSeconds} s.` };
-  const shop = await getShopBySlug(String(shopSlug));
+  const shop = await getListedShopBySlug(String(shopSlug));
   if (!shop) return refusedResult("no-shop");
   const parsed = requestFormSchema.safeParse(input);
   if (!parsed.success) return invalidResult(parsed.error);
@@ -39,7 +39,7 @@ export async function exploreArrangements(shopSlug: string, input: unknown): Pro
   const checked = arrangementRequestSchema.safeParse(parsed.data.requirement);
   if (!checked.success) return invalidResult(checked.error);
   const requirement = { ...parsed.data.requirement, quantity: checked.data.quantity };
-  const result = searchPricedOptions(await loadShopCatalog(shop.id), requirement);
+  const result = memoizedSearch(shop.id, shop.catalogVersion, await loadShopCatalog(shop.id, shop.catalogVersion), requirement);
   return {
     ok: true,
     data: {

@@ -1,10 +1,10 @@
 import { loadShopCatalog } from "@/db/queries/catalog";
-import { getShopBySlug } from "@/db/queries/shops";
+import { getListedShopBySlug } from "@/db/queries/shop-directory";
 import { refusedResponse } from "@/lib/auth/guards";
 import { jsonError } from "@/lib/http/json-error";
 import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
 import { readJsonBody } from "@/lib/http/read-json";
-import { searchPricedOptions } from "@/lib/quoting/priced-search";
+import { memoizedSearch } from "@/lib/quoting/search-memo";
 import { parseArrangementRequest } from "@/lib/validation/bank";
 
 /**
@@ -16,13 +16,14 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   const gate = await limits.publicApi.hit(requestClient(request.headers));
   if (!gate.allowed) return tooManyRequests(gate);
   const { shop: slug } = await params;
-  const shop = await getShopBySlug(slug);
+  const shop = await getListedShopBySlug(slug);
   if (!shop) return refusedResponse("no-shop");
   const body = await readJsonBody(request);
   if (!body.ok) return body.response;
   const parsed = parseArrangementRequest(body.value);
   if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
-  const result = searchPricedOptions(await loadShopCatalog(shop.id), parsed.data);
+  // the shop, its catalog and a search repeated lately are kept while the catalog version is current
+  const result = memoizedSearch(shop.id, shop.catalogVersion, await loadShopCatalog(shop.id, shop.catalogVersion), parsed.data);
   return Response.json({
     designFactors: result.designFactors,
     options: result.options,
