@@ -1,7 +1,9 @@
 // `npm start`: installs what is missing, starts PostgreSQL and the mail stand-in on loopback,
 // migrates, loads the demo data into an empty database, builds and serves the app on
 // http://127.0.0.1:3000. `npm run dev` does the same with hot reload instead of a build.
-// Ctrl-C stops everything this command started.
+// `npm run cluster` (--cluster) serves it from two production servers behind haproxy on the same
+// address (the servers on PORT+10 and PORT+11, or CLUSTER_APP_PORTS). Ctrl-C stops everything this
+// command started.
 import { spawnSync } from "node:child_process";
 import path from "node:path";
 import {
@@ -20,6 +22,7 @@ import {
 } from "./services.mjs";
 
 const dev = process.argv.includes("--dev");
+const cluster = process.argv.includes("--cluster");
 const PORT = Number(process.env.PORT ?? 3000);
 // Ports can be moved (two checkouts on one machine); the defaults are the README's.
 const PG_PORT = Number(process.env.START_PG_PORT ?? 54329);
@@ -32,7 +35,7 @@ if (await portOpen(PORT)) {
   process.exit(1);
 }
 
-ensureDebianPackages(["postgresql"]);
+ensureDebianPackages(cluster ? ["postgresql", "haproxy"] : ["postgresql"]);
 ensureNpmPackages();
 
 const pg = await ensurePostgres({ name: "pg", port: PG_PORT });
@@ -86,7 +89,16 @@ if (step("applying migrations and demo data", bin("tsx"), ["scripts/db.ts", "set
   if (dev) {
     spawnService("next dev", bin("next"), ["dev", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
   } else if (step("building the app", bin("next"), ["build"])) {
-    spawnService("next start", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
+    if (cluster) {
+      const appPorts = (process.env.CLUSTER_APP_PORTS ?? `${PORT + 10},${PORT + 11}`).split(",").map(Number);
+      const { startCluster } = await import("./cluster.mjs");
+      await startCluster({ env, lbPort: PORT, appPorts }).catch((error) => {
+        log(`the servers did not start: ${error.message}`);
+        shutdown(1);
+      });
+    } else {
+      spawnService("next start", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
+    }
   }
   if (!shuttingDown) {
     await waitForPort(PORT, "the app", 180_000);
