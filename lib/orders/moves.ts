@@ -53,7 +53,7 @@ async function announce() {
  * move, its history entry (who, when, note), the shop event, the audit entry and the customer's
  * e-mail are written in one transaction with the order row locked.
  */
-export async function moveOrder(ctx: ShopContext, input: MoveOrderInput, now = new Date()): Promise<ActionResult<{ status: OrderStatus }>> {
+export async function applyOrderMove(ctx: ShopContext, input: MoveOrderInput, now = new Date()): Promise<ActionResult<{ status: OrderStatus }>> {
   const shopId = ctx.shop.id;
   const result = await withShop(shopId, async (tx): Promise<ActionResult<{ status: OrderStatus }>> => {
     const order = await lockOrderByNumber(tx, shopId, input.number);
@@ -124,12 +124,16 @@ export async function moveOrder(ctx: ShopContext, input: MoveOrderInput, now = n
  * refunds everything still held through the payment service; the order becomes "refunded" when the
  * service's refund events confirm it.
  */
-export async function cancelOrder(
+export async function applyCancellation(
   ctx: ShopContext,
   input: CancelOrderInput,
   now = new Date(),
 ): Promise<ActionResult<{ status: OrderStatus; refunded: string | null }>> {
-  const moved = await moveOrder(ctx, { number: input.number, from: input.from, to: "cancelled", note: input.note, carrier: "", trackingReference: "" }, now);
+  const moved = await applyOrderMove(
+    ctx,
+    { number: input.number, from: input.from, to: "cancelled", note: input.note, carrier: "", trackingReference: "" },
+    now,
+  );
   if (!moved.ok) return moved;
   if (!input.refund) return { ok: true, data: { status: "cancelled", refunded: null } };
   const detail = await getOrderDetail(ctx.shop.id, input.number);
@@ -163,7 +167,7 @@ export interface RecordTestRequest {
  * from the quote revision's frozen specification (lib/orders/test-limits.ts) and kept with the
  * record, the verdict computed here; a retest adds a record (the latest counts).
  */
-export async function recordBankTest(ctx: ShopContext, input: RecordTestRequest): Promise<ActionResult<{ passed: boolean; failed: string[] }>> {
+export async function saveBankTest(ctx: ShopContext, input: RecordTestRequest): Promise<ActionResult<{ passed: boolean; failed: string[] }>> {
   const shopId = ctx.shop.id;
   return withShop(shopId, async (tx): Promise<ActionResult<{ passed: boolean; failed: string[] }>> => {
     const order = await lockOrderByNumber(tx, shopId, input.number);

@@ -94,7 +94,10 @@ function describeArrangement(f: OrderFacts): LabelledValue[] {
     { label: "Cells per bank", value: String(o.cellCount) },
     { label: "Cell", value: `${o.cell.sku} · ${[f.cell.manufacturer, f.cell.series].filter(Boolean).join(" ")}` },
     { label: "Technology", value: TECHNOLOGY_LABELS[o.cell.technology] },
-    { label: "Cell rating", value: `${q(o.cell.capacitance, "F")} (−${pct(o.cell.toleranceMinus)}/+${pct(o.cell.tolerancePlus)}), ${q(o.cell.ratedVoltage, "V")}` },
+    {
+      label: "Cell rating",
+      value: `${q(o.cell.capacitance, "F")} (−${pct(o.cell.toleranceMinus)}/+${pct(o.cell.tolerancePlus)}), ${q(o.cell.ratedVoltage, "V")}`,
+    },
     { label: "Working voltage", value: q(f.requirement.maxVoltage, "V") },
     { label: "Bank rating", value: q(o.maxVoltage, "V") },
     { label: "Capacitance (nominal)", value: q(o.capacitance.nominal, "F") },
@@ -137,7 +140,10 @@ function assemblyNotes(f: OrderFacts): string[] {
       : `Build ${o.parallelCount} string${o.parallelCount === 1 ? "" : "s"} of ${o.seriesCount} cells in series (s1 … s${o.parallelCount}), c1 at the negative terminal, then join the strings in parallel.`,
     "Check every cell's polarity before it is joined; tighten every joint to the cell maker's torque and mark it.",
   ];
-  if (o.balancing.activeBoard) notes.push(`Fit ${o.balancing.activeBoard.count} active balancing board${o.balancing.activeBoard.count === 1 ? "" : "s"} (${o.balancing.activeBoard.sku}), one channel per series position.`);
+  if (o.balancing.activeBoard)
+    notes.push(
+      `Fit ${o.balancing.activeBoard.count} active balancing board${o.balancing.activeBoard.count === 1 ? "" : "s"} (${o.balancing.activeBoard.sku}), one channel per series position.`,
+    );
   else if (o.balancing.resistance !== null && o.balancing.count > 0)
     notes.push(groups ? "Fit one balancing resistor across each group (R-g1 …)." : "Fit one balancing resistor across each cell (R-s1-c1 …).");
   if (o.discharge.bleeder)
@@ -166,7 +172,9 @@ export function testSteps(limits: TestLimits, technology: PricedOption["cell"]["
       limit: `${q(l.positionVoltage.min, "V")} to ${q(l.positionVoltage.max, "V")}`,
     },
     {
-      step: mayBeShorted(technology) ? "Discharge below the safe voltage, fit the shorting link" : "Set the shipping voltage; cover the terminals (never short)",
+      step: mayBeShorted(technology)
+        ? "Discharge below the safe voltage, fit the shorting link"
+        : "Set the shipping voltage; cover the terminals (never short)",
       limit: "done and signed",
     },
   ];

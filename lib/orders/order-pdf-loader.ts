@@ -35,7 +35,10 @@ export async function loadTravelerPdf(detail: OrderDetail): Promise<{ buffer: Bu
  * The test certificate (`O-2026-0001-certificate.pdf`): only once every bank's latest test has
  * passed; otherwise the reason it is not issued yet.
  */
-export async function loadCertificatePdf(detail: OrderDetail, now = new Date()): Promise<{ ok: true; buffer: Buffer; fileName: string } | { ok: false; reason: string }> {
+export async function loadCertificatePdf(
+  detail: OrderDetail,
+  now = new Date(),
+): Promise<{ ok: true; buffer: Buffer; fileName: string } | { ok: false; reason: string }> {
   const tests = await listLatestTests(detail.order.shopId, detail.order.id);
   const { missing, failed } = banksNotPassed(detail.order.quantity, tests);
   if (missing.length > 0 || failed.length > 0) return { ok: false, reason: "The test certificate is issued once every bank of the order has passed its test." };

@@ -64,10 +64,11 @@ async function closeOpenSession(sessionId: string): Promise<"closed" | "paid"> {
  *
  * ACCEPTANCE SEAM: accepting a revision is the quote's life, not payment's. Until that accept
  * (`acceptQuoteRevision(ctx, { number, revision })`) is wired in here, only a quote whose status
- * is already `accepted` can be paid; the storefront's "Accept and pay" button calls this function,
- * and this is the one place the accept goes in front of the checkout.
+ * is already `accepted` can be paid. The storefront's "Accept and pay" button calls the
+ * `startCheckout` action (app/s/[shop]/quotes/[number]/actions.ts), and so does the JSON route; both
+ * come here, and this is the one place the accept goes in front of the checkout.
  */
-export async function startCheckout(ctx: ShopContext, input: CheckoutRequest & { number: string }, now = new Date()): Promise<ActionResult<CheckoutResponse>> {
+export async function openCheckout(ctx: ShopContext, input: CheckoutRequest & { number: string }, now = new Date()): Promise<ActionResult<CheckoutResponse>> {
   if (!isQuoteNumber(input.number)) return NOT_FOUND;
   const shopId = ctx.shop.id;
   const settings = await getShopSettings(shopId);

@@ -81,21 +81,24 @@ export type OrdersResponse = z.infer<typeof ordersResponseSchema>;
 
 const note = text().trim().max(MAX_ORDER_NOTE_LENGTH, `Keep the note under ${MAX_ORDER_NOTE_LENGTH} characters.`);
 
+const moveFields = {
+  to: z.enum(ORDER_STATUSES, { error: "Choose where the order goes." }),
+  note: note.default(""),
+  carrier: text().trim().max(MAX_CARRIER_LENGTH, `Keep the carrier under ${MAX_CARRIER_LENGTH} characters.`).default(""),
+  trackingReference: text().trim().max(MAX_TRACKING_LENGTH, `Keep the reference under ${MAX_TRACKING_LENGTH} characters.`).default(""),
+};
+
+function shippingNeedsTracking(v: { to: string; carrier: string; trackingReference: string }, ctx: z.RefinementCtx) {
+  if (v.to !== "shipped") return;
+  if (!v.carrier) ctx.addIssue({ code: "custom", path: ["carrier"], message: "Name the carrier the bank ships with." });
+  if (!v.trackingReference) ctx.addIssue({ code: "custom", path: ["trackingReference"], message: "Enter the carrier's tracking reference." });
+}
+
+/** The move form's own fields (the order and where it stood come with the page). */
+export const moveOrderFormSchema = z.object(moveFields).superRefine(shippingNeedsTracking);
+
 /** Moving an order: from the status the form showed (a move made meanwhile is refused) to the next. */
-export const moveOrderSchema = z
-  .object({
-    number: orderNumber,
-    from: z.enum(ORDER_STATUSES),
-    to: z.enum(ORDER_STATUSES, { error: "Choose where the order goes." }),
-    note: note.default(""),
-    carrier: text().trim().max(MAX_CARRIER_LENGTH, `Keep the carrier under ${MAX_CARRIER_LENGTH} characters.`).default(""),
-    trackingReference: text().trim().max(MAX_TRACKING_LENGTH, `Keep the reference under ${MAX_TRACKING_LENGTH} characters.`).default(""),
-  })
-  .superRefine((v, ctx) => {
-    if (v.to !== "shipped") return;
-    if (!v.carrier) ctx.addIssue({ code: "custom", path: ["carrier"], message: "Name the carrier the bank ships with." });
-    if (!v.trackingReference) ctx.addIssue({ code: "custom", path: ["trackingReference"], message: "Enter the carrier's tracking reference." });
-  });
+export const moveOrderSchema = z.object({ number: orderNumber, from: z.enum(ORDER_STATUSES), ...moveFields }).superRefine(shippingNeedsTracking);
 export type MoveOrderInput = z.infer<typeof moveOrderSchema>;
 
 /** Cancelling before kitting, with a reason, and whether to refund what was paid. */

@@ -14,7 +14,7 @@ import type { Standin } from "@/dev/stripe-standin/server";
 import { db } from "@/db";
 import { markQuoteAcceptedForTests } from "@/db/queries/test-shortcuts";
 import { orders, payments, quotes } from "@/db/schema";
-import { startCheckout } from "@/lib/payments/checkout";
+import { openCheckout } from "@/lib/payments/checkout";
 import { configureStripe } from "@/lib/payments/stripe";
 import type { Requirement } from "@/lib/bank";
 import type { PaymentKind } from "@/lib/vocabulary";
@@ -93,7 +93,7 @@ export async function acceptedQuote(shop: TestShop, customer: TestPerson = shop.
 
 /** The customer opens checkout for their accepted quote (revision 1), as the "Accept and pay" button does. */
 export async function checkoutFor(shop: TestShop, number: string, kind: PaymentKind = "full", customer: TestPerson = shop.customers[0]) {
-  const r = await startCheckout(contextOf(shop, customer, "customer"), { number, revision: 1, kind });
+  const r = await openCheckout(contextOf(shop, customer, "customer"), { number, revision: 1, kind });
   if (!r.ok) throw new Error(`checkout refused: ${JSON.stringify(r)}`);
   return r.data;
 }

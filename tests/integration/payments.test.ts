@@ -13,7 +13,7 @@ import { db } from "@/db";
 import { getStripeEvent } from "@/db/queries/payments";
 import { emailOutbox, orderStatusHistory, quoteRevisions, quotes, shopEvents, stripeEvents } from "@/db/schema";
 import { env } from "@/lib/env";
-import { startCheckout } from "@/lib/payments/checkout";
+import { openCheckout } from "@/lib/payments/checkout";
 import { reconcileStripeEvents } from "@/lib/payments/reconcile";
 import { requestRefund } from "@/lib/payments/refunds";
 import { fromMinorUnits, toMinorUnits } from "@/lib/pricing";
@@ -34,7 +34,10 @@ beforeAll(async () => {
 const routeParams = (shop: string, number: string) => ({ params: Promise.resolve({ shop, number }) });
 
 async function postCheckout(shop: TestShop, number: string, cookie: string, body: unknown = { revision: 1, kind: "full" }) {
-  return checkoutRoute(request(`/api/v1/shops/${shop.slug}/quotes/${number}/checkout`, { method: "POST", cookie, body: JSON.stringify(body) }), routeParams(shop.slug, number));
+  return checkoutRoute(
+    request(`/api/v1/shops/${shop.slug}/quotes/${number}/checkout`, { method: "POST", cookie, body: JSON.stringify(body) }),
+    routeParams(shop.slug, number),
+  );
 }
 
 async function revisionOf(shop: TestShop, number: string) {
@@ -90,14 +93,17 @@ describe("checkout", () => {
   it("refuses a quote not accepted, an expired one and a superseded revision, and a malformed body", async () => {
     const cookie = await sessionCookie(K.customers[0].email);
     const fresh = await acceptedQuote(K);
-    await db.update(quotes).set({ status: "issued" }).where(and(eq(quotes.shopId, K.id), eq(quotes.number, fresh)));
+    await db
+      .update(quotes)
+      .set({ status: "issued" })
+      .where(and(eq(quotes.shopId, K.id), eq(quotes.number, fresh)));
     const notAccepted = await postCheckout(K, fresh, cookie);
     expect(notAccepted.status).toBe(409);
     expect(((await notAccepted.json()) as { error: string }).error).toMatch(/not been accepted/);
 
     const expiring = await acceptedQuote(K);
     const later = new Date(Date.now() + 400 * 86_400_000);
-    const expired = await startCheckout(contextOf(K, K.customers[0], "customer"), { number: expiring, revision: 1, kind: "full" }, later);
+    const expired = await openCheckout(contextOf(K, K.customers[0], "customer"), { number: expiring, revision: 1, kind: "full" }, later);
     expect(expired).toMatchObject({ ok: false, code: "conflict", message: expect.stringMatching(/expired/) });
 
     // a second revision supersedes the first
@@ -122,7 +128,7 @@ describe("checkout", () => {
     // 30 % of the total, rounded half-up to the cent (common commercial practice)
     expect(session.amount_total).toBe(toMinorUnits(new Dec(rev.total).times("0.3").toDecimalPlaces(2, Dec.ROUND_HALF_UP).toFixed(2), "EUR"));
     const m = await acceptedQuote(M, M.customers[0], { maxVoltage: 800, capacitance: 10e-6, quantity: 1 });
-    const refused = await startCheckout(contextOf(M, M.customers[0], "customer"), { number: m, revision: 1, kind: "deposit" });
+    const refused = await openCheckout(contextOf(M, M.customers[0], "customer"), { number: m, revision: 1, kind: "deposit" });
     expect(refused).toMatchObject({ ok: false, code: "conflict", message: expect.stringMatching(/not offered/) });
   });
 });
@@ -142,11 +148,19 @@ describe("webhooks, exactly once", () => {
     const rev = await revisionOf(K, number);
     expect(new Dec(order.amountPaid).equals(rev.total)).toBe(true);
     expect(await countWhere(orderStatusHistory, and(eq(orderStatusHistory.shopId, K.id), eq(orderStatusHistory.orderId, order.id)))).toBe(1);
-    expect(await countWhere(emailOutbox, and(eq(emailOutbox.shopId, K.id), eq(emailOutbox.kind, "order-confirmed"), eq(emailOutbox.orderId, order.id)))).toBe(1);
-    expect(await countWhere(shopEvents, and(eq(shopEvents.shopId, K.id), eq(shopEvents.type, "order.status_changed"), sql`${shopEvents.payload}->>'order' = ${order.number}`))).toBe(1);
+    expect(await countWhere(emailOutbox, and(eq(emailOutbox.shopId, K.id), eq(emailOutbox.kind, "order-confirmed"), eq(emailOutbox.orderId, order.id)))).toBe(
+      1,
+    );
+    expect(
+      await countWhere(
+        shopEvents,
+        and(eq(shopEvents.shopId, K.id), eq(shopEvents.type, "order.status_changed"), sql`${shopEvents.payload}->>'order' = ${order.number}`),
+      ),
+    ).toBe(1);
     expect((await paymentOf(K, sessionId))?.status).toBe("paid");
     // every copy was answered 200: the completion's three copies each delivered once
-    const log = (await control<{ deliveries: { type: string; status: number; copy: number }[] }>(rig.standin, "GET", "/_standin/webhooks/deliveries")).body.deliveries;
+    const log = (await control<{ deliveries: { type: string; status: number; copy: number }[] }>(rig.standin, "GET", "/_standin/webhooks/deliveries")).body
+      .deliveries;
     const completions = log.filter((d) => d.type === "checkout.session.completed");
     expect(completions.map((d) => d.status)).toEqual([200, 200, 200]);
     // the next order of the shop counts on
@@ -208,7 +222,13 @@ describe("webhooks, exactly once", () => {
     expect((await post(payload.replace("evt_forged_1", "evt_forged_2"), good)).status).toBe(400);
     expect(await getStripeEvent("evt_forged_1")).toBeNull();
 
-    const unknown = JSON.stringify({ id: "evt_unknown_type_1", object: "event", type: "customer.created", created: 1_700_000_000, data: { object: { id: "cus_1" } } });
+    const unknown = JSON.stringify({
+      id: "evt_unknown_type_1",
+      object: "event",
+      type: "customer.created",
+      created: 1_700_000_000,
+      data: { object: { id: "cus_1" } },
+    });
     const signed = rig.sdk.webhooks.generateTestHeaderString({ payload: unknown, secret: env.STRIPE_WEBHOOK_SECRET });
     const first = await post(unknown, signed);
     expect(first.status).toBe(200);
@@ -274,7 +294,10 @@ describe("the app down while the service delivers", () => {
     expect(again.handled).toBe(0);
     const completion = (await rig.sdk.events.list({ type: "checkout.session.completed" })).data[0];
     expect((await getStripeEvent(completion?.id ?? ""))?.source).toBe("reconciliation");
-    const [events] = await db.select({ n: count() }).from(stripeEvents).where(eq(stripeEvents.id, completion?.id ?? ""));
+    const [events] = await db
+      .select({ n: count() })
+      .from(stripeEvents)
+      .where(eq(stripeEvents.id, completion?.id ?? ""));
     expect(events?.n).toBe(1);
   });
 });
@@ -320,7 +343,9 @@ describe("deposits, balances and refunds", () => {
     const partial = await requestRefund(manager, { number: order.number, amount: "10.00", reason: "One shroud arrived cracked", idempotencyKey: key });
     expect(partial).toMatchObject({ ok: true, data: { requested: "10.00", currency: "GBP" } });
     // the same submit again refunds nothing more
-    expect(await requestRefund(manager, { number: order.number, amount: "10.00", reason: "One shroud arrived cracked", idempotencyKey: key })).toMatchObject({ ok: true });
+    expect(await requestRefund(manager, { number: order.number, amount: "10.00", reason: "One shroud arrived cracked", idempotencyKey: key })).toMatchObject({
+      ok: true,
+    });
     await settle(rig.standin);
     const [afterPartial] = await ordersOfQuote(M, number);
     expect(afterPartial?.amountRefunded).toBe("10.0000");
@@ -336,6 +361,11 @@ describe("deposits, balances and refunds", () => {
     await settle(rig.standin);
     const [refunded] = await ordersOfQuote(M, number);
     expect(refunded?.status).toBe("refunded");
-    expect(await countWhere(shopEvents, and(eq(shopEvents.shopId, M.id), eq(shopEvents.type, "payment.refunded"), sql`${shopEvents.payload}->>'order' = ${order.number}`))).toBe(2);
+    expect(
+      await countWhere(
+        shopEvents,
+        and(eq(shopEvents.shopId, M.id), eq(shopEvents.type, "payment.refunded"), sql`${shopEvents.payload}->>'order' = ${order.number}`),
+      ),
+    ).toBe(2);
   });
 });

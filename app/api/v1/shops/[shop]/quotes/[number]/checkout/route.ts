@@ -4,7 +4,7 @@ import { withShopApi } from "@/lib/auth/guards";
 import { maySee, reads } from "@/lib/auth/ownership";
 import { jsonError } from "@/lib/http/json-error";
 import { readJsonBody } from "@/lib/http/read-json";
-import { startCheckout } from "@/lib/payments/checkout";
+import { openCheckout } from "@/lib/payments/checkout";
 import { moneyString } from "@/lib/pricing";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
 import { checkoutRequestSchema, checkoutStateQuerySchema, type CheckoutResponse, type CheckoutState } from "@/lib/validation/orders";
@@ -25,9 +25,19 @@ export async function POST(request: Request, { params }: Params) {
     const body = await readJsonBody(request, 16 * 1024);
     if (!body.ok) return body.response;
     const parsed = checkoutRequestSchema.safeParse(body.value);
-    if (!parsed.success) return jsonError(400, "Invalid body.", parsed.error.issues.map((i) => ({ path: i.path.join("."), message: i.message })));
-    const r = await startCheckout(ctx, { ...parsed.data, number });
-    if (!r.ok) return jsonError(STATUS[r.code], r.message ?? "Refused.", r.fieldErrors ? Object.entries(r.fieldErrors).map(([path, [message = ""] = []]) => ({ path, message })) : undefined);
+    if (!parsed.success)
+      return jsonError(
+        400,
+        "Invalid body.",
+        parsed.error.issues.map((i) => ({ path: i.path.join("."), message: i.message })),
+      );
+    const r = await openCheckout(ctx, { ...parsed.data, number });
+    if (!r.ok)
+      return jsonError(
+        STATUS[r.code],
+        r.message ?? "Refused.",
+        r.fieldErrors ? Object.entries(r.fieldErrors).map(([path, [message = ""] = []]) => ({ path, message })) : undefined,
+      );
     return Response.json(r.data satisfies CheckoutResponse);
   });
 }
@@ -41,7 +51,12 @@ export async function GET(request: Request, { params }: Params) {
   const { shop, number } = await params;
   return withShopApi(request, shop, reads("quote"), async (ctx) => {
     const query = checkoutStateQuerySchema.safeParse({ session: new URL(request.url).searchParams.get("session") ?? "" });
-    if (!query.success) return jsonError(400, "Invalid query.", query.error.issues.map((i) => ({ path: i.path.join("."), message: i.message })));
+    if (!query.success)
+      return jsonError(
+        400,
+        "Invalid query.",
+        query.error.issues.map((i) => ({ path: i.path.join("."), message: i.message })),
+      );
     const quote = isQuoteNumber(number) ? await getQuoteByNumber(ctx.shop.id, number) : null;
     if (!quote || !maySee(ctx, "quote", quote.customerUserId)) return jsonError(404, "No such quote.");
     const state = await getCheckoutState(ctx.shop.id, quote.id, query.data.session);
