@@ -18,7 +18,11 @@ export function RevenueChart({ points, currency }: { points: RevenuePoint[]; cur
       <ResponsiveContainer width="100%" height="100%">
         <BarChart data={data} margin={{ top: 8, right: 8, bottom: 8, left: 8 }}>
           <CartesianGrid stroke={C.grid} vertical={false} />
-          <XAxis dataKey="month" tick={{ fontSize: 11 }} tickFormatter={(m: string) => m.slice(2)} />
+          <XAxis
+            dataKey="month"
+            tick={{ fontSize: 11 }}
+            tickFormatter={(m: string) => `${new Date(`${m}-01T00:00:00Z`).toLocaleString("en-GB", { month: "short", timeZone: "UTC" })} ${m.slice(2, 4)}`}
+          />
           <YAxis tick={{ fontSize: 11 }} width={72} tickFormatter={(v: number) => formatMoney(String(Math.round(v)), currency).replace(/[.,]0+$/, "")} />
           <Tooltip
             content={({ payload }) => {

@@ -7,7 +7,8 @@ import { amountFor, payableKinds } from "@/lib/payments/amounts";
 import { formatMoney } from "@/lib/pricing";
 import { isExpired } from "@/lib/quoting/validity";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
-import { ORDER_STATUS_LABELS, PAYMENT_KIND_LABELS } from "@/lib/vocabulary";
+import { PAYMENT_KIND_LABELS } from "@/lib/vocabulary";
+import { OrderStatusBadge } from "./order-status";
 import { PayPanel, type PayChoice } from "./pay-panel";
 
 /**
@@ -62,12 +63,15 @@ export async function PaySection({
     const closed = ["cancelled", "refunded"].includes(state.order.status);
     body = (
       <div className="space-y-3">
-        <p className="text-sm">
-          Paid {m(state.paid)}: order{" "}
+        <p className="flex flex-wrap items-center gap-2 text-sm">
+          Order
           <Link href={`/s/${shop.slug}/orders/${state.order.number}`} className="font-semibold text-copper-700 hover:underline" data-testid="quote-order-link">
             {state.order.number}
-          </Link>{" "}
-          is {ORDER_STATUS_LABELS[state.order.status].toLowerCase()}.
+          </Link>
+          <OrderStatusBadge status={state.order.status} />
+          <span>
+            · paid {m(state.paid)} of {m(r.total)}
+          </span>
         </p>
         {!closed && kinds.includes("balance") ? (
           <PayPanel shop={shop.slug} number={number} revision={r.revision} choices={choices} action="Pay the balance," />
