@@ -203,7 +203,8 @@ export function travelerDocument(f: OrderFacts): TravelerDocument {
     tests: testSteps(limits, o.cell.technology),
     safety: [
       ...handlingRules({ technology: o.cell.technology, maxVoltage: f.requirement.maxVoltage, safeVoltage: f.safeVoltage, storedEnergy: o.storedEnergy }),
-      ...o.cautions,
+      // the option's own cautions, less any about shorting where the cells must never be shorted
+      ...o.cautions.filter((c) => mayBeShorted(o.cell.technology) || !/short/i.test(c)),
     ],
   };
 }

@@ -94,7 +94,8 @@ export async function settleOrder(tx: Tx, shopId: string, order: OrderRow, at: D
       toStatus: "refunded",
       actorUserId: null,
       note: `Everything paid (${money(paidD)}) has been refunded.`,
-      at,
+      // when we learned of it: the service's event times are whole seconds and may read earlier than a staff move just made
+      at: new Date(Math.max(at.getTime(), Date.now())),
     });
     await recordShopEvent(tx, shopId, "order.status_changed", { order: order.number, from: order.status, to: "refunded", at: at.toISOString() });
     said.push("order refunded");

@@ -145,7 +145,9 @@ describe("moving an order through the floor", () => {
     const message = await buildOutboxMessage(shipped);
     expect(message.subject).toBe(`Order ${order.number} has shipped with Tollway Freight`);
     expect(message.text).toContain("TW-55812-KB");
-    expect(message.text).toMatch(/shorting link/);
+    // what travels with the bank depends on its cells: hybrid cells are never shorted (DESIGN.md §6)
+    const technology = (await getOrderDetail(K.id, order.number))?.arrangement.cell.technology;
+    expect(message.text).toMatch(technology === "hybrid" ? /must never be shorted/ : /shorting link across its terminals/);
   });
 
   it("refuses a move made from a stale page, and holds and resumes an order where it stopped", async () => {

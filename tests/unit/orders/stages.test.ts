@@ -40,7 +40,7 @@ describe("order moves", () => {
   it("says why a move is refused", () => {
     expect(checkMove({ status: "kitting", heldFrom: null }, "cancelled")).toEqual({
       ok: false,
-      reason: expect.stringMatching(/not started kitting; this one is kitting/),
+      reason: expect.stringMatching(/not started kitting can be cancelled; this one is kitting/),
     });
     expect(checkMove({ status: "paid", heldFrom: null }, "refunded")).toEqual({ ok: false, reason: expect.stringMatching(/payment service confirms/) });
     expect(checkMove({ status: "paid", heldFrom: null }, "paid")).toEqual({ ok: false, reason: "The order is already paid." });
