@@ -6,7 +6,15 @@ import type { Technology } from "@/lib/bank/types";
 /** The limits each bank is tested against, from the quote's frozen specification. */
 export function TestLimitsTable({ limits, technology }: { limits: TestLimits; technology: Technology }) {
   return (
-    <table className="w-full text-sm">
+    <table
+      className="w-full text-sm"
+      data-testid="test-limits"
+      data-capacitance={limits.capacitance.nominal}
+      data-esr={limits.esr.new}
+      data-position-voltage={limits.positionVoltage.nominal}
+      data-positions={limits.positions.length}
+      data-hold={limits.minHoldMinutes}
+    >
       <caption className="pb-1 text-left text-xs text-ink-600">Limits from the quote's frozen specification</caption>
       <tbody>
         {testSteps(limits, technology).map((s) => (
