@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, count, desc, eq, inArray, notInArray, sql } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, sql } from "drizzle-orm";
 import { orderStatusHistory, orderTestRecords, orders, quoteRevisions, quotes, shops, users, type OrderRow } from "@/db/schema";
 import { withShop, type Tx } from "@/db/tx";
 import type { OwnerScope } from "@/lib/auth/ownership";
@@ -177,17 +177,6 @@ export function listLatestTests(shopId: string, orderId: string) {
   return withShop(shopId, (tx) => latestTestsOfOrder(tx, shopId, orderId));
 }
 
-/** How many tests an order has had in all (a retest keeps the earlier record). */
-export async function countTestsOfOrder(shopId: string, orderId: string): Promise<number> {
-  return withShop(shopId, async (tx) => {
-    const [row] = await tx
-      .select({ n: count() })
-      .from(orderTestRecords)
-      .where(and(eq(orderTestRecords.shopId, shopId), eq(orderTestRecords.orderId, orderId)));
-    return row?.n ?? 0;
-  });
-}
-
 // ---- lists ---------------------------------------------------------------------------------------
 
 export interface OrderListRow {
@@ -275,7 +264,7 @@ export async function listOrders(shopId: string, scope: OwnerScope, q: OrderList
 }
 
 /** How many open orders the board draws at most (the list view pages through the rest). */
-export const BOARD_LIMIT = 300;
+const BOARD_LIMIT = 300;
 
 /** The board: every open order (due soonest first), and those shipped or closed in the last 30 days. */
 export async function listBoardOrders(shopId: string): Promise<{ rows: OrderListRow[]; more: boolean }> {
@@ -333,17 +322,6 @@ export async function countOrdersByStatus(shopId: string): Promise<Record<OrderS
   const out = Object.fromEntries(ORDER_STATUSES.map((s) => [s, 0])) as Record<OrderStatus, number>;
   for (const r of rows) out[r.status] = r.n;
   return out;
-}
-
-/** Whether any of the shop's orders is not final (used to keep the board's empty state honest). */
-export async function hasOpenOrders(shopId: string): Promise<boolean> {
-  const [row] = await withShop(shopId, (tx) =>
-    tx
-      .select({ n: count() })
-      .from(orders)
-      .where(and(eq(orders.shopId, shopId), notInArray(orders.status, ["delivered", "cancelled", "refunded"]))),
-  );
-  return (row?.n ?? 0) > 0;
 }
 
 /** What an order is made from: the frozen revision's arrangement, requirement, price build-up and the customer's address. */

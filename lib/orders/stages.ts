@@ -6,13 +6,10 @@
  * only before kitting starts (paid, or on hold from paid). "Refunded" is never a staff move: the
  * payment service's refund events put an order there once everything paid has been returned.
  */
-import { ORDER_STATUSES, ORDER_STATUS_LABELS, type OrderStatus } from "@/lib/vocabulary";
+import { ORDER_STATUS_LABELS, type OrderStatus } from "@/lib/vocabulary";
 
 /** The floor's stages in order (the board's columns). */
 export const ORDER_STAGES = ["paid", "kitting", "assembling", "testing", "ready", "shipped", "delivered"] as const satisfies readonly OrderStatus[];
-
-/** States an order never leaves by a staff move. */
-export const FINAL_STATUSES: readonly OrderStatus[] = ["delivered", "cancelled", "refunded"];
 
 /** Stages still on the shop's floor: an order in one of these past its due date is late. */
 export const OPEN_STATUSES: readonly OrderStatus[] = ["paid", "kitting", "assembling", "testing", "ready", "on-hold"];
@@ -87,6 +84,3 @@ export function boardStage(o: OrderPosition): OrderStatus {
 export function isLate(o: { status: OrderStatus; dueDate: string }, today: string): boolean {
   return OPEN_STATUSES.includes(o.status) && today > o.dueDate;
 }
-
-/** Every status, for exhaustive checks in tests and forms. */
-export const ALL_ORDER_STATUSES: readonly OrderStatus[] = ORDER_STATUSES;

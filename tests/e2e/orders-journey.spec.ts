@@ -53,6 +53,23 @@ async function waitForMail(address: string, subject: RegExp): Promise<InboxMail>
   }
 }
 
+/** A new customer of Kestrel signs up on the storefront and chooses a 48 V, 20 kJ bank: the quote's number and total. */
+async function newCustomerQuote(page: Page, name: string, email: string, password: string) {
+  await page.goto(`/s/${K}/join`);
+  await page.getByLabel("Your name").fill(name);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Create my account" }).click();
+  await expect(page).toHaveURL(new RegExp(`/s/${K}$`));
+  await page.getByLabel("Maximum voltage").fill("48 V");
+  await page.getByLabel("Minimum voltage (optional)").fill("24 V");
+  await page.getByLabel("Usable energy needed").fill("20 kJ");
+  await page.getByRole("button", { name: "Show arrangements" }).click();
+  await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();
+  await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/Q-\\d{4}-\\d{4}$`), { timeout: 30_000 });
+  return { quoteNumber: (await page.getByTestId("quote-number").innerText()).trim(), total: (await page.getByTestId("quote-total").innerText()).trim() };
+}
+
 async function moveTo(page: Page, stage: string, note = "") {
   const form = page.getByRole("form", { name: "Move the order" });
   await form.getByLabel("Move to").selectOption({ label: stage });
@@ -68,20 +85,7 @@ test("a customer pays on the hosted page; the manager builds, tests and ships; t
   const email = `vesna.tull.${unique()}@larchmoor-rail.example`;
 
   // A new customer signs up and chooses a bank.
-  await page.goto(`/s/${K}/join`);
-  await page.getByLabel("Your name").fill("Vesna Tull");
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill("larchmoor-depot-password");
-  await page.getByRole("button", { name: "Create my account" }).click();
-  await expect(page).toHaveURL(new RegExp(`/s/${K}$`));
-  await page.getByLabel("Maximum voltage").fill("48 V");
-  await page.getByLabel("Minimum voltage (optional)").fill("24 V");
-  await page.getByLabel("Usable energy needed").fill("20 kJ");
-  await page.getByRole("button", { name: "Show arrangements" }).click();
-  await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();
-  await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/Q-\\d{4}-\\d{4}$`), { timeout: 30_000 });
-  const quoteNumber = (await page.getByTestId("quote-number").innerText()).trim();
-  const total = (await page.getByTestId("quote-total").innerText()).trim();
+  const { quoteNumber, total } = await newCustomerQuote(page, "Vesna Tull", email, "larchmoor-depot-password");
 
   // Accept, then pay the whole amount on the hosted page (declined once, then approved).
   await acceptQuote(quoteNumber);
@@ -187,19 +191,7 @@ test("a customer pays on the hosted page; the manager builds, tests and ships; t
 
 test("a customer who cancels on the hosted page comes back to the quote, with nothing charged", async ({ page }) => {
   const email = `oren.vask.${unique()}@larchmoor-rail.example`;
-  await page.goto(`/s/${K}/join`);
-  await page.getByLabel("Your name").fill("Oren Vask");
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill("larchmoor-yard-password");
-  await page.getByRole("button", { name: "Create my account" }).click();
-  await expect(page).toHaveURL(new RegExp(`/s/${K}$`));
-  await page.getByLabel("Maximum voltage").fill("48 V");
-  await page.getByLabel("Minimum voltage (optional)").fill("24 V");
-  await page.getByLabel("Usable energy needed").fill("20 kJ");
-  await page.getByRole("button", { name: "Show arrangements" }).click();
-  await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();
-  await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/Q-\\d{4}-\\d{4}$`), { timeout: 30_000 });
-  const quoteNumber = (await page.getByTestId("quote-number").innerText()).trim();
+  const { quoteNumber } = await newCustomerQuote(page, "Oren Vask", email, "larchmoor-yard-password");
   await acceptQuote(quoteNumber);
   await page.reload();
   const pay = page.getByTestId("pay-section");
