@@ -19,7 +19,7 @@ const fail = "#b91c1c";
 const s = StyleSheet.create({
   page: { fontFamily: "IBM Plex Sans", fontSize: 9, color: ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40, lineHeight: 1.35 },
   header: { flexDirection: "row", justifyContent: "space-between", borderBottomWidth: 2, borderBottomColor: copper, paddingBottom: 8, marginBottom: 10 },
-  shop: { fontSize: 14, fontWeight: 600 },
+  shop: { fontSize: 14, fontWeight: 600, lineHeight: 1.2, marginBottom: 3 },
   title: { fontSize: 12, fontWeight: 600, textAlign: "right" },
   h2: { fontSize: 10.5, fontWeight: 600, marginTop: 12, marginBottom: 4 },
   kvRow: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: rule, paddingVertical: 2 },
