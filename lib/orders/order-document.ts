@@ -203,8 +203,9 @@ export function travelerDocument(f: OrderFacts): TravelerDocument {
     tests: testSteps(limits, o.cell.technology),
     safety: [
       ...handlingRules({ technology: o.cell.technology, maxVoltage: f.requirement.maxVoltage, safeVoltage: f.safeVoltage, storedEnergy: o.storedEnergy }),
-      // the option's own cautions, less any about shorting where the cells must never be shorted
-      ...o.cautions.filter((c) => mayBeShorted(o.cell.technology) || !/short/i.test(c)),
+      // the option's own cautions (shock, burn and arc), less what the handling rules above already say
+      // about discharging and shorting (and never a shorting caution where the cells must never be shorted)
+      ...o.cautions.filter((c) => !/short|discharg|engineering estimate/i.test(c)),
     ],
   };
 }
