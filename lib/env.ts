@@ -51,6 +51,8 @@ const schema = z.object({
   MAIL_FROM: z.string().default("Faradsmith <quotes@faradsmith.example>"),
   /** "off" keeps the e-mail worker out of this server (another process runs it, or none is wanted) */
   MAIL_WORKER: z.enum(["on", "off"]).default("on"),
+  /** "off" keeps the payment reconciliation job out of this server (another process runs it) */
+  PAYMENTS_WORKER: z.enum(["on", "off"]).default("on"),
   MAIL_INBOX_URL: z.string().url().default("http://127.0.0.1:1080"),
   UPLOAD_DIR: z.string().default(".data/uploads"),
   /**

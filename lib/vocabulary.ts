@@ -39,6 +39,33 @@ export const REQUEST_STATUSES = ["quoted", "needs-review", "closed"] as const;
 export type RequestStatus = (typeof REQUEST_STATUSES)[number];
 export const REQUEST_STATUS_LABELS: Record<RequestStatus, string> = { "needs-review": "Needs review", quoted: "Quoted", closed: "Closed" };
 
+/**
+ * An order's stages on the floor, in order, then the states beside them (DESIGN.md §5). The moves
+ * allowed between them are in lib/orders/stages.ts.
+ */
+export const ORDER_STATUSES = ["paid", "kitting", "assembling", "testing", "ready", "shipped", "delivered", "on-hold", "cancelled", "refunded"] as const;
+export type OrderStatus = (typeof ORDER_STATUSES)[number];
+export const ORDER_STATUS_LABELS: Record<OrderStatus, string> = {
+  paid: "Paid",
+  kitting: "Kitting",
+  assembling: "Assembling",
+  testing: "Testing",
+  ready: "Ready to ship",
+  shipped: "Shipped",
+  delivered: "Delivered",
+  "on-hold": "On hold",
+  cancelled: "Cancelled",
+  refunded: "Refunded",
+};
+
+/** A checkout's state: waiting on the payment page, paid, or lapsed unpaid. */
+export const PAYMENT_STATUSES = ["open", "paid", "expired"] as const;
+export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
+/** What a payment pays: the whole quote, the shop's deposit, or what is left after a deposit. */
+export const PAYMENT_KINDS = ["full", "deposit", "balance"] as const;
+export type PaymentKind = (typeof PAYMENT_KINDS)[number];
+export const PAYMENT_KIND_LABELS: Record<PaymentKind, string> = { full: "Full payment", deposit: "Deposit", balance: "Balance" };
+
 /** What a shop's own systems can hear of through outbound webhooks (db/schema/records.ts). */
 export const SHOP_EVENT_TYPES = ["quote.issued", "quote.accepted", "order.status_changed", "payment.refunded", "catalog.imported"] as const;
 export type ShopEventType = (typeof SHOP_EVENT_TYPES)[number];

@@ -14,11 +14,14 @@ export async function QuotePageBody({
   number,
   back,
   maySee,
+  aside,
 }: {
   shop: { id: string; slug: string };
   number: string;
   back: { href: string; label: string };
   maySee: (ownerUserId: string) => boolean;
+  /** a section shown above the quote (the storefront's pay panel) */
+  aside?: React.ReactNode;
 }) {
   const quote = isQuoteNumber(number) ? await getQuoteByNumber(shop.id, number) : null;
   const rev = quote && maySee(quote.customerUserId) ? await getRevision(shop.id, quote.revisionId) : null;
@@ -32,6 +35,7 @@ export async function QuotePageBody({
         </Link>{" "}
         / {doc.number}
       </nav>
+      {aside}
       <QuoteView doc={doc} pdfHref={`/api/v1/shops/${shop.slug}/quotes/${doc.number}/pdf`} />
     </div>
   );

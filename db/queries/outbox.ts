@@ -118,6 +118,8 @@ export interface NewOutboxMessage {
   toEmail: string;
   subject: string;
   quoteRevisionId: string | null;
+  /** the order an order message is about */
+  orderId?: string | null;
 }
 
 /** Records a message in the caller's transaction, with what it announces; a repeated dedupe key is a no-op. */

@@ -40,6 +40,8 @@ export interface ShopSeed {
   currency: string;
   tagline?: string;
   description?: string;
+  /** the deposit a customer may pay instead of the whole quote (%), 0 = full payment only */
+  depositPercent?: number;
   people: DemoShopPeople;
   catalog: { cells: Omit<NewCatalogCell, "shopId">[]; components: Omit<NewCatalogComponent, "shopId">[] };
 }
@@ -54,7 +56,7 @@ export async function seedShop(db: Db, shop: ShopSeed, passwordHash: string): Pr
     tagline: shop.tagline,
     description: shop.description,
     designFactors: DEFAULT_DESIGN_FACTORS,
-    pricingRules: { ...DEFAULT_PRICING_RULES, currency: shop.currency },
+    pricingRules: { ...DEFAULT_PRICING_RULES, currency: shop.currency, depositPercent: shop.depositPercent ?? 0 },
   });
   const { people } = shop;
   const staff: [DemoPerson, "manager" | "estimator" | "customer"][] = [

@@ -5,6 +5,7 @@ import { getQuoteReadyFacts } from "@/db/queries/outbox";
 import type { EmailOutboxRow } from "@/db/schema";
 import { QuoteReadyEmail } from "@/emails/quote-ready";
 import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
+import { buildOrderMessage, isOrderMessage } from "@/lib/orders/messages";
 import { ACCOUNT_EXISTS_KIND, buildAccountExistsMessage } from "./account-notice";
 import { formatMoney } from "@/lib/pricing";
 import { mailSettings } from "./config";
@@ -14,6 +15,7 @@ import type { OutgoingMessage } from "./transport";
 /** Builds the message an outbox row announces, from the records it points at. */
 export async function buildOutboxMessage(row: EmailOutboxRow): Promise<OutgoingMessage> {
   if (row.kind === ACCOUNT_EXISTS_KIND) return buildAccountExistsMessage(row);
+  if (isOrderMessage(row.kind)) return buildOrderMessage(row);
   if (row.kind !== "quote-ready") throw new Error(`no message template for outbox kind "${row.kind}"`);
   if (!row.quoteRevisionId) throw new Error("the quote revision of this message no longer exists");
   const facts = await getQuoteReadyFacts(row.shopId, row.quoteRevisionId);

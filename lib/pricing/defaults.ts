@@ -31,4 +31,5 @@ export const DEFAULT_PRICING_RULES: Readonly<PricingRules> = Object.freeze({
     { minQuantity: 25, discountPct: "10" },
   ],
   quoteValidityDays: 30,
+  depositPercent: 0,
 });

@@ -32,6 +32,11 @@ export interface PricingRules {
   /** The largest break whose minQuantity ≤ ordered quantity applies. */
   quantityBreaks: { minQuantity: number; discountPct: string }[];
   quoteValidityDays: number;
+  /**
+   * The deposit a customer may pay instead of the whole quote, in % of the total (0–100);
+   * 0 = full payment only. Rules saved before this field existed read as 0.
+   */
+  depositPercent: number;
 }
 
 /** What one bank is built from, as chosen by the engine (lib/bank). */

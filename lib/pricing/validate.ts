@@ -128,6 +128,11 @@ export function validatePricingRules(rules: PricingRules): PricingIssue[] {
   }
 
   checkNumber(issues, "quoteValidityDays", r.quoteValidityDays, { min: 1, integer: true });
+  // absent in rules saved before deposits existed: that reads as 0 (full payment only)
+  if (r.depositPercent !== undefined) {
+    checkNumber(issues, "depositPercent", r.depositPercent, { min: 0 });
+    if (typeof r.depositPercent === "number" && r.depositPercent > 100) issues.push({ path: "depositPercent", message: "must be at most 100 %" });
+  }
   return issues;
 }
 

@@ -11,7 +11,7 @@ import type { LabelledValue, QuoteDocument } from "./quote-document";
 const FAMILY = "IBM Plex Sans";
 let fontsRegistered = false;
 
-function registerFonts() {
+export function registerFonts() {
   if (fontsRegistered) return;
   const dir = path.join(process.cwd(), "app", "fonts");
   Font.register({

@@ -1,6 +1,6 @@
 import { ROLES } from "@/lib/auth/permissions";
 import { TECHNOLOGIES } from "@/lib/bank/types";
-import { OUTBOX_STATUSES, QUOTE_STATUSES, REQUEST_STATUSES } from "@/lib/vocabulary";
+import { ORDER_STATUSES, OUTBOX_STATUSES, QUOTE_STATUSES, REQUEST_STATUSES } from "@/lib/vocabulary";
 import { defineList, type ListQueryOf } from "./list-query";
 
 /**
@@ -54,3 +54,13 @@ export const outboxList = defineList({
   size: 20,
 });
 export type OutboxListQuery = ListQueryOf<typeof outboxList>;
+
+/** Orders: "open" is every stage still on the floor; "late" those of them past their due date. Soonest due first. */
+export const orderList = defineList({
+  search: true,
+  filters: { status: ["all", "open", ...ORDER_STATUSES], timing: ["all", "late"] },
+  sorts: { number: "desc", customer: "asc", status: "asc", due: "asc", total: "desc", created: "desc" },
+  sort: "due",
+  size: 20,
+});
+export type OrderListQuery = ListQueryOf<typeof orderList>;

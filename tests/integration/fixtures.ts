@@ -55,7 +55,9 @@ export async function createShop(like: "kestrel" | "marlow" = "kestrel"): Promis
     customers: [person("customer"), person("other")] as [ReturnType<typeof person>, ReturnType<typeof person>],
   };
   const catalog = demoCatalogs[like === "kestrel" ? "kestrel-bank-works" : "marlow-pulse"];
-  const { shopId, userIds } = await seedShop(db, { slug, name, currency, people, catalog }, await passwordHash);
+  // like the demo shops: Kestrel takes a 30 % deposit, Marlow full payment only
+  const depositPercent = like === "kestrel" ? 30 : 0;
+  const { shopId, userIds } = await seedShop(db, { slug, name, currency, depositPercent, people, catalog }, await passwordHash);
   const withId = (p: { name: string; email: string }): TestPerson => ({ ...p, id: userIds.get(p.email) ?? "" });
   return {
     id: shopId,

@@ -9,6 +9,19 @@ import path from "node:path";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { changeMemberRole } from "@/app/desk/[shop]/team/actions";
+import { cancelOrder, moveOrder, recordTest, refundOrder } from "@/app/desk/[shop]/orders/actions";
+import DeskDashboardPage from "@/app/desk/[shop]/dashboard/page";
+import DeskOrderPage from "@/app/desk/[shop]/orders/[number]/page";
+import DeskOrdersListPage from "@/app/desk/[shop]/orders/list/page";
+import DeskOrdersPage from "@/app/desk/[shop]/orders/page";
+import { GET as orderCertificateRoute } from "@/app/api/v1/shops/[shop]/orders/[number]/certificate/route";
+import { GET as orderTravelerRoute } from "@/app/api/v1/shops/[shop]/orders/[number]/traveler/route";
+import { GET as listOrdersRoute } from "@/app/api/v1/shops/[shop]/orders/route";
+import { GET as checkoutStateRoute, POST as checkoutRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/checkout/route";
+import { startCheckout } from "@/app/s/[shop]/quotes/[number]/actions";
+import CustomerOrderPage from "@/app/s/[shop]/orders/[number]/page";
+import MyOrdersPage from "@/app/s/[shop]/orders/page";
+import PaidPage from "@/app/s/[shop]/quotes/[number]/paid/page";
 import { openShop } from "@/app/(auth)/open-shop/actions";
 import { GET as listMembersRoute } from "@/app/api/v1/shops/[shop]/members/route";
 import { GET as downloadAttachmentRoute } from "@/app/api/v1/shops/[shop]/attachments/[id]/route";
@@ -33,14 +46,18 @@ import { db } from "@/db";
 import { listActiveCells, listCatalogCells } from "@/db/queries/catalog";
 import { getMember, getMemberRole, listMembers, updateMemberRole } from "@/db/queries/members";
 import { listOutbox } from "@/db/queries/outbox";
+import { getOrderDetail, listOrders } from "@/db/queries/orders";
 import { getQuoteByNumber, listQuotes } from "@/db/queries/quotes";
 import { getRequest, listRequests } from "@/db/queries/requests";
 import { getShopSettings, isSlugTaken } from "@/db/queries/shops";
 import { bankRequests, shops } from "@/db/schema";
-import { catalogList, memberList, outboxList, quoteList, requestList } from "@/lib/validation/lists";
+import { applyOrderMove, saveBankTest } from "@/lib/orders/moves";
+import { testLimitsOf } from "@/lib/orders/test-limits";
+import { catalogList, memberList, orderList, outboxList, quoteList, requestList } from "@/lib/validation/lists";
 import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
-import { createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, type TestShop } from "./fixtures";
+import { contextOf, createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, type TestShop } from "./fixtures";
 import { actAs, pageAnswer, request, sessionCookie } from "./helpers";
+import { acceptedQuote, checkoutFor, ordersOfQuote, payAndSettle, usePaymentRig } from "./payments-support";
 
 const shopParams = (shop: string) => ({ params: Promise.resolve({ shop }) });
 const PDF_BYTES = Buffer.from("%PDF-1.4\n%%EOF\n", "latin1");
@@ -50,6 +67,47 @@ let B: TestShop;
 let aQuote = "";
 let bQuote = "";
 let aAttachment = "";
+/** each shop's accepted quote with an open checkout (payable), and its paid, tested order */
+const pay = { aQuote: "", bQuote: "", aSession: "", bSession: "", aOrder: "", bOrder: "" };
+
+const rig = usePaymentRig();
+
+/** A paid order of the shop's first customer. */
+async function paidOrder(shop: TestShop, requirement: typeof KESTREL_REQUIREMENT | typeof MARLOW_REQUIREMENT) {
+  const number = await acceptedQuote(shop, shop.customers[0], requirement);
+  await payAndSettle(rig, (await checkoutFor(shop, number)).sessionId);
+  const [order] = await ordersOfQuote(shop, number);
+  if (!order) throw new Error("no order");
+  return order;
+}
+
+/** A paid order of the shop's first customer, moved to testing with a passing test (so every order route answers 200). */
+async function testedOrder(shop: TestShop, requirement: typeof KESTREL_REQUIREMENT | typeof MARLOW_REQUIREMENT) {
+  const order = await paidOrder(shop, requirement);
+  const manager = contextOf(shop, shop.manager, "manager");
+  for (const [from, to] of [
+    ["paid", "kitting"],
+    ["kitting", "assembling"],
+    ["assembling", "testing"],
+  ] as const)
+    await applyOrderMove(manager, { number: order.number, from, to, note: "", carrier: "", trackingReference: "" });
+  const d = await getOrderDetail(shop.id, order.number);
+  if (!d) throw new Error("no order detail");
+  const l = testLimitsOf(d.arrangement, d.requirement);
+  await saveBankTest(manager, {
+    number: order.number,
+    bank: 1,
+    note: "",
+    measured: {
+      capacitance: l.capacitance.nominal,
+      esr: l.esr.new,
+      leakageCurrent: 0,
+      holdMinutes: l.minHoldMinutes,
+      positionVoltages: l.positions.map(() => l.positionVoltage.nominal),
+    },
+  });
+  return order.number;
+}
 
 async function upload(shop: string, cookie: string) {
   const form = new FormData();
@@ -94,6 +152,59 @@ const ROUTES: { name: string; call: (shop: TestShop, cookie: string) => Promise<
     own: (s) => s.estimator,
     ok: 200,
   },
+  {
+    name: "POST /api/v1/shops/[shop]/quotes/[number]/checkout",
+    call: (s, cookie) => {
+      const number = s === A ? pay.aQuote : pay.bQuote;
+      return checkoutRoute(
+        request(`/api/v1/shops/${s.slug}/quotes/${number}/checkout`, { method: "POST", cookie, body: JSON.stringify({ revision: 1, kind: "full" }) }),
+        {
+          params: Promise.resolve({ shop: s.slug, number }),
+        },
+      );
+    },
+    own: (s) => s.customers[0],
+    ok: 200,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/quotes/[number]/checkout",
+    call: (s, cookie) => {
+      const [number, session] = s === A ? [pay.aQuote, pay.aSession] : [pay.bQuote, pay.bSession];
+      return checkoutStateRoute(request(`/api/v1/shops/${s.slug}/quotes/${number}/checkout?session=${session}`, { cookie }), {
+        params: Promise.resolve({ shop: s.slug, number }),
+      });
+    },
+    own: (s) => s.customers[0],
+    ok: 200,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/orders",
+    call: (s, cookie) => listOrdersRoute(request(`/api/v1/shops/${s.slug}/orders`, { cookie }), shopParams(s.slug)),
+    own: (s) => s.estimator,
+    ok: 200,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/orders/[number]/traveler",
+    call: (s, cookie) => {
+      const number = s === A ? pay.aOrder : pay.bOrder;
+      return orderTravelerRoute(request(`/api/v1/shops/${s.slug}/orders/${number}/traveler`, { cookie }), {
+        params: Promise.resolve({ shop: s.slug, number }),
+      });
+    },
+    own: (s) => s.estimator,
+    ok: 200,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/orders/[number]/certificate",
+    call: (s, cookie) => {
+      const number = s === A ? pay.aOrder : pay.bOrder;
+      return orderCertificateRoute(request(`/api/v1/shops/${s.slug}/orders/${number}/certificate`, { cookie }), {
+        params: Promise.resolve({ shop: s.slug, number }),
+      });
+    },
+    own: (s) => s.customers[0],
+    ok: 200,
+  },
 ];
 
 /** Route handlers that hold no shop's data, or whose shop rules are checked elsewhere. */
@@ -104,10 +215,25 @@ const NOT_SHOP_SCOPED = new Set([
   "POST /api/v1/networks/tolerance", // pure engine, no shop: answered alike below
   "GET /api/auth/[...all]", // better-auth's own endpoints: its organization plugin checks membership
   "POST /api/auth/[...all]",
+  // the payment service's signed events: no session and no cross-site check (the signature is the
+  // credential); each event names its shop and payment, which must match a payment of that shop
+  // (lib/payments/events.ts; tests/integration/payments.test.ts)
+  "POST /api/webhooks/stripe",
 ]);
 /** Public, but reads only the shop its URL names: tested below. */
 const PUBLIC_SHOP_ROUTES = new Set(["POST /api/v1/shops/[shop]/arrangements"]);
-const ACTIONS = new Set(["changeMemberRole", "chooseArrangement", "exploreArrangements", "joinShop", "openShop"]);
+const ACTIONS = new Set([
+  "changeMemberRole",
+  "chooseArrangement",
+  "exploreArrangements",
+  "joinShop",
+  "openShop",
+  "startCheckout",
+  "moveOrder",
+  "cancelOrder",
+  "recordTest",
+  "refundOrder",
+]);
 
 /** The engine's network analyses: open to visitors, holding no shop's data, so every caller gets the same answer. */
 const ENGINE_NETWORK = {
@@ -152,10 +278,18 @@ function filesUnder(dir: string, name: string): string[] {
 
 beforeAll(async () => {
   [A, B] = await Promise.all([createShop("kestrel"), createShop("marlow")]);
+  // B: Q-…-0001, a tested order (quote 0002, order 0001) and a payable quote (0003)
   bQuote = await createQuote(B, B.customers[0], MARLOW_REQUIREMENT);
-  // A's second quote has a number B does not have
+  pay.bOrder = await testedOrder(B, MARLOW_REQUIREMENT);
+  pay.bQuote = await acceptedQuote(B, B.customers[0], MARLOW_REQUIREMENT);
+  // A has more of each, so its last quote (0005) and its tested order (0002) have numbers B does not have
+  await paidOrder(A, KESTREL_REQUIREMENT);
+  pay.aOrder = await testedOrder(A, KESTREL_REQUIREMENT);
+  pay.aQuote = await acceptedQuote(A, A.customers[0], KESTREL_REQUIREMENT);
   await createQuote(A, A.customers[0], KESTREL_REQUIREMENT);
   aQuote = await createQuote(A, A.customers[0], KESTREL_REQUIREMENT);
+  pay.aSession = (await checkoutFor(A, pay.aQuote)).sessionId;
+  pay.bSession = (await checkoutFor(B, pay.bQuote)).sessionId;
   const up = await upload(A.slug, await sessionCookie(A.customers[0].email));
   aAttachment = ((await up.json()) as { id: string }).id;
 });
@@ -226,7 +360,8 @@ describe("tenancy", () => {
     const quotes = (await (
       await listQuotesRoute(request(`/api/v1/shops/${A.slug}/quotes`, { cookie: await sessionCookie(A.estimator.email) }), shopParams(A.slug))
     ).json()) as { rows: { number: string; customerEmail: string }[] };
-    expect(quotes.rows.map((r) => r.customerEmail)).toEqual([A.customers[0].email, A.customers[0].email]);
+    // two plain quotes, two paid ones and a payable one: all the first customer's
+    expect(quotes.rows.map((r) => r.customerEmail)).toEqual(Array.from({ length: 5 }, () => A.customers[0].email));
   });
 
   it("the public arrangements route searches only the named shop's catalog", async () => {
@@ -282,6 +417,34 @@ describe("tenancy", () => {
       expect(await getMemberRole(B.id, B.manager.id)).toBe("manager");
     });
 
+    it("startCheckout refuses another shop's customer, and another customer of the shop finds no such quote", async () => {
+      // a number A has and B does not, asked through B's shop by B's customer: not found
+      await actAs(B.customers[0].email);
+      expect(await startCheckout(B.slug, { number: aQuote, revision: 1, kind: "full" })).toMatchObject({ ok: false, code: "not-found" });
+      await actAs(B.customers[0].email);
+      expect(await startCheckout(A.slug, { number: pay.aQuote, revision: 1, kind: "full" })).toMatchObject({ ok: false, code: "forbidden" });
+      await actAs(A.customers[1].email);
+      expect(await startCheckout(A.slug, { number: pay.aQuote, revision: 1, kind: "full" })).toMatchObject({ ok: false, code: "not-found" });
+    });
+
+    it("the order actions refuse the other shop's manager and do not reach the other shop's orders", async () => {
+      const key = () => crypto.randomUUID();
+      const before = await getOrderDetail(A.id, pay.aOrder);
+      await actAs(B.manager.email);
+      const acts = (shop: string, number: string) => [
+        moveOrder(shop, { number, from: "testing", to: "on-hold", note: "" }),
+        recordTest(shop, { number, bank: 1, capacitance: "1 F", esr: "1 mΩ", leakageCurrent: "0 A", holdMinutes: 60, positionVoltages: "1 V", note: "" }),
+        refundOrder(shop, { number, amount: "1.00", reason: "probe", idempotencyKey: key() }),
+        cancelOrder(shop, { number, from: "testing", note: "probe", refund: true, idempotencyKey: key() }),
+      ];
+      for (const r of await Promise.all(acts(A.slug, pay.aOrder))) expect(r).toMatchObject({ ok: false, code: "forbidden" });
+      // A's order number through B's own shop: not found
+      for (const r of await Promise.all(acts(B.slug, pay.aOrder)))
+        expect(r).toMatchObject({ ok: false, code: expect.stringMatching(/not-found|invalid|conflict/) });
+      const after = await getOrderDetail(A.id, pay.aOrder);
+      expect(after?.order).toEqual(before?.order);
+    });
+
     it("openShop cannot take another shop's address, and creates nothing when refused", async () => {
       await actAs(null);
       const email = `opener.${crypto.randomUUID().slice(0, 8)}@elsewhere.example`;
@@ -301,6 +464,10 @@ describe("tenancy", () => {
       ["catalog", (s: string) => DeskCatalogPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["team", (s: string) => DeskTeamPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["outbox", (s: string) => DeskOutboxPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
+      ["orders board", (s: string) => DeskOrdersPage({ params: Promise.resolve({ shop: s }) })],
+      ["orders list", (s: string) => DeskOrdersListPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
+      ["order", (s: string) => DeskOrderPage({ params: Promise.resolve({ shop: s, number: pay.aOrder }) })],
+      ["dashboard", (s: string) => DeskDashboardPage({ params: Promise.resolve({ shop: s }) })],
     ] as const;
 
     it.each(desk)("the desk's %s refuses the other shop's manager and opens for the shop's own", async (_name, render) => {
@@ -318,6 +485,23 @@ describe("tenancy", () => {
       expect(await pageAnswer(() => StorefrontQuotePage({ params: Promise.resolve({ shop: A.slug, number: aQuote }) }))).toBe("404");
       await actAs(A.customers[0].email);
       expect(await pageAnswer(() => StorefrontQuotePage({ params: Promise.resolve({ shop: A.slug, number: aQuote }) }))).toBe("ok");
+    });
+
+    it("a customer's order pages and the payment page refuse another shop's customer; another customer's order is not found", async () => {
+      const orderPage = () => CustomerOrderPage({ params: Promise.resolve({ shop: A.slug, number: pay.aOrder }) });
+      const paidPage = () =>
+        PaidPage({ params: Promise.resolve({ shop: A.slug, number: pay.aQuote }), searchParams: Promise.resolve({ session: pay.aSession }) });
+      await actAs(B.customers[0].email);
+      expect(await pageAnswer(() => MyOrdersPage({ params: Promise.resolve({ shop: A.slug }), searchParams: Promise.resolve({}) }))).toBe("403");
+      expect(await pageAnswer(orderPage)).toBe("403");
+      expect(await pageAnswer(paidPage)).toBe("403");
+      await actAs(A.customers[1].email);
+      expect(await pageAnswer(orderPage)).toBe("404");
+      expect(await pageAnswer(paidPage)).toBe("404");
+      expect(await pageAnswer(() => CustomerOrderPage({ params: Promise.resolve({ shop: A.slug, number: pay.bOrder }) }))).toBe("404");
+      await actAs(A.customers[0].email);
+      expect(await pageAnswer(orderPage)).toBe("ok");
+      expect(await pageAnswer(paidPage)).toBe("ok");
     });
   });
 
@@ -339,15 +523,23 @@ describe("tenancy", () => {
       const all = { ...quoteList.defaults, size: 100 };
       const [aq, bq] = await Promise.all([listQuotes(A.id, { all: true }, all), listQuotes(B.id, { all: true }, all)]);
       expect(aq.rows.map((r) => r.number)).toContain(aQuote);
-      expect(aq.total).toBe(2);
-      expect(bq.rows.map((r) => r.number)).toEqual([bQuote]);
+      expect(aq.total).toBe(5);
+      expect(bq.rows.map((r) => r.number)).toContain(bQuote);
+      expect(bq.total).toBe(3);
       expect(aq.rows.some((r) => r.id === bq.rows[0]?.id)).toBe(false);
       const ar = await listRequests(A.id, { ...requestList.defaults, size: 100 });
-      expect(ar.rows.map((r) => r.customerEmail)).toEqual([A.customers[0].email, A.customers[0].email]);
+      expect(ar.rows.map((r) => r.customerEmail)).toEqual(Array.from({ length: 5 }, () => A.customers[0].email));
       const am = await listMembers(A.id, { ...memberList.defaults, size: 100 });
       expect(am.total).toBe(4);
       const ao = await listOutbox(A.id, { ...outboxList.defaults, size: 100 });
-      expect(ao.rows.map((r) => r.toEmail)).toEqual([A.customers[0].email, A.customers[0].email]);
+      // five "quote ready" and two "order confirmed", all to the first customer
+      expect(ao.rows.map((r) => r.toEmail)).toEqual(Array.from({ length: 7 }, () => A.customers[0].email));
+      const [ao2, bo2] = await Promise.all([
+        listOrders(A.id, { all: true }, orderList.defaults, "2026-01-01"),
+        listOrders(B.id, { all: true }, orderList.defaults, "2026-01-01"),
+      ]);
+      expect(ao2.rows.map((r) => r.number).sort()).toEqual([pay.aOrder.replace(/0002$/, "0001"), pay.aOrder]);
+      expect(bo2.rows.map((r) => r.number)).toEqual([pay.bOrder]);
       const own = new Set((await listActiveCells(A.id)).map((c) => c.id));
       const cells = await listCatalogCells(A.id, { ...catalogList.defaults, size: 100 });
       expect(cells.rows.every((c) => c.shopId === A.id)).toBe(true);

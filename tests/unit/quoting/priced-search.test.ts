@@ -51,6 +51,7 @@ const arbRules: fc.Arbitrary<PricingRules> = fc.constantFrom(...CURRENCIES).chai
     enclosurePackingFactor: fc.double({ min: 1, max: 2, noNaN: true }),
     quantityBreaks: fc.constant([{ minQuantity: 5, discountPct: "4" }]),
     quoteValidityDays: fc.constant(30),
+    depositPercent: fc.integer({ min: 0, max: 100 }),
   });
 });
 

@@ -13,6 +13,7 @@ export const DESK_SECTIONS: { path: string; label: string; permission: Permissio
   { path: "catalog", label: "Catalog", permission: "catalog:read", summary: "Cells and parts the shop builds from." },
   { path: "pricing", label: "Pricing rules", permission: "pricing:read", summary: "Labour, overhead, margin, quantity breaks and tax." },
   { path: "orders", label: "Orders", permission: "order:read-all", summary: "Paid orders through kitting, assembly, test and shipping." },
+  { path: "dashboard", label: "Dashboard", permission: "reports:read", summary: "Quotes, conversion, revenue by month, orders per stage and late orders." },
   { path: "team", label: "Team", permission: "team:read", summary: "The shop's members and their roles." },
   { path: "outbox", label: "Outbox", permission: "outbox:read", summary: "E-mail sent, waiting and failed." },
   { path: "settings", label: "Settings", permission: "settings:write", summary: "Design factors, auto-quote limits and storefront text." },
