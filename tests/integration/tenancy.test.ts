@@ -102,6 +102,7 @@ const NOT_SHOP_SCOPED = new Set([
   "POST /api/v1/networks/evaluate", // pure engine, no shop
   "POST /api/v1/networks/failures", // pure engine, no shop: answered alike below
   "POST /api/v1/networks/tolerance", // pure engine, no shop: answered alike below
+  "GET /api/v1/openapi.json", // the API description: the same for everyone
   "GET /api/auth/[...all]", // better-auth's own endpoints: its organization plugin checks membership
   "POST /api/auth/[...all]",
 ]);
