@@ -5,3 +5,4 @@ export * from "./quotes";
 export * from "./mail";
 export * from "./security";
 export * from "./records";
+export * from "./webhooks";

@@ -15,6 +15,7 @@ export const STATEMENTS = {
   team: ["read", "update-role"],
   settings: ["read", "write"],
   outbox: ["read"],
+  webhook: ["manage"],
 } as const;
 
 type Statements = typeof STATEMENTS;

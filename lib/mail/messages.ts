@@ -6,6 +6,7 @@ import type { EmailOutboxRow } from "@/db/schema";
 import { QuoteReadyEmail } from "@/emails/quote-ready";
 import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 import { ACCOUNT_EXISTS_KIND, buildAccountExistsMessage } from "./account-notice";
+import { buildWebhookStoppedMessage, WEBHOOK_STOPPED_KIND } from "@/lib/webhooks/stopped-notice";
 import { formatMoney } from "@/lib/pricing";
 import { mailSettings } from "./config";
 import { formatValidity, outboxMessageId, quotePageUrl } from "./format";
@@ -14,6 +15,7 @@ import type { OutgoingMessage } from "./transport";
 /** Builds the message an outbox row announces, from the records it points at. */
 export async function buildOutboxMessage(row: EmailOutboxRow): Promise<OutgoingMessage> {
   if (row.kind === ACCOUNT_EXISTS_KIND) return buildAccountExistsMessage(row);
+  if (row.kind === WEBHOOK_STOPPED_KIND) return buildWebhookStoppedMessage(row);
   if (row.kind !== "quote-ready") throw new Error(`no message template for outbox kind "${row.kind}"`);
   if (!row.quoteRevisionId) throw new Error("the quote revision of this message no longer exists");
   const facts = await getQuoteReadyFacts(row.shopId, row.quoteRevisionId);

@@ -1,6 +1,6 @@
 import { ROLES } from "@/lib/auth/permissions";
 import { TECHNOLOGIES } from "@/lib/bank/types";
-import { OUTBOX_STATUSES, QUOTE_STATUSES, REQUEST_STATUSES } from "@/lib/vocabulary";
+import { OUTBOX_STATUSES, QUOTE_STATUSES, REQUEST_STATUSES, SHOP_EVENT_TYPES, WEBHOOK_DELIVERY_STATES, WEBHOOK_ENDPOINT_STATES } from "@/lib/vocabulary";
 import { z } from "zod";
 import { decimalSchema } from "./bank";
 import { defineList, pageSchema, type ListQueryOf } from "./list-query";
@@ -85,3 +85,22 @@ export const outboxList = defineList({
   size: 20,
 });
 export type OutboxListQuery = ListQueryOf<typeof outboxList>;
+
+export const webhookEndpointList = defineList({
+  search: true,
+  filters: { state: ["all", ...WEBHOOK_ENDPOINT_STATES] },
+  sorts: { created: "desc", url: "asc", state: "asc", failing: "asc" },
+  sort: "created",
+  size: 20,
+});
+export type WebhookEndpointListQuery = ListQueryOf<typeof webhookEndpointList>;
+
+/** One endpoint's delivery log: newest first; failures and the next retry can be brought up first. */
+export const webhookDeliveryList = defineList({
+  search: true,
+  filters: { state: ["all", ...WEBHOOK_DELIVERY_STATES], event: ["all", ...SHOP_EVENT_TYPES] },
+  sorts: { created: "desc", state: "asc", attempts: "desc", code: "desc", duration: "desc", next: "asc" },
+  sort: "created",
+  size: 25,
+});
+export type WebhookDeliveryListQuery = ListQueryOf<typeof webhookDeliveryList>;
