@@ -4,6 +4,9 @@ import { API_TAGS, type ApiExample, type RouteContract } from "./contract";
 import { CONTRACTS } from "./contracts";
 import { EXAMPLE_SHOP } from "./contracts/shared";
 import { apiErrorSchema } from "./errors";
+import { webhookEventSchema } from "@/lib/validation/webhooks";
+import { SHOP_EVENT_LABELS, SHOP_EVENT_TYPES } from "@/lib/vocabulary";
+import { WEBHOOK_HEADERS } from "@/lib/webhooks/signature";
 
 /** The origin examples use when the caller names none (the local `npm start`). */
 export const DEFAULT_API_ORIGIN = "http://127.0.0.1:3000";
@@ -52,7 +55,7 @@ function overview(origin: string): string {
     signInCommand(origin),
     "```",
     "",
-    "**Outbound webhooks.** A shop's manager registers endpoints on the desk (Webhooks); each delivery is signed. How to verify a signature is on this page's companion section below the operations.",
+    "**Outbound webhooks.** A shop's manager registers endpoints on the desk (Webhooks) and picks the events each hears of; every delivery is a signed POST described under Webhooks below, and how to check the signature is in the Webhooks section at the foot of this page.",
   ].join("\n");
 }
 
@@ -108,6 +111,29 @@ function operation(contract: RouteContract, origin: string): ZodOpenApiOperation
   };
 }
 
+/** One outbound event as OpenAPI 3.1 describes a webhook: the POST a shop's endpoint receives. */
+function webhookOperation(type: (typeof SHOP_EVENT_TYPES)[number]): ZodOpenApiOperationObject {
+  return {
+    operationId: `webhook.${type}`,
+    summary: `${type}: ${SHOP_EVENT_LABELS[type]}`,
+    description:
+      "Sent to every active endpoint that takes this event, at least once: answer 2xx within 10 s, and dedupe on the event id. Verify the signature over the raw body before trusting it.",
+    requestParams: {
+      header: z.object({
+        [WEBHOOK_HEADERS.eventId]: z.uuid().meta({ description: "the event's stable id (also `id` in the body)" }),
+        [WEBHOOK_HEADERS.eventType]: z.literal(type),
+        [WEBHOOK_HEADERS.deliveryId]: z.uuid().meta({ description: "this delivery; a replay is a new delivery of the same event" }),
+        [WEBHOOK_HEADERS.timestamp]: z.string().meta({ description: "Unix time in seconds of this attempt" }),
+        [WEBHOOK_HEADERS.signature]: z
+          .string()
+          .meta({ description: "`v1=` and the hex HMAC-SHA256 of `<timestamp>.<raw body>` with the endpoint's signing secret" }),
+      }),
+    },
+    requestBody: { required: true, content: { "application/json": { schema: webhookEventSchema } } },
+    responses: { 200: { description: "Any 2xx: delivered. Anything else, a timeout or a redirect is tried again with back-off." } },
+  };
+}
+
 /**
  * The OpenAPI 3.1 description of every route in CONTRACTS, with `origin` in its server and curl
  * examples. Pure: no environment read; GET /api/v1/openapi.json passes the app's own origin.
@@ -124,6 +150,7 @@ export function buildOpenApiDocument({ origin = DEFAULT_API_ORIGIN }: { origin?:
     servers: [{ url: origin }],
     tags: API_TAGS.map((t) => ({ ...t })),
     paths,
+    webhooks: Object.fromEntries(SHOP_EVENT_TYPES.map((type) => [type, { post: webhookOperation(type) }])),
     components: {
       securitySchemes: {
         session: {

@@ -272,7 +272,108 @@ export interface paths {
     trace?: never;
   };
 }
-export type webhooks = Record<string, never>;
+export interface webhooks {
+  "quote.issued": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /**
+     * quote.issued: A quote or a new revision of it was issued to a customer
+     * @description Sent to every active endpoint that takes this event, at least once: answer 2xx within 10 s, and dedupe on the event id. Verify the signature over the raw body before trusting it.
+     */
+    post: operations["webhook.quote.issued"];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "quote.accepted": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /**
+     * quote.accepted: A customer accepted a quote
+     * @description Sent to every active endpoint that takes this event, at least once: answer 2xx within 10 s, and dedupe on the event id. Verify the signature over the raw body before trusting it.
+     */
+    post: operations["webhook.quote.accepted"];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "order.status_changed": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /**
+     * order.status_changed: An order moved (kitting, assembling, testing, ready, shipped, delivered, cancelled)
+     * @description Sent to every active endpoint that takes this event, at least once: answer 2xx within 10 s, and dedupe on the event id. Verify the signature over the raw body before trusting it.
+     */
+    post: operations["webhook.order.status_changed"];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "payment.refunded": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /**
+     * payment.refunded: A payment was refunded
+     * @description Sent to every active endpoint that takes this event, at least once: answer 2xx within 10 s, and dedupe on the event id. Verify the signature over the raw body before trusting it.
+     */
+    post: operations["webhook.payment.refunded"];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "catalog.imported": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    get?: never;
+    put?: never;
+    /**
+     * catalog.imported: A catalog import was applied
+     * @description Sent to every active endpoint that takes this event, at least once: answer 2xx within 10 s, and dedupe on the event id. Verify the signature over the raw body before trusting it.
+     */
+    post: operations["webhook.catalog.imported"];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+}
 export interface components {
   schemas: {
     /** @description A cell, or a series or parallel group of networks (SI units: F, V, Ω, A). At most 64 levels deep and 20,000 cells. */
@@ -294,6 +395,29 @@ export interface components {
           kind: "series" | "parallel";
           children: components["schemas"]["NetworkNode"][];
         };
+    WebhookEvent: {
+      /**
+       * Format: uuid
+       * @description the event's stable id: the same on every attempt and replay; dedupe on it
+       */
+      id: string;
+      /** @enum {string} */
+      type: "quote.issued" | "quote.accepted" | "order.status_changed" | "payment.refunded" | "catalog.imported";
+      /**
+       * Format: date-time
+       * @description when it happened
+       */
+      createdAt: string;
+      /**
+       * @description the shop's address name
+       * @example kestrel-bank-works
+       */
+      shop: string;
+      /** @description what the event is about (quote number and revision, order number and status, amounts as decimal strings) */
+      data: {
+        [key: string]: unknown;
+      };
+    };
     NetworkEvaluation: {
       /** @description equivalent capacitance (F) */
       capacitance: number;
@@ -1308,6 +1432,166 @@ export interface operations {
             [key: string]: unknown;
           };
         };
+      };
+    };
+  };
+  "webhook.quote.issued": {
+    parameters: {
+      query?: never;
+      header: {
+        /** @description the event's stable id (also `id` in the body) */
+        "faradsmith-event-id": string;
+        "faradsmith-event-type": "quote.issued";
+        /** @description this delivery; a replay is a new delivery of the same event */
+        "faradsmith-delivery-id": string;
+        /** @description Unix time in seconds of this attempt */
+        "faradsmith-timestamp": string;
+        /** @description `v1=` and the hex HMAC-SHA256 of `<timestamp>.<raw body>` with the endpoint's signing secret */
+        "faradsmith-signature": string;
+      };
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        "application/json": components["schemas"]["WebhookEvent"];
+      };
+    };
+    responses: {
+      /** @description Any 2xx: delivered. Anything else, a timeout or a redirect is tried again with back-off. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+    };
+  };
+  "webhook.quote.accepted": {
+    parameters: {
+      query?: never;
+      header: {
+        /** @description the event's stable id (also `id` in the body) */
+        "faradsmith-event-id": string;
+        "faradsmith-event-type": "quote.accepted";
+        /** @description this delivery; a replay is a new delivery of the same event */
+        "faradsmith-delivery-id": string;
+        /** @description Unix time in seconds of this attempt */
+        "faradsmith-timestamp": string;
+        /** @description `v1=` and the hex HMAC-SHA256 of `<timestamp>.<raw body>` with the endpoint's signing secret */
+        "faradsmith-signature": string;
+      };
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        "application/json": components["schemas"]["WebhookEvent"];
+      };
+    };
+    responses: {
+      /** @description Any 2xx: delivered. Anything else, a timeout or a redirect is tried again with back-off. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+    };
+  };
+  "webhook.order.status_changed": {
+    parameters: {
+      query?: never;
+      header: {
+        /** @description the event's stable id (also `id` in the body) */
+        "faradsmith-event-id": string;
+        "faradsmith-event-type": "order.status_changed";
+        /** @description this delivery; a replay is a new delivery of the same event */
+        "faradsmith-delivery-id": string;
+        /** @description Unix time in seconds of this attempt */
+        "faradsmith-timestamp": string;
+        /** @description `v1=` and the hex HMAC-SHA256 of `<timestamp>.<raw body>` with the endpoint's signing secret */
+        "faradsmith-signature": string;
+      };
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        "application/json": components["schemas"]["WebhookEvent"];
+      };
+    };
+    responses: {
+      /** @description Any 2xx: delivered. Anything else, a timeout or a redirect is tried again with back-off. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+    };
+  };
+  "webhook.payment.refunded": {
+    parameters: {
+      query?: never;
+      header: {
+        /** @description the event's stable id (also `id` in the body) */
+        "faradsmith-event-id": string;
+        "faradsmith-event-type": "payment.refunded";
+        /** @description this delivery; a replay is a new delivery of the same event */
+        "faradsmith-delivery-id": string;
+        /** @description Unix time in seconds of this attempt */
+        "faradsmith-timestamp": string;
+        /** @description `v1=` and the hex HMAC-SHA256 of `<timestamp>.<raw body>` with the endpoint's signing secret */
+        "faradsmith-signature": string;
+      };
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        "application/json": components["schemas"]["WebhookEvent"];
+      };
+    };
+    responses: {
+      /** @description Any 2xx: delivered. Anything else, a timeout or a redirect is tried again with back-off. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+    };
+  };
+  "webhook.catalog.imported": {
+    parameters: {
+      query?: never;
+      header: {
+        /** @description the event's stable id (also `id` in the body) */
+        "faradsmith-event-id": string;
+        "faradsmith-event-type": "catalog.imported";
+        /** @description this delivery; a replay is a new delivery of the same event */
+        "faradsmith-delivery-id": string;
+        /** @description Unix time in seconds of this attempt */
+        "faradsmith-timestamp": string;
+        /** @description `v1=` and the hex HMAC-SHA256 of `<timestamp>.<raw body>` with the endpoint's signing secret */
+        "faradsmith-signature": string;
+      };
+      path?: never;
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        "application/json": components["schemas"]["WebhookEvent"];
+      };
+    };
+    responses: {
+      /** @description Any 2xx: delivered. Anything else, a timeout or a redirect is tried again with back-off. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
       };
     };
   };
