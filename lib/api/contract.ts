@@ -40,6 +40,8 @@ export interface ApiExample {
   form?: Record<string, string>;
   /** where curl writes a file answer */
   output?: string;
+  /** the demo account the example is run as (the shop's manager unless it says otherwise) */
+  as?: "manager" | "customer";
 }
 
 /** What a route answers when it succeeds: JSON shaped by a schema, or a file of the given types. */

@@ -34,12 +34,12 @@ export function curlCommand(origin: string, contract: RouteContract, example: Ap
 }
 
 /** How a program signs in for the member routes: the session cookie lands in cookies.txt. */
-export function signInCommand(origin: string): string {
+export function signInCommand(origin: string, email = EXAMPLE_SIGN_IN.email): string {
   return [
     "curl -s -c cookies.txt",
     shellQuote(`${origin}/api/auth/sign-in/email`),
     "-H 'content-type: application/json'",
-    `-d ${shellQuote(JSON.stringify(EXAMPLE_SIGN_IN))}`,
+    `-d ${shellQuote(JSON.stringify({ ...EXAMPLE_SIGN_IN, email }))}`,
   ].join(" \\\n  ");
 }
 

@@ -179,7 +179,7 @@ export interface paths {
      *
      *     Needs a member's session (see Signing in).
      *
-     *     **Example: Attach drawing.pdf**
+     *     **Example: Attach drawing.pdf (signed in as a customer)**
      *
      *     ```sh
      *     curl -s -X POST 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/attachments' \

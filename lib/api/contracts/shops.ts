@@ -89,7 +89,7 @@ export const uploadAttachment = defineRoute({
     403: `${REFUSED.notMember} ${REFUSED.crossSite}`,
     404: REFUSED.noShop,
   },
-  examples: [{ title: "Attach drawing.pdf", params: { shop: EXAMPLE_SHOP }, form: { file: "@drawing.pdf" } }],
+  examples: [{ title: "Attach drawing.pdf (signed in as a customer)", params: { shop: EXAMPLE_SHOP }, form: { file: "@drawing.pdf" }, as: "customer" }],
 });
 
 export const downloadAttachment = defineRoute({

@@ -80,7 +80,7 @@ export function ReplayButton({ shop, deliveryId }: { shop: string; deliveryId: s
       <button
         type="button"
         disabled={pending}
-        className="text-sm font-medium text-copper-700 hover:underline disabled:text-ink-300"
+        className="whitespace-nowrap text-sm font-medium text-copper-700 hover:underline disabled:text-ink-300"
         onClick={() =>
           start(async () => {
             const r = await replayWebhookDelivery(shop, { deliveryId });
