@@ -33,7 +33,7 @@ import { attemptDelivery } from "@/lib/webhooks/deliver";
 import { VERIFY_SNIPPET, WEBHOOK_HEADERS } from "@/lib/webhooks/signature";
 import { dispatchWebhooks, startWebhookWorker, stopWebhookWorker } from "@/lib/webhooks/worker";
 import { createShop, type TestShop } from "./fixtures";
-import { actAs } from "./helpers";
+import { actAs, waitFor } from "./helpers";
 
 interface Received {
   headers: http.IncomingHttpHeaders;
@@ -53,17 +53,6 @@ const secrets = new Map<string, string>();
 
 const quick: Partial<WebhookSettings> = { retryBaseMs: 200, retryMaxMs: 400, pollIntervalMs: 200, maxAttempts: 4, allowLoopback: true, timeoutMs: 5000 };
 const original = webhookSettings();
-
-/** Polls until `check` holds; the limit only bounds a broken run, it measures nothing. */
-async function waitFor<T>(what: string, read: () => Promise<T> | T, check: (value: T) => boolean, limitMs = 30_000): Promise<T> {
-  const until = Date.now() + limitMs;
-  for (;;) {
-    const value = await read();
-    if (check(value)) return value;
-    if (Date.now() > until) throw new Error(`gave up waiting for ${what}; last seen ${JSON.stringify(value)}`);
-    await new Promise((r) => setTimeout(r, 100));
-  }
-}
 
 const hits = (p: string) => received.get(p) ?? [];
 

@@ -8,7 +8,7 @@
  * (4xx); the status must be one the operation lists; the content type one it lists for that status;
  * a JSON body must match that status's schema.
  */
-import Ajv2020, { type ValidateFunction } from "ajv/dist/2020";
+import Ajv2020, { type ValidateFunction } from "ajv/dist/2020.js";
 import addFormats from "ajv-formats";
 
 interface Parameter {

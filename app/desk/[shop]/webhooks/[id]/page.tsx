@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ListView } from "@/components/ui/list-controls";
 import { PageHeader } from "@/components/ui/page-header";
+import { StateCounts } from "@/components/ui/state-counts";
 import { countDeliveriesByState, getWebhookEndpoint, listWebhookDeliveries } from "@/db/queries/webhooks";
 import { requireShopPage } from "@/lib/auth/guards";
 import { webhookDeliveryList } from "@/lib/validation/lists";
@@ -64,16 +65,7 @@ export default async function WebhookEndpointPage({
         <h2 id="log" className="text-lg font-semibold">
           Delivery log
         </h2>
-        <dl className="flex flex-wrap gap-3 text-sm" aria-label="Deliveries by state">
-          {WEBHOOK_DELIVERY_STATES.map((s) => (
-            <div key={s} className="rounded-lg bg-white px-4 py-2 ring-1 ring-ink-100">
-              <dt className="text-xs text-ink-600">{WEBHOOK_DELIVERY_STATE_LABELS[s]}</dt>
-              <dd className="num text-lg font-semibold" data-testid={`deliveries-${s}`}>
-                {counts[s]}
-              </dd>
-            </div>
-          ))}
-        </dl>
+        <StateCounts label="Deliveries by state" states={WEBHOOK_DELIVERY_STATES} labels={WEBHOOK_DELIVERY_STATE_LABELS} counts={counts} testId="deliveries" />
         <ListView
           state={state}
           caption="Deliveries to this endpoint"
