@@ -69,6 +69,30 @@ export const PAYMENT_KIND_LABELS: Record<PaymentKind, string> = { full: "Full pa
 /** What a shop's own systems can hear of through outbound webhooks (db/schema/records.ts). */
 export const SHOP_EVENT_TYPES = ["quote.issued", "quote.accepted", "order.status_changed", "payment.refunded", "catalog.imported"] as const;
 export type ShopEventType = (typeof SHOP_EVENT_TYPES)[number];
+/** What each event means, as the webhook form explains it. */
+export const SHOP_EVENT_LABELS: Record<ShopEventType, string> = {
+  "quote.issued": "A quote or a new revision of it was issued to a customer",
+  "quote.accepted": "A customer accepted a quote",
+  "order.status_changed": "An order moved (kitting, assembling, testing, ready, shipped, delivered, cancelled)",
+  "payment.refunded": "A payment was refunded",
+  "catalog.imported": "A catalog import was applied",
+};
+
+/** An outbound webhook endpoint: sending, or stopped (by the manager, or after failing for days). */
+export const WEBHOOK_ENDPOINT_STATES = ["active", "disabled"] as const;
+export type WebhookEndpointState = (typeof WEBHOOK_ENDPOINT_STATES)[number];
+export const WEBHOOK_ENDPOINT_STATE_LABELS: Record<WebhookEndpointState, string> = { active: "Sending", disabled: "Stopped" };
+
+/** One delivery of one event to one endpoint, through its attempts. */
+export const WEBHOOK_DELIVERY_STATES = ["waiting", "retrying", "delivered", "failed", "cancelled"] as const;
+export type WebhookDeliveryState = (typeof WEBHOOK_DELIVERY_STATES)[number];
+export const WEBHOOK_DELIVERY_STATE_LABELS: Record<WebhookDeliveryState, string> = {
+  waiting: "Waiting",
+  retrying: "Trying again",
+  delivered: "Delivered",
+  failed: "Gave up",
+  cancelled: "Not sent (endpoint stopped)",
+};
 
 export const OUTBOX_STATUSES = ["waiting", "sent", "failed"] as const;
 export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];

@@ -20,7 +20,7 @@ const only = process.argv.slice(2); // e.g. `npm test -- unit integration`
 const wants = (layer) => only.length === 0 || only.includes(layer);
 
 const started = Date.now();
-ensureDebianPackages(["postgresql", "chromium", "ngspice", "poppler-utils"]);
+ensureDebianPackages(["postgresql", "chromium", "ngspice", "poppler-utils", "curl"]);
 ensureNpmPackages();
 
 const out = path.join(root, ".data", "test-results");
@@ -37,6 +37,9 @@ const env = {
   BETTER_AUTH_URL: appUrl,
   // the browser tests run a production server, which refuses the development secret
   BETTER_AUTH_SECRET: process.env.BETTER_AUTH_SECRET ?? randomBytes(32).toString("base64url"),
+  WEBHOOK_SECRET_KEY: process.env.WEBHOOK_SECRET_KEY ?? randomBytes(32).toString("base64url"),
+  // the webhook tests' receivers listen on loopback; the production rule is tested on its own
+  WEBHOOK_ALLOW_LOOPBACK: "true",
   APP_PORT: String(APP_PORT),
   SMTP_HOST: "127.0.0.1",
   SMTP_PORT: String(SMTP_PORT),

@@ -2,8 +2,7 @@
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { useState } from "react";
-import { fetchJson } from "@/lib/http/fetch-json";
-import type { CheckoutState } from "@/lib/validation/orders";
+import { api, apiErrorMessage } from "@/lib/api/client";
 
 /** How often the page asks while the payment is being confirmed, and for how long at most. */
 const POLL_MS = 1500;
@@ -18,7 +17,13 @@ export function CheckoutProgress({ shop, number, sessionId }: { shop: string; nu
   const [started] = useState(() => Date.now());
   const { data, error } = useQuery({
     queryKey: ["checkout", shop, number, sessionId],
-    queryFn: () => fetchJson<CheckoutState>(`/api/v1/shops/${shop}/quotes/${encodeURIComponent(number)}/checkout?session=${encodeURIComponent(sessionId)}`),
+    queryFn: async () => {
+      const { data, error, response } = await api.GET("/api/v1/shops/{shop}/quotes/{number}/checkout", {
+        params: { path: { shop, number }, query: { session: sessionId } },
+      });
+      if (!data) throw new Error(apiErrorMessage(error, response));
+      return data;
+    },
     refetchInterval: (q) => {
       const d = q.state.data;
       if (d && (d.orderNumber || d.status === "expired")) return false;

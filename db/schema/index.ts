@@ -6,3 +6,4 @@ export * from "./mail";
 export * from "./security";
 export * from "./records";
 export * from "./orders";
+export * from "./webhooks";

@@ -16,6 +16,7 @@ export const STATEMENTS = {
   settings: ["read", "write"],
   outbox: ["read"],
   reports: ["read"],
+  webhook: ["manage"],
 } as const;
 
 type Statements = typeof STATEMENTS;

@@ -7,6 +7,7 @@ import { QuoteReadyEmail } from "@/emails/quote-ready";
 import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 import { buildOrderMessage, isOrderMessage } from "@/lib/orders/messages";
 import { ACCOUNT_EXISTS_KIND, buildAccountExistsMessage } from "./account-notice";
+import { buildWebhookStoppedMessage, WEBHOOK_STOPPED_KIND } from "@/lib/webhooks/stopped-notice";
 import { formatMoney } from "@/lib/pricing";
 import { mailSettings } from "./config";
 import { formatValidity, outboxMessageId, quotePageUrl } from "./format";
@@ -16,6 +17,7 @@ import type { OutgoingMessage } from "./transport";
 export async function buildOutboxMessage(row: EmailOutboxRow): Promise<OutgoingMessage> {
   if (row.kind === ACCOUNT_EXISTS_KIND) return buildAccountExistsMessage(row);
   if (isOrderMessage(row.kind)) return buildOrderMessage(row);
+  if (row.kind === WEBHOOK_STOPPED_KIND) return buildWebhookStoppedMessage(row);
   if (row.kind !== "quote-ready") throw new Error(`no message template for outbox kind "${row.kind}"`);
   if (!row.quoteRevisionId) throw new Error("the quote revision of this message no longer exists");
   const facts = await getQuoteReadyFacts(row.shopId, row.quoteRevisionId);

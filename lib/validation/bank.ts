@@ -13,7 +13,7 @@ import {
   MAX_VOLUME,
   formatBound,
 } from "../bank/bounds";
-import { TECHNOLOGIES, type NetworkNode, type Requirement } from "../bank/types";
+import { TECHNOLOGIES, TOPOLOGIES, type NetworkNode, type Requirement } from "../bank/types";
 
 /** Deepest network accepted (levels of groups and cells, the root is level 1). */
 export const MAX_NETWORK_DEPTH = 64;
@@ -47,15 +47,20 @@ const cellSchema = z.strictObject({
   tolerancePlus: z.number().min(0).max(1).optional(),
 });
 
-export const networkNodeSchema: z.ZodType<NetworkNode> = z.lazy(() =>
-  z.discriminatedUnion("kind", [
-    cellSchema,
-    z.strictObject({
-      kind: z.enum(["series", "parallel"]),
-      children: z.array(networkNodeSchema).min(1),
-    }),
-  ]),
-);
+export const networkNodeSchema: z.ZodType<NetworkNode> = z
+  .lazy(() =>
+    z.discriminatedUnion("kind", [
+      cellSchema,
+      z.strictObject({
+        kind: z.enum(["series", "parallel"]),
+        children: z.array(networkNodeSchema).min(1),
+      }),
+    ]),
+  )
+  .meta({
+    id: "NetworkNode",
+    description: `A cell, or a series or parallel group of networks (SI units: F, V, Ω, A). At most ${MAX_NETWORK_DEPTH} levels deep and ${MAX_CELLS_PER_BANK.toLocaleString("en")} cells.`,
+  });
 
 export const evaluateNetworkSchema = z.strictObject({
   appliedVoltage: quantity("Applied voltage", "V", MAX_VOLTAGE).optional(),
@@ -63,6 +68,20 @@ export const evaluateNetworkSchema = z.strictObject({
 });
 
 export type EvaluateNetworkInput = z.infer<typeof evaluateNetworkSchema>;
+
+/** The answer of POST /api/v1/networks/evaluate: the network's figures and every cell's state. */
+export const evaluateNetworkAnswerSchema = z
+  .object({
+    capacitance: z.number().meta({ description: "equivalent capacitance (F)" }),
+    esr: z.number().optional().meta({ description: "equivalent ESR (Ω), only when every cell has one" }),
+    maxVoltage: z.number().meta({ description: "largest applied voltage at which no cell exceeds its rated voltage (V): the weakest cell limits it" }),
+    energy: z.number().meta({ description: "½·C·V² at the applied voltage (J)" }),
+    charge: z.number().meta({ description: "C·V at the applied voltage (C)" }),
+    cells: z
+      .array(z.object({ id: z.string(), voltage: z.number(), charge: z.number(), energy: z.number() }))
+      .meta({ description: "every cell at the applied voltage (or at maxVoltage when none was given), depth-first, children left to right" }),
+  })
+  .meta({ id: "NetworkEvaluation" });
 
 export const technologySchema = z.enum(TECHNOLOGIES);
 
@@ -98,6 +117,100 @@ export const arrangementRequestSchema = z
   });
 
 export type ArrangementRequestInput = z.infer<typeof arrangementRequestSchema>;
+
+/** A decimal amount of money as a string in the currency's minor unit ("1234.50"): never a float. */
+export const decimalSchema = z.string().regex(/^-?\d+(\.\d+)?$/, "A decimal number as a string");
+const nullableNumber = (description: string) => z.number().nullable().meta({ description });
+
+const designFactorsSchema = z
+  .object({
+    capacitanceFade: z.number().meta({ description: "end-of-life capacitance fade f_C (fraction)" }),
+    esrGrowth: z.number().meta({ description: "end-of-life ESR growth g (fraction: 1 = +100 %)" }),
+    voltageDerating: z.number().meta({ description: "cell voltage derating d (≤ 1)" }),
+    matchingTolerance: z.number().meta({ description: "cell matching tolerance m after incoming grading (fraction)" }),
+    balancingFactor: z.number().meta({ description: "balancing factor k: balancing current ≥ k × leakage" }),
+    resistorSeries: z.enum(["E12", "E24", "E48", "E96"]),
+    safeVoltage: z.number().meta({ description: "V_safe (V)" }),
+    safeTime: z.number().meta({ description: "t_safe (s)" }),
+  })
+  .meta({ id: "DesignFactors" });
+
+/** One buildable, priced arrangement (lib/quoting/types.ts PricedOption) as the JSON routes send it. */
+export const pricedOptionSchema = z
+  .object({
+    cell: z.object({
+      sku: z.string(),
+      technology: technologySchema,
+      capacitance: z.number(),
+      toleranceMinus: z.number(),
+      tolerancePlus: z.number(),
+      ratedVoltage: z.number(),
+      surgeVoltage: z.number(),
+      esr: z.number(),
+      leakageCurrent: z.number(),
+      peakCurrent: z.number(),
+      mass: z.number(),
+      volume: z.number(),
+    }),
+    topology: z.enum(TOPOLOGIES),
+    seriesCount: z.number().int(),
+    parallelCount: z.number().int(),
+    cellCount: z.number().int(),
+    longerLife: z.boolean().meta({ description: "one more cell in series than the shortest safe string: cells run further below their rating" }),
+    capacitance: z.object({ nominal: z.number(), design: z.number() }).meta({ description: "F; design: lower tolerance and end-of-life fade" }),
+    maxVoltage: z.number(),
+    storedEnergy: z.number().meta({ description: "½·C_nominal·V_max² (J)" }),
+    usableEnergy: z.number().meta({ description: "½·C_design·(V_max² − V_min²) (J), guaranteed at end of life" }),
+    esr: z.object({ new: z.number(), endOfLife: z.number() }),
+    peakDrop: nullableNumber("voltage drop at the peak current with end-of-life ESR (V); null without a peak-current requirement"),
+    mass: z.number(),
+    volume: z.number(),
+    worstCellVoltage: z.number().meta({ description: "worst-case transient cell voltage while charging with matched cells (V)" }),
+    balancing: z.object({
+      resistance: nullableNumber("balancing resistor (Ω); null with a single series position"),
+      power: z.number(),
+      powerRating: nullableNumber("standard rating ≥ 2 × power (W); null above the largest standard rating"),
+      count: z.number().int(),
+      standbyLoss: z.number(),
+      timeConstant: nullableNumber("R·N_p·C_n (s); null when there is no balancing resistor"),
+      activeBoard: z.object({ sku: z.string(), count: z.number().int() }).nullable(),
+    }),
+    discharge: z.object({
+      secondsToSafe: z.number(),
+      capacitance: z.number(),
+      chainResistance: nullableNumber("the balancing resistors seen across the terminals (Ω)"),
+      resistance: nullableNumber("chain and bleeder in parallel (Ω); null when neither is fitted"),
+      bleeder: z
+        .object({ resistance: z.number(), power: z.number(), powerRating: z.number().nullable(), energy: z.number(), switched: z.boolean() })
+        .nullable(),
+    }),
+    backupSeconds: z.number().optional(),
+    leadTimeDays: z.number(),
+    warnings: z.array(z.string()),
+    cautions: z.array(z.string()),
+    price: z
+      .object({
+        amount: decimalSchema.meta({ description: "the order total" }),
+        currency: z.string().length(3),
+        perBank: decimalSchema,
+        quantity: z.number().int(),
+        tax: decimalSchema,
+        subtotal: decimalSchema,
+      })
+      .nullable()
+      .meta({ description: "sell price; null when the shop's rules cannot price it automatically" }),
+    pareto: z.boolean().meta({ description: "Pareto-optimal over price, mass and volume" }),
+  })
+  .meta({ id: "PricedOption" });
+
+/** The answer of POST /api/v1/shops/{shop}/arrangements. */
+export const arrangementAnswerSchema = z
+  .object({
+    designFactors: designFactorsSchema,
+    options: z.array(pricedOptionSchema).meta({ description: "at most a dozen, cheapest first" }),
+    reasons: z.array(z.string()).optional().meta({ description: "when no option fits: what ruled each technology out" }),
+  })
+  .meta({ id: "Arrangements" });
 
 export interface ValidationIssue {
   path: string;

@@ -1,7 +1,17 @@
 import { ROLES } from "@/lib/auth/permissions";
 import { TECHNOLOGIES } from "@/lib/bank/types";
-import { ORDER_STATUSES, OUTBOX_STATUSES, QUOTE_STATUSES, REQUEST_STATUSES } from "@/lib/vocabulary";
-import { defineList, type ListQueryOf } from "./list-query";
+import {
+  ORDER_STATUSES,
+  OUTBOX_STATUSES,
+  QUOTE_STATUSES,
+  REQUEST_STATUSES,
+  SHOP_EVENT_TYPES,
+  WEBHOOK_DELIVERY_STATES,
+  WEBHOOK_ENDPOINT_STATES,
+} from "@/lib/vocabulary";
+import { z } from "zod";
+import { decimalSchema } from "./bank";
+import { defineList, pageSchema, type ListQueryOf } from "./list-query";
 
 /**
  * Every list's URL state: what it can be filtered and sorted by, and which way a column sorts on its
@@ -37,6 +47,23 @@ export const quoteList = defineList({
 });
 export type QuoteListQuery = ListQueryOf<typeof quoteList>;
 
+/** A page of GET /api/v1/shops/{shop}/quotes. */
+export const quotePageSchema = pageSchema(
+  z.object({
+    id: z.uuid(),
+    number: z.string().meta({ example: "Q-2026-0001" }),
+    status: z.enum(QUOTE_STATUSES),
+    revision: z.number().int().min(1),
+    customerName: z.string(),
+    customerEmail: z.string(),
+    currency: z.string().length(3),
+    quantity: z.number().int(),
+    total: decimalSchema,
+    validUntil: z.iso.date(),
+    createdAt: z.iso.datetime({ offset: true }),
+  }),
+).meta({ id: "QuotePage" });
+
 export const memberList = defineList({
   search: true,
   filters: { role: ["all", ...ROLES] },
@@ -45,6 +72,18 @@ export const memberList = defineList({
   size: 20,
 });
 export type MemberListQuery = ListQueryOf<typeof memberList>;
+
+/** A page of GET /api/v1/shops/{shop}/members. */
+export const memberPageSchema = pageSchema(
+  z.object({
+    id: z.string(),
+    userId: z.string(),
+    name: z.string(),
+    email: z.string(),
+    role: z.enum(ROLES),
+    joinedAt: z.iso.datetime({ offset: true }),
+  }),
+).meta({ id: "MemberPage" });
 
 export const outboxList = defineList({
   search: true,
@@ -64,3 +103,22 @@ export const orderList = defineList({
   size: 20,
 });
 export type OrderListQuery = ListQueryOf<typeof orderList>;
+
+export const webhookEndpointList = defineList({
+  search: true,
+  filters: { state: ["all", ...WEBHOOK_ENDPOINT_STATES] },
+  sorts: { created: "desc", url: "asc", state: "asc", failing: "asc" },
+  sort: "created",
+  size: 20,
+});
+export type WebhookEndpointListQuery = ListQueryOf<typeof webhookEndpointList>;
+
+/** One endpoint's delivery log: newest first; failures and the next retry can be brought up first. */
+export const webhookDeliveryList = defineList({
+  search: true,
+  filters: { state: ["all", ...WEBHOOK_DELIVERY_STATES], event: ["all", ...SHOP_EVENT_TYPES] },
+  sorts: { created: "desc", state: "asc", attempts: "desc", code: "desc", duration: "desc", next: "asc" },
+  sort: "created",
+  size: 25,
+});
+export type WebhookDeliveryListQuery = ListQueryOf<typeof webhookDeliveryList>;

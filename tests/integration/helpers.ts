@@ -67,3 +67,14 @@ export async function pageAnswer(render: () => Promise<unknown>): Promise<string
     throw error;
   }
 }
+
+/** Polls until `check` holds; the limit only bounds a broken run, it measures nothing. */
+export async function waitFor<T>(what: string, read: () => Promise<T> | T, check: (value: T) => boolean, limitMs = 45_000): Promise<T> {
+  const until = Date.now() + limitMs;
+  for (;;) {
+    const value = await read();
+    if (check(value)) return value;
+    if (Date.now() > until) throw new Error(`gave up waiting for ${what}; last seen ${JSON.stringify(value)}`);
+    await new Promise((r) => setTimeout(r, 100));
+  }
+}

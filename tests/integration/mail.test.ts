@@ -17,6 +17,7 @@ import { MAIL_QUEUE, PGBOSS_SCHEMA } from "@/lib/mail/queue";
 import { startMailWorker, stopMailWorker } from "@/lib/mail/worker";
 import { outboxList } from "@/lib/validation/lists";
 import { createQuote, createShop, type TestShop } from "./fixtures";
+import { waitFor } from "./helpers";
 
 // The SMTP stand-in here is maildev (npm), started by this file on ports of its own so that it
 // can be stopped and started again; its REST API (GET /api/email) lists what it received.
@@ -44,17 +45,6 @@ function portOpen(port: number): Promise<boolean> {
     });
     s.once("error", () => resolve(false));
   });
-}
-
-/** Polls until `check` holds; the limit only bounds a broken run, it measures nothing. */
-async function waitFor<T>(what: string, read: () => Promise<T>, check: (value: T) => boolean, limitMs = 45_000): Promise<T> {
-  const until = Date.now() + limitMs;
-  for (;;) {
-    const value = await read();
-    if (check(value)) return value;
-    if (Date.now() > until) throw new Error(`gave up waiting for ${what}; last seen ${JSON.stringify(value)}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
 }
 
 interface MaildevEmail {

@@ -22,6 +22,17 @@ import { startCheckout } from "@/app/s/[shop]/quotes/[number]/actions";
 import CustomerOrderPage from "@/app/s/[shop]/orders/[number]/page";
 import MyOrdersPage from "@/app/s/[shop]/orders/page";
 import PaidPage from "@/app/s/[shop]/quotes/[number]/paid/page";
+import {
+  createWebhookEndpoint,
+  deleteWebhookEndpoint,
+  replayWebhookDelivery,
+  rollWebhookSecret,
+  setWebhookEndpointState,
+  updateWebhookEndpoint,
+} from "@/app/desk/[shop]/webhooks/actions";
+import DeskWebhookPage from "@/app/desk/[shop]/webhooks/[id]/page";
+import DeskWebhooksPage from "@/app/desk/[shop]/webhooks/page";
+import { GET as openApiRoute } from "@/app/api/v1/openapi.json/route";
 import { openShop } from "@/app/(auth)/open-shop/actions";
 import { GET as listMembersRoute } from "@/app/api/v1/shops/[shop]/members/route";
 import { GET as downloadAttachmentRoute } from "@/app/api/v1/shops/[shop]/attachments/[id]/route";
@@ -50,10 +61,13 @@ import { getOrderDetail, listOrders } from "@/db/queries/orders";
 import { getQuoteByNumber, listQuotes } from "@/db/queries/quotes";
 import { getRequest, listRequests } from "@/db/queries/requests";
 import { getShopSettings, isSlugTaken } from "@/db/queries/shops";
-import { bankRequests, shops } from "@/db/schema";
+import { bankRequests, shops, webhookDeliveries, webhookEndpoints } from "@/db/schema";
+import { recordShopEvent } from "@/db/queries/shop-events";
+import { listWebhookEndpoints } from "@/db/queries/webhooks";
+import { withShop } from "@/db/tx";
 import { applyOrderMove, saveBankTest } from "@/lib/orders/moves";
 import { testLimitsOf } from "@/lib/orders/test-limits";
-import { catalogList, memberList, orderList, outboxList, quoteList, requestList } from "@/lib/validation/lists";
+import { catalogList, memberList, orderList, outboxList, quoteList, requestList, webhookEndpointList } from "@/lib/validation/lists";
 import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
 import { contextOf, createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, type TestShop } from "./fixtures";
 import { actAs, pageAnswer, request, sessionCookie } from "./helpers";
@@ -108,6 +122,10 @@ async function testedOrder(shop: TestShop, requirement: typeof KESTREL_REQUIREME
   });
   return order.number;
 }
+
+/** B's webhook endpoint (on an address nothing listens on) and a delivery of one of B's events to it */
+let bEndpoint = "";
+let bDelivery = "";
 
 async function upload(shop: string, cookie: string) {
   const form = new FormData();
@@ -213,6 +231,7 @@ const NOT_SHOP_SCOPED = new Set([
   "POST /api/v1/networks/evaluate", // pure engine, no shop
   "POST /api/v1/networks/failures", // pure engine, no shop: answered alike below
   "POST /api/v1/networks/tolerance", // pure engine, no shop: answered alike below
+  "GET /api/v1/openapi.json", // the API description: the same for everyone
   "GET /api/auth/[...all]", // better-auth's own endpoints: its organization plugin checks membership
   "POST /api/auth/[...all]",
   // the payment service's signed events: no session and no cross-site check (the signature is the
@@ -233,6 +252,12 @@ const ACTIONS = new Set([
   "cancelOrder",
   "recordTest",
   "refundOrder",
+  "createWebhookEndpoint",
+  "updateWebhookEndpoint",
+  "rollWebhookSecret",
+  "setWebhookEndpointState",
+  "deleteWebhookEndpoint",
+  "replayWebhookDelivery",
 ]);
 
 /** The engine's network analyses: open to visitors, holding no shop's data, so every caller gets the same answer. */
@@ -292,6 +317,13 @@ beforeAll(async () => {
   pay.bSession = (await checkoutFor(B, pay.bQuote)).sessionId;
   const up = await upload(A.slug, await sessionCookie(A.customers[0].email));
   aAttachment = ((await up.json()) as { id: string }).id;
+  await actAs(B.manager.email);
+  const created = await createWebhookEndpoint(B.slug, { url: "http://127.0.0.1:9/b-hooks", description: "B's", events: ["quote.accepted"] });
+  if (!created.ok) throw new Error(JSON.stringify(created));
+  bEndpoint = created.data.id;
+  await withShop(B.id, (tx) => recordShopEvent(tx, B.id, "quote.accepted", { quoteNumber: bQuote }));
+  const [d] = await db.select({ id: webhookDeliveries.id }).from(webhookDeliveries).where(eq(webhookDeliveries.endpointId, bEndpoint));
+  bDelivery = d?.id ?? "";
 });
 
 describe.each(ENGINE_ROUTES)("public $name", ({ call }) => {
@@ -445,6 +477,46 @@ describe("tenancy", () => {
       expect(after?.order).toEqual(before?.order);
     });
 
+    it("the webhook actions refuse another shop's manager, find nothing of another shop through one's own, and refuse other roles", async () => {
+      const endpointInput = { url: "http://127.0.0.1:9/a-hooks", description: "", events: ["quote.issued" as const] };
+      // A's manager through B's shop: not a member
+      await actAs(A.manager.email);
+      for (const r of [
+        await createWebhookEndpoint(B.slug, endpointInput),
+        await updateWebhookEndpoint(B.slug, { ...endpointInput, id: bEndpoint }),
+        await rollWebhookSecret(B.slug, { id: bEndpoint }),
+        await setWebhookEndpointState(B.slug, { id: bEndpoint, state: "disabled" }),
+        await deleteWebhookEndpoint(B.slug, { id: bEndpoint }),
+        await replayWebhookDelivery(B.slug, { deliveryId: bDelivery }),
+      ])
+        expect(r).toMatchObject({ ok: false, code: "forbidden" });
+      // B's ids through A's own shop: not found
+      for (const r of [
+        await updateWebhookEndpoint(A.slug, { ...endpointInput, id: bEndpoint }),
+        await rollWebhookSecret(A.slug, { id: bEndpoint }),
+        await setWebhookEndpointState(A.slug, { id: bEndpoint, state: "disabled" }),
+        await deleteWebhookEndpoint(A.slug, { id: bEndpoint }),
+        await replayWebhookDelivery(A.slug, { deliveryId: bDelivery }),
+      ])
+        expect(r).toMatchObject({ ok: false, code: "not-found" });
+      // only managers manage webhooks
+      for (const person of [B.estimator, B.customers[0]]) {
+        await actAs(person.email);
+        expect(await createWebhookEndpoint(B.slug, endpointInput)).toMatchObject({ ok: false, code: "forbidden" });
+        expect(await rollWebhookSecret(B.slug, { id: bEndpoint })).toMatchObject({ ok: false, code: "forbidden" });
+      }
+      const [row] = await db.select().from(webhookEndpoints).where(eq(webhookEndpoints.id, bEndpoint));
+      expect(row).toMatchObject({ state: "active", url: "http://127.0.0.1:9/b-hooks", description: "B's" });
+      expect((await listWebhookEndpoints(A.id, { ...webhookEndpointList.defaults, size: 100 })).rows).toEqual([]);
+      expect((await listWebhookEndpoints(B.id, { ...webhookEndpointList.defaults, size: 100 })).rows.map((e) => e.id)).toEqual([bEndpoint]);
+    });
+
+    it("a shop's event reaches only its own endpoints", async () => {
+      await withShop(A.id, (tx) => recordShopEvent(tx, A.id, "quote.accepted", { quoteNumber: aQuote }));
+      const rows = await db.select({ shopId: webhookDeliveries.shopId }).from(webhookDeliveries).where(eq(webhookDeliveries.endpointId, bEndpoint));
+      expect(rows.map((r) => r.shopId)).toEqual([B.id]);
+    });
+
     it("openShop cannot take another shop's address, and creates nothing when refused", async () => {
       await actAs(null);
       const email = `opener.${crypto.randomUUID().slice(0, 8)}@elsewhere.example`;
@@ -468,6 +540,7 @@ describe("tenancy", () => {
       ["orders list", (s: string) => DeskOrdersListPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["order", (s: string) => DeskOrderPage({ params: Promise.resolve({ shop: s, number: pay.aOrder }) })],
       ["dashboard", (s: string) => DeskDashboardPage({ params: Promise.resolve({ shop: s }) })],
+      ["webhooks", (s: string) => DeskWebhooksPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
     ] as const;
 
     it.each(desk)("the desk's %s refuses the other shop's manager and opens for the shop's own", async (_name, render) => {
@@ -475,6 +548,25 @@ describe("tenancy", () => {
       expect(await pageAnswer(() => render(A.slug))).toBe("403");
       await actAs(A.manager.email);
       expect(await pageAnswer(() => render(A.slug))).toBe("ok");
+    });
+
+    it("a webhook endpoint's page refuses the other shop's manager, and another shop's endpoint is not found through one's own", async () => {
+      const render = (s: string) => DeskWebhookPage({ params: Promise.resolve({ shop: s, id: bEndpoint }), searchParams: Promise.resolve({}) });
+      await actAs(A.manager.email);
+      expect(await pageAnswer(() => render(B.slug))).toBe("403");
+      expect(await pageAnswer(() => render(A.slug))).toBe("404");
+      await actAs(B.estimator.email);
+      expect(await pageAnswer(() => render(B.slug))).toBe("403");
+      await actAs(B.manager.email);
+      expect(await pageAnswer(() => render(B.slug))).toBe("ok");
+    });
+
+    it("the API description answers a visitor and members of either shop alike", async () => {
+      const anonymous = await (await openApiRoute(request("/api/v1/openapi.json"))).json();
+      expect(Object.keys(anonymous.paths)).toContain("/api/v1/shops/{shop}/quotes");
+      for (const person of [A.manager, B.customers[0]]) {
+        expect(await (await openApiRoute(request("/api/v1/openapi.json", { cookie: await sessionCookie(person.email) }))).json()).toEqual(anonymous);
+      }
     });
 
     it("a customer's quote pages refuse another shop's customer; another customer's quote is not found", async () => {

@@ -16,6 +16,12 @@ export const DESK_SECTIONS: { path: string; label: string; permission: Permissio
   { path: "dashboard", label: "Dashboard", permission: "reports:read", summary: "Quotes, conversion, revenue by month, orders per stage and late orders." },
   { path: "team", label: "Team", permission: "team:read", summary: "The shop's members and their roles." },
   { path: "outbox", label: "Outbox", permission: "outbox:read", summary: "E-mail sent, waiting and failed." },
+  {
+    path: "webhooks",
+    label: "Webhooks",
+    permission: "webhook:manage",
+    summary: "Signed messages to the shop's own systems when quotes, orders and payments change.",
+  },
   { path: "settings", label: "Settings", permission: "settings:write", summary: "Design factors, auto-quote limits and storefront text." },
 ];
 

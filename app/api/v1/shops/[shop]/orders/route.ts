@@ -5,7 +5,7 @@ import { jsonError } from "@/lib/http/json-error";
 import { isoDay } from "@/lib/orders/due-date";
 import { moneyString } from "@/lib/pricing";
 import { orderList } from "@/lib/validation/lists";
-import type { OrdersResponse } from "@/lib/validation/orders";
+import { listOrders as contract } from "@/lib/api/contracts/orders";
 
 /**
  * GET /api/v1/shops/{shop}/orders — `{ orders: [{ number, quoteNumber, status, amountPaid,
@@ -24,7 +24,7 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
       page.rows.map((r) => r.id),
     );
     const money = (amount: string, currency: string) => ({ amount: moneyString(amount, currency), currency });
-    const body: OrdersResponse = {
+    return contract.answer({
       orders: page.rows.map((r) => ({
         number: r.number,
         quoteNumber: r.quoteNumber,
@@ -38,7 +38,6 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
       total: page.total,
       page: page.page,
       size: page.size,
-    };
-    return Response.json(body);
+    });
   });
 }

@@ -7,7 +7,8 @@ import { readJsonBody } from "@/lib/http/read-json";
 import { openCheckout } from "@/lib/payments/checkout";
 import { moneyString } from "@/lib/pricing";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
-import { checkoutRequestSchema, checkoutStateQuerySchema, type CheckoutResponse, type CheckoutState } from "@/lib/validation/orders";
+import { checkoutState, startCheckout } from "@/lib/api/contracts/orders";
+import { checkoutRequestSchema, checkoutStateQuerySchema } from "@/lib/validation/orders";
 
 type Params = { params: Promise<{ shop: string; number: string }> };
 
@@ -38,7 +39,7 @@ export async function POST(request: Request, { params }: Params) {
         r.message ?? "Refused.",
         r.fieldErrors ? Object.entries(r.fieldErrors).map(([path, [message = ""] = []]) => ({ path, message })) : undefined,
       );
-    return Response.json(r.data satisfies CheckoutResponse);
+    return startCheckout.answer(r.data);
   });
 }
 
@@ -61,13 +62,15 @@ export async function GET(request: Request, { params }: Params) {
     if (!quote || !maySee(ctx, "quote", quote.customerUserId)) return jsonError(404, "No such quote.");
     const state = await getCheckoutState(ctx.shop.id, quote.id, query.data.session);
     if (!state) return jsonError(404, "No such checkout for this quote.");
-    const answer: CheckoutState = {
-      sessionId: query.data.session,
-      status: state.status,
-      kind: state.kind,
-      amount: { amount: moneyString(state.amount, state.currency), currency: state.currency },
-      orderNumber: state.status === "paid" ? state.orderNumber : null,
-    };
-    return Response.json(answer, { headers: { "cache-control": "no-store" } });
+    return checkoutState.answer(
+      {
+        sessionId: query.data.session,
+        status: state.status,
+        kind: state.kind,
+        amount: { amount: moneyString(state.amount, state.currency), currency: state.currency },
+        orderNumber: state.status === "paid" ? state.orderNumber : null,
+      },
+      { headers: { "cache-control": "no-store" } },
+    );
   });
 }
