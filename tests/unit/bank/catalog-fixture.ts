@@ -78,6 +78,8 @@ export function generateCatalog(count: number, seed = 1): EngineCell[] {
       unitCost: 0.5 + mass * (20 + 30 * rnd()),
       stock: Math.floor(rnd() * 2000),
       leadTimeDays: pick([7, 14, 21, 42]),
+      // hybrid cells carry their minimum voltage (the usual 2.2 V, common practice)
+      minVoltage: technology === "hybrid" ? 2.2 : null,
     });
   }
   return cells;
