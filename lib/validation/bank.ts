@@ -2,8 +2,10 @@ import { z } from "zod";
 import {
   MAX_CAPACITANCE,
   MAX_CELLS_PER_BANK,
+  MAX_AMBIENT_TEMPERATURE,
   MAX_CURRENT,
   MAX_ENERGY,
+  MAX_LIFE_YEARS,
   MAX_MASS,
   MAX_POWER,
   MAX_QUANTITY,
@@ -11,9 +13,10 @@ import {
   MAX_SECONDS,
   MAX_VOLTAGE,
   MAX_VOLUME,
+  MIN_AMBIENT_TEMPERATURE,
   formatBound,
 } from "../bank/bounds";
-import { TECHNOLOGIES, type NetworkNode, type Requirement } from "../bank/types";
+import { FAULT_FILTERS, RANK_BY, TECHNOLOGIES, type NetworkNode, type Requirement } from "../bank/types";
 
 /** Deepest network accepted (levels of groups and cells, the root is level 1). */
 export const MAX_NETWORK_DEPTH = 64;
@@ -83,6 +86,19 @@ export const arrangementRequestSchema = z
       .max(MAX_QUANTITY, `Quantity must be at most ${MAX_QUANTITY.toLocaleString("en-GB")}`)
       .default(1),
     technology: technologySchema.optional(),
+    ambientTemperature: z
+      .number({ message: "Ambient temperature must be a number in °C" })
+      .min(MIN_AMBIENT_TEMPERATURE, `Ambient temperature must be at least ${MIN_AMBIENT_TEMPERATURE} °C`)
+      .max(MAX_AMBIENT_TEMPERATURE, `Ambient temperature must be at most ${MAX_AMBIENT_TEMPERATURE} °C`)
+      .optional(),
+    rmsCurrent: quantity("RMS current", "A", MAX_CURRENT).optional(),
+    survives: z.enum(FAULT_FILTERS, { message: 'survives must be "short", "open" or "both"' }).optional(),
+    minLifeYears: z
+      .number({ message: "Minimum life must be a number of years" })
+      .positive("Minimum life must be greater than zero")
+      .max(MAX_LIFE_YEARS, `Minimum life must be at most ${MAX_LIFE_YEARS} years`)
+      .optional(),
+    rankBy: z.enum(RANK_BY, { message: 'rankBy must be "price" or "life"' }).optional(),
   })
   .superRefine((value, ctx) => {
     if (value.capacitance === undefined && value.energy === undefined && value.backup === undefined) {
