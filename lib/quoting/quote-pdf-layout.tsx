@@ -1,6 +1,8 @@
 import path from "node:path";
 import { Document, Font, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
+import { pdfText } from "./pdf-text";
 import type { LabelledValue, QuoteDocument } from "./quote-document";
+import { QuotePdfEngineering } from "./quote-pdf-engineering";
 
 /**
  * The PDF layout: the quote as a PDF (@react-pdf/renderer), from the same worded document the quote
@@ -27,10 +29,7 @@ function registerFonts() {
   fontsRegistered = true;
 }
 
-/** The shipped Latin subset has no Ω: print the unit's name instead. */
-export function pdfText(s: string): string {
-  return s.replace(/\u03a9|\u2126/g, "Ohm");
-}
+export { pdfText };
 
 const ink = "#1f2933";
 const muted = "#52606d";
@@ -167,6 +166,8 @@ export function QuotePdfLayout({ doc }: { doc: QuoteDocument }) {
             <Text>{doc.total}</Text>
           </View>
         </View>
+
+        <QuotePdfEngineering e={doc.engineering} />
 
         <View wrap={false}>
           <Text style={styles.h2}>Safety</Text>
