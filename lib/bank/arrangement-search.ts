@@ -933,14 +933,15 @@ function buildOption(a: {
     warnings.push(`A continuous bleeder would dissipate ${fmt(discharge.bleeder.power, "W")}: a switched discharge circuit is needed instead.`);
   }
 
-  // standby drain: switched off at V_max, the cells must outlast the shop's standby time above their minimum
+  // standby drain: switched off at V_max, the cells must outlast the shop's standby time above their
+  // minimum; the worst case is the cell at its lower tolerance (the least charge to lose)
   let standby: StandbyCheck | null = null;
   if (minCellVoltage !== null) {
     standby = checkStandby(
       {
         startVoltage: vMax / ns,
         minVoltage: minCellVoltage,
-        capacitance: cell.capacitance,
+        capacitance: cell.capacitance * (1 - cell.toleranceMinus),
         leakageCurrent: cell.leakageCurrent,
         resistance: balancing.resistance,
         cellsPerResistor: a.topology === "series-of-parallel-groups" ? np : 1,

@@ -11,7 +11,7 @@ import type { Requirement } from "./types";
 /** What the curves read of an option. */
 export type CurveOption = Pick<ArrangementOption, "seriesCount" | "worstCellVoltage" | "capacitance" | "esr" | "discharge"> & {
   /** cells with a minimum voltage: the switched-off curve stops at the bank's floor */
-  handling?: Pick<OptionHandling, "floorVoltage">;
+  handling?: Pick<OptionHandling, "floorVoltage" | "standby">;
 };
 
 export interface ChargingVoltages {
