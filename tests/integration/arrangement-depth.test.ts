@@ -9,9 +9,11 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { eq } from "drizzle-orm";
+import { renderToStaticMarkup } from "react-dom/server";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as arrangements } from "@/app/api/v1/shops/[shop]/arrangements/route";
 import { exploreArrangements } from "@/app/s/[shop]/actions";
+import { ReliabilitySettingsPanel } from "@/components/settings/reliability-settings-panel";
 import { db } from "@/db";
 import { getQuoteByNumber } from "@/db/queries/quotes";
 import { catalogCells, shopSettings } from "@/db/schema";
@@ -233,5 +235,23 @@ describe("a quote freezes the failure and life figures, and its PDF shows them",
     expect(text).toContain("Tolerance yield");
     expect(text).toContain("Temperature and expected life");
     expect(text).toMatch(/Expected life (about \d+(\.\d)? years|\d+ years or more)/);
+  });
+});
+
+describe("the settings page shows the failure, yield and life group", () => {
+  it("marks each value as the common-practice default until the shop sets its own", async () => {
+    const shop = await createShop("kestrel");
+    await actAs(shop.manager.email);
+    const before = renderToStaticMarkup(await ReliabilitySettingsPanel({ shopSlug: shop.slug }));
+    expect(before).toContain("3.7 % below the rated voltage");
+    expect(before).toContain("90 days");
+    expect(before.match(/default, common practice/g)?.length).toBe(8);
+    await db
+      .update(shopSettings)
+      .set({ reliabilitySettings: { ...DEFAULT_RELIABILITY_SETTINGS, standbyDays: 30 } })
+      .where(eq(shopSettings.shopId, shop.id));
+    const after = renderToStaticMarkup(await ReliabilitySettingsPanel({ shopSlug: shop.slug }));
+    expect(after).toContain("30 days");
+    expect(after).toContain("the shop&#x27;s own");
   });
 });
