@@ -3,7 +3,7 @@ import { sizeBalancing, sizeBleeder, type BalancingResult, type BleederResult } 
 import { MAX_CELLS_PER_BANK, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from "./bounds";
 import { constantPowerSeconds } from "./discharge";
 import { storedEnergy as storedEnergyOf, usableEnergy as usableEnergyOf } from "./energy";
-import { analyzeOptionFailures, type FailureModeSummary, type OptionFailureCase } from "./failures";
+import { analyzeOptionFailures, optionFailureCases, survivesFault, type FailureModeSummary, type OptionFailureCase } from "./failures";
 import { checkStandby, shippingNotes, standingHeat, standingHeatWarning, technologyCautions, type StandbyCheck, type StandingHeat } from "./handling";
 import { cappedLifeHours, DEFAULT_AMBIENT_TEMPERATURE, estimateOptionLife, HOURS_PER_YEAR, lifeFactors, type LifeCell } from "./life";
 import { DEFAULT_RELIABILITY_SETTINGS, type ReliabilitySettings } from "./reliability-settings";
@@ -419,6 +419,18 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const survives: FaultFilter | null = req.survives ?? null;
   const minLifeHours = req.minLifeYears !== undefined && req.minLifeYears > 0 ? req.minLifeYears * HOURS_PER_YEAR : 0;
   const byLife = req.rankBy === "life";
+  // Survival of one fault depends only on the topology, the counts and the cell's two voltage
+  // ratings: cells that share them share the answer (most of a catalog does).
+  const survival = new Map<string, boolean>();
+  const survivalOf = (cell: EngineCell, t: number, ns: number, np: number): boolean => {
+    const key = `${t}|${ns}|${np}|${cell.ratedVoltage}|${cell.surgeVoltage}`;
+    let ok = survival.get(key);
+    if (ok === undefined) {
+      ok = survivesFaults(survives ?? "both", cell, TOPOLOGIES[t] as Topology, ns, np, vMax, m);
+      survival.set(key, ok);
+    }
+    return ok;
+  };
 
   // the caps, read once (module bindings are getters in some bundles)
   const maxSeries = MAX_SERIES_COUNT;
@@ -649,7 +661,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       // one topology when both are the same circuit (a single string or a single group)
       const topologies = ns === 1 || np === 1 ? 1 : 2;
       for (let t = 0; t < topologies; t++) {
-        if (survives !== null && !survivesFaults(survives, cell, TOPOLOGIES[t] as Topology, ns, np, vMax, m)) {
+        if (survives !== null && !survivalOf(cell, t, ns, np)) {
           tally.faultFiltered++;
           continue;
         }
@@ -838,8 +850,15 @@ function optionFailures(cell: EngineCell, topology: Topology, ns: number, np: nu
 }
 
 function survivesFaults(filter: FaultFilter, cell: EngineCell, topology: Topology, ns: number, np: number, vMax: number, m: number): boolean {
-  const { summary } = optionFailures(cell, topology, ns, np, vMax, m);
-  return (filter === "open" || summary.short.survives) && (filter === "short" || summary.open.survives);
+  const { cases } = optionFailureCases({
+    cell: { capacitance: cell.capacitance, ratedVoltage: cell.ratedVoltage, surgeVoltage: Math.max(cell.surgeVoltage, cell.ratedVoltage) },
+    topology,
+    seriesCount: ns,
+    parallelCount: np,
+    appliedVoltage: vMax,
+    matchingTolerance: m,
+  });
+  return (filter === "open" || survivesFault(cases.short)) && (filter === "short" || survivesFault(cases.open));
 }
 
 function verdictOf(summary: FailureModeSummary, c: OptionFailureCase): OptionFailureVerdict {
