@@ -42,15 +42,15 @@ export function YieldHistogram({ bins, required, label }: { bins: HistogramBin[]
       {showRequired && required !== null ? (
         <g>
           <line x1={x(required)} x2={x(required)} y1={PAD.top - 6} y2={H - PAD.bottom} stroke={C.danger} strokeDasharray="5 3" />
-          <text x={x(required)} y={PAD.top - 10} fontSize={11} fill={C.danger} textAnchor={x(required) > W * 0.7 ? "end" : "start"}>
+          <text x={x(required)} y={PAD.top - 10} fontSize={13} fill={C.danger} textAnchor={x(required) > W * 0.7 ? "end" : "start"}>
             needed {formatQuantity(required, "F")}
           </text>
         </g>
       ) : null}
-      <text x={PAD.left} y={H - 10} fontSize={11} fill={C.ink}>
+      <text x={PAD.left} y={H - 10} fontSize={13} fill={C.ink}>
         {formatQuantity(lo, "F")}
       </text>
-      <text x={W - PAD.right} y={H - 10} fontSize={11} fill={C.ink} textAnchor="end">
+      <text x={W - PAD.right} y={H - 10} fontSize={13} fill={C.ink} textAnchor="end">
         {formatQuantity(hi, "F")}
       </text>
     </svg>

@@ -7,7 +7,7 @@ const pct = (x: number) => `${Number((x * 100).toPrecision(3))} %`;
 
 /** "(default, common practice)" beside a value that is still the default, else "(the shop's)". */
 function Origin({ isDefault }: { isDefault: boolean }) {
-  return <span className="ml-2 text-xs text-ink-500">{isDefault ? "default, common practice" : "the shop's own"}</span>;
+  return <span className="block text-xs text-ink-500">{isDefault ? "default, common practice" : "the shop's own"}</span>;
 }
 
 /**
