@@ -1,18 +1,10 @@
+import { FigureRows } from "@/components/bank-depth/figure-rows";
 import { YieldHistogram } from "@/components/bank-depth/yield-histogram";
 import { NOT_RECORDED, type QuoteEngineering } from "@/lib/quoting/quote-engineering";
 import type { LabelledValue } from "@/lib/vocabulary";
 
 function Rows({ rows }: { rows: LabelledValue[] }) {
-  return (
-    <dl className="mt-2 divide-y divide-ink-100 text-sm">
-      {rows.map((r) => (
-        <div key={r.label} className="grid grid-cols-2 gap-3 py-1.5">
-          <dt className="text-ink-600">{r.label}</dt>
-          <dd className="num text-ink-900">{r.value}</dd>
-        </div>
-      ))}
-    </dl>
-  );
+  return <FigureRows rows={rows} layout="columns" />;
 }
 
 /**

@@ -3,7 +3,7 @@ import { sizeBalancing, sizeBleeder, type BalancingResult, type BleederResult } 
 import { MAX_CELLS_PER_BANK, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from "./bounds";
 import { constantPowerSeconds } from "./discharge";
 import { storedEnergy as storedEnergyOf, usableEnergy as usableEnergyOf } from "./energy";
-import { analyzeOptionFailures, optionFailureCases, survivesFault, type FailureModeSummary, type OptionFailureCase } from "./failures";
+import { analyzeOptionFailures, optionFailureCases, survivesFault, type FailureModeSummary, type OptionFailureCase, type OptionFailureInput } from "./failures";
 import { checkStandby, shippingNotes, standingHeat, standingHeatWarning, technologyCautions, type StandbyCheck, type StandingHeat } from "./handling";
 import { cappedLifeHours, DEFAULT_AMBIENT_TEMPERATURE, estimateOptionLife, HOURS_PER_YEAR, lifeFactors, type LifeCell } from "./life";
 import { DEFAULT_RELIABILITY_SETTINGS, type ReliabilitySettings } from "./reliability-settings";
@@ -837,27 +837,20 @@ function lifeCellOf(cell: EngineCell): LifeCell | null {
   return life;
 }
 
-/** One-cell failures of an arrangement (closed form), at V_max with matched cells at their worst. */
-function optionFailures(cell: EngineCell, topology: Topology, ns: number, np: number, vMax: number, m: number) {
-  return analyzeOptionFailures({
+/** The one-cell failure analysis of an arrangement: at V_max, with matched cells at their worst. */
+function failureInput(cell: EngineCell, topology: Topology, ns: number, np: number, vMax: number, m: number): OptionFailureInput {
+  return {
     cell: { capacitance: cell.capacitance, ratedVoltage: cell.ratedVoltage, surgeVoltage: Math.max(cell.surgeVoltage, cell.ratedVoltage) },
     topology,
     seriesCount: ns,
     parallelCount: np,
     appliedVoltage: vMax,
     matchingTolerance: m,
-  });
+  };
 }
 
 function survivesFaults(filter: FaultFilter, cell: EngineCell, topology: Topology, ns: number, np: number, vMax: number, m: number): boolean {
-  const { cases } = optionFailureCases({
-    cell: { capacitance: cell.capacitance, ratedVoltage: cell.ratedVoltage, surgeVoltage: Math.max(cell.surgeVoltage, cell.ratedVoltage) },
-    topology,
-    seriesCount: ns,
-    parallelCount: np,
-    appliedVoltage: vMax,
-    matchingTolerance: m,
-  });
+  const { cases } = optionFailureCases(failureInput(cell, topology, ns, np, vMax, m));
   return (filter === "open" || survivesFault(cases.short)) && (filter === "short" || survivesFault(cases.open));
 }
 
@@ -1007,7 +1000,7 @@ function buildOption(a: {
     minCellVoltage,
   });
 
-  const analysis = optionFailures(cell, a.topology, ns, np, vMax, factors.matchingTolerance);
+  const analysis = analyzeOptionFailures(failureInput(cell, a.topology, ns, np, vMax, factors.matchingTolerance));
   const life = optionLife(cell, a.topology, ns, np, req, a.reliability);
 
   const option: ArrangementOption = {

@@ -67,14 +67,7 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
     // rank them by life, then exact price. Pareto marks are over the dozen shown.
     const result = search(SHOWN);
     const priced = result.options.map((option) => priceOption(option, byId.get(option.cellId) as CatalogCell, catalog, quantity));
-    const shown = rankPriced(priced, SHOWN, compareByLife);
-    return {
-      designFactors: factors,
-      currency: rules.currency,
-      options: shown.map(({ record: _record, ...option }) => option),
-      records: shown.map((c) => c.record),
-      reasons: result.reasons,
-    };
+    return shownOf(catalog, rankPriced(priced, SHOWN, compareByLife), result.reasons);
   }
 
   const priced: Candidate[] = [];
@@ -90,13 +83,17 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
     result = search(width);
   }
 
-  const shown = rankPriced(priced, SHOWN);
+  return shownOf(catalog, rankPriced(priced, SHOWN), result.reasons);
+}
+
+/** The ranked dozen as the search answers it: options for customers, records behind them. */
+function shownOf(catalog: ShopCatalog, shown: (Candidate & { pareto: boolean })[], reasons: string[]): PricedSearch {
   return {
-    designFactors: factors,
-    currency: rules.currency,
+    designFactors: catalog.factors,
+    currency: catalog.rules.currency,
     options: shown.map(({ record: _record, ...option }) => option),
     records: shown.map((c) => c.record),
-    reasons: result.reasons,
+    reasons,
   };
 }
 

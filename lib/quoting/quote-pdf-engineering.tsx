@@ -1,6 +1,6 @@
 import { Line, Rect, StyleSheet, Svg, Text, View } from "@react-pdf/renderer";
 import { formatQuantity } from "@/lib/quantities";
-import type { LabelledValue } from "@/lib/vocabulary";
+import { KeyValues, PDF_COLORS } from "./pdf-parts";
 import { pdfText } from "./pdf-text";
 import { NOT_RECORDED, type QuoteEngineering } from "./quote-engineering";
 
@@ -10,9 +10,7 @@ import { NOT_RECORDED, type QuoteEngineering } from "./quote-engineering";
  * life, limits, handling and shipping.
  */
 
-const ink = "#1f2933";
-const muted = "#52606d";
-const rule = "#d9e2ec";
+const { ink, muted } = PDF_COLORS;
 const charge = "#1f9e8c";
 const hazard = "#d99a06";
 const danger = "#d23c32";
@@ -22,24 +20,21 @@ const styles = StyleSheet.create({
   h3: { fontSize: 9.5, fontWeight: 600, marginTop: 6, marginBottom: 2 },
   line: { marginBottom: 2 },
   small: { fontSize: 7.5, color: muted, marginBottom: 1 },
-  kvRow: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: rule, paddingVertical: 2 },
-  kvLabel: { width: "58%", color: muted, paddingRight: 4 },
-  kvValue: { width: "42%" },
   columns: { flexDirection: "row", gap: 16 },
   column: { flex: 1 },
   axis: { flexDirection: "row", justifyContent: "space-between", fontSize: 7.5, color: muted },
 });
 
-function Rows({ rows }: { rows: LabelledValue[] }) {
+/** A list of notes in small print. */
+function Notes({ items }: { items: string[] }) {
   return (
-    <View>
-      {rows.map((r) => (
-        <View key={r.label} style={styles.kvRow} wrap={false}>
-          <Text style={styles.kvLabel}>{pdfText(r.label)}</Text>
-          <Text style={styles.kvValue}>{pdfText(r.value)}</Text>
-        </View>
+    <>
+      {items.map((a) => (
+        <Text key={a} style={styles.small}>
+          • {pdfText(a)}
+        </Text>
       ))}
-    </View>
+    </>
   );
 }
 
@@ -109,7 +104,7 @@ export function QuotePdfEngineering({ e }: { e: QuoteEngineering }) {
               <Histogram t={e.tolerance} />
             </View>
             <View style={styles.column}>
-              <Rows rows={e.tolerance.rows} />
+              <KeyValues rows={e.tolerance.rows} />
             </View>
           </View>
         ) : (
@@ -121,14 +116,10 @@ export function QuotePdfEngineering({ e }: { e: QuoteEngineering }) {
         {e.life ? (
           <View style={styles.columns}>
             <View style={styles.column}>
-              <Rows rows={e.life.rows} />
+              <KeyValues rows={e.life.rows} />
             </View>
             <View style={styles.column}>
-              {e.life.assumptions.map((a) => (
-                <Text key={a} style={styles.small}>
-                  • {pdfText(a)}
-                </Text>
-              ))}
+              <Notes items={e.life.assumptions} />
             </View>
           </View>
         ) : (
@@ -139,14 +130,10 @@ export function QuotePdfEngineering({ e }: { e: QuoteEngineering }) {
         <Text style={styles.h3}>Limits, handling and shipping</Text>
         <View style={styles.columns}>
           <View style={styles.column}>
-            <Rows rows={e.handling.rows} />
+            <KeyValues rows={e.handling.rows} />
           </View>
           <View style={styles.column}>
-            {e.handling.shipping.map((s) => (
-              <Text key={s} style={styles.small}>
-                • {pdfText(s)}
-              </Text>
-            ))}
+            <Notes items={e.handling.shipping} />
           </View>
         </View>
       </View>

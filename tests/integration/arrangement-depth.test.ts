@@ -4,10 +4,6 @@
  * filters and ranking work against the demo catalogs, the shop's own settings are read, hybrid
  * cells need their minimum voltage in the database, and a quote's PDF holds the sections.
  */
-import { execFileSync } from "node:child_process";
-import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
 import { eq } from "drizzle-orm";
 import { renderToStaticMarkup } from "react-dom/server";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -22,7 +18,7 @@ import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 import { arrangementOptionDepthSchema } from "@/lib/validation/arrangement-depth";
 import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
 import { createQuote, createShop, type TestShop } from "./fixtures";
-import { actAs } from "./helpers";
+import { actAs, pdfToText } from "./helpers";
 
 const post = (slug: string, body: unknown) =>
   arrangements(
@@ -211,16 +207,6 @@ describe("the catalog keeps a hybrid cell's minimum voltage", () => {
     await db.insert(catalogCells).values({ ...row, sku: "TEST-EDLC-NOMIN", technology: "edlc" as const });
   });
 });
-
-function pdfToText(buffer: Buffer): string {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "quote-pdf-"));
-  try {
-    fs.writeFileSync(path.join(dir, "q.pdf"), buffer);
-    return execFileSync("pdftotext", ["-layout", path.join(dir, "q.pdf"), "-"], { encoding: "utf8" });
-  } finally {
-    fs.rmSync(dir, { recursive: true, force: true });
-  }
-}
 
 describe("a quote freezes the failure and life figures, and its PDF shows them", () => {
   it("the PDF holds the option's verdicts, its yield and its life as pdftotext reads them", async () => {

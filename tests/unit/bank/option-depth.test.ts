@@ -2,6 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { DEFAULT_DESIGN_FACTORS, HOURS_PER_YEAR, searchArrangements, type CellThermal, type EngineCell, type Requirement } from "@/lib/bank";
 import { endOfLifeCapacitanceNeed, optionYield, optionYieldSamples } from "@/lib/bank/option-yield";
+import { edlc3000 } from "./cells";
 
 // Invented EDLC cells (invented part numbers) with made-up but typical life data: 1500 h at 65 °C
 // and 2.7 V, −40 to 65 °C, 3.2 K/W to ambient.
@@ -16,27 +17,7 @@ const thermal: CellThermal = {
 };
 
 function edlc(sku: string, overrides: Partial<EngineCell> = {}): EngineCell {
-  return {
-    id: `cell-${sku}`,
-    sku,
-    technology: "edlc",
-    capacitance: 3000,
-    toleranceMinus: 0.1,
-    tolerancePlus: 0.2,
-    ratedVoltage: 2.7,
-    surgeVoltage: 2.85,
-    esr: 0.29e-3,
-    leakageCurrent: 5.2e-3,
-    continuousCurrent: 130,
-    peakCurrent: 2170,
-    mass: 0.507,
-    volume: 4.97e-4,
-    unitCost: 44.9,
-    stock: 5000,
-    leadTimeDays: 2,
-    thermal,
-    ...overrides,
-  };
+  return edlc3000({ id: `cell-${sku}`, sku, thermal, ...overrides });
 }
 
 const factors = DEFAULT_DESIGN_FACTORS;

@@ -1,7 +1,7 @@
+import { FigureRows as Rows } from "@/components/bank-depth/figure-rows";
 import type { OptionFailureVerdict } from "@/lib/bank";
 import { failureVerdict, handlingRows, lifeHeadline, lifeRows } from "@/lib/quoting/option-depth-words";
 import type { PricedOption } from "@/lib/quoting/types";
-import type { LabelledValue } from "@/lib/vocabulary";
 
 const VERDICT_STYLE = {
   yes: "bg-charge-100 text-charge-700",
@@ -22,19 +22,6 @@ function Verdict({ v }: { v: OptionFailureVerdict }) {
         <span className="font-medium text-ink-900">{lead}:</span> {rest.join(": ")}
       </span>
     </li>
-  );
-}
-
-function Rows({ rows }: { rows: LabelledValue[] }) {
-  return (
-    <dl className="divide-y divide-ink-100">
-      {rows.map((r) => (
-        <div key={r.label} className="flex justify-between gap-4 py-1">
-          <dt className="text-ink-600">{r.label}</dt>
-          <dd className="num text-right font-medium text-ink-900">{r.value}</dd>
-        </div>
-      ))}
-    </dl>
   );
 }
 

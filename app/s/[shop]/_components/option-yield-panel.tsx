@@ -1,4 +1,5 @@
 "use client";
+import { FigureRows } from "@/components/bank-depth/figure-rows";
 import { YieldHistogram } from "@/components/bank-depth/yield-histogram";
 import type { Requirement } from "@/lib/bank";
 import { yieldRows } from "@/lib/quoting/option-depth-words";
@@ -38,14 +39,7 @@ function YieldOutcome({ option, y }: { option: PricedOption; y: NonNullable<Retu
           Capacitance of {y.samples.toLocaleString("en-GB")} banks with their cells drawn within tolerance (new cells); bars below the need are shaded.
         </figcaption>
       </figure>
-      <dl className="divide-y divide-ink-100">
-        {rows.map((r) => (
-          <div key={r.label} className="flex justify-between gap-4 py-1">
-            <dt className="text-ink-600">{r.label}</dt>
-            <dd className="num text-right font-medium text-ink-900">{r.value}</dd>
-          </div>
-        ))}
-      </dl>
+      <FigureRows rows={rows} />
     </>
   );
 }
