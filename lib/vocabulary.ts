@@ -4,7 +4,7 @@
  * customer's requirement. Pages, e-mails, the quote and its PDF all take their words from here.
  * Pure: no framework, no database (client components import it too).
  */
-import type { Requirement, Technology, Topology } from "./bank/types";
+import type { FaultFilter, Requirement, Technology, Topology } from "./bank/types";
 import type { Role } from "./auth/permissions";
 import { formatQuantity as q } from "./quantities";
 
@@ -27,6 +27,13 @@ export const TOPOLOGY_LABELS: Record<Topology, string> = {
 export function arrangementLabel(o: { seriesCount: number; parallelCount: number }): string {
   return `${o.seriesCount} S × ${o.parallelCount} P`;
 }
+
+/** The failures a customer may ask a bank to survive, in words ("survives one shorted cell"). */
+export const FAULT_FILTER_LABELS: Record<FaultFilter, string> = {
+  short: "one shorted cell",
+  open: "one open cell",
+  both: "one shorted or one open cell",
+};
 
 export const ROLE_LABELS: Record<Role, string> = { manager: "Manager", estimator: "Estimator", customer: "Customer" };
 export const ROLE_PLURALS: Record<Role, string> = { manager: "Managers", estimator: "Estimators", customer: "Customers" };
@@ -141,6 +148,19 @@ function requirementParts(r: Requirement): RequirementPart[] {
   if (r.maxMass !== undefined) parts.push({ label: "Mass limit", value: q(r.maxMass, "kg"), phrase: `at most ${q(r.maxMass, "kg")}` });
   if (r.maxVolume !== undefined) parts.push({ label: "Volume limit", value: q(r.maxVolume, "m³"), phrase: `at most ${q(r.maxVolume, "m³")}` });
   if (r.technology) parts.push({ label: "Technology", value: TECHNOLOGY_LABELS[r.technology], phrase: `${TECHNOLOGY_LABELS[r.technology]} only` });
+  if (r.ambientTemperature !== undefined) {
+    const t = `${Number(r.ambientTemperature.toFixed(1))} °C`;
+    parts.push({ label: "Ambient temperature", value: t, phrase: `${t} ambient` });
+  }
+  if (r.rmsCurrent !== undefined) parts.push({ label: "RMS current", value: q(r.rmsCurrent, "A"), phrase: `${q(r.rmsCurrent, "A")} rms` });
+  if (r.survives) {
+    const what = FAULT_FILTER_LABELS[r.survives];
+    parts.push({ label: "Must survive", value: what, phrase: `survives ${what}` });
+  }
+  if (r.minLifeYears !== undefined) {
+    const years = `${Number(r.minLifeYears.toFixed(1))} years`;
+    parts.push({ label: "Expected life at least", value: years, phrase: `lasts ${years}` });
+  }
   const quantity = r.quantity ?? 1;
   parts.push({ label: "Quantity", value: banks(quantity), phrase: banks(quantity) });
   return parts;

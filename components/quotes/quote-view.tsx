@@ -1,4 +1,5 @@
 import { BankDiagram } from "@/components/bank-diagram/bank-diagram";
+import { QuoteEngineeringSection } from "./quote-engineering-section";
 import type { LabelledValue, QuoteDocument } from "@/lib/quoting/quote-document";
 
 function Facts({ title, rows }: { title: string; rows: LabelledValue[] }) {
@@ -73,6 +74,8 @@ export function QuoteView({ doc, pdfHref }: { doc: QuoteDocument; pdfHref: strin
         <Facts title="Bank figures" rows={doc.figures} />
         <Facts title="Cell" rows={doc.cell} />
       </div>
+
+      <QuoteEngineeringSection e={doc.engineering} />
 
       <section className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
         <h2 className="px-4 pt-4 text-sm font-semibold text-ink-800">Price build-up for one bank</h2>

@@ -38,6 +38,18 @@ export const catalogCells = pgTable(
     unitCost: numeric({ precision: 14, scale: 4 }).notNull(),
     stock: integer().notNull().default(0),
     leadTimeDays: integer().notNull().default(0),
+    /** lowest voltage the cell may be taken to; required for hybrid cells (a check constraint, custom migration) */
+    minVoltageV: doublePrecision(),
+    /** life at the rated temperature and rated voltage (h) and that temperature (°C; missing: the top of the range) */
+    ratedLifeHours: doublePrecision(),
+    ratedLifeTemperatureC: doublePrecision(),
+    /** operating range (°C) */
+    minTemperatureC: doublePrecision(),
+    maxTemperatureC: doublePrecision(),
+    thermalResistanceKPerW: doublePrecision(),
+    /** capacitance and ESR at the bottom of the range, as factors of their 25 °C values */
+    coldCapacitanceFactor: doublePrecision(),
+    coldEsrFactor: doublePrecision(),
     isActive: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true })

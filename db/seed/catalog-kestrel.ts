@@ -1,4 +1,5 @@
 import type { NewCatalogCell, NewCatalogComponent } from "../schema/catalog";
+import { withLifeData } from "./cell-life";
 import { makers } from "./manufacturers";
 
 /*
@@ -13,7 +14,7 @@ import { makers } from "./manufacturers";
  * practice, from memory).
  * Plain data: no database access here; the seed script adds shopId.
  */
-export const kestrelCells: Omit<NewCatalogCell, "shopId">[] = [
+export const kestrelCells: Omit<NewCatalogCell, "shopId">[] = withLifeData([
   // EDLC 2.7 V, Quillfen large cells
   {
     sku: "QFS-0650R27",
@@ -821,7 +822,7 @@ export const kestrelCells: Omit<NewCatalogCell, "shopId">[] = [
     stock: 6,
     leadTimeDays: 21,
   },
-];
+]);
 
 /** Balancing boards, interconnects, terminal sets and enclosures for the bill of materials. */
 export const kestrelComponents: Omit<NewCatalogComponent, "shopId">[] = [

@@ -1,4 +1,5 @@
 import type { NewCatalogCell, NewCatalogComponent } from "../schema/catalog";
+import { withLifeData } from "./cell-life";
 import { makers } from "./manufacturers";
 
 /*
@@ -12,7 +13,7 @@ import { makers } from "./manufacturers";
  * C·dV/dt at the rated pulse slope (all common practice, from memory).
  * Plain data: no database access here; the seed script adds shopId.
  */
-export const marlowCells: Omit<NewCatalogCell, "shopId">[] = [
+export const marlowCells: Omit<NewCatalogCell, "shopId">[] = withLifeData([
   // film: Tarnwick boxes (pulse, snubber, high voltage)
   {
     sku: "TD-PB-105K-1200",
@@ -888,7 +889,7 @@ export const marlowCells: Omit<NewCatalogCell, "shopId">[] = [
     stock: 0,
     leadTimeDays: 49,
   },
-];
+]);
 
 /** Balancing boards, interconnects, terminal sets and enclosures for the bill of materials. */
 export const marlowComponents: Omit<NewCatalogComponent, "shopId">[] = [

@@ -713,6 +713,8 @@ export interface components {
         peakCurrent: number;
         mass: number;
         volume: number;
+        /** @description the cell's minimum voltage (V; hybrid cells), null when it may go to 0 V */
+        minVoltage: number | null;
       };
       /** @enum {string} */
       topology: "series-of-parallel-groups" | "parallel-of-series-strings";
@@ -787,6 +789,108 @@ export interface components {
       } | null;
       /** @description Pareto-optimal over price, mass and volume */
       pareto: boolean;
+      /** @description what one shorted and one open cell do to the bank */
+      failures: {
+        short: {
+          /** @description every single fault of this kind leaves the bank working, every remaining cell within its surge voltage */
+          survives: boolean;
+          /** @description … and every remaining cell within its rated voltage */
+          withinRating: boolean;
+          /** @description the fault shorts the whole bank */
+          shortCircuit: boolean;
+          /** @description capacitance after the fault (F), null on a short circuit */
+          capacitance: number | null;
+          /** @description highest voltage on a remaining cell at the working voltage (V) */
+          maxCellVoltage: number;
+          /** @description the verdict in words: "Survives one shorted cell: no — …" */
+          text: string;
+        };
+        open: {
+          /** @description every single fault of this kind leaves the bank working, every remaining cell within its surge voltage */
+          survives: boolean;
+          /** @description … and every remaining cell within its rated voltage */
+          withinRating: boolean;
+          /** @description the fault shorts the whole bank */
+          shortCircuit: boolean;
+          /** @description capacitance after the fault (F), null on a short circuit */
+          capacitance: number | null;
+          /** @description highest voltage on a remaining cell at the working voltage (V) */
+          maxCellVoltage: number;
+          /** @description the verdict in words: "Survives one shorted cell: no — …" */
+          text: string;
+        };
+      };
+      /** @description self-heating, cell temperature and expected life; null without life data in the catalog */
+      life: {
+        /** @description ambient the estimate is for (°C) */
+        ambientTemperature: number;
+        /** @description no ambient was stated: 25 °C is assumed */
+        ambientAssumed: boolean;
+        /** @description each cell's working voltage (V) */
+        cellVoltage: number;
+        /** @description each cell's rms current (A) */
+        cellRmsCurrent: number;
+        /** @description I²·ESR per cell (W) */
+        dissipation: number;
+        /** @description self-heating ΔT = I²·ESR·R_th (K) */
+        selfHeating: number;
+        /** @description ambient + self-heating (°C) */
+        cellTemperature: number;
+        /** @description top of the cell's range (°C) */
+        maxTemperature: number;
+        /** @description 2^((T_rated − T_cell)/10): the 10 °C rule (common practice) */
+        temperatureFactor: number;
+        /** @description 2^((V_r − V)/(step·V_r)), the step from the shop's settings */
+        voltageFactor: number;
+        lifeHours: number | null;
+        lifeYears: number | null;
+        /** @description the life reached the shop's ceiling */
+        capped: boolean;
+        refusal: string | null;
+        cold: {
+          /** @description bottom of the cell's range (°C) */
+          temperature: number | null;
+          /** @description the bank's capacitance there (F) */
+          capacitance: number | null;
+          /** @description the bank's ESR there (Ω) */
+          esr: number | null;
+        } | null;
+        assumptions: string[];
+      } | null;
+      handling: {
+        /** @description the cell's minimum voltage (V), null when it may go to 0 V */
+        minCellVoltage: number | null;
+        /** @description N_s × that minimum: never discharge the bank below it (V) */
+        floorVoltage: number | null;
+        standby: {
+          /** @description time for a switched-off bank's cells to drain to their minimum (s); null: never */
+          seconds: number | null;
+          /** @description the shop's standby time (s) */
+          requiredSeconds: number;
+          needsDisconnect: boolean;
+        } | null;
+        standingHeat: {
+          /** @description continuous dissipation of the balancing resistors and any continuous bleeder (W) */
+          watts: number;
+          /** @description the enclosure the rule assumes (m³) */
+          enclosureVolume: number;
+          /** @description its surface (m²) */
+          surface: number;
+          /** @description the air's rise above ambient (K) */
+          temperatureRise: number;
+          /** @description a rise of 5 K or more (common practice) */
+          significant: boolean;
+        };
+        /** @description transport classification and how to ship */
+        shipping: string[];
+      };
+      /** @description the spread the tolerance-yield figures are drawn from */
+      yieldBasis: {
+        matchingTolerance: number;
+        /** @enum {string} */
+        distribution: "uniform" | "normal";
+        capacitanceFade: number;
+      };
     };
     QuotePage: {
       rows: {
@@ -1138,6 +1242,13 @@ export interface operations {
           quantity?: number;
           /** @enum {string} */
           technology?: "edlc" | "hybrid" | "electrolytic" | "film";
+          ambientTemperature?: number;
+          rmsCurrent?: number;
+          /** @enum {string} */
+          survives?: "short" | "open" | "both";
+          minLifeYears?: number;
+          /** @enum {string} */
+          rankBy?: "price" | "life";
         };
       };
     };

@@ -33,6 +33,16 @@ export function toEngineCell(row: CatalogCell): EngineCell {
     unitCost: Number(row.unitCost),
     stock: row.stock,
     leadTimeDays: row.leadTimeDays,
+    minVoltage: row.minVoltageV,
+    thermal: {
+      ratedLifeHours: row.ratedLifeHours,
+      ratedTemperature: row.ratedLifeTemperatureC,
+      minTemperature: row.minTemperatureC,
+      maxTemperature: row.maxTemperatureC,
+      thermalResistance: row.thermalResistanceKPerW,
+      coldCapacitanceFactor: row.coldCapacitanceFactor,
+      coldEsrFactor: row.coldEsrFactor,
+    },
   };
 }
 
@@ -142,5 +152,13 @@ export function freezeCell(row: CatalogCell): FrozenCell {
     heightMm: row.heightMm,
     unitCost: row.unitCost,
     leadTimeDays: row.leadTimeDays,
+    minVoltageV: row.minVoltageV,
+    ratedLifeHours: row.ratedLifeHours,
+    ratedLifeTemperatureC: row.ratedLifeTemperatureC,
+    minTemperatureC: row.minTemperatureC,
+    maxTemperatureC: row.maxTemperatureC,
+    thermalResistanceKPerW: row.thermalResistanceKPerW,
+    coldCapacitanceFactor: row.coldCapacitanceFactor,
+    coldEsrFactor: row.coldEsrFactor,
   };
 }

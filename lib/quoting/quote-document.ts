@@ -2,6 +2,7 @@ import type { RevisionWithLines } from "@/db/queries/quotes";
 import { formatMoney, type BankPrice } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
 import { requirementFacts, TECHNOLOGY_LABELS, TOPOLOGY_LABELS, type LabelledValue } from "@/lib/vocabulary";
+import { toQuoteEngineering, type QuoteEngineering } from "./quote-engineering";
 import type { FrozenCell, PricedOption } from "./types";
 
 export type { LabelledValue };
@@ -41,6 +42,8 @@ export interface QuoteDocument {
   notes: string[];
   /** the frozen option, for the diagram on the page */
   option: PricedOption;
+  /** one failed cell, tolerance yield, temperature and life, handling (quote-engineering.ts) */
+  engineering: QuoteEngineering;
 }
 
 const q = (value: number, unit: string) => formatQuantity(value, unit);
@@ -146,5 +149,6 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     cautions: option.cautions ?? [],
     notes: option.warnings ?? [],
     option,
+    engineering: toQuoteEngineering(r.requirement, option),
   };
 }

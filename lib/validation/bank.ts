@@ -1,9 +1,12 @@
 import { z } from "zod";
+import { optionFailuresSchema, optionHandlingSchema, optionLifeSchema, yieldBasisSchema } from "./arrangement-depth";
 import {
   MAX_CAPACITANCE,
   MAX_CELLS_PER_BANK,
+  MAX_AMBIENT_TEMPERATURE,
   MAX_CURRENT,
   MAX_ENERGY,
+  MAX_LIFE_YEARS,
   MAX_MASS,
   MAX_POWER,
   MAX_QUANTITY,
@@ -11,9 +14,10 @@ import {
   MAX_SECONDS,
   MAX_VOLTAGE,
   MAX_VOLUME,
+  MIN_AMBIENT_TEMPERATURE,
   formatBound,
 } from "../bank/bounds";
-import { TECHNOLOGIES, TOPOLOGIES, type NetworkNode, type Requirement } from "../bank/types";
+import { FAULT_FILTERS, RANK_BY, TECHNOLOGIES, TOPOLOGIES, type NetworkNode, type Requirement } from "../bank/types";
 
 /** Deepest network accepted (levels of groups and cells, the root is level 1). */
 export const MAX_NETWORK_DEPTH = 64;
@@ -102,6 +106,19 @@ export const arrangementRequestSchema = z
       .max(MAX_QUANTITY, `Quantity must be at most ${MAX_QUANTITY.toLocaleString("en-GB")}`)
       .default(1),
     technology: technologySchema.optional(),
+    ambientTemperature: z
+      .number({ message: "Ambient temperature must be a number in °C" })
+      .min(MIN_AMBIENT_TEMPERATURE, `Ambient temperature must be at least ${MIN_AMBIENT_TEMPERATURE} °C`)
+      .max(MAX_AMBIENT_TEMPERATURE, `Ambient temperature must be at most ${MAX_AMBIENT_TEMPERATURE} °C`)
+      .optional(),
+    rmsCurrent: quantity("RMS current", "A", MAX_CURRENT).optional(),
+    survives: z.enum(FAULT_FILTERS, { message: 'survives must be "short", "open" or "both"' }).optional(),
+    minLifeYears: z
+      .number({ message: "Minimum life must be a number of years" })
+      .positive("Minimum life must be greater than zero")
+      .max(MAX_LIFE_YEARS, `Minimum life must be at most ${MAX_LIFE_YEARS} years`)
+      .optional(),
+    rankBy: z.enum(RANK_BY, { message: 'rankBy must be "price" or "life"' }).optional(),
   })
   .superRefine((value, ctx) => {
     if (value.capacitance === undefined && value.energy === undefined && value.backup === undefined) {
@@ -151,6 +168,7 @@ export const pricedOptionSchema = z
       peakCurrent: z.number(),
       mass: z.number(),
       volume: z.number(),
+      minVoltage: z.number().positive().nullable().meta({ description: "the cell's minimum voltage (V; hybrid cells), null when it may go to 0 V" }),
     }),
     topology: z.enum(TOPOLOGIES),
     seriesCount: z.number().int(),
@@ -200,6 +218,10 @@ export const pricedOptionSchema = z
       .nullable()
       .meta({ description: "sell price; null when the shop's rules cannot price it automatically" }),
     pareto: z.boolean().meta({ description: "Pareto-optimal over price, mass and volume" }),
+    failures: optionFailuresSchema.meta({ description: "what one shorted and one open cell do to the bank" }),
+    life: optionLifeSchema.nullable().meta({ description: "self-heating, cell temperature and expected life; null without life data in the catalog" }),
+    handling: optionHandlingSchema,
+    yieldBasis: yieldBasisSchema.meta({ description: "the spread the tolerance-yield figures are drawn from" }),
   })
   .meta({ id: "PricedOption" });
 

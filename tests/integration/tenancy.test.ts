@@ -48,6 +48,7 @@ import DeskOutboxPage from "@/app/desk/[shop]/outbox/page";
 import DeskQuotePage from "@/app/desk/[shop]/quotes/[number]/page";
 import DeskQuotesPage from "@/app/desk/[shop]/quotes/page";
 import DeskRequestsPage from "@/app/desk/[shop]/requests/page";
+import DeskSettingsPage from "@/app/desk/[shop]/settings/page";
 import DeskTeamPage from "@/app/desk/[shop]/team/page";
 import { chooseArrangement, exploreArrangements } from "@/app/s/[shop]/actions";
 import { joinShop } from "@/app/s/[shop]/join/actions";
@@ -541,6 +542,7 @@ describe("tenancy", () => {
       ["order", (s: string) => DeskOrderPage({ params: Promise.resolve({ shop: s, number: pay.aOrder }) })],
       ["dashboard", (s: string) => DeskDashboardPage({ params: Promise.resolve({ shop: s }) })],
       ["webhooks", (s: string) => DeskWebhooksPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
+      ["settings", (s: string) => DeskSettingsPage({ params: Promise.resolve({ shop: s }) })],
     ] as const;
 
     it.each(desk)("the desk's %s refuses the other shop's manager and opens for the shop's own", async (_name, render) => {

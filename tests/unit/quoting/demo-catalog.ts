@@ -4,7 +4,7 @@
  */
 import { kestrelCells, kestrelComponents } from "@/db/seed/catalog-kestrel";
 import { marlowCells, marlowComponents } from "@/db/seed/catalog-marlow";
-import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank";
+import { DEFAULT_DESIGN_FACTORS, DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank";
 import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import type { ShopCatalog } from "@/lib/quoting/types";
@@ -20,6 +20,7 @@ export function demoCatalog(slug: keyof typeof SEEDS): ShopCatalog {
     factors: DEFAULT_DESIGN_FACTORS,
     rules: { ...DEFAULT_PRICING_RULES, currency: seed.currency },
     autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS,
+    reliability: DEFAULT_RELIABILITY_SETTINGS,
     cells: seed.cells
       .filter((c) => c.isActive !== false)
       .map(({ isActive: _a, createdAt: _c, updatedAt: _u, ...c }) => ({
@@ -30,6 +31,14 @@ export function demoCatalog(slug: keyof typeof SEEDS): ShopCatalog {
         widthMm: c.widthMm ?? null,
         stock: c.stock ?? 0,
         leadTimeDays: c.leadTimeDays ?? 0,
+        minVoltageV: c.minVoltageV ?? null,
+        ratedLifeHours: c.ratedLifeHours ?? null,
+        ratedLifeTemperatureC: c.ratedLifeTemperatureC ?? null,
+        minTemperatureC: c.minTemperatureC ?? null,
+        maxTemperatureC: c.maxTemperatureC ?? null,
+        thermalResistanceKPerW: c.thermalResistanceKPerW ?? null,
+        coldCapacitanceFactor: c.coldCapacitanceFactor ?? null,
+        coldEsrFactor: c.coldEsrFactor ?? null,
       })),
     components: seed.components
       .filter((c) => c.isActive !== false)

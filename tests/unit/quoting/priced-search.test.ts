@@ -6,7 +6,7 @@
 import { Decimal } from "decimal.js";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { DEFAULT_DESIGN_FACTORS, searchArrangements, type Requirement } from "@/lib/bank";
+import { DEFAULT_DESIGN_FACTORS, DEFAULT_RELIABILITY_SETTINGS, searchArrangements, type Requirement } from "@/lib/bank";
 import { tryPriceBank, type PricingRules } from "@/lib/pricing";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import { balancingBoardsOf, billFor, costModelOf, priceLowerBound, toEngineCell } from "@/lib/quoting/bill";
@@ -86,6 +86,15 @@ const arbCell = (i: number): fc.Arbitrary<CatalogCell> =>
       lengthMm: null,
       widthMm: null,
       leadTimeDays: 14,
+      // hybrid cells must carry a minimum voltage (common practice: about 2.2 V per 3.8 V cell)
+      minVoltageV: c.technology === "hybrid" ? c.ratedVoltageV * 0.58 : null,
+      ratedLifeHours: 2000,
+      ratedLifeTemperatureC: 85,
+      minTemperatureC: -40,
+      maxTemperatureC: 85,
+      thermalResistanceKPerW: 5,
+      coldCapacitanceFactor: null,
+      coldEsrFactor: null,
     }));
 
 const arbCells: fc.Arbitrary<CatalogCell[]> = fc.integer({ min: 1, max: 24 }).chain((n) => fc.tuple(...Array.from({ length: n }, (_, i) => arbCell(i))));
@@ -131,7 +140,7 @@ const arbRequirement: fc.Arbitrary<Requirement> = fc
 
 const arbCatalog: fc.Arbitrary<ShopCatalog> = fc
   .record({ factors: arbFactors, rules: arbRules, cells: arbCells, components: arbBoards })
-  .map((c) => ({ ...c, autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS }));
+  .map((c) => ({ ...c, autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS, reliability: DEFAULT_RELIABILITY_SETTINGS }));
 
 /** Every feasible option, each priced exactly: what no pre-cut may differ from. */
 function everyOptionPriced(catalog: ShopCatalog, requirement: Requirement) {

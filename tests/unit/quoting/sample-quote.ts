@@ -5,7 +5,7 @@
  * The cell, its maker "Brightwater Cells", the board and the shop are invented.
  */
 import type { RevisionWithLines } from "@/db/queries/quotes";
-import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank";
+import { DEFAULT_DESIGN_FACTORS, DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank";
 import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import { searchPricedOptions } from "@/lib/quoting/priced-search";
@@ -36,6 +36,14 @@ export const SAMPLE_CELL: CatalogCell = {
   unitCost: "38.5000",
   stock: 400,
   leadTimeDays: 10,
+  minVoltageV: null,
+  ratedLifeHours: 1500,
+  ratedLifeTemperatureC: 65,
+  minTemperatureC: -40,
+  maxTemperatureC: 65,
+  thermalResistanceKPerW: 3.2,
+  coldCapacitanceFactor: 0.9,
+  coldEsrFactor: 2,
 };
 
 export const SAMPLE_BOARD: CatalogComponent = {
@@ -52,6 +60,7 @@ export const SAMPLE_CATALOG: ShopCatalog = {
   factors: DEFAULT_DESIGN_FACTORS,
   rules: DEFAULT_PRICING_RULES,
   autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS,
+  reliability: DEFAULT_RELIABILITY_SETTINGS,
   cells: [SAMPLE_CELL],
   components: [SAMPLE_BOARD],
 };

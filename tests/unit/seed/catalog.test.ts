@@ -150,6 +150,29 @@ describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
     ).toEqual([]);
   });
 
+  it("gives every hybrid cell a minimum voltage between 2 V and 2.8 V, and no other cell one (common practice: about 2.2 V)", () => {
+    expect(failing(cells, (c) => (c.technology === "hybrid" ? within(c.minVoltageV ?? 0, 2, 2.8) : c.minVoltageV == null))).toEqual([]);
+  });
+
+  it("gives every cell life and temperature data in its technology's usual band (common practice, from memory)", () => {
+    const top: Record<Technology, [number, number]> = { edlc: [60, 70], hybrid: [70, 85], electrolytic: [85, 105], film: [85, 105] };
+    expect(
+      failing(cells, (c) => {
+        const [lo, hi] = top[c.technology];
+        return (
+          within(c.maxTemperatureC ?? 0, lo, hi) &&
+          (c.minTemperatureC ?? 0) <= -20 &&
+          within(c.ratedLifeHours ?? 0, 1000, 100_000) &&
+          (c.ratedLifeTemperatureC ?? Infinity) <= (c.maxTemperatureC ?? -Infinity) &&
+          // a bare cell in still air: 0.5 to 60 K/W from the largest can to the smallest
+          within(c.thermalResistanceKPerW ?? 0, 0.5, 60) &&
+          (c.coldCapacitanceFactor == null || within(c.coldCapacitanceFactor, 0.5, 1)) &&
+          (c.coldEsrFactor == null || within(c.coldEsrFactor, 1, 10))
+        );
+      }),
+    ).toEqual([]);
+  });
+
   it("rates surge voltage at or above rated voltage", () => {
     expect(failing(cells, (c) => c.surgeVoltageV >= c.ratedVoltageV)).toEqual([]);
   });
