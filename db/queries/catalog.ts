@@ -3,7 +3,7 @@ import { and, asc, count, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { catalogCells, catalogComponents } from "@/db/schema";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
-import { DEFAULT_PRICING_RULES } from "@/lib/pricing/defaults";
+import { DEFAULT_PRICING_RULES, readPricingRules } from "@/lib/pricing/defaults";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import type { ShopCatalog } from "@/lib/quoting/types";
 import { getShopSettings } from "./shops";
@@ -33,7 +33,7 @@ export async function loadShopCatalog(shopId: string): Promise<ShopCatalog> {
   const [settings, cells, components] = await Promise.all([getShopSettings(shopId), listActiveCells(shopId), listActiveComponents(shopId)]);
   return {
     factors: settings?.designFactors ?? DEFAULT_DESIGN_FACTORS,
-    rules: settings?.pricingRules ?? DEFAULT_PRICING_RULES,
+    rules: settings ? readPricingRules(settings.pricingRules) : DEFAULT_PRICING_RULES,
     autoQuoteLimits: settings?.autoQuoteLimits ?? DEFAULT_AUTO_QUOTE_LIMITS,
     cells,
     components,

@@ -5,3 +5,5 @@ export * from "./quotes";
 export * from "./mail";
 export * from "./security";
 export * from "./records";
+export * from "./pricing";
+export * from "./api-keys";

@@ -51,7 +51,14 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
   const byId = new Map(catalog.cells.map((c) => [c.id, c]));
   const quantity = requirement.quantity ?? 1;
   const search = (limit: number) =>
-    searchArrangements({ requirement, cells, factors, balancingBoards: balancingBoardsOf(catalog.components), costModel: costModelOf(rules), limit });
+    searchArrangements({
+      requirement,
+      cells,
+      factors,
+      balancingBoards: balancingBoardsOf(catalog.components),
+      costModel: costModelOf(rules, catalog.components),
+      limit,
+    });
 
   const priced: Candidate[] = [];
   let width = FIRST_CUT;
@@ -79,7 +86,8 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
 function priceOption(found: ArrangementOption, cell: CatalogCell, catalog: ShopCatalog, quantity: number): Candidate {
   const { cellId: _cellId, costEstimate: _costEstimate, ...figures } = found;
   const record = (price: BankPrice | null): OptionRecord => ({ price, cell: freezeCell(cell) });
-  const priced = tryPriceBank(billFor(found, cell, catalog.components, quantity), catalog.rules);
+  const bill = billFor(found, cell, catalog.components, quantity);
+  const priced = bill.ok ? tryPriceBank(bill.bill, catalog.rules) : ({ ok: false, message: bill.message } as const);
   if (!priced.ok) {
     return { ...figures, price: null, pareto: false, warnings: [...figures.warnings, `Not priced automatically: ${priced.message}`], record: record(null) };
   }

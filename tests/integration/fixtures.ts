@@ -6,7 +6,7 @@
 import { randomUUID } from "node:crypto";
 import { hashPassword } from "better-auth/crypto";
 import { db } from "@/db";
-import { DEMO_PASSWORD, demoCatalogs, seedShop } from "@/db/seed";
+import { DEMO_PASSWORD, demoCatalogs, demoPricingRules, seedShop } from "@/db/seed";
 import type { ShopContext } from "@/lib/auth/context";
 import type { Role } from "@/lib/auth/permissions";
 import type { Requirement } from "@/lib/bank";
@@ -40,7 +40,7 @@ let passwordHash: Promise<string> | null = null;
 
 /**
  * A new shop for one test, with a manager, an estimator and two customers who all sign in with the
- * demo password. `like` picks whose catalog, currency and rules it copies.
+ * demo password. `like` picks whose catalog, currency and pricing rules it copies.
  */
 export async function createShop(like: "kestrel" | "marlow" = "kestrel"): Promise<TestShop> {
   passwordHash ??= hashPassword(DEMO_PASSWORD);
@@ -54,8 +54,12 @@ export async function createShop(like: "kestrel" | "marlow" = "kestrel"): Promis
     estimator: person("estimator"),
     customers: [person("customer"), person("other")] as [ReturnType<typeof person>, ReturnType<typeof person>],
   };
-  const catalog = demoCatalogs[like === "kestrel" ? "kestrel-bank-works" : "marlow-pulse"];
-  const { shopId, userIds } = await seedShop(db, { slug, name, currency, people, catalog }, await passwordHash);
+  const demo = like === "kestrel" ? "kestrel-bank-works" : "marlow-pulse";
+  const { shopId, userIds } = await seedShop(
+    db,
+    { slug, name, currency, people, catalog: demoCatalogs[demo], pricingRules: demoPricingRules[demo] },
+    await passwordHash,
+  );
   const withId = (p: { name: string; email: string }): TestPerson => ({ ...p, id: userIds.get(p.email) ?? "" });
   return {
     id: shopId,
