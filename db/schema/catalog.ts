@@ -1,13 +1,13 @@
 import { sql } from "drizzle-orm";
 import { boolean, doublePrecision, index, integer, jsonb, numeric, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { TECHNOLOGIES } from "../../lib/bank/types";
+import { COMPONENT_KIND_VALUES } from "../../lib/catalog/component-fields";
 import { shops, users } from "./auth";
 
 export const technologyEnum = pgEnum("technology", TECHNOLOGIES);
 export const cellShapeEnum = pgEnum("cell_shape", ["cylinder", "box"]);
 /** `resistor`: balancing and bleeder resistors, priced by their power class (specs.powerRatingW). */
-export const COMPONENT_KINDS = ["balancing-board", "interconnect", "terminal", "enclosure", "resistor"] as const;
-export const componentKindEnum = pgEnum("component_kind", COMPONENT_KINDS);
+export const componentKindEnum = pgEnum("component_kind", COMPONENT_KIND_VALUES);
 
 /** Cells a shop can build banks from. Physics in SI units; money as numeric, read as strings. */
 export const catalogCells = pgTable(

@@ -1,5 +1,6 @@
 import { ROLES } from "@/lib/auth/permissions";
 import { TECHNOLOGIES } from "@/lib/bank/types";
+import { COMPONENT_KIND_VALUES } from "@/lib/catalog/component-fields";
 import { OUTBOX_STATUSES, QUOTE_STATUSES, REQUEST_STATUSES } from "@/lib/vocabulary";
 import { defineList, type ListQueryOf } from "./list-query";
 
@@ -18,6 +19,15 @@ export const catalogList = defineList({
   size: 25,
 });
 export type CatalogListQuery = ListQueryOf<typeof catalogList>;
+
+export const componentList = defineList({
+  search: true,
+  filters: { kind: ["all", ...COMPONENT_KIND_VALUES] },
+  sorts: { sku: "asc", kind: "asc", name: "asc", cost: "asc", stock: "asc", lead: "asc" },
+  sort: "kind",
+  size: 25,
+});
+export type ComponentListQuery = ListQueryOf<typeof componentList>;
 
 export const requestList = defineList({
   search: true,
