@@ -160,7 +160,14 @@ export async function putDatasheet(tx: Tx, shopId: string, d: NewDatasheet): Pro
     .values({ shopId, ...d })
     .onConflictDoUpdate({
       target: [cellDatasheets.shopId, cellDatasheets.cellId],
-      set: { fileName: d.fileName, sizeBytes: d.sizeBytes, sha256: d.sha256, storageKey: d.storageKey, uploadedByUserId: d.uploadedByUserId, createdAt: new Date() },
+      set: {
+        fileName: d.fileName,
+        sizeBytes: d.sizeBytes,
+        sha256: d.sha256,
+        storageKey: d.storageKey,
+        uploadedByUserId: d.uploadedByUserId,
+        createdAt: new Date(),
+      },
     });
   return old?.storageKey ?? null;
 }

@@ -208,7 +208,14 @@ export const CELL_FIELDS: readonly CellField[] = [
     help: "The most one cell delivers for a short pulse; at least the continuous current.",
   },
   { name: "mass", label: "Mass", kind: "quantity", unit: "kg", min: 0, minExclusive: true, max: MAX_MASS, example: "272 g", help: "Mass of one cell." },
-  { name: "shape", label: "Shape", kind: "choice", choices: CELL_SHAPES, example: "cylinder", help: "cylinder (give the diameter) or box (give length and width)." },
+  {
+    name: "shape",
+    label: "Shape",
+    kind: "choice",
+    choices: CELL_SHAPES,
+    example: "cylinder",
+    help: "cylinder (give the diameter) or box (give length and width).",
+  },
   {
     name: "diameter",
     label: "Diameter",
@@ -233,7 +240,18 @@ export const CELL_FIELDS: readonly CellField[] = [
     help: "A box cell's length.",
     optional: true,
   },
-  { name: "width", label: "Width", kind: "quantity", unit: "m", min: 0, minExclusive: true, max: MAX_LENGTH, example: "", help: "A box cell's width.", optional: true },
+  {
+    name: "width",
+    label: "Width",
+    kind: "quantity",
+    unit: "m",
+    min: 0,
+    minExclusive: true,
+    max: MAX_LENGTH,
+    example: "",
+    help: "A box cell's width.",
+    optional: true,
+  },
   {
     name: "height",
     label: "Height",
@@ -488,7 +506,8 @@ export function readCell(raw: Raw, base?: CellRecord): ReadCellResult {
   const num = (name: CellFieldName) => (failed.has(name) ? null : (out[name] as number | null));
   const rated = num("ratedVoltage");
   const surge = num("surgeVoltage");
-  if (rated !== null && surge !== null && surge < rated) issues.push({ field: "surgeVoltage", message: "The surge voltage must be at least the rated voltage" });
+  if (rated !== null && surge !== null && surge < rated)
+    issues.push({ field: "surgeVoltage", message: "The surge voltage must be at least the rated voltage" });
   const cont = num("continuousCurrent");
   const peak = num("peakCurrent");
   if (cont !== null && peak !== null && peak < cont) issues.push({ field: "peakCurrent", message: "The peak current must be at least the continuous current" });
@@ -574,7 +593,14 @@ export function cellFormText(r: CellRecord): Record<CellFieldName, string> {
   const out = {} as Record<CellFieldName, string>;
   for (const f of CELL_FIELDS) {
     const v = r[f.name];
-    out[f.name] = v === null ? "" : f.kind === "quantity" || f.kind === "fraction" ? formatCellValue(f.name, v, 10) : f.kind === "money" ? moneyText(v as string) : String(v);
+    out[f.name] =
+      v === null
+        ? ""
+        : f.kind === "quantity" || f.kind === "fraction"
+          ? formatCellValue(f.name, v, 10)
+          : f.kind === "money"
+            ? moneyText(v as string)
+            : String(v);
   }
   return out;
 }

@@ -44,7 +44,15 @@ export const COMPONENT_SPEC_FIELDS: Record<ComponentKind, SpecField[]> = {
   ],
   interconnect: [],
   terminal: [
-    { key: "maxCurrentA", label: "Current rating", kind: "quantity", unit: "A", max: MAX_CURRENT, example: "350 A", help: "The current the terminal set carries." },
+    {
+      key: "maxCurrentA",
+      label: "Current rating",
+      kind: "quantity",
+      unit: "A",
+      max: MAX_CURRENT,
+      example: "350 A",
+      help: "The current the terminal set carries.",
+    },
   ],
   enclosure: [
     { key: "volumeM3", label: "Inner volume", kind: "quantity", unit: "m³", max: MAX_VOLUME, example: "20 L", help: "Space inside for the cells." },
@@ -97,8 +105,10 @@ export function readComponent(raw: ComponentFormText): ReadComponentResult {
   if (name === "" || name.length > MAX_TEXT) issues.push({ field: "name", message: `Name the part in 1 to ${MAX_TEXT} characters` });
   const cost = (raw.unitCost ?? "").trim();
   let unitCost = "0";
-  if (!isDecimalString(cost) || cost.startsWith("-") || cost.startsWith("+")) issues.push({ field: "unitCost", message: "Write the unit cost as a decimal like 12.50" });
-  else if (new Dec(cost).decimalPlaces() > UNIT_COST_DECIMALS) issues.push({ field: "unitCost", message: `The unit cost keeps at most ${UNIT_COST_DECIMALS} decimals` });
+  if (!isDecimalString(cost) || cost.startsWith("-") || cost.startsWith("+"))
+    issues.push({ field: "unitCost", message: "Write the unit cost as a decimal like 12.50" });
+  else if (new Dec(cost).decimalPlaces() > UNIT_COST_DECIMALS)
+    issues.push({ field: "unitCost", message: `The unit cost keeps at most ${UNIT_COST_DECIMALS} decimals` });
   else if (new Dec(cost).greaterThan(MAX_UNIT_COST)) issues.push({ field: "unitCost", message: `The unit cost must be at most ${MAX_UNIT_COST}` });
   else unitCost = new Dec(cost).toFixed(UNIT_COST_DECIMALS);
   const whole = (field: "stock" | "leadTimeDays", max: number) => {
@@ -119,7 +129,8 @@ export function readComponent(raw: ComponentFormText): ReadComponentResult {
       continue;
     }
     if (f.kind === "text") {
-      if (f.key === "ipRating" && !/^IP[0-6][0-9]$/.test(t)) issues.push({ field: f.key, message: "An IP code is IP, a solids digit 0–6 and a water digit 0–9, e.g. IP54" });
+      if (f.key === "ipRating" && !/^IP[0-6][0-9]$/.test(t))
+        issues.push({ field: f.key, message: "An IP code is IP, a solids digit 0–6 and a water digit 0–9, e.g. IP54" });
       else specs[f.key] = t;
     } else if (f.kind === "integer") {
       if (!/^\d+$/.test(t) || Number(t) < 1 || Number(t) > f.max) issues.push({ field: f.key, message: `A whole number from 1 to ${f.max}` });

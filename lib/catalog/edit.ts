@@ -106,7 +106,12 @@ export async function createCell(ctx: ShopContext, record: CellRecord): Promise<
  * over the stored cell. With `expectedVersion`, a cell changed since that version is a "conflict"
  * that names who changed it; nothing is written.
  */
-export async function updateCell(ctx: ShopContext, sku: string, raw: Partial<Record<CellFieldName, unknown>>, expectedVersion: number | null): Promise<CellWriteResult> {
+export async function updateCell(
+  ctx: ShopContext,
+  sku: string,
+  raw: Partial<Record<CellFieldName, unknown>>,
+  expectedVersion: number | null,
+): Promise<CellWriteResult> {
   const shopId = ctx.shop.id;
   try {
     return await withShop(shopId, async (tx): Promise<CellWriteResult> => {

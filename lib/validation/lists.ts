@@ -64,3 +64,21 @@ export const outboxList = defineList({
   size: 20,
 });
 export type OutboxListQuery = ListQueryOf<typeof outboxList>;
+
+export const apiKeyList = defineList({
+  search: true,
+  filters: { status: ["all", "live", "revoked"] },
+  sorts: { status: "asc", name: "asc", created: "desc", used: "desc" },
+  sort: "status",
+  size: 20,
+});
+export type ApiKeyListQuery = ListQueryOf<typeof apiKeyList>;
+
+export const ruleVersionList = defineList({
+  search: false,
+  filters: {},
+  sorts: { version: "desc" },
+  sort: "version",
+  size: 10,
+});
+export type RuleVersionListQuery = ListQueryOf<typeof ruleVersionList>;
