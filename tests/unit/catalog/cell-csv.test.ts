@@ -97,8 +97,7 @@ describe("readCell", () => {
   it("checks across fields: surge at least rated, peak at least continuous, the shape's dimensions", () => {
     const r = readCell({ ...typed, surgeVoltage: "2.5 V", peakCurrent: "10 A", shape: "box" });
     expect(r.ok).toBe(false);
-    if (!r.ok)
-      expect(r.issues.map((i) => i.field)).toEqual(["surgeVoltage", "peakCurrent", "length", "width"]);
+    if (!r.ok) expect(r.issues.map((i) => i.field)).toEqual(["surgeVoltage", "peakCurrent", "length", "width"]);
   });
 
   it("an update names only what changes; the rest comes from the stored cell", () => {
