@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, count, eq, sql } from "drizzle-orm";
-import { catalogCells, catalogComponents, cellDatasheets, type CatalogCellRow, type CatalogComponentRow } from "@/db/schema";
+import { catalogCells, catalogComponents, cellDatasheets, quoteRevisions, quotes, type CatalogCellRow, type CatalogComponentRow } from "@/db/schema";
 import { withShop, type Executor, type Tx } from "@/db/tx";
 import type { CellValues } from "@/lib/catalog/cell-fields";
 import type { ComponentValues } from "@/lib/catalog/component-fields";
@@ -209,5 +209,17 @@ export async function listDatasheetSkus(shopId: string): Promise<string[]> {
       .innerJoin(catalogCells, and(eq(catalogCells.shopId, cellDatasheets.shopId), eq(catalogCells.id, cellDatasheets.cellId)))
       .where(eq(cellDatasheets.shopId, shopId));
     return rows.map((r) => r.sku);
+  });
+}
+
+/** Whether the customer holds a quote of the shop whose frozen cell is this SKU (they may still read its datasheet). */
+export async function customerQuotedCell(shopId: string, customerUserId: string, sku: string): Promise<boolean> {
+  return withShop(shopId, async (tx) => {
+    const [row] = await tx
+      .select({ n: count() })
+      .from(quoteRevisions)
+      .innerJoin(quotes, and(eq(quotes.shopId, quoteRevisions.shopId), eq(quotes.id, quoteRevisions.quoteId)))
+      .where(and(eq(quoteRevisions.shopId, shopId), eq(quotes.customerUserId, customerUserId), sql`${quoteRevisions.cell}->>'sku' = ${sku}`));
+    return (row?.n ?? 0) > 0;
   });
 }

@@ -1,6 +1,11 @@
 import "server-only";
 import { listAuditForSubject, recordAudit } from "@/db/queries/audit";
+import { getShopSettings } from "@/db/queries/shops";
+import type { CellResponse } from "@/lib/validation/catalog";
+import { toCellResponse } from "./cell-api";
 import {
+  getCellBySku,
+  listDatasheetSkus,
   insertCell,
   insertComponent,
   listAllCells,
@@ -310,4 +315,18 @@ export async function updateComponent(ctx: ShopContext, sku: string, values: Com
     if (!isUniqueViolation(error)) throw error;
     return { ok: false, code: "conflict", message: "Another part already has that part number.", fieldErrors: { sku: ["This part number is taken"] } };
   }
+}
+
+// ---- for the cells API ----
+
+/** The shop's currency (what unit costs are in). */
+export async function shopCurrency(shopId: string): Promise<string> {
+  return (await getShopSettings(shopId))?.currency ?? "EUR";
+}
+
+/** One cell as the API answers it, or null when the shop has no such SKU. */
+export async function cellResponseFor(ctx: ShopContext, sku: string): Promise<CellResponse | null> {
+  const [row, currency, datasheets] = await Promise.all([getCellBySku(ctx.shop.id, sku), shopCurrency(ctx.shop.id), listDatasheetSkus(ctx.shop.id)]);
+  if (!row) return null;
+  return toCellResponse(row, { currency, shopSlug: ctx.shop.slug, hasDatasheet: datasheets.includes(row.sku) });
 }

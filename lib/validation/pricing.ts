@@ -39,6 +39,9 @@ export const pricingRulesSchema = z
     taxRatePct: pct,
     interconnectCostPerCell: money,
     balancingBoardCost: money.optional(),
+    // retired flat resistor costs (resistors are catalog parts now): read back from old rule sets, never used
+    balancingResistorCost: money.optional(),
+    bleederCostPerWatt: money.optional(),
     terminalSetCost: money,
     enclosures: z.array(z.strictObject({ name: text().trim().min(1).max(120), maxVolumeM3: z.number().gt(0).max(MAX_VOLUME), cost: money })).max(MAX_RULE_LIST),
     enclosurePackingFactor: z.number().min(1).max(10),

@@ -118,7 +118,15 @@ export function ArrangementResults({
               <CellVoltageChart option={shown} maxVoltage={requirement.maxVoltage} />
               <DischargeChart option={shown} requirement={requirement} safeVoltage={designFactors.safeVoltage} />
             </div>
-            <OptionFigures option={shown} requirement={requirement} factors={designFactors} currency={currency} />
+            <OptionFigures
+              option={shown}
+              requirement={requirement}
+              factors={designFactors}
+              currency={currency}
+              datasheetHref={
+                (result.datasheets ?? []).includes(shown.cell.sku) ? `/api/v1/shops/${slug}/cells/${encodeURIComponent(shown.cell.sku)}/datasheet` : null
+              }
+            />
           </article>
 
           <section aria-label="Price against mass" className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-ink-100 sm:p-6">
