@@ -182,3 +182,10 @@ export function readRulesForm(
 export const savePricingRulesSchema = z.object({ values: pricingRulesFormSchema, version: z.number().int().min(0) });
 /** Previewing a change: the form as it stands. */
 export const previewPricingRulesSchema = z.object({ values: pricingRulesFormSchema });
+
+/** The rules form as react-hook-form checks it: the shapes, then the same reading as the server (messages at the fields). */
+export const pricingRulesFormCheckedSchema = pricingRulesFormSchema.superRefine((values, ctx) => {
+  const r = readRulesForm(values, { requireReason: true });
+  if (!r.ok)
+    for (const [path, message] of Object.entries(r.fieldErrors)) ctx.addIssue({ code: "custom", path: path.split(".").map((p) => (/^\d+$/.test(p) ? Number(p) : p)), message });
+});
