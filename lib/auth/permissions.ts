@@ -15,6 +15,8 @@ export const STATEMENTS = {
   team: ["read", "update-role"],
   settings: ["read", "write"],
   outbox: ["read"],
+  /** the shop's API keys for its own systems: make, see, revoke */
+  apikey: ["manage"],
 } as const;
 
 type Statements = typeof STATEMENTS;

@@ -187,5 +187,6 @@ export const previewPricingRulesSchema = z.object({ values: pricingRulesFormSche
 export const pricingRulesFormCheckedSchema = pricingRulesFormSchema.superRefine((values, ctx) => {
   const r = readRulesForm(values, { requireReason: true });
   if (!r.ok)
-    for (const [path, message] of Object.entries(r.fieldErrors)) ctx.addIssue({ code: "custom", path: path.split(".").map((p) => (/^\d+$/.test(p) ? Number(p) : p)), message });
+    for (const [path, message] of Object.entries(r.fieldErrors))
+      ctx.addIssue({ code: "custom", path: path.split(".").map((p) => (/^\d+$/.test(p) ? Number(p) : p)), message });
 });

@@ -115,7 +115,12 @@ describe("CSV export and import", () => {
     const versionsBefore = (await db.select({ v: catalogCells.version }).from(catalogCells).where(eq(catalogCells.shopId, shop.id))).map((r) => r.v);
     for (const dryRun of [true, false]) {
       const res = await importRoute(
-        request(`/api/v1/shops/${shop.slug}/cells.csv${dryRun ? "?dryRun=1" : ""}`, { method: "POST", cookie, body: csv, headers: { "content-type": "text/csv" } }),
+        request(`/api/v1/shops/${shop.slug}/cells.csv${dryRun ? "?dryRun=1" : ""}`, {
+          method: "POST",
+          cookie,
+          body: csv,
+          headers: { "content-type": "text/csv" },
+        }),
         params({ shop: shop.slug }),
       );
       expect(res.status).toBe(200);

@@ -15,7 +15,13 @@ export const DESK_SECTIONS: { path: string; label: string; permission: Permissio
   { path: "orders", label: "Orders", permission: "order:read-all", summary: "Paid orders through kitting, assembly, test and shipping." },
   { path: "team", label: "Team", permission: "team:read", summary: "The shop's members and their roles." },
   { path: "outbox", label: "Outbox", permission: "outbox:read", summary: "E-mail sent, waiting and failed." },
-  { path: "settings", label: "Settings", permission: "settings:write", summary: "Design factors, auto-quote limits and storefront text." },
+  { path: "settings", label: "Settings", permission: "settings:write", summary: "Design factors and auto-quote limits." },
+  {
+    path: "api-keys",
+    label: "API keys",
+    permission: "apikey:manage",
+    summary: "Keys the shop's own systems use to read and change the catalog, prices and quotes.",
+  },
 ];
 
 export function sectionFor(path: string) {

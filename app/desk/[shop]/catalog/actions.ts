@@ -3,7 +3,14 @@ import { revalidatePath } from "next/cache";
 import { shopAction } from "@/lib/auth/guards";
 import { readCell } from "@/lib/catalog/cell-fields";
 import { readComponent, type ComponentFormText } from "@/lib/catalog/component-fields";
-import { createCell as addCell, createComponent, importCells as applyImport, previewCellImport as planImport, updateCell as changeCell, updateComponent } from "@/lib/catalog/edit";
+import {
+  createCell as addCell,
+  createComponent,
+  importCells as applyImport,
+  previewCellImport as planImport,
+  updateCell as changeCell,
+  updateComponent,
+} from "@/lib/catalog/edit";
 import { createCellSchema, importCellsSchema, saveComponentSchema, updateCellSchema } from "@/lib/validation/catalog";
 
 /** Adds a cell from the desk's form (every field typed with its unit). */

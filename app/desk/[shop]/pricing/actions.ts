@@ -8,7 +8,12 @@ import { previewPricingRulesSchema, readRulesForm, savePricingRulesSchema } from
 export const savePricingRules = shopAction(savePricingRulesSchema, "pricing:write", async (ctx, input) => {
   const read = readRulesForm(input.values, { requireReason: true });
   if (!read.ok)
-    return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: Object.fromEntries(Object.entries(read.fieldErrors).map(([k, v]) => [k, [v]])) };
+    return {
+      ok: false,
+      code: "invalid",
+      message: "Please correct the marked fields.",
+      fieldErrors: Object.fromEntries(Object.entries(read.fieldErrors).map(([k, v]) => [k, [v]])),
+    };
   const r = await saveRules(ctx, read.rules, read.reason, input.version);
   if (r.ok) revalidatePath(`/desk/${ctx.shop.slug}/pricing`);
   return r;
@@ -18,6 +23,11 @@ export const savePricingRules = shopAction(savePricingRulesSchema, "pricing:writ
 export const previewPricingRules = shopAction(previewPricingRulesSchema, "pricing:read", async (ctx, input) => {
   const read = readRulesForm(input.values, { requireReason: false });
   if (!read.ok)
-    return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: Object.fromEntries(Object.entries(read.fieldErrors).map(([k, v]) => [k, [v]])) };
+    return {
+      ok: false,
+      code: "invalid",
+      message: "Please correct the marked fields.",
+      fieldErrors: Object.fromEntries(Object.entries(read.fieldErrors).map(([k, v]) => [k, [v]])),
+    };
   return { ok: true, data: await previewRuleChange(ctx.shop.id, read.rules) };
 });

@@ -58,7 +58,8 @@ export function CellForm({
         ? await updateCell(shop, { sku: initial.sku, version, changes: Object.fromEntries(dirty.map((f) => [f, values[f]])) })
         : await createCell(shop, { values });
       if (!r.ok) {
-        for (const [field, messages] of Object.entries(r.fieldErrors ?? {})) if (field in initial) form.setError(field as CellFieldName, { message: messages[0] });
+        for (const [field, messages] of Object.entries(r.fieldErrors ?? {}))
+          if (field in initial) form.setError(field as CellFieldName, { message: messages[0] });
         setMessage({ tone: "error", text: r.message ?? "Not saved.", conflict: r.code === "conflict" && !r.fieldErrors });
         return;
       }

@@ -6,7 +6,13 @@ import { useState, useTransition } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { FormMessage, SelectField, TextField } from "@/components/ui/field";
-import { COMPONENT_KIND_LABELS, COMPONENT_KIND_VALUES, COMPONENT_SPEC_FIELDS, type ComponentFormText, type ComponentKind } from "@/lib/catalog/component-fields";
+import {
+  COMPONENT_KIND_LABELS,
+  COMPONENT_KIND_VALUES,
+  COMPONENT_SPEC_FIELDS,
+  type ComponentFormText,
+  type ComponentKind,
+} from "@/lib/catalog/component-fields";
 import { componentFormSchema } from "@/lib/validation/catalog";
 import { saveComponent } from "../actions";
 
@@ -54,7 +60,14 @@ export function ComponentForm({
     <form onSubmit={onSubmit} noValidate className="space-y-6" aria-label={editing ? `Edit ${initial.sku}` : "New component"}>
       <fieldset className="grid gap-4 rounded-lg bg-white p-4 ring-1 ring-ink-100 sm:grid-cols-2 lg:grid-cols-3">
         <legend className="px-1 text-sm font-semibold uppercase tracking-wide text-ink-500">Part</legend>
-        <SelectField id="kind" label="Kind" hint="What the part is: it decides which figures it needs." error={errors.kind?.message} disabled={!canWrite} {...form.register("kind")}>
+        <SelectField
+          id="kind"
+          label="Kind"
+          hint="What the part is: it decides which figures it needs."
+          error={errors.kind?.message}
+          disabled={!canWrite}
+          {...form.register("kind")}
+        >
           {COMPONENT_KIND_VALUES.map((k) => (
             <option key={k} value={k}>
               {COMPONENT_KIND_LABELS[k]}
@@ -62,9 +75,25 @@ export function ComponentForm({
           ))}
         </SelectField>
         <TextField id="sku" label="Part number" hint="Unique in the catalog." error={errors.sku?.message} readOnly={!canWrite} {...form.register("sku")} />
-        <TextField id="name" label="Name" hint="As the bill of materials shows it." error={errors.name?.message} readOnly={!canWrite} {...form.register("name")} />
+        <TextField
+          id="name"
+          label="Name"
+          hint="As the bill of materials shows it."
+          error={errors.name?.message}
+          readOnly={!canWrite}
+          {...form.register("name")}
+        />
         {(COMPONENT_SPEC_FIELDS[kind] ?? []).map((f) => (
-          <TextField key={f.key} id={f.key} label={f.label} placeholder={f.example} hint={f.help} error={errors[f.key]?.message} readOnly={!canWrite} {...form.register(f.key)} />
+          <TextField
+            key={f.key}
+            id={f.key}
+            label={f.label}
+            placeholder={f.example}
+            hint={f.help}
+            error={errors[f.key]?.message}
+            readOnly={!canWrite}
+            {...form.register(f.key)}
+          />
         ))}
         {kind === "interconnect" ? <p className="text-sm text-ink-600 sm:col-span-2">One interconnect per cell: no figures needed.</p> : null}
       </fieldset>
@@ -79,7 +108,15 @@ export function ComponentForm({
           readOnly={!canWrite}
           {...form.register("unitCost")}
         />
-        <TextField id="stock" label="In stock" inputMode="numeric" hint="Pieces on the shelf." error={errors.stock?.message} readOnly={!canWrite} {...form.register("stock")} />
+        <TextField
+          id="stock"
+          label="In stock"
+          inputMode="numeric"
+          hint="Pieces on the shelf."
+          error={errors.stock?.message}
+          readOnly={!canWrite}
+          {...form.register("stock")}
+        />
         <TextField
           id="leadTimeDays"
           label="Lead time (days)"

@@ -214,8 +214,8 @@ export function ImportPanel({ shop }: { shop: string }) {
             <div className="flex items-start gap-2 text-sm">
               <input id="apply-valid" type="checkbox" checked={applyValid} onChange={(e) => setApplyValid(e.target.checked)} className="mt-1" />
               <label htmlFor="apply-valid">
-                Apply only the valid rows: skip the {errorRows} row{errorRows === 1 ? "" : "s"} with errors. Otherwise fix the file and choose it again; nothing is
-                imported while a row has an error.
+                Apply only the valid rows: skip the {errorRows} row{errorRows === 1 ? "" : "s"} with errors. Otherwise fix the file and choose it again; nothing
+                is imported while a row has an error.
               </label>
             </div>
           ) : null}

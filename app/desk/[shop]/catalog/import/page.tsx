@@ -26,8 +26,8 @@ export default async function CatalogCsvPage({ params }: { params: Promise<{ sho
         / CSV
       </nav>
       <PageHeader title="Export and import cells">
-        Keep the catalog in a spreadsheet: export it, change it, import it back. The import shows what each row would do and changes nothing until you apply
-        it; it adds and changes cells, and never deletes one (set active to false to retire a cell).
+        Keep the catalog in a spreadsheet: export it, change it, import it back. The import shows what each row would do and changes nothing until you apply it;
+        it adds and changes cells, and never deletes one (set active to false to retire a cell).
       </PageHeader>
       <div className="flex flex-wrap gap-3">
         <a href={base} className={buttonClass("secondary")} download>
@@ -44,10 +44,10 @@ export default async function CatalogCsvPage({ params }: { params: Promise<{ sho
         </h2>
         <p className="mt-1 max-w-3xl text-sm text-ink-600">
           The first row names the columns, in any order; <span className="font-mono">sku</span> is required, and a file may leave out any other column to keep
-          those values as they are (a new cell needs them all). Quantities are SI numbers (<span className="font-mono">0.00058</span>) or typed with their unit (
-          <span className="font-mono">0.58 mΩ</span>); tolerances as <span className="font-mono">10 %</span> or <span className="font-mono">0.1</span>; money as
-          decimals in {currency}, with a point and no currency sign. At most {MAX_IMPORT_ROWS.toLocaleString("en-GB")} rows per file. The API takes the same file
-          at <span className="font-mono">POST {base}?dryRun=1</span>.
+          those values as they are (a new cell needs them all). Quantities are SI numbers (<span className="font-mono">0.00058</span>) or typed with their unit
+          (<span className="font-mono">0.58 mΩ</span>); tolerances as <span className="font-mono">10 %</span> or <span className="font-mono">0.1</span>; money
+          as decimals in {currency}, with a point and no currency sign. At most {MAX_IMPORT_ROWS.toLocaleString("en-GB")} rows per file. The API takes the same
+          file at <span className="font-mono">POST {base}?dryRun=1</span>.
         </p>
         <div className="mt-3 overflow-x-auto">
           <table className="w-full text-sm">

@@ -93,7 +93,14 @@ export function RulesForm({ shop, initial, version, canWrite }: { shop: string; 
         {text("overheadPct", "Overhead on materials (%)", "Added to the parts' cost: storage, handling, scrap.", "10")}
         {text("marginPct", "Margin on price (%)", "Price = cost ÷ (1 − margin): 26 % keeps 26 of every 100 of the price. Below 100.", "26")}
         {text("taxRatePct", "Tax rate (%)", "Charged on the subtotal of every quote.", "19")}
-        <SelectField id="currency" label="Currency" hint="ISO 4217. Unit costs are not converted: change them with it." error={err("currency")} disabled={!canWrite} {...form.register("currency")}>
+        <SelectField
+          id="currency"
+          label="Currency"
+          hint="ISO 4217. Unit costs are not converted: change them with it."
+          error={err("currency")}
+          disabled={!canWrite}
+          {...form.register("currency")}
+        >
           {CURRENCY_CODES.map((c) => (
             <option key={c} value={c}>
               {c}
@@ -124,11 +131,21 @@ export function RulesForm({ shop, initial, version, canWrite }: { shop: string; 
               {breaks.fields.map((f, i) => (
                 <tr key={f.id} className="align-top">
                   <td className="py-1 pr-2">
-                    <input aria-label={`Break ${i + 1}: from how many banks`} className={cell} readOnly={!canWrite} {...form.register(`quantityBreaks.${i}.minQuantity`)} />
+                    <input
+                      aria-label={`Break ${i + 1}: from how many banks`}
+                      className={cell}
+                      readOnly={!canWrite}
+                      {...form.register(`quantityBreaks.${i}.minQuantity`)}
+                    />
                     {err(`quantityBreaks.${i}.minQuantity`) ? <p className="text-xs text-danger-700">{err(`quantityBreaks.${i}.minQuantity`)}</p> : null}
                   </td>
                   <td className="py-1 pr-2">
-                    <input aria-label={`Break ${i + 1}: discount in %`} className={cell} readOnly={!canWrite} {...form.register(`quantityBreaks.${i}.discountPct`)} />
+                    <input
+                      aria-label={`Break ${i + 1}: discount in %`}
+                      className={cell}
+                      readOnly={!canWrite}
+                      {...form.register(`quantityBreaks.${i}.discountPct`)}
+                    />
                     {err(`quantityBreaks.${i}.discountPct`) ? <p className="text-xs text-danger-700">{err(`quantityBreaks.${i}.discountPct`)}</p> : null}
                   </td>
                   <td className="py-1">
@@ -153,7 +170,12 @@ export function RulesForm({ shop, initial, version, canWrite }: { shop: string; 
       <fieldset className="grid gap-4 rounded-lg bg-white p-4 ring-1 ring-ink-100 sm:grid-cols-2">
         <legend className="px-1 text-sm font-semibold uppercase tracking-wide text-ink-500">Quote terms</legend>
         {text("quoteValidityDays", "Quote validity (days)", "How long an issued quote holds its price.", "30")}
-        {text("depositPercent", "Deposit on acceptance (%)", "0 means the customer pays the full total at once; 30 takes 30 % up front and the rest later.", "0")}
+        {text(
+          "depositPercent",
+          "Deposit on acceptance (%)",
+          "0 means the customer pays the full total at once; 30 takes 30 % up front and the rest later.",
+          "0",
+        )}
       </fieldset>
 
       <details className="rounded-lg bg-white p-4 ring-1 ring-ink-100">
@@ -161,10 +183,17 @@ export function RulesForm({ shop, initial, version, canWrite }: { shop: string; 
         <div className="mt-4 grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
           {text("interconnectCostPerCell", `Interconnect per cell (${currency})`, "One link per cell.", "1.95")}
           {text("terminalSetCost", `Terminal set per bank (${currency})`, "Positive and negative posts with covers.", "18.90")}
-          {text("balancingBoardCost", `Balancing board without a catalog cost (${currency})`, "Used only when a fitted board has no unit cost; empty: none.", "")}
+          {text(
+            "balancingBoardCost",
+            `Balancing board without a catalog cost (${currency})`,
+            "Used only when a fitted board has no unit cost; empty: none.",
+            "",
+          )}
           {text("enclosurePackingFactor", "Enclosure packing factor", "Cell volume × this must fit the enclosure (1 or more).", "1.5")}
         </div>
-        <p className="mt-4 text-sm text-ink-600">Enclosures: the smallest that holds the bank is used; a bank too large for all of them goes to the estimators.</p>
+        <p className="mt-4 text-sm text-ink-600">
+          Enclosures: the smallest that holds the bank is used; a bank too large for all of them goes to the estimators.
+        </p>
         <div className="overflow-x-auto">
           <table className="mt-2 w-full text-sm">
             <thead className="text-ink-700">
@@ -188,7 +217,12 @@ export function RulesForm({ shop, initial, version, canWrite }: { shop: string; 
                 <tr key={f.id} className="align-top">
                   {(["name", "volumeLitres", "cost"] as const).map((k) => (
                     <td key={k} className="py-1 pr-2">
-                      <input aria-label={`Enclosure ${i + 1}: ${k === "volumeLitres" ? "inner volume in litres" : k}`} className={cell} readOnly={!canWrite} {...form.register(`enclosures.${i}.${k}`)} />
+                      <input
+                        aria-label={`Enclosure ${i + 1}: ${k === "volumeLitres" ? "inner volume in litres" : k}`}
+                        className={cell}
+                        readOnly={!canWrite}
+                        {...form.register(`enclosures.${i}.${k}`)}
+                      />
                       {err(`enclosures.${i}.${k}`) ? <p className="text-xs text-danger-700">{err(`enclosures.${i}.${k}`)}</p> : null}
                     </td>
                   ))}
@@ -258,8 +292,8 @@ function PreviewTable({ preview, money }: { preview: Preview; money: (a: string,
         </ul>
       )}
       <p className="text-sm text-ink-600">
-        The last {preview.rows.length} quotes&apos; banks priced again with today&apos;s catalog: as the rules stand, and as the form would have them. Issued quotes keep
-        their prices either way. Prices before tax; margin = what the order leaves over its cost.
+        The last {preview.rows.length} quotes&apos; banks priced again with today&apos;s catalog: as the rules stand, and as the form would have them. Issued
+        quotes keep their prices either way. Prices before tax; margin = what the order leaves over its cost.
       </p>
       {preview.rows.length === 0 ? (
         <p className="text-sm text-ink-600">No quotes yet to compare with.</p>
@@ -302,7 +336,9 @@ function PreviewTable({ preview, money }: { preview: Preview; money: (a: string,
                   <td className="num whitespace-nowrap px-3 py-1.5 text-right">{r.current ? money(r.current.price, r.currency) : "—"}</td>
                   <td className="num whitespace-nowrap px-3 py-1.5 text-right">{r.proposed ? money(r.proposed.price, r.currency) : "—"}</td>
                   <td className="num whitespace-nowrap px-3 py-1.5 text-right" data-testid="preview-change">
-                    {r.change ? `${r.change.amount.startsWith("-") ? "−" : "+"}${money(r.change.amount.replace(/^-/, ""), r.currency)} (${r.change.pct} %)` : "—"}
+                    {r.change
+                      ? `${r.change.amount.startsWith("-") ? "−" : "+"}${money(r.change.amount.replace(/^-/, ""), r.currency)} (${r.change.pct} %)`
+                      : "—"}
                   </td>
                   <td className="num whitespace-nowrap px-3 py-1.5 text-right">
                     {r.current ? money(r.current.margin, r.currency) : "—"} → {r.proposed ? money(r.proposed.margin, r.currency) : "—"}

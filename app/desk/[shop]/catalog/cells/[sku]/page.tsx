@@ -51,7 +51,9 @@ export default async function CellPage({ params }: { params: Promise<{ shop: str
           shop={shop}
           sku={sku}
           canWrite={canWrite}
-          current={datasheet ? { fileName: datasheet.fileName, sizeBytes: datasheet.sizeBytes, uploadedOn: datasheet.createdAt.toISOString().slice(0, 10) } : null}
+          current={
+            datasheet ? { fileName: datasheet.fileName, sizeBytes: datasheet.sizeBytes, uploadedOn: datasheet.createdAt.toISOString().slice(0, 10) } : null
+          }
         />
         <section className="rounded-lg bg-white p-4 ring-1 ring-ink-100" aria-labelledby="cost-history">
           <h2 id="cost-history" className="text-sm font-semibold text-ink-800">
