@@ -49,15 +49,19 @@ export const pricingRulesSchema = z
     quoteValidityDays: z.number().int().min(1).max(MAX_VALIDITY_DAYS),
     depositPercent: z.number().min(0, "At least 0 % (0 = the full total on acceptance)").max(100, "At most 100 %"),
   })
-  .superRefine((rules, ctx) => {
-    for (const issue of validatePricingRules(rules as PricingRules)) {
-      const path = issue.path
-        .split(/[.[\]]/)
-        .filter(Boolean)
-        .map((p) => (/^\d+$/.test(p) ? Number(p) : p));
-      ctx.addIssue({ code: "custom", path, message: issue.message });
-    }
-  });
+  .superRefine(
+    (rules, ctx) => {
+      for (const issue of validatePricingRules(rules as PricingRules)) {
+        const path = issue.path
+          .split(/[.[\]]/)
+          .filter(Boolean)
+          .map((p) => (/^\d+$/.test(p) ? Number(p) : p));
+        ctx.addIssue({ code: "custom", path, message: issue.message });
+      }
+    },
+    // the money and percentage rules once every field has its shape and bounds (one message per field)
+    { when: (payload) => payload.issues.length === 0 },
+  );
 
 /** PUT /api/v1/shops/{shop}/pricing-rules: the whole rule set and why it changes; `version` (from a GET) refuses a rule set changed since (409). */
 export const putPricingRulesSchema = z.strictObject({
