@@ -168,13 +168,17 @@ export function readRulesForm(
   opts: { requireReason: boolean },
 ): { ok: true; rules: PricingRules; reason: string } | { ok: false; fieldErrors: Record<string, string> } {
   const fieldErrors: Record<string, string> = {};
-  const parsed = pricingRulesSchema.safeParse(rulesFromForm(v));
+  const candidate = rulesFromForm(v);
+  const parsed = pricingRulesSchema.safeParse(candidate);
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       const key = formPath(issue.path);
       const msg = issue.code === "invalid_type" ? "Write a number here" : issue.message;
       fieldErrors[key] ??= msg;
     }
+    // the money and percentage rules too, so every field's problem shows at once
+    for (const issue of validatePricingRules(candidate as unknown as PricingRules))
+      fieldErrors[formPath(issue.path.split(/[.[\]]/).filter(Boolean))] ??= issue.message;
   }
   const reason = v.reason.trim();
   if (opts.requireReason && reason.length < 3) fieldErrors.reason = "Say why the rules change: the history keeps it (at least 3 characters)";
