@@ -148,6 +148,19 @@ export function invalidResult(error: z.ZodError): { ok: false; code: "invalid"; 
   return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(error) };
 }
 
+/** An action's answer to input refused field by field by our own readers (messages keyed by field path). */
+export function invalidFields(errors: Record<string, string | string[]> | readonly { field: string; message: string }[]): {
+  ok: false;
+  code: "invalid";
+  message: string;
+  fieldErrors: Record<string, string[]>;
+} {
+  const fieldErrors: Record<string, string[]> = {};
+  if (Array.isArray(errors)) for (const e of errors as readonly { field: string; message: string }[]) (fieldErrors[e.field] ??= []).push(e.message);
+  else for (const [k, v] of Object.entries(errors as Record<string, string | string[]>)) fieldErrors[k] = Array.isArray(v) ? v : [v];
+  return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors };
+}
+
 /**
  * The one way to mutate a shop's data: context → permission → zod parse (after refusing NUL
  * characters anywhere in the input) → handler. Expected failures come back as results; only bugs throw.

@@ -4,7 +4,7 @@
  * shop sees (unit cost in its currency, stock, lead time, whether it is offered, its version).
  * Pure: no database, no framework.
  */
-import { cellVolume } from "../bank/types";
+import { cellVolumeOf } from "../quoting/bill";
 import { toCellRecord, type CellValues } from "./cell-fields";
 import type { CellResponse } from "../validation/catalog";
 
@@ -28,13 +28,7 @@ export function toCellResponse(
     continuousCurrent: r.continuousCurrent,
     peakCurrent: r.peakCurrent,
     mass: r.mass,
-    volume: cellVolume({
-      shape: row.shape,
-      diameterMm: row.diameterMm ?? undefined,
-      lengthMm: row.lengthMm ?? undefined,
-      widthMm: row.widthMm ?? undefined,
-      heightMm: row.heightMm,
-    }),
+    volume: cellVolumeOf(row),
     shape: r.shape,
     diameter: r.diameter,
     length: r.length,

@@ -18,7 +18,7 @@ import { recordShopEvent } from "@/db/queries/shop-events";
 import type { CatalogCellRow, CatalogComponentRow } from "@/db/schema";
 import { isUniqueViolation, withShop } from "@/db/tx";
 import { actorOf, type ShopContext } from "@/lib/auth/context";
-import type { ActionResult } from "@/lib/auth/guards";
+import { invalidFields, type ActionResult } from "@/lib/auth/guards";
 import { cellsToCsv, planCellImport, type ImportPlan } from "./cell-csv";
 import { diffCells, fromCellRecord, readCell, toCellRecord, type CellFieldName, type CellRecord, type CellValues, type FieldChange } from "./cell-fields";
 import type { ComponentValues } from "./component-fields";
@@ -133,11 +133,7 @@ export async function updateCell(
       }
       const before = toCellRecord(row);
       const read = readCell(raw, before);
-      if (!read.ok) {
-        const fieldErrors: Record<string, string[]> = {};
-        for (const i of read.issues) (fieldErrors[i.field] ??= []).push(i.message);
-        return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors };
-      }
+      if (!read.ok) return invalidFields(read.issues);
       const changes = diffCells(before, read.record);
       if (changes.length === 0) return { ok: true, data: { record: before, version: row.version, changes } };
       const updated = await updateCellFields(tx, shopId, row.id, changedValues(read.record, changes));

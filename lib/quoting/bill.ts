@@ -7,6 +7,17 @@ import { cellVolume, type ArrangementOption, type BalancingBoard, type CostModel
 import { minorUnits, type BankBill, type PricingRules } from "@/lib/pricing";
 import type { CatalogCell, CatalogComponent, FrozenCell } from "./types";
 
+/** A catalog row's cell volume (m³) from its shape and millimetre dimensions. */
+export function cellVolumeOf(row: Pick<CatalogCell, "shape" | "diameterMm" | "lengthMm" | "widthMm" | "heightMm">): number {
+  return cellVolume({
+    shape: row.shape,
+    diameterMm: row.diameterMm ?? undefined,
+    lengthMm: row.lengthMm ?? undefined,
+    widthMm: row.widthMm ?? undefined,
+    heightMm: row.heightMm,
+  });
+}
+
 /** A catalog cell as the engine sees it: SI numbers, tolerances as fractions, volume from the shape. */
 export function toEngineCell(row: CatalogCell): EngineCell {
   return {
@@ -23,13 +34,7 @@ export function toEngineCell(row: CatalogCell): EngineCell {
     continuousCurrent: row.continuousCurrentA,
     peakCurrent: row.peakCurrentA,
     mass: row.massKg,
-    volume: cellVolume({
-      shape: row.shape,
-      diameterMm: row.diameterMm ?? undefined,
-      lengthMm: row.lengthMm ?? undefined,
-      widthMm: row.widthMm ?? undefined,
-      heightMm: row.heightMm,
-    }),
+    volume: cellVolumeOf(row),
     unitCost: Number(row.unitCost),
     stock: row.stock,
     leadTimeDays: row.leadTimeDays,

@@ -1,6 +1,6 @@
 "use server";
 import { revalidatePath } from "next/cache";
-import { shopAction } from "@/lib/auth/guards";
+import { invalidFields, shopAction } from "@/lib/auth/guards";
 import { readCell } from "@/lib/catalog/cell-fields";
 import { readComponent, type ComponentFormText } from "@/lib/catalog/component-fields";
 import {
@@ -16,11 +16,7 @@ import { createCellSchema, importCellsSchema, saveComponentSchema, updateCellSch
 /** Adds a cell from the desk's form (every field typed with its unit). */
 export const createCell = shopAction(createCellSchema, "catalog:write", async (ctx, input) => {
   const read = readCell(input.values);
-  if (!read.ok) {
-    const fieldErrors: Record<string, string[]> = {};
-    for (const i of read.issues) (fieldErrors[i.field] ??= []).push(i.message);
-    return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors };
-  }
+  if (!read.ok) return invalidFields(read.issues);
   const r = await addCell(ctx, read.record);
   if (r.ok) revalidatePath(`/desk/${ctx.shop.slug}/catalog`);
   return r.ok ? { ok: true, data: { sku: r.data.record.sku, version: r.data.version } } : r;
@@ -48,11 +44,7 @@ export const importCells = shopAction(importCellsSchema, "catalog:write", async 
 /** Adds a component, or changes one from the version its form was opened at. */
 export const saveComponent = shopAction(saveComponentSchema, "catalog:write", async (ctx, input) => {
   const read = readComponent(input.values as ComponentFormText);
-  if (!read.ok) {
-    const fieldErrors: Record<string, string[]> = {};
-    for (const i of read.issues) (fieldErrors[i.field] ??= []).push(i.message);
-    return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors };
-  }
+  if (!read.ok) return invalidFields(read.issues);
   const r = input.sku && input.version ? await updateComponent(ctx, input.sku, read.values, input.version) : await createComponent(ctx, read.values);
   if (r.ok) revalidatePath(`/desk/${ctx.shop.slug}/catalog/components`);
   return r;

@@ -1,6 +1,6 @@
 "use server";
 import { revalidatePath } from "next/cache";
-import { shopAction } from "@/lib/auth/guards";
+import { invalidFields, shopAction } from "@/lib/auth/guards";
 import { previewRuleChange, savePricingRules as saveRules } from "@/lib/quoting/pricing-rules";
 import { previewPricingRulesSchema, readRulesForm, savePricingRulesSchema } from "@/lib/validation/pricing";
 

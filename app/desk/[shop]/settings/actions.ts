@@ -1,21 +1,14 @@
 "use server";
 import { revalidatePath } from "next/cache";
-import { shopAction } from "@/lib/auth/guards";
+import { invalidFields, shopAction } from "@/lib/auth/guards";
 import { previewDesignSettings as preview, saveDesignSettings as save } from "@/lib/quoting/design-settings";
 import { previewSettingsSchema, readSettingsForm, saveSettingsSchema } from "@/lib/validation/design-settings";
 import { EMPTY_REQUEST_FORM, readRequestForm } from "@/lib/validation/request-form";
 
-const invalid = (fieldErrors: Record<string, string>) => ({
-  ok: false as const,
-  code: "invalid" as const,
-  message: "Please correct the marked fields.",
-  fieldErrors: Object.fromEntries(Object.entries(fieldErrors).map(([k, v]) => [k, [v]])),
-});
-
 /** Saves the design factors and auto-quote limits; new searches and quotes use them at once. */
 export const saveDesignSettings = shopAction(saveSettingsSchema, "settings:write", async (ctx, input) => {
   const read = readSettingsForm(input.values);
-  if (!read.ok) return invalid(read.fieldErrors);
+  if (!read.ok) return invalidFields(read.fieldErrors);
   const r = await save(ctx, read.groups);
   revalidatePath(`/desk/${ctx.shop.slug}/settings`);
   return { ok: true, data: r };
@@ -24,7 +17,7 @@ export const saveDesignSettings = shopAction(saveSettingsSchema, "settings:write
 /** A sample requirement's best options under the settings in force and under the form's; nothing is saved. */
 export const previewDesignSettings = shopAction(previewSettingsSchema, "settings:write", async (ctx, input) => {
   const read = readSettingsForm(input.values);
-  if (!read.ok) return invalid(read.fieldErrors);
+  if (!read.ok) return invalidFields(read.fieldErrors);
   const s = input.sample;
   const req = readRequestForm({
     ...EMPTY_REQUEST_FORM,
@@ -35,6 +28,8 @@ export const previewDesignSettings = shopAction(previewSettingsSchema, "settings
     energy: s.sizeFor === "energy" ? s.amount : "",
   });
   if (!req.ok)
-    return invalid(Object.fromEntries(req.issues.map((i) => [`sample.${i.field === "capacitance" || i.field === "energy" ? "amount" : i.field}`, i.message])));
+    return invalidFields(
+      Object.fromEntries(req.issues.map((i) => [`sample.${i.field === "capacitance" || i.field === "energy" ? "amount" : i.field}`, i.message])),
+    );
   return { ok: true, data: await preview(ctx.shop.id, read.groups, req.data.requirement) };
 });
