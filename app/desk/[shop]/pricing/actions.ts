@@ -7,13 +7,7 @@ import { previewPricingRulesSchema, readRulesForm, savePricingRulesSchema } from
 /** Saves the rules as a new version with the reason given; refused when someone saved since the form was opened. */
 export const savePricingRules = shopAction(savePricingRulesSchema, "pricing:write", async (ctx, input) => {
   const read = readRulesForm(input.values, { requireReason: true });
-  if (!read.ok)
-    return {
-      ok: false,
-      code: "invalid",
-      message: "Please correct the marked fields.",
-      fieldErrors: Object.fromEntries(Object.entries(read.fieldErrors).map(([k, v]) => [k, [v]])),
-    };
+  if (!read.ok) return invalidFields(read.fieldErrors);
   const r = await saveRules(ctx, read.rules, read.reason, input.version);
   if (r.ok) revalidatePath(`/desk/${ctx.shop.slug}/pricing`);
   return r;
@@ -22,12 +16,6 @@ export const savePricingRules = shopAction(savePricingRulesSchema, "pricing:writ
 /** The shop's last quotes priced again under the rules in force and under the form's rules; nothing is saved. */
 export const previewPricingRules = shopAction(previewPricingRulesSchema, "pricing:read", async (ctx, input) => {
   const read = readRulesForm(input.values, { requireReason: false });
-  if (!read.ok)
-    return {
-      ok: false,
-      code: "invalid",
-      message: "Please correct the marked fields.",
-      fieldErrors: Object.fromEntries(Object.entries(read.fieldErrors).map(([k, v]) => [k, [v]])),
-    };
+  if (!read.ok) return invalidFields(read.fieldErrors);
   return { ok: true, data: await previewRuleChange(ctx.shop.id, read.rules) };
 });
