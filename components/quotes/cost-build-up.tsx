@@ -9,7 +9,7 @@ export function CostBuildUpPanel({ build }: { build: CostBuildUp }) {
     ["Cost per bank", build.cost],
     [`Price per bank (margin ${build.marginPct} on price)`, build.unitPrice],
     ["Margin per bank", build.marginPerBank],
-    [`Margin on the order (${build.quantity} × after any break)`, build.orderMargin],
+    [`Margin on the order (${build.quantity} bank${build.quantity === 1 ? "" : "s"}, after any quantity break)`, build.orderMargin],
   ];
   return (
     <section

@@ -49,36 +49,19 @@ export default async function CatalogCsvPage({ params }: { params: Promise<{ sho
           as decimals in {currency}, with a point and no currency sign. At most {MAX_IMPORT_ROWS.toLocaleString("en-GB")} rows per file. The API takes the same
           file at <span className="font-mono">POST {base}?dryRun=1</span>.
         </p>
-        <div className="mt-3 overflow-x-auto">
-          <table className="w-full text-sm">
-            <thead className="bg-ink-50 text-ink-700">
-              <tr>
-                <th scope="col" className="px-3 py-2 text-left font-medium">
-                  Column
-                </th>
-                <th scope="col" className="px-3 py-2 text-left font-medium">
-                  What it is
-                </th>
-                <th scope="col" className="px-3 py-2 text-left font-medium">
-                  Example
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {CELL_FIELDS.map((f) => (
-                <tr key={f.name} className="border-t border-ink-100 align-top">
-                  <td className="whitespace-nowrap px-3 py-1.5 font-mono text-xs">{f.name}</td>
-                  <td className="px-3 py-1.5">
-                    <span className="font-medium">{f.label}</span>
-                    {f.unit ? ` (${f.unit})` : f.kind === "money" ? ` (${currency})` : ""}. {f.help}
-                    {f.optional ? " Empty when the shape does not use it." : ""}
-                  </td>
-                  <td className="whitespace-nowrap px-3 py-1.5 font-mono text-xs">{f.example || "—"}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <dl className="mt-3 divide-y divide-ink-100 text-sm">
+          {CELL_FIELDS.map((f) => (
+            <div key={f.name} className="grid gap-1 py-2 sm:grid-cols-[12rem_1fr_9rem] sm:gap-3">
+              <dt className="font-mono text-xs text-ink-900">{f.name}</dt>
+              <dd>
+                <span className="font-medium">{f.label}</span>
+                {f.unit ? ` (${f.unit})` : f.kind === "money" ? ` (${currency})` : ""}. {f.help}
+                {f.optional ? " Empty when the shape does not use it." : ""}
+              </dd>
+              <dd className="font-mono text-xs text-ink-600">{f.example ? `e.g. ${f.example}` : ""}</dd>
+            </div>
+          ))}
+        </dl>
       </section>
     </div>
   );
