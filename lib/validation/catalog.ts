@@ -184,3 +184,6 @@ export const cellImportResponseSchema = z.object({
   dryRun: z.boolean(),
 });
 export type CellImportResponse = z.infer<typeof cellImportResponseSchema>;
+
+/** POST /api/v1/shops/{shop}/cells/{sku}/datasheet (multipart `file`, a PDF): what was stored. */
+export const datasheetUploadResponseSchema = z.object({ sku: z.string(), fileName: z.string() });
