@@ -13,13 +13,17 @@ export interface QuoteReadyEmailProps {
   validUntil: string;
   /** the quote page on the storefront */
   quoteUrl: string;
+  /** the sell lines (the bank, then any extra lines), formatted; never a cost */
+  lines?: { description: string; quantity: string; unit: string; unitPrice: string; amount: string }[];
+  /** below the lines and above the total: quantity discount, subtotal, tax (formatted) */
+  totals?: { label: string; value: string }[];
 }
 
 export const SAFETY_LINE =
   "The figures in this quote are an engineering estimate. Local electrical codes and licensed practice decide how the bank is installed and used. A charged bank holds its energy after the supply is gone: discharge it and short its terminals before handling.";
 
 /** "Your quote is ready": sent when a quote revision is issued; the quote's PDF goes with it. */
-export function QuoteReadyEmail({ shopName, quoteNumber, revision, total, quantity, validUntil, quoteUrl }: QuoteReadyEmailProps) {
+export function QuoteReadyEmail({ shopName, quoteNumber, revision, total, quantity, validUntil, quoteUrl, lines = [], totals = [] }: QuoteReadyEmailProps) {
   return (
     <EmailFrame preview={`${shopName}: quote ${quoteNumber} is ready, ${total}, valid until ${validUntil}`}>
       <Text style={{ color: COPPER, fontSize: 13, fontWeight: 600, letterSpacing: "0.06em", margin: 0, textTransform: "uppercase" }}>{shopName}</Text>
@@ -36,6 +40,16 @@ export function QuoteReadyEmail({ shopName, quoteNumber, revision, total, quanti
         <Text style={row}>
           <span style={label}>Quantity</span> {quantity} {quantity === 1 ? "bank" : "banks"}
         </Text>
+        {lines.map((l) => (
+          <Text key={l.description} style={{ ...row, fontSize: 14 }}>
+            {l.description}: {l.quantity} {l.unit} × {l.unitPrice} = {l.amount}
+          </Text>
+        ))}
+        {totals.map((t) => (
+          <Text key={t.label} style={row}>
+            <span style={label}>{t.label}</span> {t.value}
+          </Text>
+        ))}
         <Text style={{ ...row, fontSize: 17, fontWeight: 600 }}>
           <span style={label}>Total</span> {total}
         </Text>

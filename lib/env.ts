@@ -41,6 +41,8 @@ const schema = z.object({
     .default("false")
     .transform((v) => v === "true"),
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(120),
+  /** requests per minute each shop API key may make (lib/http/limits.ts `apiKey`) */
+  API_KEY_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(300),
   SMTP_HOST: z.string().default("127.0.0.1"),
   SMTP_PORT: z.coerce.number().int().positive().default(1025),
   /** production SMTP: TLS from the first byte ("true", port 465) and credentials; none on loopback */

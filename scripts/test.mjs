@@ -47,6 +47,7 @@ const env = {
   AUTH_RATE_LIMIT_MAX: "1000",
   AUTH_SIGN_IN_LIMIT: "1000",
   API_RATE_LIMIT_PER_MINUTE: "100000",
+  API_KEY_RATE_LIMIT_PER_MINUTE: "100000",
   UPLOAD_DIR: path.join(".data", `uploads-test-${SLOT}`),
   // The local Stripe stand-in; the key and webhook secret are lib/env.ts's fixed local values.
   STRIPE_API_BASE: `http://127.0.0.1:${STRIPE_PORT}`,

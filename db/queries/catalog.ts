@@ -4,7 +4,7 @@ import { db } from "@/db";
 import { catalogCells, catalogComponents } from "@/db/schema";
 import { DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank/reliability-settings";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
-import { DEFAULT_PRICING_RULES } from "@/lib/pricing/defaults";
+import { DEFAULT_PRICING_RULES, readPricingRules } from "@/lib/pricing/defaults";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import type { ShopCatalog } from "@/lib/quoting/types";
 import { getShopSettings } from "./shops";
@@ -34,7 +34,7 @@ export async function loadShopCatalog(shopId: string): Promise<ShopCatalog> {
   const [settings, cells, components] = await Promise.all([getShopSettings(shopId), listActiveCells(shopId), listActiveComponents(shopId)]);
   return {
     factors: settings?.designFactors ?? DEFAULT_DESIGN_FACTORS,
-    rules: settings?.pricingRules ?? DEFAULT_PRICING_RULES,
+    rules: settings ? readPricingRules(settings.pricingRules) : DEFAULT_PRICING_RULES,
     autoQuoteLimits: settings?.autoQuoteLimits ?? DEFAULT_AUTO_QUOTE_LIMITS,
     reliability: { ...DEFAULT_RELIABILITY_SETTINGS, ...settings?.reliabilitySettings },
     cells,

@@ -7,3 +7,5 @@ export * from "./security";
 export * from "./records";
 export * from "./orders";
 export * from "./webhooks";
+export * from "./pricing";
+export * from "./api-keys";

@@ -21,8 +21,6 @@ export type DemoShop = {
   name: string;
   /** ISO 4217 code */
   currency: "EUR" | "GBP";
-  /** the deposit a customer may pay instead of the whole quote (%); absent: full payment only */
-  depositPercent?: number;
   tagline: string;
   description: string;
 };
@@ -32,7 +30,6 @@ export const demoShops: DemoShop[] = [
     slug: "kestrel-bank-works",
     name: "Kestrel Bank Works",
     currency: "EUR",
-    depositPercent: 30,
     tagline: "Supercapacitor modules built to your voltage, energy and ride-through time.",
     description:
       "Kestrel Bank Works assembles EDLC and hybrid lithium-ion capacitor modules for " +

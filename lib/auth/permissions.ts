@@ -17,6 +17,8 @@ export const STATEMENTS = {
   outbox: ["read"],
   reports: ["read"],
   webhook: ["manage"],
+  /** the shop's API keys for its own systems: make, see, revoke */
+  apikey: ["manage"],
 } as const;
 
 type Statements = typeof STATEMENTS;

@@ -57,7 +57,7 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
       cells,
       factors,
       balancingBoards: balancingBoardsOf(catalog.components),
-      costModel: costModelOf(rules),
+      costModel: costModelOf(rules, catalog.components),
       reliability: catalog.reliability,
       limit,
     });
@@ -100,7 +100,8 @@ function shownOf(catalog: ShopCatalog, shown: (Candidate & { pareto: boolean })[
 function priceOption(found: ArrangementOption, cell: CatalogCell, catalog: ShopCatalog, quantity: number): Candidate {
   const { cellId: _cellId, costEstimate: _costEstimate, ...figures } = found;
   const record = (price: BankPrice | null): OptionRecord => ({ price, cell: freezeCell(cell) });
-  const priced = tryPriceBank(billFor(found, cell, catalog.components, quantity), catalog.rules);
+  const bill = billFor(found, cell, catalog.components, quantity);
+  const priced = bill.ok ? tryPriceBank(bill.bill, catalog.rules) : ({ ok: false, message: bill.message } as const);
   if (!priced.ok) {
     return { ...figures, price: null, pareto: false, warnings: [...figures.warnings, `Not priced automatically: ${priced.message}`], record: record(null) };
   }

@@ -48,9 +48,9 @@ const styles = StyleSheet.create({
   column: { flex: 1 },
   tableHead: { flexDirection: "row", borderBottomWidth: 1, borderBottomColor: ink, paddingBottom: 2, fontWeight: 500 },
   tableRow: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: rule, paddingVertical: 2 },
-  cDesc: { width: "46%" },
-  cQty: { width: "14%", textAlign: "right" },
-  cUnit: { width: "8%", paddingLeft: 4 },
+  cDesc: { width: "50%", paddingRight: 6 },
+  cQty: { width: "8%", textAlign: "right" },
+  cUnit: { width: "10%", paddingLeft: 4 },
   cPrice: { width: "16%", textAlign: "right" },
   cAmount: { width: "16%", textAlign: "right" },
   totals: { marginTop: 6, marginLeft: "50%" },
@@ -122,11 +122,11 @@ export function QuotePdfLayout({ doc }: { doc: QuoteDocument }) {
           </View>
         </View>
 
-        <Text style={styles.h2}>Price build-up for one bank</Text>
+        <Text style={styles.h2}>Price</Text>
         <View style={styles.tableHead}>
           <Text style={styles.cDesc}>Item</Text>
           <Text style={styles.cQty}>Quantity</Text>
-          <Text style={styles.cUnit}>Unit</Text>
+          <Text style={styles.cUnit}></Text>
           <Text style={styles.cPrice}>Unit price</Text>
           <Text style={styles.cAmount}>Amount</Text>
         </View>

@@ -1,5 +1,6 @@
 import { ROLES } from "@/lib/auth/permissions";
 import { TECHNOLOGIES } from "@/lib/bank/types";
+import { COMPONENT_KIND_VALUES } from "@/lib/catalog/component-fields";
 import {
   ORDER_STATUSES,
   OUTBOX_STATUSES,
@@ -28,6 +29,15 @@ export const catalogList = defineList({
   size: 25,
 });
 export type CatalogListQuery = ListQueryOf<typeof catalogList>;
+
+export const componentList = defineList({
+  search: true,
+  filters: { kind: ["all", ...COMPONENT_KIND_VALUES] },
+  sorts: { sku: "asc", kind: "asc", name: "asc", cost: "asc", stock: "asc", lead: "asc" },
+  sort: "kind",
+  size: 25,
+});
+export type ComponentListQuery = ListQueryOf<typeof componentList>;
 
 export const requestList = defineList({
   search: true,
@@ -122,3 +132,21 @@ export const webhookDeliveryList = defineList({
   size: 25,
 });
 export type WebhookDeliveryListQuery = ListQueryOf<typeof webhookDeliveryList>;
+
+export const apiKeyList = defineList({
+  search: true,
+  filters: { status: ["all", "live", "revoked"] },
+  sorts: { status: "asc", name: "asc", created: "desc", used: "desc" },
+  sort: "status",
+  size: 20,
+});
+export type ApiKeyListQuery = ListQueryOf<typeof apiKeyList>;
+
+export const ruleVersionList = defineList({
+  search: false,
+  filters: {},
+  sorts: { version: "desc" },
+  sort: "version",
+  size: 10,
+});
+export type RuleVersionListQuery = ListQueryOf<typeof ruleVersionList>;

@@ -98,6 +98,7 @@ const EXAMPLES: Record<QuantityUnit, string> = {
   "m³": "12 L",
   Ω: "10 mΩ",
   Wh: "5.5 Wh",
+  m: "60 mm",
 };
 
 /**
@@ -269,7 +270,7 @@ export interface DerivedFigures {
 }
 
 /** A field's value when it reads as a quantity within its bound, else null (the field shows why). */
-function quiet(raw: string, unit: Exclude<QuantityUnit, "Wh">, allowZero = false): number | null {
+function quiet(raw: string, unit: Exclude<QuantityUnit, "Wh" | "m">, allowZero = false): number | null {
   if (raw.trim() === "") return null;
   let value: number | null = null;
   const r = parseQuantity(raw, unit, { allowZero });

@@ -25,7 +25,7 @@ const rig = usePaymentRig();
 let K: TestShop;
 
 beforeAll(async () => {
-  K = await createShop("kestrel");
+  K = await createShop("kestrel", { depositPercent: 30 });
 });
 
 /** A paid order of the shop's first customer. */

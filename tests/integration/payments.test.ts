@@ -28,7 +28,7 @@ let K: TestShop; // Kestrel-like: EUR, 30 % deposit
 let M: TestShop; // Marlow-like: GBP, full payment only
 
 beforeAll(async () => {
-  [K, M] = await Promise.all([createShop("kestrel"), createShop("marlow")]);
+  [K, M] = await Promise.all([createShop("kestrel", { depositPercent: 30 }), createShop("marlow", { depositPercent: 0 })]);
 });
 
 const routeParams = (shop: string, number: string) => ({ params: Promise.resolve({ shop, number }) });

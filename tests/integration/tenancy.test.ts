@@ -33,6 +33,33 @@ import {
 import DeskWebhookPage from "@/app/desk/[shop]/webhooks/[id]/page";
 import DeskWebhooksPage from "@/app/desk/[shop]/webhooks/page";
 import { GET as openApiRoute } from "@/app/api/v1/openapi.json/route";
+import { createApiKey, revokeApiKey } from "@/app/desk/[shop]/api-keys/actions";
+import { createCell, importCells, previewCellImport, saveComponent, updateCell } from "@/app/desk/[shop]/catalog/actions";
+import { previewPricingRules, savePricingRules } from "@/app/desk/[shop]/pricing/actions";
+import { previewDesignSettings, saveDesignSettings } from "@/app/desk/[shop]/settings/actions";
+import { GET as listCellsRoute, POST as createCellRoute } from "@/app/api/v1/shops/[shop]/cells/route";
+import { GET as cellRoute, PATCH as patchCellRoute } from "@/app/api/v1/shops/[shop]/cells/[sku]/route";
+import { DELETE as deleteDatasheetRoute, GET as datasheetRoute, POST as uploadDatasheetRoute } from "@/app/api/v1/shops/[shop]/cells/[sku]/datasheet/route";
+import { GET as exportCsvRoute, POST as importCsvRoute } from "@/app/api/v1/shops/[shop]/cells.csv/route";
+import { GET as rulesRoute, PUT as putRulesRoute } from "@/app/api/v1/shops/[shop]/pricing-rules/route";
+import ApiKeysPage from "@/app/desk/[shop]/api-keys/page";
+import CellPage from "@/app/desk/[shop]/catalog/cells/[sku]/page";
+import NewCellPage from "@/app/desk/[shop]/catalog/cells/new/page";
+import ComponentsPage from "@/app/desk/[shop]/catalog/components/page";
+import ComponentPage from "@/app/desk/[shop]/catalog/components/[sku]/page";
+import NewComponentPage from "@/app/desk/[shop]/catalog/components/new/page";
+import CatalogCsvPage from "@/app/desk/[shop]/catalog/import/page";
+import PricingPage from "@/app/desk/[shop]/pricing/page";
+import SettingsPage from "@/app/desk/[shop]/settings/page";
+import { demoPricingRules } from "@/db/seed";
+import { auditEvents } from "@/db/schema";
+import { getCellBySku } from "@/db/queries/catalog-edit";
+import { getRulesInForce } from "@/db/queries/pricing-rules";
+import { cellFormText, toCellRecord } from "@/lib/catalog/cell-fields";
+import { formFromRules } from "@/lib/validation/pricing";
+import { settingsFormText } from "@/lib/validation/design-settings";
+import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
+import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import { openShop } from "@/app/(auth)/open-shop/actions";
 import { GET as listMembersRoute } from "@/app/api/v1/shops/[shop]/members/route";
 import { GET as downloadAttachmentRoute } from "@/app/api/v1/shops/[shop]/attachments/[id]/route";
@@ -138,7 +165,39 @@ async function upload(shop: string, cookie: string) {
  * Each shop-scoped route handler, called for a shop (through that shop's URL) by the holder of a
  * cookie, with what it answers the shop's own member who may use it.
  */
-const ROUTES: { name: string; call: (shop: TestShop, cookie: string) => Promise<Response>; own: (shop: TestShop) => TestShop["manager"]; ok: number }[] = [
+/** A cell the API can create: a new part number each call. */
+const newCellBody = () =>
+  JSON.stringify({
+    sku: `T-${crypto.randomUUID().slice(0, 8)}`,
+    manufacturer: "Quillfen",
+    series: "Fenwall",
+    technology: "edlc",
+    capacitance: 500,
+    toleranceMinus: 0.1,
+    tolerancePlus: 0.2,
+    ratedVoltage: 2.7,
+    surgeVoltage: 2.85,
+    esr: 0.0012,
+    leakageCurrent: 0.001,
+    continuousCurrent: 40,
+    peakCurrent: 400,
+    mass: 0.15,
+    shape: "cylinder",
+    diameter: 0.035,
+    height: 0.06,
+    unitCost: { amount: "9.80", currency: "EUR" },
+  });
+const CELL = "QFS-1200R27";
+const cellParams = (shop: string) => ({ params: Promise.resolve({ shop, sku: CELL }) });
+
+const ROUTES: {
+  name: string;
+  call: (shop: TestShop, cookie: string) => Promise<Response>;
+  own: (shop: TestShop) => TestShop["manager"];
+  ok: number;
+  /** what a member of another shop gets: 403 by default; 404 where the shop's staff routes hide that the shop exists */
+  foreign?: 403 | 404;
+}[] = [
   {
     name: "GET /api/v1/shops/[shop]/members",
     call: (s, cookie) => listMembersRoute(request(`/api/v1/shops/${s.slug}/members`, { cookie }), shopParams(s.slug)),
@@ -161,6 +220,98 @@ const ROUTES: { name: string; call: (shop: TestShop, cookie: string) => Promise<
     ok: 200,
   },
   { name: "POST /api/v1/shops/[shop]/attachments", call: (s, cookie) => upload(s.slug, cookie), own: (s) => s.customers[0], ok: 201 },
+  {
+    name: "GET /api/v1/shops/[shop]/cells",
+    call: (s, cookie) => listCellsRoute(request(`/api/v1/shops/${s.slug}/cells`, { cookie }), shopParams(s.slug)),
+    own: (s) => s.estimator,
+    ok: 200,
+    foreign: 404,
+  },
+  {
+    name: "POST /api/v1/shops/[shop]/cells",
+    call: (s, cookie) => createCellRoute(request(`/api/v1/shops/${s.slug}/cells`, { method: "POST", cookie, body: newCellBody() }), shopParams(s.slug)),
+    own: (s) => s.estimator,
+    ok: 201,
+    foreign: 404,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/cells/[sku]",
+    call: (s, cookie) => cellRoute(request(`/api/v1/shops/${s.slug}/cells/${CELL}`, { cookie }), cellParams(s.slug)),
+    own: (s) => s.manager,
+    ok: 200,
+    foreign: 404,
+  },
+  {
+    name: "PATCH /api/v1/shops/[shop]/cells/[sku]",
+    call: (s, cookie) =>
+      patchCellRoute(request(`/api/v1/shops/${s.slug}/cells/${CELL}`, { method: "PATCH", cookie, body: JSON.stringify({ stock: 77 }) }), cellParams(s.slug)),
+    own: (s) => s.estimator,
+    ok: 200,
+    foreign: 404,
+  },
+  {
+    name: "POST /api/v1/shops/[shop]/cells/[sku]/datasheet",
+    call: (s, cookie) => {
+      const form = new FormData();
+      form.set("file", new File([new Uint8Array(PDF_BYTES)], "sheet.pdf"));
+      return uploadDatasheetRoute(request(`/api/v1/shops/${s.slug}/cells/${CELL}/datasheet`, { method: "POST", body: form, cookie }), cellParams(s.slug));
+    },
+    own: (s) => s.estimator,
+    ok: 201,
+    foreign: 404,
+  },
+  {
+    name: "DELETE /api/v1/shops/[shop]/cells/[sku]/datasheet",
+    call: (s, cookie) => deleteDatasheetRoute(request(`/api/v1/shops/${s.slug}/cells/${CELL}/datasheet`, { method: "DELETE", cookie }), cellParams(s.slug)),
+    own: (s) => s.estimator,
+    ok: 204,
+    foreign: 404,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/cells.csv",
+    call: (s, cookie) => exportCsvRoute(request(`/api/v1/shops/${s.slug}/cells.csv`, { cookie }), shopParams(s.slug)),
+    own: (s) => s.estimator,
+    ok: 200,
+    foreign: 404,
+  },
+  {
+    name: "POST /api/v1/shops/[shop]/cells.csv",
+    call: (s, cookie) =>
+      importCsvRoute(
+        request(`/api/v1/shops/${s.slug}/cells.csv?dryRun=1`, {
+          method: "POST",
+          cookie,
+          body: `sku,stock\r\n${CELL},5\r\n`,
+          headers: { "content-type": "text/csv" },
+        }),
+        shopParams(s.slug),
+      ),
+    own: (s) => s.estimator,
+    ok: 200,
+    foreign: 404,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/pricing-rules",
+    call: (s, cookie) => rulesRoute(request(`/api/v1/shops/${s.slug}/pricing-rules`, { cookie }), shopParams(s.slug)),
+    own: (s) => s.estimator,
+    ok: 200,
+    foreign: 404,
+  },
+  {
+    name: "PUT /api/v1/shops/[shop]/pricing-rules",
+    call: (s, cookie) =>
+      putRulesRoute(
+        request(`/api/v1/shops/${s.slug}/pricing-rules`, {
+          method: "PUT",
+          cookie,
+          body: JSON.stringify({ rules: { ...demoPricingRules["kestrel-bank-works"], marginPct: "27" }, reason: "Tenancy check" }),
+        }),
+        shopParams(s.slug),
+      ),
+    own: (s) => s.estimator,
+    ok: 200,
+    foreign: 404,
+  },
   {
     name: "GET /api/v1/shops/[shop]/attachments/[id]",
     // A's attachment, asked for through each shop's URL
@@ -241,7 +392,7 @@ const NOT_SHOP_SCOPED = new Set([
   "POST /api/webhooks/stripe",
 ]);
 /** Public, but reads only the shop its URL names: tested below. */
-const PUBLIC_SHOP_ROUTES = new Set(["POST /api/v1/shops/[shop]/arrangements"]);
+const PUBLIC_SHOP_ROUTES = new Set(["POST /api/v1/shops/[shop]/arrangements", "GET /api/v1/shops/[shop]/cells/[sku]/datasheet"]);
 const ACTIONS = new Set([
   "changeMemberRole",
   "chooseArrangement",
@@ -259,6 +410,17 @@ const ACTIONS = new Set([
   "setWebhookEndpointState",
   "deleteWebhookEndpoint",
   "replayWebhookDelivery",
+  "createCell",
+  "updateCell",
+  "previewCellImport",
+  "importCells",
+  "saveComponent",
+  "savePricingRules",
+  "previewPricingRules",
+  "saveDesignSettings",
+  "previewDesignSettings",
+  "createApiKey",
+  "revokeApiKey",
 ]);
 
 /** The engine's network analyses: open to visitors, holding no shop's data, so every caller gets the same answer. */
@@ -362,11 +524,11 @@ describe("tenancy", () => {
     expect(new Set(actions)).toEqual(ACTIONS);
   });
 
-  describe.each(ROUTES)("$name", ({ call, own, ok }) => {
-    it("answers 401 signed out, 403 to the other shop's manager, 404 for no such shop, and serves the shop's own member", async () => {
+  describe.each(ROUTES)("$name", ({ call, own, ok, foreign: foreignStatus = 403 }) => {
+    it("answers 401 signed out, 403 (or 404) to the other shop's manager, 404 for no such shop, and serves the shop's own member", async () => {
       expect((await call(A, "")).status).toBe(401);
       const foreign = await call(A, await sessionCookie(B.manager.email));
-      expect(foreign.status).toBe(403);
+      expect(foreign.status).toBe(foreignStatus);
       expect(await foreign.json()).toHaveProperty("error");
       expect((await call({ ...A, slug: "no-such-shop" }, await sessionCookie(A.manager.email))).status).toBe(404);
       expect((await call(A, await sessionCookie(own(A).email))).status).toBe(ok);
@@ -397,6 +559,36 @@ describe("tenancy", () => {
     expect(quotes.rows.map((r) => r.customerEmail)).toEqual(Array.from({ length: 5 }, () => A.customers[0].email));
   });
 
+  it("the catalog's staff routes answer a shop's customer 403", async () => {
+    const cookie = await sessionCookie(A.customers[0].email);
+    for (const r of ROUTES.filter((x) => x.foreign === 404)) expect((await r.call(A, cookie)).status, r.name).toBe(403);
+  });
+
+  it("a datasheet is read through its own shop only: an offered cell's by anyone, a retired cell's by staff and the customers it was quoted to", async () => {
+    const form = new FormData();
+    form.set("file", new File([new Uint8Array(PDF_BYTES)], "sheet.pdf"));
+    const aManager = await sessionCookie(A.manager.email);
+    expect(
+      (
+        await uploadDatasheetRoute(
+          request(`/api/v1/shops/${A.slug}/cells/${CELL}/datasheet`, { method: "POST", body: form, cookie: aManager }),
+          cellParams(A.slug),
+        )
+      ).status,
+    ).toBe(201);
+    const read = (shop: string, cookie = "") => datasheetRoute(request(`/api/v1/shops/${shop}/cells/${CELL}/datasheet`, { cookie }), cellParams(shop));
+    expect((await read(A.slug)).status).toBe(200);
+    // B's catalog has no such cell: A's datasheet is not reachable through B's URL
+    expect((await read(B.slug, await sessionCookie(B.manager.email))).status).toBe(404);
+    expect((await read("no-such-shop")).status).toBe(404);
+    // retired: visitors and other shops' people no longer get it; A's staff do
+    await updateCellAs(A, { active: "false" });
+    expect((await read(A.slug)).status).toBe(404);
+    expect((await read(A.slug, await sessionCookie(B.manager.email))).status).toBe(404);
+    expect((await read(A.slug, aManager)).status).toBe(200);
+    await updateCellAs(A, { active: "true" });
+  });
+
   it("the public arrangements route searches only the named shop's catalog", async () => {
     for (const [shop, requirement] of [
       [A, KESTREL_REQUIREMENT],
@@ -414,6 +606,46 @@ describe("tenancy", () => {
   });
 
   describe("server actions", () => {
+    it("the catalog, pricing, settings and key actions refuse the other shop's manager and change nothing there", async () => {
+      const row = (await getCellBySku(A.id, CELL))!;
+      const rules = (await getRulesInForce(A.id)).rules;
+      const settings = settingsFormText({ designFactors: DEFAULT_DESIGN_FACTORS, autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS });
+      const sample = { maxVoltage: "48 V", minVoltage: "24 V", sizeFor: "energy" as const, amount: "20 kJ" };
+      const calls: [string, (slug: string) => Promise<{ ok: boolean; code?: string }>][] = [
+        ["createCell", (slug) => createCell(slug, { values: { ...cellFormText(toCellRecord(row)), sku: "TENANCY-NEW" } })],
+        ["updateCell", (slug) => updateCell(slug, { sku: CELL, version: row.version, changes: { unitCost: "1.00" } })],
+        ["previewCellImport", (slug) => previewCellImport(slug, { csv: `sku,stock\r\n${CELL},1\r\n`, applyValid: false })],
+        ["importCells", (slug) => importCells(slug, { csv: `sku,stock\r\n${CELL},1\r\n`, applyValid: false })],
+        [
+          "saveComponent",
+          (slug) =>
+            saveComponent(slug, {
+              values: { kind: "resistor", sku: "TENANCY-RES", name: "R", unitCost: "1", stock: "1", leadTimeDays: "1", active: "true", powerRatingW: "1 W" },
+            }),
+        ],
+        ["savePricingRules", (slug) => savePricingRules(slug, { values: { ...formFromRules(rules), marginPct: "50", reason: "Not mine" }, version: 0 })],
+        ["previewPricingRules", (slug) => previewPricingRules(slug, { values: formFromRules(rules) })],
+        ["saveDesignSettings", (slug) => saveDesignSettings(slug, { values: settings })],
+        ["previewDesignSettings", (slug) => previewDesignSettings(slug, { values: settings, sample })],
+        ["createApiKey", (slug) => createApiKey(slug, { name: "Not mine", scopes: ["catalog:write"] })],
+        ["revokeApiKey", (slug) => revokeApiKey(slug, { id: crypto.randomUUID() })],
+      ];
+      const auditBefore = await db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.shopId, A.id));
+      await actAs(B.manager.email);
+      for (const [name, call] of calls) expect(await call(A.slug), name).toMatchObject({ ok: false, code: "forbidden" });
+      // A's customer may not either
+      await actAs(A.customers[0].email);
+      for (const [name, call] of calls) expect(await call(A.slug), name).toMatchObject({ ok: false, code: "forbidden" });
+      const auditAfter = await db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.shopId, A.id));
+      expect(auditAfter).toHaveLength(auditBefore.length);
+      expect((await getCellBySku(A.id, CELL))?.version).toBe(row.version);
+      expect((await getRulesInForce(A.id)).rules.marginPct).toBe(rules.marginPct);
+      // the shop's own manager may
+      await actAs(A.manager.email);
+      expect(await previewPricingRules(A.slug, { values: formFromRules(rules) })).toMatchObject({ ok: true });
+      expect(await revokeApiKey(A.slug, { id: crypto.randomUUID() })).toMatchObject({ ok: false, code: "not-found" });
+    });
+
     it("changeMemberRole refuses the other shop's manager and leaves the row alone", async () => {
       const target = await getMemberIdOf(B, B.estimator.id);
       await actAs(A.manager.email);
@@ -542,7 +774,15 @@ describe("tenancy", () => {
       ["order", (s: string) => DeskOrderPage({ params: Promise.resolve({ shop: s, number: pay.aOrder }) })],
       ["dashboard", (s: string) => DeskDashboardPage({ params: Promise.resolve({ shop: s }) })],
       ["webhooks", (s: string) => DeskWebhooksPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
-      ["settings", (s: string) => DeskSettingsPage({ params: Promise.resolve({ shop: s }) })],
+      ["cell", (s: string) => CellPage({ params: Promise.resolve({ shop: s, sku: CELL }) })],
+      ["new cell", (s: string) => NewCellPage({ params: Promise.resolve({ shop: s }) })],
+      ["components", (s: string) => ComponentsPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
+      ["component", (s: string) => ComponentPage({ params: Promise.resolve({ shop: s, sku: "KBW-RES-1W" }) })],
+      ["new component", (s: string) => NewComponentPage({ params: Promise.resolve({ shop: s }) })],
+      ["catalog CSV", (s: string) => CatalogCsvPage({ params: Promise.resolve({ shop: s }) })],
+      ["pricing", (s: string) => PricingPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
+      ["settings", (s: string) => SettingsPage({ params: Promise.resolve({ shop: s }) })],
+      ["API keys", (s: string) => ApiKeysPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
     ] as const;
 
     it.each(desk)("the desk's %s refuses the other shop's manager and opens for the shop's own", async (_name, render) => {
@@ -643,6 +883,14 @@ describe("tenancy", () => {
     });
   });
 });
+
+/** Changes A's test cell as A's manager would on the desk. */
+async function updateCellAs(shop: TestShop, changes: Record<string, string>) {
+  const row = (await getCellBySku(shop.id, CELL))!;
+  await actAs(shop.manager.email);
+  const r = await updateCell(shop.slug, { sku: CELL, version: row.version, changes });
+  if (!r.ok) throw new Error(JSON.stringify(r));
+}
 
 async function getMemberIdOf(shop: TestShop, userId: string): Promise<string> {
   const page = await listMembers(shop.id, { ...memberList.defaults, size: 100 });

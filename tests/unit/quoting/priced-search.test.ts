@@ -39,8 +39,6 @@ const arbRules: fc.Arbitrary<PricingRules> = fc.constantFrom(...CURRENCIES).chai
     marginPct: pct(60),
     taxRatePct: pct(25),
     interconnectCostPerCell: money(digits, 5 * scale),
-    balancingResistorCost: money(digits, 2 * scale),
-    bleederCostPerWatt: money(digits, 3 * scale),
     balancingBoardCost: money(digits, 80 * scale),
     terminalSetCost: money(digits, 60 * scale),
     enclosures: fc
@@ -120,6 +118,22 @@ const arbBoards: fc.Arbitrary<CatalogComponent[]> = fc
     })),
   );
 
+/** Resistors of a few power classes (the search's lower bound must hold whichever class a bank takes). */
+const arbResistors: fc.Arbitrary<CatalogComponent[]> = fc
+  .uniqueArray(fc.constantFrom(0.125, 0.25, 0.5, 1, 2, 5, 10, 25, 50, 100), { maxLength: 5 })
+  .chain((ratings) => fc.tuple(...ratings.map((w) => fc.integer({ min: 1, max: 400_000 }).map((n) => ({ w, unitCost: (n / 1e4).toFixed(4) })))))
+  .map((rs) =>
+    rs.map((r, i) => ({
+      id: `resistor-${i}`,
+      kind: "resistor" as const,
+      sku: `TQ-RES-${i}`,
+      name: "Resistor",
+      unitCost: r.unitCost,
+      specs: { powerRatingW: r.w },
+      leadTimeDays: 2,
+    })),
+  );
+
 const arbRequirement: fc.Arbitrary<Requirement> = fc
   .record({
     maxVoltage: fc.double({ min: 3, max: 900, noNaN: true }),
@@ -139,8 +153,13 @@ const arbRequirement: fc.Arbitrary<Requirement> = fc
   });
 
 const arbCatalog: fc.Arbitrary<ShopCatalog> = fc
-  .record({ factors: arbFactors, rules: arbRules, cells: arbCells, components: arbBoards })
-  .map((c) => ({ ...c, autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS, reliability: DEFAULT_RELIABILITY_SETTINGS }));
+  .record({ factors: arbFactors, rules: arbRules, cells: arbCells, boards: arbBoards, resistors: arbResistors })
+  .map(({ boards, resistors, ...c }) => ({
+    ...c,
+    components: [...boards, ...resistors],
+    autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS,
+    reliability: DEFAULT_RELIABILITY_SETTINGS,
+  }));
 
 /** Every feasible option, each priced exactly: what no pre-cut may differ from. */
 function everyOptionPriced(catalog: ShopCatalog, requirement: Requirement) {
@@ -150,12 +169,13 @@ function everyOptionPriced(catalog: ShopCatalog, requirement: Requirement) {
     cells: catalog.cells.map(toEngineCell),
     factors: catalog.factors,
     balancingBoards: balancingBoardsOf(catalog.components),
-    costModel: costModelOf(catalog.rules),
+    costModel: costModelOf(catalog.rules, catalog.components),
     limit: Number.POSITIVE_INFINITY,
   });
   return all.options.map((o) => {
-    const r = tryPriceBank(billFor(o, byId.get(o.cellId)!, catalog.components, requirement.quantity ?? 1), catalog.rules);
-    return { ...o, price: r.ok ? { perBank: r.data.unitPrice, total: r.data.total } : null };
+    const bill = billFor(o, byId.get(o.cellId)!, catalog.components, requirement.quantity ?? 1);
+    const r = bill.ok ? tryPriceBank(bill.bill, catalog.rules) : null;
+    return { ...o, price: r?.ok ? { perBank: r.data.unitPrice, total: r.data.total } : null };
   });
 }
 

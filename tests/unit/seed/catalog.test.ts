@@ -235,7 +235,7 @@ describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
 
   it("has at least 8 components covering every kind, with the specs each kind needs", () => {
     expect(components.length).toBeGreaterThanOrEqual(8);
-    for (const kind of ["balancing-board", "interconnect", "terminal", "enclosure"] as const) {
+    for (const kind of ["balancing-board", "interconnect", "terminal", "enclosure", "resistor"] as const) {
       expect(
         components.some((c) => c.kind === kind),
         kind,
@@ -254,6 +254,8 @@ describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
         case "enclosure":
           // IEC 60529 IP code: "IP" + solids digit 0–6 + water digit 0–9
           return num(s.volumeM3) && typeof s.ipRating === "string" && /^IP[0-6][0-9]$/.test(s.ipRating);
+        case "resistor":
+          return num(s.powerRatingW);
       }
     };
     expect(failing(components, specsOk)).toEqual([]);

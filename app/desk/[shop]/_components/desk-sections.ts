@@ -23,6 +23,12 @@ export const DESK_SECTIONS: { path: string; label: string; permission: Permissio
     summary: "Signed messages to the shop's own systems when quotes, orders and payments change.",
   },
   { path: "settings", label: "Settings", permission: "settings:write", summary: "Design factors, auto-quote limits and storefront text." },
+  {
+    path: "api-keys",
+    label: "API keys",
+    permission: "apikey:manage",
+    summary: "Keys the shop's own systems use to read and change the catalog, prices and quotes.",
+  },
 ];
 
 export function sectionFor(path: string) {

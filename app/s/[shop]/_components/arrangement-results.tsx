@@ -188,7 +188,15 @@ export function ArrangementResults({
             <div className="max-w-3xl">
               <OptionYieldPanel key={shownId} option={shown} requirement={requirement} />
             </div>
-            <OptionFigures option={shown} requirement={requirement} factors={designFactors} currency={currency} />
+            <OptionFigures
+              option={shown}
+              requirement={requirement}
+              factors={designFactors}
+              currency={currency}
+              datasheetHref={
+                (result.datasheets ?? []).includes(shown.cell.sku) ? `/api/v1/shops/${slug}/cells/${encodeURIComponent(shown.cell.sku)}/datasheet` : null
+              }
+            />
           </article>
 
           <section aria-label="Price against mass" className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-ink-100 sm:p-6">
