@@ -75,7 +75,6 @@ import DeskOutboxPage from "@/app/desk/[shop]/outbox/page";
 import DeskQuotePage from "@/app/desk/[shop]/quotes/[number]/page";
 import DeskQuotesPage from "@/app/desk/[shop]/quotes/page";
 import DeskRequestsPage from "@/app/desk/[shop]/requests/page";
-import DeskSettingsPage from "@/app/desk/[shop]/settings/page";
 import DeskTeamPage from "@/app/desk/[shop]/team/page";
 import { chooseArrangement, exploreArrangements } from "@/app/s/[shop]/actions";
 import { joinShop } from "@/app/s/[shop]/join/actions";
