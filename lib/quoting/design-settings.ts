@@ -5,19 +5,19 @@ import { lockSettingsGroups, writeSettingsGroups } from "@/db/queries/settings-e
 import { withShop } from "@/db/tx";
 import { actorOf, type ShopContext } from "@/lib/auth/context";
 import type { Requirement } from "@/lib/bank";
-import { SETTINGS_GROUPS, settingText, type ShopSettingsGroups } from "@/lib/validation/design-settings";
+import { SETTINGS_GROUPS, settingText, valueAt, type ShopSettingsGroups } from "@/lib/validation/design-settings";
 import { checkAutoQuoteLimits } from "./auto-quote-limits";
 import { searchPricedOptions } from "./priced-search";
 
-/** Saves the design factors and auto-quote limits, with an audit entry naming each changed setting (old → new). */
+/** Saves the design factors, auto-quote limits and reliability settings, with an audit entry naming each changed setting (old → new). */
 export async function saveDesignSettings(ctx: ShopContext, groups: ShopSettingsGroups) {
   return withShop(ctx.shop.id, async (tx) => {
     const before = await lockSettingsGroups(tx, ctx.shop.id);
     const changes: Record<string, { from: string; to: string }> = {};
     for (const g of SETTINGS_GROUPS)
       for (const f of g.fields) {
-        const a = settingText(f, (before[g.key] as unknown as Record<string, unknown>)[f.key]);
-        const b = settingText(f, (groups[g.key] as unknown as Record<string, unknown>)[f.key]);
+        const a = settingText(f, valueAt(before[g.key], f.key));
+        const b = settingText(f, valueAt(groups[g.key], f.key));
         if (a !== b) changes[`${g.key}.${f.key}`] = { from: a, to: b };
       }
     await writeSettingsGroups(tx, ctx.shop.id, groups);
@@ -49,7 +49,10 @@ export interface SettingsPreviewOption {
 export async function previewDesignSettings(shopId: string, proposed: ShopSettingsGroups, requirement: Requirement) {
   const catalog = await loadShopCatalog(shopId);
   const run = (groups: ShopSettingsGroups) => {
-    const found = searchPricedOptions({ ...catalog, factors: groups.designFactors, autoQuoteLimits: groups.autoQuoteLimits }, requirement);
+    const found = searchPricedOptions(
+      { ...catalog, factors: groups.designFactors, autoQuoteLimits: groups.autoQuoteLimits, reliability: groups.reliabilitySettings },
+      requirement,
+    );
     return {
       options: found.options.slice(0, 5).map((o): SettingsPreviewOption => ({
         cell: o.cell.sku,
@@ -65,7 +68,7 @@ export async function previewDesignSettings(shopId: string, proposed: ShopSettin
   };
   return {
     currency: catalog.rules.currency,
-    current: run({ designFactors: catalog.factors, autoQuoteLimits: catalog.autoQuoteLimits }),
+    current: run({ designFactors: catalog.factors, autoQuoteLimits: catalog.autoQuoteLimits, reliabilitySettings: catalog.reliability }),
     proposed: run(proposed),
   };
 }

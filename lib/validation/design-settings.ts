@@ -1,8 +1,10 @@
 import { z } from "zod";
 import { MAX_CELLS_PER_BANK, MAX_ENERGY, MAX_VOLTAGE } from "../bank/bounds";
-import type { DesignFactors } from "../bank/types";
+import { DEFAULT_RELIABILITY_SETTINGS, RELIABILITY_SETTING_BOUNDS, type ReliabilitySettings } from "../bank/reliability-settings";
+import { TECHNOLOGIES, type DesignFactors } from "../bank/types";
 import { formatQuantity, parseQuantity, type QuantityUnit } from "../quantities";
 import type { AutoQuoteLimits } from "../quoting/auto-quote-limits";
+import { TECHNOLOGY_LABELS } from "../vocabulary";
 import { text } from "./text";
 
 /**
@@ -16,10 +18,12 @@ import { text } from "./text";
 export interface ShopSettingsGroups {
   designFactors: DesignFactors;
   autoQuoteLimits: AutoQuoteLimits;
+  reliabilitySettings: ReliabilitySettings;
 }
 export type SettingsGroupKey = keyof ShopSettingsGroups;
 
 export interface SettingField {
+  /** the field's key in its group's object; a dotted key ("voltageDoublingStep.edlc") reaches into a nested object */
   key: string;
   label: string;
   /**
@@ -36,6 +40,8 @@ export interface SettingField {
   choices?: readonly string[];
   /** one sentence: what the setting does */
   help: string;
+  /** the default, when it is common practice rather than a shop's own figure: the form says so beside the field */
+  commonPractice?: number | string;
 }
 
 export interface SettingsGroup {
@@ -155,12 +161,67 @@ export const SETTINGS_GROUPS: readonly SettingsGroup[] = [
       },
     ],
   },
+  {
+    key: "reliabilitySettings",
+    title: "Failure, yield and life",
+    description:
+      "How options estimate expected life, how long a switched-off hybrid bank must stay above its cells' minimum voltage, and how cell capacitances spread in the tolerance yield. The defaults are common practice recalled from memory, not a maker's data: set them from your suppliers' life curves.",
+    fields: [
+      ...TECHNOLOGIES.map((t): SettingField => ({
+        key: `voltageDoublingStep.${t}`,
+        label: `${TECHNOLOGY_LABELS[t]}: voltage step per doubling of life`,
+        kind: "percent",
+        min: RELIABILITY_SETTING_BOUNDS.voltageDoublingStep.min,
+        max: RELIABILITY_SETTING_BOUNDS.voltageDoublingStep.max,
+        help: "Expected life doubles for each step of this share of the rated voltage that the cells run below it.",
+        commonPractice: DEFAULT_RELIABILITY_SETTINGS.voltageDoublingStep[t],
+      })),
+      {
+        key: "maxLifeYears",
+        label: "Longest life ever stated",
+        kind: "integer",
+        min: RELIABILITY_SETTING_BOUNDS.maxLifeYears.min,
+        max: RELIABILITY_SETTING_BOUNDS.maxLifeYears.max,
+        help: "Expected life is never stated beyond this many years, however cool and lightly loaded the cells run.",
+        commonPractice: DEFAULT_RELIABILITY_SETTINGS.maxLifeYears,
+      },
+      {
+        key: "standbyDays",
+        label: "Standby a hybrid bank must outlast (days)",
+        kind: "integer",
+        min: RELIABILITY_SETTING_BOUNDS.standbyDays.min,
+        max: RELIABILITY_SETTING_BOUNDS.standbyDays.max,
+        help: "A switched-off hybrid bank must stay above its cells' minimum voltage this long, or the option says it needs a disconnect.",
+        commonPractice: DEFAULT_RELIABILITY_SETTINGS.standbyDays,
+      },
+      {
+        key: "yieldDistribution",
+        label: "Spread of cell capacitance",
+        kind: "choice",
+        choices: ["uniform", "normal"],
+        help: "Tolerance yield draws each cell's capacitance evenly over its graded band (uniform), or with the band as ±3σ (normal).",
+        commonPractice: DEFAULT_RELIABILITY_SETTINGS.yieldDistribution,
+      },
+    ],
+  },
 ];
 
 export type SettingsFormValues = Record<SettingsGroupKey, Record<string, string>>;
 
 const bound = (f: SettingField, v: number) =>
   f.kind === "percent" ? `${Number((v * 100).toPrecision(6))} %` : f.kind === "quantity" ? formatQuantity(v, f.unit ?? "") : String(v);
+
+/** A group object's value at a field's (possibly dotted) key. */
+export function valueAt(obj: unknown, key: string): unknown {
+  return key.split(".").reduce<unknown>((o, k) => (o !== null && typeof o === "object" ? (o as Record<string, unknown>)[k] : undefined), obj);
+}
+
+function setAt(obj: Record<string, unknown>, key: string, value: unknown): void {
+  const parts = key.split(".");
+  let o = obj;
+  for (const k of parts.slice(0, -1)) o = (o[k] ??= {}) as Record<string, unknown>;
+  o[parts[parts.length - 1] as string] = value;
+}
 
 /** A field's stored value as the form shows it. */
 export function settingText(f: SettingField, value: unknown): string {
@@ -180,7 +241,8 @@ export function readSetting(f: SettingField, raw: string): { ok: true; value: nu
   if (f.kind === "percent") {
     const m = /^(\d+(?:[.,]\d+)?)\s*%?$/.exec(t);
     if (!m) return { ok: false, message: `Write the ${what} as a percentage, like 20 %` };
-    v = Number((m[1] ?? "").replace(",", ".")) / 100;
+    // as typed, without the float noise of dividing by 100 (3.7 % is 0.037, not 0.037000000000000005)
+    v = Number((Number((m[1] ?? "").replace(",", ".")) / 100).toPrecision(12));
   } else if (f.kind === "quantity") {
     const r = parseQuantity(t, f.unit as QuantityUnit);
     if (!r.ok) return { ok: false, message: `${r.message}; write it like ${formatQuantity(f.max ?? 1, f.unit ?? "")}` };
@@ -199,12 +261,13 @@ export function readSetting(f: SettingField, raw: string): { ok: true; value: nu
 /** The form's text read group by group: the settings objects, or the message for each field ("designFactors.safeVoltage"). */
 export function readSettingsForm(values: SettingsFormValues): { ok: true; groups: ShopSettingsGroups } | { ok: false; fieldErrors: Record<string, string> } {
   const fieldErrors: Record<string, string> = {};
-  const out: Record<string, Record<string, number | string>> = {};
+  const out: Record<string, Record<string, unknown>> = {};
   for (const g of SETTINGS_GROUPS) {
-    out[g.key] = {};
+    const group: Record<string, unknown> = {};
+    out[g.key] = group;
     for (const f of g.fields) {
       const r = readSetting(f, values[g.key]?.[f.key] ?? "");
-      if (r.ok) (out[g.key] as Record<string, number | string>)[f.key] = r.value;
+      if (r.ok) setAt(group, f.key, r.value);
       else fieldErrors[`${g.key}.${f.key}`] = r.message;
     }
   }
@@ -216,8 +279,7 @@ export function readSettingsForm(values: SettingsFormValues): { ok: true; groups
 export function settingsFormText(groups: ShopSettingsGroups): SettingsFormValues {
   const out = {} as SettingsFormValues;
   for (const g of SETTINGS_GROUPS) {
-    const obj = groups[g.key] as unknown as Record<string, unknown>;
-    out[g.key] = Object.fromEntries(g.fields.map((f) => [f.key, settingText(f, obj[f.key])]));
+    out[g.key] = Object.fromEntries(g.fields.map((f) => [f.key, settingText(f, valueAt(groups[g.key], f.key))]));
   }
   return out;
 }

@@ -5,15 +5,17 @@
  * cells need their minimum voltage in the database, and a quote's PDF holds the sections.
  */
 import { eq } from "drizzle-orm";
-import { renderToStaticMarkup } from "react-dom/server";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as arrangements } from "@/app/api/v1/shops/[shop]/arrangements/route";
 import { exploreArrangements } from "@/app/s/[shop]/actions";
-import { ReliabilitySettingsPanel } from "@/components/settings/reliability-settings-panel";
+import { saveDesignSettings } from "@/app/desk/[shop]/settings/actions";
+import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
+import { settingsFormText } from "@/lib/validation/design-settings";
 import { db } from "@/db";
 import { getQuoteByNumber } from "@/db/queries/quotes";
 import { catalogCells, shopSettings } from "@/db/schema";
-import { DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank";
+import { DEFAULT_DESIGN_FACTORS, DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank";
+import { loadShopCatalog } from "@/db/queries/catalog";
 import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 import { arrangementOptionDepthSchema } from "@/lib/validation/arrangement-depth";
 import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
@@ -224,20 +226,27 @@ describe("a quote freezes the failure and life figures, and its PDF shows them",
   });
 });
 
-describe("the settings page shows the failure, yield and life group", () => {
-  it("marks each value as the common-practice default until the shop sets its own", async () => {
+describe("the settings form edits the failure, yield and life group", () => {
+  it("saves a shop's own standby and voltage step, which the search then uses, with an audit entry", async () => {
     const shop = await createShop("kestrel");
     await actAs(shop.manager.email);
-    const before = renderToStaticMarkup(await ReliabilitySettingsPanel({ shopSlug: shop.slug }));
-    expect(before).toContain("3.7 % below the rated voltage");
-    expect(before).toContain("90 days");
-    expect(before.match(/default, common practice/g)?.length).toBe(8);
-    await db
-      .update(shopSettings)
-      .set({ reliabilitySettings: { ...DEFAULT_RELIABILITY_SETTINGS, standbyDays: 30 } })
-      .where(eq(shopSettings.shopId, shop.id));
-    const after = renderToStaticMarkup(await ReliabilitySettingsPanel({ shopSlug: shop.slug }));
-    expect(after).toContain("30 days");
-    expect(after).toContain("the shop&#x27;s own");
+    const groups = { designFactors: DEFAULT_DESIGN_FACTORS, autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS, reliabilitySettings: DEFAULT_RELIABILITY_SETTINGS };
+    const values = settingsFormText(groups);
+    // the per-technology step is a dotted key into the nested object
+    expect(values.reliabilitySettings["voltageDoublingStep.edlc"]).toBe("3.7 %");
+    values.reliabilitySettings.standbyDays = "30";
+    values.reliabilitySettings["voltageDoublingStep.hybrid"] = "6 %";
+    expect(await saveDesignSettings(shop.slug, { values })).toMatchObject({ ok: true, data: { changed: 2 } });
+    const [row] = await db.select().from(shopSettings).where(eq(shopSettings.shopId, shop.id));
+    expect(row?.reliabilitySettings).toEqual({
+      ...DEFAULT_RELIABILITY_SETTINGS,
+      standbyDays: 30,
+      voltageDoublingStep: { ...DEFAULT_RELIABILITY_SETTINGS.voltageDoublingStep, hybrid: 0.06 },
+    });
+    expect((await loadShopCatalog(shop.id)).reliability.standbyDays).toBe(30);
+    values.reliabilitySettings.standbyDays = "5000";
+    const refused = await saveDesignSettings(shop.slug, { values });
+    expect(refused).toMatchObject({ ok: false, code: "invalid" });
+    if (!refused.ok) expect(refused.fieldErrors?.["reliabilitySettings.standbyDays"]?.join(" ")).toMatch(/at most 3650/);
   });
 });

@@ -59,6 +59,7 @@ import { cellFormText, toCellRecord } from "@/lib/catalog/cell-fields";
 import { formFromRules } from "@/lib/validation/pricing";
 import { settingsFormText } from "@/lib/validation/design-settings";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
+import { DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank/reliability-settings";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import { openShop } from "@/app/(auth)/open-shop/actions";
 import { GET as listMembersRoute } from "@/app/api/v1/shops/[shop]/members/route";
@@ -608,7 +609,11 @@ describe("tenancy", () => {
     it("the catalog, pricing, settings and key actions refuse the other shop's manager and change nothing there", async () => {
       const row = (await getCellBySku(A.id, CELL))!;
       const rules = (await getRulesInForce(A.id)).rules;
-      const settings = settingsFormText({ designFactors: DEFAULT_DESIGN_FACTORS, autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS });
+      const settings = settingsFormText({
+        designFactors: DEFAULT_DESIGN_FACTORS,
+        autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS,
+        reliabilitySettings: DEFAULT_RELIABILITY_SETTINGS,
+      });
       const sample = { maxVoltage: "48 V", minVoltage: "24 V", sizeFor: "energy" as const, amount: "20 kJ" };
       const calls: [string, (slug: string) => Promise<{ ok: boolean; code?: string }>][] = [
         ["createCell", (slug) => createCell(slug, { values: { ...cellFormText(toCellRecord(row)), sku: "TENANCY-NEW" } })],

@@ -7,6 +7,7 @@ import { demoPricingRules } from "@/db/seed/pricing-rules";
 import { API_KEY_SCOPE_FOR, keyAllows } from "@/lib/auth/api-key-scopes";
 import { ROLE_PERMISSIONS } from "@/lib/auth/permissions";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
+import { DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank/reliability-settings";
 import { DEFAULT_PRICING_RULES, readPricingRules, validatePricingRules } from "@/lib/pricing";
 import { diffRules } from "@/lib/pricing/rule-versions";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
@@ -68,7 +69,8 @@ describe("the rules form", () => {
 
 describe("the design settings list", () => {
   it("reads its own text back, group by group", () => {
-    const groups = { designFactors: DEFAULT_DESIGN_FACTORS, autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS };
+    // the reliability group reaches into a nested object per technology ("voltageDoublingStep.edlc")
+    const groups = { designFactors: DEFAULT_DESIGN_FACTORS, autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS, reliabilitySettings: DEFAULT_RELIABILITY_SETTINGS };
     expect(readSettingsForm(settingsFormText(groups))).toEqual({ ok: true, groups });
   });
 

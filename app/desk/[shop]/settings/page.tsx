@@ -1,9 +1,9 @@
-import { ReliabilitySettingsPanel } from "@/components/settings/reliability-settings-panel";
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/page-header";
 import { getShopSettings } from "@/db/queries/shops";
 import { listRecentQuotedArrangements } from "@/db/queries/pricing-rules";
 import { requireShopPage } from "@/lib/auth/guards";
+import { DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank/reliability-settings";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
 import { formatQuantity } from "@/lib/quantities";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
@@ -43,10 +43,10 @@ export default async function SettingsPage({ params }: { params: Promise<{ shop:
         initial={settingsFormText({
           designFactors: settings?.designFactors ?? DEFAULT_DESIGN_FACTORS,
           autoQuoteLimits: settings?.autoQuoteLimits ?? DEFAULT_AUTO_QUOTE_LIMITS,
+          reliabilitySettings: { ...DEFAULT_RELIABILITY_SETTINGS, ...settings?.reliabilitySettings },
         })}
         sample={sample}
       />
-      <ReliabilitySettingsPanel shopSlug={shop} />
     </div>
   );
 }

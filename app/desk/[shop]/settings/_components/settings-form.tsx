@@ -6,7 +6,14 @@ import { FormMessage, SelectField, TextField } from "@/components/ui/field";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatDuration, formatQuantity } from "@/lib/quantities";
 import type { SettingsPreviewOption } from "@/lib/quoting/design-settings";
-import { readSetting, SETTINGS_GROUPS, type SampleRequirement, type SettingField, type SettingsFormValues } from "@/lib/validation/design-settings";
+import {
+  readSetting,
+  SETTINGS_GROUPS,
+  settingText,
+  type SampleRequirement,
+  type SettingField,
+  type SettingsFormValues,
+} from "@/lib/validation/design-settings";
 import { previewDesignSettings, saveDesignSettings } from "../actions";
 
 type Preview = {
@@ -23,7 +30,7 @@ function boundsText(f: SettingField): string {
 }
 
 /**
- * Design factors and auto-quote limits, each field rendered from SETTINGS_GROUPS with its bounds and
+ * Design factors, auto-quote limits and the failure, yield and life settings, each field rendered from SETTINGS_GROUPS with its bounds and
  * what it does, checked at the field as it is typed; a sample requirement's options under the
  * settings in force and under the form's before saving.
  */
@@ -89,7 +96,7 @@ export function SettingsForm({ shop, initial, sample: initialSample }: { shop: s
           {g.fields.map((f) => {
             const id = `${g.key}.${f.key}`;
             const value = values[g.key]?.[f.key] ?? "";
-            const hint = `${f.help}${boundsText(f)}`;
+            const hint = `${f.help}${boundsText(f)}${f.commonPractice === undefined ? "" : ` Default ${settingText(f, f.commonPractice)}: common practice, from memory.`}`;
             return f.kind === "choice" ? (
               <SelectField key={id} id={id} label={f.label} hint={hint} error={errors[id]} value={value} onChange={(e) => set(g.key, f.key, e.target.value)}>
                 {(f.choices ?? []).map((c) => (
