@@ -44,15 +44,13 @@ export function changedFields<T extends Record<string, unknown>>(before: T, afte
 }
 
 /** The audit entries of one record, newest first (for a record's own history panel). */
-export async function listAuditForSubject(shopId: string, subjectType: string, subjectId: string, limit = 50) {
-  return withShop(shopId, (tx) =>
-    tx
-      .select()
-      .from(auditEvents)
-      .where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.subjectType, subjectType), eq(auditEvents.subjectId, subjectId)))
-      .orderBy(desc(auditEvents.createdAt))
-      .limit(Math.min(Math.max(1, limit), 500)),
-  );
+export async function listAuditForSubject(tx: Tx, shopId: string, subjectType: string, subjectId: string, limit = 50) {
+  return tx
+    .select()
+    .from(auditEvents)
+    .where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.subjectType, subjectType), eq(auditEvents.subjectId, subjectId)))
+    .orderBy(desc(auditEvents.createdAt))
+    .limit(Math.min(Math.max(1, limit), 500));
 }
 
 export interface AuditListRow {

@@ -3,8 +3,9 @@ import { and, asc, count, eq } from "drizzle-orm";
 import { catalogCells, catalogComponents, shops } from "@/db/schema";
 import { db } from "@/db";
 import { withShop } from "@/db/tx";
+import { DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank/reliability-settings";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
-import { DEFAULT_PRICING_RULES } from "@/lib/pricing/defaults";
+import { DEFAULT_PRICING_RULES, readPricingRules } from "@/lib/pricing/defaults";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import type { ShopCatalog } from "@/lib/quoting/types";
 import { getShopSettings } from "./shops";
@@ -55,8 +56,8 @@ async function currentCatalogVersion(shopId: string): Promise<number | null> {
 }
 
 /**
- * Everything one search and one quote need from a shop, read once: design factors, pricing rules
- * and auto-quote limits (the defaults when the shop has no settings row), active cells and active
+ * Everything one search and one quote need from a shop, read once: design factors, pricing rules,
+ * auto-quote limits and failure/yield/life settings (the defaults when the shop has no settings row), active cells and active
  * components. Searching and quoting are pure functions of this (lib/quoting/priced-search.ts).
  *
  * Kept in this process for as long as the shop's `catalog_version` (db/schema/auth.ts) is the one
@@ -91,8 +92,9 @@ async function readShopCatalog(shopId: string): Promise<ShopCatalog> {
   ]);
   return {
     factors: settings?.designFactors ?? DEFAULT_DESIGN_FACTORS,
-    rules: settings?.pricingRules ?? DEFAULT_PRICING_RULES,
+    rules: settings ? readPricingRules(settings.pricingRules) : DEFAULT_PRICING_RULES,
     autoQuoteLimits: settings?.autoQuoteLimits ?? DEFAULT_AUTO_QUOTE_LIMITS,
+    reliability: { ...DEFAULT_RELIABILITY_SETTINGS, ...settings?.reliabilitySettings },
     cells,
     components,
   };

@@ -75,7 +75,7 @@ export async function getOutboxRow(shopId: string, id: string) {
 
 /**
  * Waiting rows of every shop, oldest first, for the job queue's dispatcher. The one read across
- * shops: the database function `waiting_outbox` (drizzle/0003_row-level-security.sql) hands out
+ * shops: the database function `waiting_outbox` (drizzle/0009_row-level-security.sql) hands out
  * only ids and shops; each row is then sent in its own shop's `withShop`.
  */
 export async function listWaitingOutboxIds(limit = 500): Promise<{ id: string; shopId: string }[]> {
@@ -123,6 +123,8 @@ export interface NewOutboxMessage {
   toEmail: string;
   subject: string;
   quoteRevisionId: string | null;
+  /** the order an order message is about */
+  orderId?: string | null;
 }
 
 /** Records a message in the caller's transaction, with what it announces; a repeated dedupe key is a no-op. */

@@ -10,7 +10,7 @@ import { getShopBySlug } from "./shops";
  *
  * Kept only while it is known to be current: the process listens on PostgreSQL's `shop_changed`
  * channel, which a trigger on `shops` notifies when a shop changes or its catalog version moves
- * (drizzle/0008_shop-change-notifications.sql), and forgets that shop at once; every server has
+ * (drizzle/0013_shop-change-notifications.sql), and forgets that shop at once; every server has
  * its own listener, so a change made through any server is seen by all. While the listener is not
  * connected (starting, or after its connection dropped) nothing is kept and every lookup reads the
  * database; when it reconnects it starts from empty, so a notice missed meanwhile cannot leave a

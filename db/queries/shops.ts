@@ -29,7 +29,7 @@ export async function isSlugTaken(slug: string): Promise<boolean> {
 
 /**
  * Shops shown on the landing page: public storefront facts only, read across shops by the
- * database function `public_shop_list` (drizzle/0003_row-level-security.sql).
+ * database function `public_shop_list` (drizzle/0009_row-level-security.sql).
  */
 export async function listPublicShops(): Promise<{ slug: string; name: string; tagline: string; currency: string }[]> {
   const rows = await db.execute<{ slug: string; name: string; tagline: string; currency: string }>(sql`select * from public_shop_list(50)`);

@@ -79,7 +79,7 @@ export const shops = pgTable("shops", {
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   /**
    * Moves on every change to what the arrangement search reads (cells, components, settings):
-   * database triggers bump it (drizzle/0007_catalog-version.sql), and app servers keep a loaded
+   * database triggers bump it (drizzle/0012_catalog-version-triggers.sql), and app servers keep a loaded
    * catalog only as long as it matches (db/queries/catalog.ts).
    */
   catalogVersion: bigint({ mode: "number" }).notNull().default(0),

@@ -5,3 +5,7 @@ export * from "./quotes";
 export * from "./mail";
 export * from "./security";
 export * from "./records";
+export * from "./orders";
+export * from "./webhooks";
+export * from "./pricing";
+export * from "./api-keys";

@@ -1,6 +1,7 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { OUTBOX_STATUSES } from "../../lib/vocabulary";
 import { shops } from "./auth";
+import { orders } from "./orders";
 import { quoteRevisions } from "./quotes";
 
 export const emailStatusEnum = pgEnum("email_status", OUTBOX_STATUSES);
@@ -21,6 +22,8 @@ export const emailOutbox = pgTable(
     toEmail: text().notNull(),
     subject: text().notNull(),
     quoteRevisionId: uuid().references(() => quoteRevisions.id, { onDelete: "set null" }),
+    /** the order an order message is about (confirmed, ready, shipped, delivered) */
+    orderId: uuid().references(() => orders.id, { onDelete: "set null" }),
     status: emailStatusEnum().notNull().default("waiting"),
     attempts: integer().notNull().default(0),
     lastError: text(),

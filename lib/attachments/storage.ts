@@ -40,7 +40,7 @@ export async function openAttachment(storageKey: string): Promise<{ stream: Read
   return { stream: Readable.toWeb(handle.createReadStream()) as ReadableStream<Uint8Array>, sizeBytes: size };
 }
 
-/** Removes a stored file; one already gone is no error. */
-export async function deleteAttachmentBytes(storageKey: string): Promise<void> {
+/** Removes stored bytes nothing points at any more (an unattached upload, a replaced datasheet); one already gone is no error. */
+export async function removeStoredBytes(storageKey: string): Promise<void> {
   await rm(fileOf(storageKey), { force: true });
 }

@@ -7,7 +7,7 @@ import "server-only";
  */
 import type PgBoss from "pg-boss";
 import { deleteStaleUnlinkedAttachment, listStaleUnlinkedAttachments } from "@/db/queries/attachments";
-import { deleteAttachmentBytes } from "./storage";
+import { removeStoredBytes } from "./storage";
 
 export const ATTACHMENT_SWEEP_QUEUE = "attachment-sweep";
 /** A day: time enough to finish a request the files were uploaded for. */
@@ -24,7 +24,7 @@ export async function sweepUnlinkedAttachments(maxAgeSeconds = UNLINKED_ATTACHME
       const storageKey = await deleteStaleUnlinkedAttachment(a.shopId, a.id, maxAgeSeconds);
       if (!storageKey) continue; // attached or removed meanwhile
       gone += 1;
-      await deleteAttachmentBytes(storageKey).catch((error: unknown) =>
+      await removeStoredBytes(storageKey).catch((error: unknown) =>
         console.error(`[attachments] the file of ${a.id} was not removed: ${error instanceof Error ? error.message : String(error)}`),
       );
     }

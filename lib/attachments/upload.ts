@@ -6,13 +6,13 @@ import { env } from "@/lib/env";
 import { limits } from "@/lib/http/limits";
 import { MAX_PENDING_ATTACHMENTS_PER_USER } from "@/lib/validation/limits";
 import type { AttachmentContentType } from "./content-type";
-import { deleteAttachmentBytes, storeAttachmentBytes } from "./storage";
+import { removeStoredBytes, storeAttachmentBytes } from "./storage";
 
 const MB = 1024 * 1024;
 const megabytes = (bytes: number) => `${Math.round(bytes / MB)} MB`;
 
 export type UploadOutcome =
-  | { ok: true; attachment: { id: string; fileName: string; sizeBytes: number; contentType: string } }
+  | { ok: true; attachment: { id: string; fileName: string; sizeBytes: number; contentType: AttachmentContentType } }
   | { ok: false; status: 413 | 429; message: string; retryAfterSeconds?: number };
 
 /**
@@ -69,9 +69,9 @@ export async function acceptUpload(
         sha256: stored.sha256,
         storageKey: stored.storageKey,
       });
-      return { ok: true, attachment };
+      return { ok: true, attachment: { ...attachment, contentType: file.contentType } };
     } catch (error) {
-      await deleteAttachmentBytes(stored.storageKey);
+      await removeStoredBytes(stored.storageKey);
       throw error;
     }
   });

@@ -11,11 +11,15 @@ export const STATEMENTS = {
   pricing: ["read", "write"],
   request: ["create", "read-own", "read-all", "review"],
   quote: ["read-own", "read-all", "issue", "accept"],
-  order: ["read-own", "read-all", "update-status"],
+  order: ["read-own", "read-all", "update-status", "refund"],
   team: ["read", "update-role"],
   settings: ["read", "write"],
   outbox: ["read", "requeue"],
   audit: ["read"],
+  reports: ["read"],
+  webhook: ["manage"],
+  /** the shop's API keys for its own systems: make, see, revoke */
+  apikey: ["manage"],
 } as const;
 
 type Statements = typeof STATEMENTS;

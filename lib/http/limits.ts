@@ -27,6 +27,8 @@ export const limits = {
   uploadsPerUser: createRateLimiter({ name: "upload-user", limit: env.UPLOAD_RATE_PER_USER, windowSeconds: 600, store }),
   /** attachment uploads per shop (all its people together), keyed by shop id */
   uploadsPerShop: createRateLimiter({ name: "upload-shop", limit: env.UPLOAD_RATE_PER_SHOP, windowSeconds: 3600, store }),
+  /** each shop API key (Authorization: Bearer …), counted by key wherever it calls from */
+  apiKey: createRateLimiter({ name: "api-key", limit: env.API_KEY_RATE_LIMIT_PER_MINUTE, windowSeconds: 60, store }),
   /** new accounts (open a shop, join a shop): as many per address as sign-in attempts */
   signUp: createRateLimiter({ name: "sign-up", limit: env.AUTH_SIGN_IN_LIMIT, windowSeconds: 10, store }),
 };

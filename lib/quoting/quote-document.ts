@@ -1,7 +1,9 @@
 import type { RevisionWithLines } from "@/db/queries/quotes";
-import { formatMoney, type BankPrice } from "@/lib/pricing";
+import { formatMoney } from "@/lib/pricing";
+import { sellPresentation } from "@/lib/pricing/sell";
 import { formatQuantity } from "@/lib/quantities";
 import { requirementFacts, TECHNOLOGY_LABELS, TOPOLOGY_LABELS, type LabelledValue } from "@/lib/vocabulary";
+import { toQuoteEngineering, type QuoteEngineering } from "./quote-engineering";
 import type { FrozenCell, PricedOption } from "./types";
 
 export type { LabelledValue };
@@ -16,8 +18,10 @@ export interface QuoteDocumentLine {
 }
 
 /**
- * Everything a quote shows, already worded and formatted, from one frozen revision. The quote page
- * and the PDF both render this, so they say the same thing. Pure: no database, no framework.
+ * Everything a quote shows its customer, already worded and formatted, from one frozen revision.
+ * The quote page, the PDF and the e-mail render this, so they say the same thing. Prices are sell
+ * prices only (lib/pricing/sell.ts): the bank as one line, extra lines, the quantity discount, tax
+ * and the total; the shop's costs are in cost-build-up.ts, for the desk. Pure: no database, no framework.
  */
 export interface QuoteDocument {
   shopName: string;
@@ -33,7 +37,9 @@ export interface QuoteDocument {
   arrangement: LabelledValue[];
   cell: LabelledValue[];
   figures: LabelledValue[];
+  /** sell lines: the bank, then any extra lines */
   lines: QuoteDocumentLine[];
+  /** below the lines: the quantity discount (if any), subtotal, tax and total */
   totals: LabelledValue[];
   /** the order total, formatted (the last row of totals) */
   total: string;
@@ -41,6 +47,8 @@ export interface QuoteDocument {
   notes: string[];
   /** the frozen option, for the diagram on the page */
   option: PricedOption;
+  /** one failed cell, tolerance yield, temperature and life, handling (quote-engineering.ts) */
+  engineering: QuoteEngineering;
 }
 
 const q = (value: number, unit: string) => formatQuantity(value, unit);
@@ -101,24 +109,33 @@ function describeCell(cell: FrozenCell, o: PricedOption): LabelledValue[] {
   ];
 }
 
-function describeTotals(p: BankPrice): LabelledValue[] {
-  const m = (a: string) => formatMoney(a, p.currency);
-  const rows: LabelledValue[] = [
-    { label: "Price per bank", value: m(p.unitPrice) },
-    { label: "Quantity", value: String(p.quantity) },
-  ];
-  if (p.discount !== "" && Number(p.discountPct) > 0) rows.push({ label: `Quantity discount (${p.discountPct} %)`, value: `−${m(p.discount)}` });
-  rows.push({ label: "Subtotal", value: m(p.subtotal) }, { label: `Tax (${p.taxPct} %)`, value: m(p.tax) }, { label: "Total", value: m(p.total) });
-  return rows;
+/**
+ * The bank as the customer's one line: what it is, how it is built, assembled and tested
+ * ("Supercapacitor (EDLC) bank rated 48.6 V, 23.1 F: 18 S × 2 P of QFS-1200R27 with balancing resistors,
+ * enclosure and terminals, assembled and tested").
+ */
+export function bankLineDescription(o: PricedOption): string {
+  const b = o.balancing;
+  const balancing = b.activeBoard ? "active balancing boards" : b.resistance !== null && b.count > 0 ? "balancing resistors" : null;
+  const bleeder = o.discharge.bleeder ? (o.discharge.bleeder.switched ? "a switched discharge circuit (priced apart)" : "a bleeder resistor") : null;
+  const parts = [balancing, bleeder, "enclosure and terminals"].filter(Boolean).join(", ");
+  const tech = TECHNOLOGY_LABELS[o.cell.technology] ?? o.cell.technology;
+  return `${tech} bank rated ${q(o.maxVoltage, "V")}, ${q(o.capacitance.nominal, "F")}: ${o.seriesCount} S × ${o.parallelCount} P of ${o.cell.sku} with ${parts}, assembled and tested`;
 }
 
 /** The worded quote from a revision and its lines as stored. */
 export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
   const r = rev.revision;
   const option = r.arrangement;
-  const price = r.pricing;
   const money = (a: string) => formatMoney(a, r.currency);
-  const totals = describeTotals(price);
+  const sell = sellPresentation(r.pricing, bankLineDescription(option));
+  const totals: LabelledValue[] = [];
+  if (sell.discount) totals.push({ label: `Quantity discount (${sell.discount.pct} %)`, value: `−${money(sell.discount.amount)}` });
+  totals.push(
+    { label: "Subtotal", value: money(sell.subtotal) },
+    { label: `Tax (${sell.taxPct} %)`, value: money(sell.tax) },
+    { label: "Total", value: money(sell.total) },
+  );
   return {
     shopName: rev.shopName,
     number: rev.quoteNumber,
@@ -133,10 +150,10 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     arrangement: describeArrangement(option),
     cell: describeCell(r.cell, option),
     figures: describeFigures(option),
-    lines: rev.lines.map((l) => ({
-      position: l.position,
+    lines: sell.lines.map((l, i) => ({
+      position: i + 1,
       description: l.description,
-      quantity: String(Number(l.quantity)),
+      quantity: String(l.quantity),
       unit: l.unit,
       unitPrice: money(l.unitPrice),
       amount: money(l.amount),
@@ -146,5 +163,6 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     cautions: option.cautions ?? [],
     notes: option.warnings ?? [],
     option,
+    engineering: toQuoteEngineering(r.requirement, option),
   };
 }

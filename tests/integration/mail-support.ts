@@ -14,7 +14,10 @@ import { getOutboxRow } from "@/db/queries/outbox";
 import { emailOutbox, quoteRevisions, quotes } from "@/db/schema";
 import { MAIL_QUEUE, PGBOSS_SCHEMA } from "@/lib/mail/queue";
 import { createQuote, type TestShop } from "./fixtures";
+import { waitFor } from "./helpers";
 import { ownerDb } from "./owner-db";
+
+export { waitFor };
 
 export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -36,17 +39,6 @@ export function portOpen(port: number): Promise<boolean> {
     });
     s.once("error", () => resolve(false));
   });
-}
-
-/** Polls until `check` holds; the limit only bounds a broken run, it measures nothing. */
-export async function waitFor<T>(what: string, read: () => Promise<T>, check: (value: T) => boolean, limitMs = 45_000): Promise<T> {
-  const until = Date.now() + limitMs;
-  for (;;) {
-    const value = await read();
-    if (check(value)) return value;
-    if (Date.now() > until) throw new Error(`gave up waiting for ${what}; last seen ${JSON.stringify(value)}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
 }
 
 export interface MaildevEmail {

@@ -45,7 +45,7 @@ describe("audit entries and shop events", () => {
         throw new Error("the change failed");
       }),
     ).rejects.toThrow("the change failed");
-    const entries = await listAuditForSubject(shop.id, "catalog-cell", "c1");
+    const entries = await withShop(shop.id, (tx) => listAuditForSubject(tx, shop.id, "catalog-cell", "c1"));
     expect(entries.map((e) => e.summary)).toEqual(["Unit cost from 41.20 to 39.80"]);
     const events = await db
       .select()

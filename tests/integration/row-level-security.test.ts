@@ -1,5 +1,5 @@
 /**
- * Row-level security (drizzle/0003_row-level-security.sql, db/tx.ts): the database itself keeps
+ * Row-level security (drizzle/0009_row-level-security.sql, db/tx.ts): the database itself keeps
  * shops apart. The app's queries run as a role without BYPASSRLS that owns no table; inside
  * withShop(A) a query that forgot its `where shop_id` sees, changes and writes only shop A's rows,
  * and outside any withShop a tenant table refuses to answer at all.

@@ -7,5 +7,5 @@ export const generateMetadata = quoteTitle;
 export default async function DeskQuotePage({ params }: { params: Promise<{ shop: string; number: string }> }) {
   const { shop, number } = await params;
   const ctx = await requireShopPage(shop, "quote:read-all", `/desk/${shop}/quotes/${number}`);
-  return <QuotePageBody shop={ctx.shop} number={number} back={{ href: `/desk/${shop}/quotes`, label: "Quotes" }} maySee={() => true} />;
+  return <QuotePageBody shop={ctx.shop} number={number} back={{ href: `/desk/${shop}/quotes`, label: "Quotes" }} maySee={() => true} showCosts />;
 }

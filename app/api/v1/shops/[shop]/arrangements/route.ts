@@ -6,6 +6,7 @@ import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
 import { readJsonBody } from "@/lib/http/read-json";
 import { memoizedSearch } from "@/lib/quoting/search-memo";
 import { parseArrangementRequest } from "@/lib/validation/bank";
+import { searchArrangements as contract } from "@/lib/api/contracts/shops";
 
 /**
  * POST /api/v1/shops/{shop}/arrangements — open to visitors (DESIGN.md §3.2): a requirement in
@@ -24,7 +25,7 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
   // the shop, its catalog and a search repeated lately are kept while the catalog version is current
   const result = memoizedSearch(shop.id, shop.catalogVersion, await loadShopCatalog(shop.id, shop.catalogVersion), parsed.data);
-  return Response.json({
+  return contract.answer({
     designFactors: result.designFactors,
     options: result.options,
     ...(result.options.length === 0 ? { reasons: result.reasons } : {}),

@@ -4,6 +4,7 @@ import { readBodyLimited } from "@/lib/http/read-json";
 import { cleanFileName, detectAttachmentType } from "@/lib/attachments/content-type";
 import { acceptUpload } from "@/lib/attachments/upload";
 import { MAX_ATTACHMENT_BYTES, MAX_ATTACHMENT_SIZE_TEXT } from "@/lib/validation/limits";
+import { uploadAttachment as contract } from "@/lib/api/contracts/shops";
 
 /** Room for the multipart boundaries and part headers around one file. */
 const MULTIPART_OVERHEAD = 64 * 1024;
@@ -47,6 +48,6 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
       const headers = outcome.retryAfterSeconds ? { "retry-after": String(outcome.retryAfterSeconds) } : undefined;
       return jsonError(outcome.status, outcome.message, [{ path: "file", message: outcome.message }], { headers });
     }
-    return Response.json(outcome.attachment, { status: 201 });
+    return contract.answer(outcome.attachment);
   });
 }

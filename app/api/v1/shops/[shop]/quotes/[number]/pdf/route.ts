@@ -2,7 +2,7 @@ import { getQuoteByNumber } from "@/db/queries/quotes";
 import { withShopApi } from "@/lib/auth/guards";
 import { maySee, reads } from "@/lib/auth/ownership";
 import { jsonError } from "@/lib/http/json-error";
-import { contentDisposition } from "@/lib/attachments/content-type";
+import { pdfResponse } from "@/lib/http/pdf-response";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
 import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 
@@ -13,13 +13,6 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
     const quote = isQuoteNumber(number) ? await getQuoteByNumber(ctx.shop.id, number) : null;
     if (!quote || !maySee(ctx, "quote", quote.customerUserId)) return jsonError(404, "No such quote.");
     const { buffer, fileName } = await loadQuotePdf(ctx.shop.id, quote.revisionId);
-    return new Response(new Uint8Array(buffer), {
-      headers: {
-        "content-type": "application/pdf",
-        "content-length": String(buffer.byteLength),
-        "content-disposition": contentDisposition(fileName),
-        "cache-control": "private, no-store",
-      },
-    });
+    return pdfResponse(buffer, fileName);
   });
 }
