@@ -17,7 +17,13 @@ export const JOB_SCHEMA = "pgboss";
  * Functions that read across shops for the app (SECURITY DEFINER, owned by the migration role),
  * each handing out only what its one caller needs; the app's role may call these and no others.
  */
-export const CROSS_SHOP_FUNCTIONS = ["public_shop_list(integer)", "waiting_outbox(integer)", "stale_unlinked_attachments(double precision, integer)"];
+export const CROSS_SHOP_FUNCTIONS = [
+  "public_shop_list(integer)",
+  "waiting_outbox(integer)",
+  "stale_unlinked_attachments(double precision, integer)",
+  "due_webhook_deliveries(integer)",
+  "payment_of_intent(text)",
+];
 
 /** The role a connection string logs in as. */
 export function roleOf(url: string): string {

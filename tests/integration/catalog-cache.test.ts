@@ -7,9 +7,7 @@
 import { eq, sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { POST as arrangementsRoute } from "@/app/api/v1/shops/[shop]/arrangements/route";
-import { db } from "@/db";
 import { loadShopCatalog } from "@/db/queries/catalog";
-import { getListedShopBySlug, shopDirectoryBackendPid, shopDirectoryListening } from "@/db/queries/shop-directory";
 import { catalogCells, catalogComponents, shops, shopSettings } from "@/db/schema";
 import { createShop, KESTREL_REQUIREMENT, type TestShop } from "./fixtures";
 import { request } from "./helpers";
@@ -71,71 +69,5 @@ describe("the catalog a server keeps", () => {
     await ownerDb.insert(catalogCells).values({ ...cell!, id: undefined, sku: `${cell!.sku}-COPY` });
     expect(await versionOf(shop)).toBe(v0 + 4);
     expect(await versionOf(other)).toBe(o0);
-  });
-});
-
-describe("the shops a server keeps by slug", () => {
-  async function until<T>(read: () => Promise<T>, check: (v: T) => boolean): Promise<T> {
-    const end = Date.now() + 15_000;
-    for (;;) {
-      const v = await read();
-      if (check(v) || Date.now() > end) return v;
-      await new Promise((r) => setTimeout(r, 50));
-    }
-  }
-
-  it("are served from memory while current, and forgotten the moment PostgreSQL says a shop changed", async () => {
-    const shop = await createShop("kestrel");
-    await getListedShopBySlug(shop.slug);
-    expect(
-      await until(
-        async () => shopDirectoryListening(),
-        (v) => v,
-      ),
-    ).toBe(true);
-    const kept = await getListedShopBySlug(shop.slug);
-    // a change the directory is not told of (the notice switched off) is not seen: it was served from memory
-    await ownerDb.execute(sql`alter table shops disable trigger shops_notify_changed`);
-    try {
-      await ownerDb.update(catalogCells).set({ stock: 7 }).where(eq(catalogCells.shopId, shop.id));
-      expect((await getListedShopBySlug(shop.slug))?.catalogVersion).toBe(kept!.catalogVersion);
-    } finally {
-      await ownerDb.execute(sql`alter table shops enable trigger shops_notify_changed`);
-    }
-    // with the notice, as from any other server: seen at once, and the search reads the new catalog
-    await ownerDb.update(catalogCells).set({ stock: 8 }).where(eq(catalogCells.shopId, shop.id));
-    const fresh = await until(
-      () => getListedShopBySlug(shop.slug),
-      (s) => s!.catalogVersion === kept!.catalogVersion + 2,
-    );
-    expect(fresh!.catalogVersion).toBe(kept!.catalogVersion + 2);
-    expect((await loadShopCatalog(fresh!.id, fresh!.catalogVersion)).cells.every((c) => c.stock === 8)).toBe(true);
-  });
-
-  it("are not kept while the listener is down, which then reconnects by itself", async () => {
-    const shop = await createShop("kestrel");
-    await until(
-      async () => (await getListedShopBySlug(shop.slug), shopDirectoryListening()),
-      (v) => v,
-    );
-    const pid = await shopDirectoryBackendPid();
-    // the app's role may end its own role's connections
-    await db.execute(sql`select pg_terminate_backend(${pid})`);
-    await until(
-      async () => shopDirectoryListening(),
-      (v) => !v,
-    );
-    expect(shopDirectoryListening()).toBe(false);
-    // meanwhile every lookup reads the database: a change is seen at once
-    const before = (await getListedShopBySlug(shop.slug))!.catalogVersion;
-    await ownerDb.update(catalogCells).set({ stock: 9 }).where(eq(catalogCells.shopId, shop.id));
-    expect((await getListedShopBySlug(shop.slug))!.catalogVersion).toBe(before + 1);
-    expect(
-      await until(
-        async () => (await getListedShopBySlug(shop.slug), shopDirectoryListening()),
-        (v) => v,
-      ),
-    ).toBe(true);
-    expect(await shopDirectoryBackendPid()).not.toBe(pid);
   });
 });

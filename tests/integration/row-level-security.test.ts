@@ -14,6 +14,8 @@ import { bankRequests, catalogCells, emailOutbox, members, quotes } from "@/db/s
 import { listShopsOfUser } from "@/db/queries/members";
 import { listPublicShops } from "@/db/queries/shops";
 import { listWaitingOutboxIds } from "@/db/queries/outbox";
+import { findPaymentByIntent } from "@/db/queries/payments";
+import { listDueDeliveries } from "@/db/queries/webhooks";
 import { withShop, withUser } from "@/db/tx";
 import { env } from "@/lib/env";
 import { createQuote, createShop, MARLOW_REQUIREMENT, type TestShop } from "./fixtures";
@@ -123,6 +125,10 @@ describe("a query that forgets its where shop_id", () => {
     const waiting = await listWaitingOutboxIds();
     expect(waiting.some((w) => w.shopId === B.id)).toBe(true);
     expect(Object.keys(waiting[0] ?? {}).sort()).toEqual(["id", "shopId"]);
+    // the webhook worker's and the payment webhook's lookups: callable by the app's role, ids only
+    const due = await listDueDeliveries(5);
+    expect(due.every((d) => Object.keys(d).sort().join() === "id,shopId")).toBe(true);
+    expect(await findPaymentByIntent("pi_nobody_has_this")).toBeNull();
   });
 });
 

@@ -2,7 +2,7 @@
 import { headers } from "next/headers";
 import { loadShopCatalog } from "@/db/queries/catalog";
 import { listDatasheetSkus } from "@/db/queries/catalog-edit";
-import { getListedShopBySlug } from "@/db/queries/shop-directory";
+import { getShopBySlug } from "@/db/queries/shops";
 import { invalidResult, refusedResult, shopAction, type ActionResult } from "@/lib/auth/guards";
 import type { DesignFactors, Requirement } from "@/lib/bank";
 import { limits, requestClient } from "@/lib/http/limits";
@@ -34,7 +34,7 @@ export async function exploreArrangements(shopSlug: string, input: unknown): Pro
   // the same budget per client as the public arrangements endpoint: a search is not free
   const gate = await limits.storefrontSearch.hit(requestClient(await headers()));
   if (!gate.allowed) return { ok: false, code: "rate-limited", message: `Too many searches; try again in ${gate.retryAfterSeconds} s.` };
-  const shop = await getListedShopBySlug(String(shopSlug));
+  const shop = await getShopBySlug(String(shopSlug));
   if (!shop) return refusedResult("no-shop");
   const parsed = requestFormSchema.safeParse(input);
   if (!parsed.success) return invalidResult(parsed.error);

@@ -1,5 +1,5 @@
 import { loadShopCatalog } from "@/db/queries/catalog";
-import { getListedShopBySlug } from "@/db/queries/shop-directory";
+import { getShopBySlug } from "@/db/queries/shops";
 import { refusedResponse } from "@/lib/auth/guards";
 import { jsonError } from "@/lib/http/json-error";
 import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
@@ -17,13 +17,13 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   const gate = await limits.publicApi.hit(requestClient(request.headers));
   if (!gate.allowed) return tooManyRequests(gate);
   const { shop: slug } = await params;
-  const shop = await getListedShopBySlug(slug);
+  const shop = await getShopBySlug(slug);
   if (!shop) return refusedResponse("no-shop");
   const body = await readJsonBody(request);
   if (!body.ok) return body.response;
   const parsed = parseArrangementRequest(body.value);
   if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
-  // the shop, its catalog and a search repeated lately are kept while the catalog version is current
+  // the catalog and a search repeated lately are kept while the shop's catalog version is current
   const result = memoizedSearch(shop.id, shop.catalogVersion, await loadShopCatalog(shop.id, shop.catalogVersion), parsed.data);
   return contract.answer({
     designFactors: result.designFactors,
