@@ -59,7 +59,10 @@ describe("e-mail through the outbox and the job queue", () => {
     expect(waiting.status).toBe("waiting");
     expect(waiting.sentAt).toBeNull();
     expect(waiting.lastError).toMatch(/ECONNREFUSED/);
-    expect(await jobsFor(outboxId)).toEqual([{ state: "retry" }]);
+    // one job, between attempts or (on a busy machine) already in its next one: never failed or done
+    const jobs = await jobsFor(outboxId);
+    expect(jobs).toHaveLength(1);
+    expect(["retry", "active"]).toContain(jobs[0]!.state);
 
     // back up: the next retry delivers it
     await smtp.start();
