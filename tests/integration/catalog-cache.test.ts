@@ -6,24 +6,16 @@
  */
 import { eq, sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
-import { POST as arrangementsRoute } from "@/app/api/v1/shops/[shop]/arrangements/route";
 import { loadShopCatalog } from "@/db/queries/catalog";
 import { catalogCells, catalogComponents, shops, shopSettings } from "@/db/schema";
 import { createShop, KESTREL_REQUIREMENT, type TestShop } from "./fixtures";
-import { request } from "./helpers";
+import { postArrangements } from "./arrangements-call";
 import { ownerDb } from "./owner-db";
 
 const versionOf = async (shop: TestShop) => (await ownerDb.select({ v: shops.catalogVersion }).from(shops).where(eq(shops.id, shop.id)))[0]!.v;
 
 async function cheapestPrice(shop: TestShop): Promise<string> {
-  const res = await arrangementsRoute(
-    request(`/api/v1/shops/${shop.slug}/arrangements`, {
-      method: "POST",
-      body: JSON.stringify(KESTREL_REQUIREMENT),
-      headers: { "content-type": "application/json" },
-    }),
-    { params: Promise.resolve({ shop: shop.slug }) },
-  );
+  const res = await postArrangements(shop.slug, KESTREL_REQUIREMENT);
   const body = (await res.json()) as { options: { price: { amount: string } | null }[] };
   return body.options[0]!.price!.amount;
 }

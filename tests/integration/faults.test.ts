@@ -10,7 +10,6 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { requeueMessage } from "@/app/desk/[shop]/outbox/actions";
-import { POST as arrangementsRoute } from "@/app/api/v1/shops/[shop]/arrangements/route";
 import { listAudit } from "@/db/queries/audit";
 import { emailOutbox } from "@/db/schema";
 import { configureMail, mailSettings } from "@/lib/mail/config";
@@ -20,7 +19,8 @@ import { startMailWorker, stopMailWorker } from "@/lib/mail/worker";
 import { auditList } from "@/lib/validation/lists";
 import { restartPostgres } from "../../scripts/services.mjs";
 import { createQuote, createShop, KESTREL_REQUIREMENT, type TestShop } from "./fixtures";
-import { actAs, request } from "./helpers";
+import { actAs } from "./helpers";
+import { postArrangements } from "./arrangements-call";
 import { createMailStandin, freePort, jobsFor, makeQuote, outboxRow, waitFor, type MailStandin } from "./mail-support";
 import { ownerDb } from "./owner-db";
 
@@ -42,14 +42,7 @@ afterAll(async () => {
 /** One public arrangements request, as a server would run it: its status, or the error it ended with. */
 async function search(): Promise<number | string> {
   try {
-    const res = await arrangementsRoute(
-      request(`/api/v1/shops/${shop.slug}/arrangements`, {
-        method: "POST",
-        body: JSON.stringify(KESTREL_REQUIREMENT),
-        headers: { "content-type": "application/json" },
-      }),
-      { params: Promise.resolve({ shop: shop.slug }) },
-    );
+    const res = await postArrangements(shop.slug, KESTREL_REQUIREMENT);
     return res.status;
   } catch (error) {
     const e = error as { code?: string; cause?: { code?: string; message?: string }; message?: string };
