@@ -156,7 +156,10 @@ try {
   if (setup.status !== 0) throw new Error("database set-up failed");
   if (!fs.existsSync(path.join(root, DIST_DIR, "BUILD_ID")) || !args.includes("--reuse-build")) {
     log("building the app");
+    // a build into a folder of its own adds that folder to tsconfig.json: put the file back afterwards
+    const tsconfig = fs.readFileSync(path.join(root, "tsconfig.json"), "utf8");
     const b = spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "inherit" });
+    fs.writeFileSync(path.join(root, "tsconfig.json"), tsconfig);
     if (b.status !== 0) throw new Error("next build failed");
   }
   startServer(APP_PORT);
