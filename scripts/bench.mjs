@@ -58,6 +58,7 @@ const env = {
   APP_URL: appUrl,
   BETTER_AUTH_URL: appUrl,
   BETTER_AUTH_SECRET: randomBytes(32).toString("base64url"),
+  WEBHOOK_SECRET_KEY: randomBytes(32).toString("base64url"),
   // the limiter runs on every request, with a limit the bench never reaches
   API_RATE_LIMIT_PER_MINUTE: "100000000",
   AUTH_SIGN_IN_LIMIT: "1000",
