@@ -64,6 +64,7 @@ const env = {
   AUTH_SIGN_IN_LIMIT: "1000",
   AUTH_RATE_LIMIT_MAX: "1000",
   MAIL_WORKER: "off" /* the bench server sends no e-mail */,
+  PAYMENTS_WORKER: "off" /* and talks to no payment service */,
   NEXT_TELEMETRY_DISABLED: "1",
   NEXT_DIST_DIR: DIST_DIR,
 };

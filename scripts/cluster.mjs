@@ -20,6 +20,8 @@ export function haproxyConfig({ lbPort, appPorts }) {
     "  timeout connect 5s",
     "  timeout client 120s",
     "  timeout server 120s",
+    // a busy machine may take a few seconds to answer a health check: that is not a dead server
+    "  timeout check 10s",
     "  option forwardfor",
     "frontend faradsmith",
     `  bind 127.0.0.1:${lbPort}`,
@@ -29,7 +31,7 @@ export function haproxyConfig({ lbPort, appPorts }) {
     "  option httpchk GET /api/health",
     "  http-check expect status 200",
     "  http-response set-header x-served-by %s",
-    ...appPorts.map((port, i) => `  server app${i + 1} 127.0.0.1:${port} check inter 2s fall 2 rise 1`),
+    ...appPorts.map((port, i) => `  server app${i + 1} 127.0.0.1:${port} check inter 2s fall 3 rise 1`),
     "",
   ].join("\n");
 }
