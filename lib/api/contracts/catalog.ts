@@ -18,8 +18,6 @@ const EXAMPLE_SKU = "QFS-1200R27";
 
 const cellParams = shopParams.extend({ sku: z.string().min(1).meta({ description: "the cell's SKU (part number)", example: EXAMPLE_SKU }) });
 
-const STAFF = "Signed in, but not the shop's staff (a customer), or the role may not do this.";
-const NOT_FOUND = "No such shop, or the caller is not one of its members (another shop's staff are told the same).";
 const flag = z.enum(["1", "true", "0", "false"]);
 
 export const listCells = defineRoute({
@@ -35,7 +33,7 @@ export const listCells = defineRoute({
   params: shopParams,
   query: catalogList.querySchema,
   ok: { status: 200, description: "A page of cells.", json: cellListResponseSchema },
-  errors: { 400: "A query value the list does not take: `issues` names it.", 401: REFUSED.signedOut, 403: STAFF, 404: NOT_FOUND },
+  errors: { 400: "A query value the list does not take: `issues` names it.", 401: REFUSED.signedOut, 403: REFUSED.notStaff, 404: REFUSED.noShopForOutsiders },
   examples: [{ title: "Supercapacitor (EDLC) cells, cheapest first", params: { shop: EXAMPLE_SHOP }, query: { technology: "edlc", sort: "cost" } }],
 });
 
@@ -55,8 +53,8 @@ export const createCell = defineRoute({
   errors: {
     400: "A field is wrong, out of its bounds or missing, or `unitCost` is not in the shop's currency: `issues` names it.",
     401: REFUSED.signedOut,
-    403: `${STAFF} ${REFUSED.crossSite}`,
-    404: NOT_FOUND,
+    403: `${REFUSED.notStaff} ${REFUSED.crossSite}`,
+    404: REFUSED.noShopForOutsiders,
     409: "The shop already has a cell with this SKU.",
   },
 });
@@ -72,7 +70,7 @@ export const getCell = defineRoute({
   apiKey: "catalog:read",
   params: cellParams,
   ok: { status: 200, description: "The cell.", json: cellResponseSchema },
-  errors: { 401: REFUSED.signedOut, 403: STAFF, 404: `${NOT_FOUND} Or no cell has this SKU.` },
+  errors: { 401: REFUSED.signedOut, 403: REFUSED.notStaff, 404: `${REFUSED.noShopForOutsiders} Or no cell has this SKU.` },
   examples: [{ title: "One cell", params: { shop: EXAMPLE_SHOP, sku: EXAMPLE_SKU } }],
 });
 
@@ -92,8 +90,8 @@ export const updateCell = defineRoute({
   errors: {
     400: "A field is wrong or out of its bounds, or `unitCost` is not in the shop's currency: `issues` names it.",
     401: REFUSED.signedOut,
-    403: `${STAFF} ${REFUSED.crossSite}`,
-    404: `${NOT_FOUND} Or no cell has this SKU.`,
+    403: `${REFUSED.notStaff} ${REFUSED.crossSite}`,
+    404: `${REFUSED.noShopForOutsiders} Or no cell has this SKU.`,
     409: "The cell changed since the `version` sent: fetch it again and reapply the change.",
   },
   examples: [{ title: "Stock and lead time after a delivery", params: { shop: EXAMPLE_SHOP, sku: EXAMPLE_SKU }, json: { stock: 240, leadTimeDays: 7 } }],
@@ -128,8 +126,8 @@ export const uploadDatasheet = defineRoute({
   errors: {
     400: "Not multipart, no file, too large, or not a PDF: `issues` names `file`.",
     401: REFUSED.signedOut,
-    403: `${STAFF} ${REFUSED.crossSite}`,
-    404: `${NOT_FOUND} Or no cell has this SKU.`,
+    403: `${REFUSED.notStaff} ${REFUSED.crossSite}`,
+    404: `${REFUSED.noShopForOutsiders} Or no cell has this SKU.`,
   },
 });
 
@@ -144,7 +142,7 @@ export const removeDatasheet = defineRoute({
   apiKey: "catalog:write",
   params: cellParams,
   ok: { status: 204, description: "Removed (or there was none)." },
-  errors: { 401: REFUSED.signedOut, 403: `${STAFF} ${REFUSED.crossSite}`, 404: `${NOT_FOUND} Or no cell has this SKU.` },
+  errors: { 401: REFUSED.signedOut, 403: `${REFUSED.notStaff} ${REFUSED.crossSite}`, 404: `${REFUSED.noShopForOutsiders} Or no cell has this SKU.` },
 });
 
 export const exportCellsCsv = defineRoute({
@@ -160,7 +158,7 @@ export const exportCellsCsv = defineRoute({
   params: shopParams,
   query: z.object({ template: flag.optional().meta({ description: "`1`: the header and one example row, not the catalog" }) }),
   ok: { status: 200, description: "The CSV (Content-Disposition names the file).", file: ["text/csv"] },
-  errors: { 401: REFUSED.signedOut, 403: STAFF, 404: NOT_FOUND },
+  errors: { 401: REFUSED.signedOut, 403: REFUSED.notStaff, 404: REFUSED.noShopForOutsiders },
   examples: [{ title: "The import template", params: { shop: EXAMPLE_SHOP }, query: { template: "1" }, output: "cells-template.csv" }],
 });
 
@@ -183,8 +181,8 @@ export const importCellsCsv = defineRoute({
   errors: {
     400: "The CSV contains a NUL character.",
     401: REFUSED.signedOut,
-    403: `${STAFF} ${REFUSED.crossSite}`,
-    404: NOT_FOUND,
+    403: `${REFUSED.notStaff} ${REFUSED.crossSite}`,
+    404: REFUSED.noShopForOutsiders,
     413: `The body is larger than ${MAX_IMPORT_BYTES / 1024 / 1024} MB.`,
     415: "The body is not sent as text/csv.",
     422: {

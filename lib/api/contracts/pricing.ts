@@ -2,9 +2,6 @@ import { defineRoute } from "@/lib/api/contract";
 import { pricingRulesResponseSchema, putPricingRulesSchema } from "@/lib/validation/pricing";
 import { EXAMPLE_SHOP, REFUSED, shopParams } from "./shared";
 
-const STAFF = "Signed in, but not the shop's staff (a customer), or the role may not do this.";
-const NOT_FOUND = "No such shop, or the caller is not one of its members (another shop's staff are told the same).";
-
 export const getPricingRules = defineRoute({
   method: "GET",
   path: "/api/v1/shops/{shop}/pricing-rules",
@@ -17,7 +14,7 @@ export const getPricingRules = defineRoute({
   apiKey: "catalog:read",
   params: shopParams,
   ok: { status: 200, description: "The rules in force.", json: pricingRulesResponseSchema },
-  errors: { 401: REFUSED.signedOut, 403: STAFF, 404: NOT_FOUND },
+  errors: { 401: REFUSED.signedOut, 403: REFUSED.notStaff, 404: REFUSED.noShopForOutsiders },
   examples: [{ title: "The rules in force", params: { shop: EXAMPLE_SHOP } }],
 });
 
@@ -37,8 +34,8 @@ export const putPricingRules = defineRoute({
   errors: {
     400: "A rule is wrong or out of its bounds, or the reason is missing: `issues` names each field.",
     401: REFUSED.signedOut,
-    403: `${STAFF} ${REFUSED.crossSite}`,
-    404: NOT_FOUND,
+    403: `${REFUSED.notStaff} ${REFUSED.crossSite}`,
+    404: REFUSED.noShopForOutsiders,
     409: "The rules changed since the `version` sent: fetch them again and reapply the change.",
   },
 });
