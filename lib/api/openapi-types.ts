@@ -312,13 +312,13 @@ export interface paths {
      *
      *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:write` (change the catalog and the pricing rules (import, edit)).
      *
-     *     **Example: Stock and lead time after a delivery**
+     *     **Example: Stock and lead time after a stock count**
      *
      *     ```sh
-     *     curl -s -X PATCH 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/cells/QFS-1200R27' \
+     *     curl -s -X PATCH 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/cells/QFS-2000R27' \
      *       -b cookies.txt \
      *       -H 'content-type: application/json' \
-     *       -d '{"stock":240,"leadTimeDays":7}'
+     *       -d '{"stock":520,"leadTimeDays":2}'
      *     ```
      */
     patch: operations["updateCell"];
@@ -2252,8 +2252,8 @@ export interface operations {
       content: {
         /**
          * @example {
-         *       "stock": 240,
-         *       "leadTimeDays": 7
+         *       "stock": 520,
+         *       "leadTimeDays": 2
          *     }
          */
         "application/json": {

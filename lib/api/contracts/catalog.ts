@@ -94,7 +94,8 @@ export const updateCell = defineRoute({
     404: `${REFUSED.noShopForOutsiders} Or no cell has this SKU.`,
     409: "The cell changed since the `version` sent: fetch it again and reapply the change.",
   },
-  examples: [{ title: "Stock and lead time after a delivery", params: { shop: EXAMPLE_SHOP, sku: EXAMPLE_SKU }, json: { stock: 240, leadTimeDays: 7 } }],
+  // a cell no browser journey edits, given the figures it has (the examples run against the demo data)
+  examples: [{ title: "Stock and lead time after a stock count", params: { shop: EXAMPLE_SHOP, sku: "QFS-2000R27" }, json: { stock: 520, leadTimeDays: 2 } }],
 });
 
 export const getDatasheet = defineRoute({
