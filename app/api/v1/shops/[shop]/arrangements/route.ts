@@ -1,9 +1,8 @@
 import { loadShopCatalog } from "@/db/queries/catalog";
 import { getShopBySlug } from "@/db/queries/shops";
 import { refusedResponse } from "@/lib/auth/guards";
-import { jsonError } from "@/lib/http/json-error";
 import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
-import { readJsonBody } from "@/lib/http/read-json";
+import { readJsonAs } from "@/lib/http/read-json";
 import { memoizedSearch } from "@/lib/quoting/search-memo";
 import { parseArrangementRequest } from "@/lib/validation/bank";
 import { searchArrangements as contract } from "@/lib/api/contracts/shops";
@@ -19,12 +18,10 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   const { shop: slug } = await params;
   const shop = await getShopBySlug(slug);
   if (!shop) return refusedResponse("no-shop");
-  const body = await readJsonBody(request);
-  if (!body.ok) return body.response;
-  const parsed = parseArrangementRequest(body.value);
-  if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
+  const parsed = await readJsonAs(request, parseArrangementRequest);
+  if (!parsed.ok) return parsed.response;
   // the catalog and a search repeated lately are kept while the shop's catalog version is current
-  const result = memoizedSearch(shop.id, shop.catalogVersion, await loadShopCatalog(shop.id, shop.catalogVersion), parsed.data);
+  const result = memoizedSearch(shop.id, shop.catalogVersion, await loadShopCatalog(shop.id, shop.catalogVersion), parsed.value);
   return contract.answer({
     designFactors: result.designFactors,
     options: result.options,
