@@ -28,7 +28,7 @@ interface ListColumn {
   align?: "left" | "right";
 }
 
-const control = "mt-1 block rounded-md border border-ink-200 bg-white px-3 py-1.5 text-sm";
+const control = "mt-1 block max-w-full rounded-md border border-ink-200 bg-white px-3 py-1.5 text-sm";
 
 /** The filter bar: a GET form that keeps the sort and page size and starts again at page 1. */
 function FilterForm({ state, fields }: { state: ListState; fields: FilterField[] }) {

@@ -1,8 +1,7 @@
 import "server-only";
 import { and, asc, count, desc, eq } from "drizzle-orm";
-import { db } from "@/db";
 import { quoteLines, quoteRevisions, quotes, shops, users } from "@/db/schema";
-import type { Tx } from "@/db/tx";
+import { withShop, type Tx } from "@/db/tx";
 import type { OwnerScope } from "@/lib/auth/ownership";
 import type { PriceLine } from "@/lib/pricing";
 import type { FrozenQuote } from "@/lib/quoting/types";
@@ -46,94 +45,102 @@ export async function listQuotes(shopId: string, scope: OwnerScope, q: QuoteList
     scope.all ? containsText(q.q, quotes.number, users.name, users.email) : containsText(q.q, quotes.number),
   );
   const current = and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision));
-  return readPage(
-    q,
-    () => db.select({ n: count() }).from(quotes).innerJoin(users, eq(users.id, quotes.customerUserId)).where(where),
-    (limit, offset) =>
-      db
-        .select({
-          id: quotes.id,
-          number: quotes.number,
-          status: quotes.status,
-          revision: quotes.currentRevision,
-          customerName: users.name,
-          customerEmail: users.email,
-          currency: quoteRevisions.currency,
-          quantity: quoteRevisions.quantity,
-          total: quoteRevisions.total,
-          validUntil: quoteRevisions.validUntil,
-          createdAt: quotes.createdAt,
-        })
-        .from(quotes)
-        .innerJoin(quoteRevisions, current)
-        .innerJoin(users, eq(users.id, quotes.customerUserId))
-        .where(where)
-        .orderBy(...sortedBy(QUOTE_SORTS, q, desc(quotes.number)))
-        .limit(limit)
-        .offset(offset),
+  return withShop(shopId, (tx) =>
+    readPage(
+      q,
+      () => tx.select({ n: count() }).from(quotes).innerJoin(users, eq(users.id, quotes.customerUserId)).where(where),
+      (limit, offset) =>
+        tx
+          .select({
+            id: quotes.id,
+            number: quotes.number,
+            status: quotes.status,
+            revision: quotes.currentRevision,
+            customerName: users.name,
+            customerEmail: users.email,
+            currency: quoteRevisions.currency,
+            quantity: quoteRevisions.quantity,
+            total: quoteRevisions.total,
+            validUntil: quoteRevisions.validUntil,
+            createdAt: quotes.createdAt,
+          })
+          .from(quotes)
+          .innerJoin(quoteRevisions, current)
+          .innerJoin(users, eq(users.id, quotes.customerUserId))
+          .where(where)
+          .orderBy(...sortedBy(QUOTE_SORTS, q, desc(quotes.number)))
+          .limit(limit)
+          .offset(offset),
+    ),
   );
 }
 
 /** A quote by its number with its current revision's id; null when not in this shop. */
 export async function getQuoteByNumber(shopId: string, number: string) {
-  const [row] = await db
-    .select({
-      id: quotes.id,
-      number: quotes.number,
-      status: quotes.status,
-      customerUserId: quotes.customerUserId,
-      requestId: quotes.requestId,
-      currentRevision: quotes.currentRevision,
-      revisionId: quoteRevisions.id,
-      createdAt: quotes.createdAt,
-    })
-    .from(quotes)
-    .innerJoin(
-      quoteRevisions,
-      and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision)),
-    )
-    .where(and(eq(quotes.shopId, shopId), eq(quotes.number, number)))
-    .limit(1);
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .select({
+        id: quotes.id,
+        number: quotes.number,
+        status: quotes.status,
+        customerUserId: quotes.customerUserId,
+        requestId: quotes.requestId,
+        currentRevision: quotes.currentRevision,
+        revisionId: quoteRevisions.id,
+        createdAt: quotes.createdAt,
+      })
+      .from(quotes)
+      .innerJoin(
+        quoteRevisions,
+        and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision)),
+      )
+      .where(and(eq(quotes.shopId, shopId), eq(quotes.number, number)))
+      .limit(1),
+  );
   return row ?? null;
 }
 
 /** One frozen revision with its quote, shop, customer and lines in order; null when not in this shop. */
 export async function getRevision(shopId: string, revisionId: string) {
-  const [row] = await db
-    .select({
-      revision: quoteRevisions,
-      quoteNumber: quotes.number,
-      quoteStatus: quotes.status,
-      customerUserId: quotes.customerUserId,
-      customerName: users.name,
-      customerEmail: users.email,
-      shopName: shops.name,
-      shopSlug: shops.slug,
-    })
-    .from(quoteRevisions)
-    .innerJoin(quotes, and(eq(quotes.shopId, quoteRevisions.shopId), eq(quotes.id, quoteRevisions.quoteId)))
-    .innerJoin(users, eq(users.id, quotes.customerUserId))
-    .innerJoin(shops, eq(shops.id, quoteRevisions.shopId))
-    .where(and(eq(quoteRevisions.shopId, shopId), eq(quoteRevisions.id, revisionId)))
-    .limit(1);
-  if (!row) return null;
-  const lines = await db
-    .select()
-    .from(quoteLines)
-    .where(and(eq(quoteLines.shopId, shopId), eq(quoteLines.revisionId, revisionId)))
-    .orderBy(asc(quoteLines.position));
-  return { ...row, lines };
+  return withShop(shopId, async (tx) => {
+    const [row] = await tx
+      .select({
+        revision: quoteRevisions,
+        quoteNumber: quotes.number,
+        quoteStatus: quotes.status,
+        customerUserId: quotes.customerUserId,
+        customerName: users.name,
+        customerEmail: users.email,
+        shopName: shops.name,
+        shopSlug: shops.slug,
+      })
+      .from(quoteRevisions)
+      .innerJoin(quotes, and(eq(quotes.shopId, quoteRevisions.shopId), eq(quotes.id, quoteRevisions.quoteId)))
+      .innerJoin(users, eq(users.id, quotes.customerUserId))
+      .innerJoin(shops, eq(shops.id, quoteRevisions.shopId))
+      .where(and(eq(quoteRevisions.shopId, shopId), eq(quoteRevisions.id, revisionId)))
+      .limit(1);
+    if (!row) return null;
+    const lines = await tx
+      .select()
+      .from(quoteLines)
+      .where(and(eq(quoteLines.shopId, shopId), eq(quoteLines.revisionId, revisionId)))
+      .orderBy(asc(quoteLines.position));
+    return { ...row, lines };
+  });
 }
 
 export type RevisionWithLines = NonNullable<Awaited<ReturnType<typeof getRevision>>>;
 
 /** The quote an earlier submit with this idempotency key made in the shop, if any. */
 export async function getQuoteByIdempotencyKey(shopId: string, idempotencyKey: string) {
-  const [row] = await db
-    .select({ number: quotes.number, customerUserId: quotes.customerUserId })
-    .from(quotes)
-    .where(and(eq(quotes.shopId, shopId), eq(quotes.idempotencyKey, idempotencyKey)))
-    .limit(1);
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .select({ number: quotes.number, customerUserId: quotes.customerUserId })
+      .from(quotes)
+      .where(and(eq(quotes.shopId, shopId), eq(quotes.idempotencyKey, idempotencyKey)))
+      .limit(1),
+  );
   return row ?? null;
 }
 

@@ -1701,6 +1701,26 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
+      /** @description The person's or the shop's storage quota would be exceeded, or the person has too many files not yet sent with a request. */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Too many uploads by this person, or by the shop's people together, lately: `Retry-After` says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
     };
   };
   downloadAttachment: {

@@ -23,6 +23,10 @@ export const limits = {
   engine: createRateLimiter({ name: "engine", limit: env.API_RATE_LIMIT_PER_MINUTE, windowSeconds: 60, store }),
   /** the storefront's search action: the same budget as the endpoint, counted apart */
   storefrontSearch: createRateLimiter({ name: "search", limit: env.API_RATE_LIMIT_PER_MINUTE, windowSeconds: 60, store }),
+  /** attachment uploads per person (any shop), keyed by user id */
+  uploadsPerUser: createRateLimiter({ name: "upload-user", limit: env.UPLOAD_RATE_PER_USER, windowSeconds: 600, store }),
+  /** attachment uploads per shop (all its people together), keyed by shop id */
+  uploadsPerShop: createRateLimiter({ name: "upload-shop", limit: env.UPLOAD_RATE_PER_SHOP, windowSeconds: 3600, store }),
   /** each shop API key (Authorization: Bearer …), counted by key wherever it calls from */
   apiKey: createRateLimiter({ name: "api-key", limit: env.API_KEY_RATE_LIMIT_PER_MINUTE, windowSeconds: 60, store }),
   /** new accounts (open a shop, join a shop): as many per address as sign-in attempts */

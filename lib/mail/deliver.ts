@@ -1,6 +1,6 @@
 import "server-only";
 import { getOutboxRow, lockWaitingOutboxRow, markOutboxSent, recordOutboxFailure } from "@/db/queries/outbox";
-import { inTransaction } from "@/db/tx";
+import { withShop } from "@/db/tx";
 import { buildOutboxMessage } from "./messages";
 import { sendMessage } from "./transport";
 
@@ -33,7 +33,7 @@ export async function deliverOutboxRow(shopId: string, outboxId: string, { final
     throw error;
   }
 
-  const result = await inTransaction(async (tx) => {
+  const result = await withShop(shopId, async (tx) => {
     if (!(await lockWaitingOutboxRow(tx, shopId, outboxId))) return { outcome: "skipped" as const };
     try {
       const info = await sendMessage(message);
@@ -41,7 +41,7 @@ export async function deliverOutboxRow(shopId: string, outboxId: string, { final
       return { outcome: "sent" as const };
     } catch (error) {
       // recorded in this transaction (it commits), thrown after it
-      await recordOutboxFailure(shopId, outboxId, reasonOf(error), final, tx);
+      await recordOutboxFailure(shopId, outboxId, reasonOf(error), final);
       return { outcome: "failed" as const, error };
     }
   });

@@ -1,6 +1,7 @@
 import "server-only";
-import { insertOutboxMessage, listWaitingOutboxIds } from "@/db/queries/outbox";
-import type { Tx } from "@/db/tx";
+import { recordAudit } from "@/db/queries/audit";
+import { getOutboxRow, insertOutboxMessage, listWaitingOutboxIds, requeueFailedOutboxRow } from "@/db/queries/outbox";
+import { withShop, type Tx } from "@/db/tx";
 import { getBoss, MAIL_QUEUE, type MailJob } from "./queue";
 
 export interface QuoteReadyMessage {
@@ -41,4 +42,36 @@ export async function dispatchOutbox(): Promise<void> {
       return { id: row.id, name: MAIL_QUEUE, data, singletonKey: row.id };
     }),
   );
+}
+
+/**
+ * A manager sends a failed message again: the row waits once more (recorded in the audit log in
+ * the same transaction) and is handed to the queue with a fresh job, which gets the full retry
+ * policy. Answers "missing" for no such message in this shop, "not-failed" for one that is sent or
+ * still waiting.
+ */
+export async function requeueFailedMessage(shopId: string, outboxId: string, actorUserId: string): Promise<"requeued" | "missing" | "not-failed"> {
+  const current = await getOutboxRow(shopId, outboxId);
+  if (!current) return "missing";
+  if (current.status !== "failed") return "not-failed";
+  // the job that gave up keeps the row's id, and a job id is queued once: it goes first (it has
+  // finished, so removing it changes nothing if the rest does not happen)
+  const boss = await getBoss();
+  await boss.deleteJob(MAIL_QUEUE, outboxId);
+  const row = await withShop(shopId, async (tx) => {
+    const requeued = await requeueFailedOutboxRow(tx, shopId, outboxId);
+    if (!requeued) return null;
+    await recordAudit(tx, shopId, {
+      actorUserId,
+      action: "outbox.requeue",
+      subjectType: "outbox-message",
+      subjectId: requeued.id,
+      summary: `Sent again: "${requeued.subject}" to ${requeued.toEmail}, after ${requeued.attempts} failed attempt${requeued.attempts === 1 ? "" : "s"}${requeued.lastError ? ` (${requeued.lastError.slice(0, 200)})` : ""}`,
+      changes: { status: { from: "failed", to: "waiting" } },
+    });
+    return requeued;
+  });
+  if (!row) return "not-failed"; // another manager was quicker
+  await dispatchOutbox();
+  return "requeued";
 }

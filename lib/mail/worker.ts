@@ -1,6 +1,7 @@
 import "server-only";
 import type PgBoss from "pg-boss";
 import { z } from "zod";
+import { startAttachmentSweep } from "@/lib/attachments/sweep";
 import { env } from "@/lib/env";
 import { mailSettings } from "./config";
 import { deliverOutboxRow } from "./deliver";
@@ -38,6 +39,8 @@ async function startOnce(): Promise<void> {
     await dispatchOutbox();
   });
   await boss.schedule(SWEEP_QUEUE, s.sweepCron);
+  // the job queue's other periodic work: uploads never attached to a request
+  await startAttachmentSweep(boss);
   // rows committed while no server was running (or whose dispatch failed) go out now
   await dispatchOutbox();
 }

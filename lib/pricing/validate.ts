@@ -56,6 +56,23 @@ function checkNumber(issues: Issues, path: string, value: unknown, opts: { min: 
  * unit price times its quantity is exactly the line amount).
  */
 export function validatePricingRules(rules: PricingRules): PricingIssue[] {
+  // rules frozen all the way down (a shop's loaded catalog, db/queries/catalog.ts) cannot change: checked once
+  const frozen = isObject(rules) && deeplyFrozen(rules);
+  const known = frozen ? checkedRules.get(rules) : undefined;
+  if (known) return [...known];
+  const issues = checkRules(rules);
+  if (frozen) checkedRules.set(rules, issues);
+  return [...issues];
+}
+
+const checkedRules = new WeakMap<PricingRules, readonly PricingIssue[]>();
+
+function deeplyFrozen(value: unknown): boolean {
+  if (typeof value !== "object" || value === null) return true;
+  return Object.isFrozen(value) && Object.values(value).every(deeplyFrozen);
+}
+
+function checkRules(rules: PricingRules): PricingIssue[] {
   const issues: Issues = [];
   if (!isObject(rules)) return [{ path: "", message: "rules must be an object" }];
   const r = rules as unknown as Record<string, unknown>;

@@ -4,7 +4,7 @@ import { loadShopCatalog } from "@/db/queries/catalog";
 import { nextShopNumber } from "@/db/queries/counters";
 import { getQuoteByIdempotencyKey, insertQuote, insertQuoteRevision } from "@/db/queries/quotes";
 import { getRequestByIdempotencyKey, insertBankRequest } from "@/db/queries/requests";
-import { inTransaction, isUniqueViolation } from "@/db/tx";
+import { isUniqueViolation, withShop } from "@/db/tx";
 import type { Requirement } from "@/lib/bank";
 import type { ActionResult } from "@/lib/auth/guards";
 import type { ShopContext } from "@/lib/auth/context";
@@ -41,7 +41,7 @@ async function toReview(
   chosen: ChosenRecord | null,
 ): Promise<ActionResult<CreateQuoteResult>> {
   const shopId = ctx.shop.id;
-  const id = await inTransaction(async (tx) => {
+  const id = await withShop(shopId, async (tx) => {
     const requestId = await insertBankRequest(tx, shopId, {
       customerUserId: ctx.user.id,
       status: "needs-review",
@@ -94,7 +94,7 @@ export async function createQuoteFromChoice(ctx: ShopContext, input: ChooseArran
 
   let made: { number: string } | null;
   try {
-    made = await inTransaction(async (tx) => {
+    made = await withShop(shopId, async (tx) => {
       const requestId = await insertBankRequest(tx, shopId, {
         customerUserId: ctx.user.id,
         status: "quoted",

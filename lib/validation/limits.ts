@@ -17,6 +17,11 @@ export const MAX_NOTES_LENGTH = 4000;
 export const MAX_ATTACHMENTS_PER_REQUEST = 10;
 /** Largest attachment accepted: 10 MB (binary megabytes). */
 export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
+/**
+ * Most files one person may have uploaded in a shop and not yet attached to a request: two
+ * requests' worth. Files never attached are deleted after a day (lib/attachments/sweep.ts).
+ */
+export const MAX_PENDING_ATTACHMENTS_PER_USER = 2 * MAX_ATTACHMENTS_PER_REQUEST;
 /** The attachment limit as people read it: "10 MB". */
 export const MAX_ATTACHMENT_SIZE_TEXT = `${MAX_ATTACHMENT_BYTES / (1024 * 1024)} MB`;
 

@@ -150,3 +150,17 @@ export const ruleVersionList = defineList({
   size: 10,
 });
 export type RuleVersionListQuery = ListQueryOf<typeof ruleVersionList>;
+
+/**
+ * The audit log. Actions, subjects and people come and go with the shop, so they are open filters:
+ * an action (`member.role`, or its family `member`), a subject type, a person's user id.
+ */
+export const auditList = defineList({
+  search: true,
+  filters: {},
+  open: { action: /[a-z][a-z0-9-]*(\.[a-z][a-z0-9-]*)*/, subject: /[a-z][a-z0-9-]*/, actor: /[A-Za-z0-9_-]{1,64}/ },
+  sorts: { created: "desc", action: "asc", actor: "asc", subject: "asc" },
+  sort: "created",
+  size: 25,
+});
+export type AuditListQuery = ListQueryOf<typeof auditList>;

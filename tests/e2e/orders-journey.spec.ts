@@ -28,7 +28,8 @@ interface InboxMail {
  * button then opens the checkout.
  */
 async function acceptQuote(number: string) {
-  const db = new Client({ connectionString: process.env.DATABASE_URL });
+  // as the tables' owner: the app's role sees no shop's rows outside a shop-scoped transaction
+  const db = new Client({ connectionString: process.env.MIGRATION_DATABASE_URL ?? process.env.DATABASE_URL });
   await db.connect();
   try {
     await db.query("update quotes set status = 'accepted' where number = $1 and shop_id = (select id from shops where slug = $2)", [number, K]);

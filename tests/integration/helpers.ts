@@ -3,7 +3,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { and, eq } from "drizzle-orm";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { members, shops, users } from "@/db/schema";
 import { DEMO_PASSWORD } from "@/db/seed/people";
 import { auth } from "@/lib/auth/server";

@@ -5,7 +5,8 @@ import { Client } from "pg";
 import { afterAll, describe, expect, it } from "vitest";
 import { createDb } from "@/db/client";
 
-const base = new URL(process.env.DATABASE_URL!);
+// the tables' owner creates and migrates databases
+const base = new URL(process.env.MIGRATION_DATABASE_URL!);
 const scratch = `faradsmith_migrate_${process.pid}`;
 
 async function admin(statement: string) {

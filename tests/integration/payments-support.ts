@@ -11,7 +11,7 @@ import type Stripe from "stripe";
 import { afterAll, beforeAll, beforeEach } from "vitest";
 import { POST as webhookRoute } from "@/app/api/webhooks/stripe/route";
 import type { Standin } from "@/dev/stripe-standin/server";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { markQuoteAcceptedForTests } from "@/db/queries/test-shortcuts";
 import { orders, payments, quotes } from "@/db/schema";
 import { openCheckout } from "@/lib/payments/checkout";

@@ -9,7 +9,7 @@ import Stripe from "stripe";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as checkoutRoute, GET as checkoutStateRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/checkout/route";
 import { POST as webhookRoute } from "@/app/api/webhooks/stripe/route";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { getStripeEvent } from "@/db/queries/payments";
 import { emailOutbox, orderStatusHistory, quoteRevisions, quotes, shopEvents, stripeEvents } from "@/db/schema";
 import { env } from "@/lib/env";

@@ -9,6 +9,7 @@ import path from "node:path";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { changeMemberRole } from "@/app/desk/[shop]/team/actions";
+import { requeueMessage } from "@/app/desk/[shop]/outbox/actions";
 import { cancelOrder, moveOrder, recordTest, refundOrder } from "@/app/desk/[shop]/orders/actions";
 import DeskDashboardPage from "@/app/desk/[shop]/dashboard/page";
 import DeskOrderPage from "@/app/desk/[shop]/orders/[number]/page";
@@ -73,6 +74,7 @@ import { GET as listQuotesRoute } from "@/app/api/v1/shops/[shop]/quotes/route";
 import DeskCatalogPage from "@/app/desk/[shop]/catalog/page";
 import DeskLayout from "@/app/desk/[shop]/layout";
 import DeskOutboxPage from "@/app/desk/[shop]/outbox/page";
+import DeskAuditPage from "@/app/desk/[shop]/audit/page";
 import DeskQuotePage from "@/app/desk/[shop]/quotes/[number]/page";
 import DeskQuotesPage from "@/app/desk/[shop]/quotes/page";
 import DeskRequestsPage from "@/app/desk/[shop]/requests/page";
@@ -81,18 +83,18 @@ import { chooseArrangement, exploreArrangements } from "@/app/s/[shop]/actions";
 import { joinShop } from "@/app/s/[shop]/join/actions";
 import MyQuotesPage from "@/app/s/[shop]/quotes/page";
 import StorefrontQuotePage from "@/app/s/[shop]/quotes/[number]/page";
-import { db } from "@/db";
+import { withShop } from "@/db/tx";
+import { ownerDb as db, ownerDb } from "./owner-db";
 import { listActiveCells, listCatalogCells } from "@/db/queries/catalog";
 import { getMember, getMemberRole, listMembers, updateMemberRole } from "@/db/queries/members";
-import { listOutbox } from "@/db/queries/outbox";
+import { getOutboxRow, listOutbox } from "@/db/queries/outbox";
 import { getOrderDetail, listOrders } from "@/db/queries/orders";
 import { getQuoteByNumber, listQuotes } from "@/db/queries/quotes";
 import { getRequest, listRequests } from "@/db/queries/requests";
 import { getShopSettings, isSlugTaken } from "@/db/queries/shops";
-import { bankRequests, shops, webhookDeliveries, webhookEndpoints } from "@/db/schema";
+import { bankRequests, emailOutbox, shops, webhookDeliveries, webhookEndpoints } from "@/db/schema";
 import { recordShopEvent } from "@/db/queries/shop-events";
 import { listWebhookEndpoints } from "@/db/queries/webhooks";
-import { withShop } from "@/db/tx";
 import { applyOrderMove, saveBankTest } from "@/lib/orders/moves";
 import { testLimitsOf } from "@/lib/orders/test-limits";
 import { catalogList, memberList, orderList, outboxList, quoteList, requestList, webhookEndpointList } from "@/lib/validation/lists";
@@ -421,6 +423,7 @@ const ACTIONS = new Set([
   "previewDesignSettings",
   "createApiKey",
   "revokeApiKey",
+  "requeueMessage",
 ]);
 
 /** The engine's network analyses: open to visitors, holding no shop's data, so every caller gets the same answer. */
@@ -659,6 +662,18 @@ describe("tenancy", () => {
       expect(await getMemberRole(B.id, B.estimator.id)).toBe("estimator");
     });
 
+    it("requeueMessage refuses the other shop's manager; the other shop's message is not found through one's own", async () => {
+      const [bMessage] = (await listOutbox(B.id, { ...outboxList.defaults, size: 1 })).rows;
+      expect(bMessage).toBeDefined();
+      await ownerDb.update(emailOutbox).set({ status: "failed" }).where(eq(emailOutbox.id, bMessage!.id));
+      await actAs(A.manager.email);
+      expect(await requeueMessage(B.slug, { outboxId: bMessage!.id })).toMatchObject({ ok: false, code: "forbidden" });
+      expect(await requeueMessage(A.slug, { outboxId: bMessage!.id })).toMatchObject({ ok: false, code: "not-found" });
+      await actAs(B.estimator.email);
+      expect(await requeueMessage(B.slug, { outboxId: bMessage!.id })).toMatchObject({ ok: false, code: "forbidden" });
+      expect((await getOutboxRow(B.id, bMessage!.id))?.status).toBe("failed");
+    });
+
     it("chooseArrangement refuses another shop's customer and makes nothing", async () => {
       const key = crypto.randomUUID();
       await actAs(A.customers[0].email);
@@ -773,6 +788,7 @@ describe("tenancy", () => {
       ["catalog", (s: string) => DeskCatalogPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["team", (s: string) => DeskTeamPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["outbox", (s: string) => DeskOutboxPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
+      ["audit log", (s: string) => DeskAuditPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["orders board", (s: string) => DeskOrdersPage({ params: Promise.resolve({ shop: s }) })],
       ["orders list", (s: string) => DeskOrdersListPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["order", (s: string) => DeskOrderPage({ params: Promise.resolve({ shop: s, number: pay.aOrder }) })],
@@ -847,7 +863,7 @@ describe("tenancy", () => {
     it("reads and updates by id do not reach another shop's rows", async () => {
       const target = await getMemberIdOf(B, B.estimator.id);
       expect(await getMember(A.id, target)).toBeNull();
-      expect(await updateMemberRole(A.id, target, "customer")).toBeNull();
+      expect(await withShop(A.id, (tx) => updateMemberRole(tx, A.id, target, "customer"))).toBeNull();
       expect(await getMemberRole(B.id, B.estimator.id)).toBe("estimator");
       const bQuoteRow = await getQuoteByNumber(B.id, bQuote);
       expect(bQuoteRow).not.toBeNull();

@@ -90,6 +90,8 @@ export const uploadAttachment = defineRoute({
     401: REFUSED.signedOut,
     403: `${REFUSED.notMember} ${REFUSED.crossSite}`,
     404: REFUSED.noShop,
+    413: "The person's or the shop's storage quota would be exceeded, or the person has too many files not yet sent with a request.",
+    429: "Too many uploads by this person, or by the shop's people together, lately: `Retry-After` says when to try again.",
   },
   examples: [{ title: "Attach drawing.pdf (signed in as a customer)", params: { shop: EXAMPLE_SHOP }, form: { file: "@drawing.pdf" }, as: "customer" }],
 });
