@@ -81,7 +81,7 @@ function SortHeader({ state, column, sortKey }: { state: ListState; column: List
     >
       <Link href={hrefWith(state.base, rest, { sort: sortKey, dir: nextDir })} className="inline-flex items-center gap-1 whitespace-nowrap hover:underline">
         {column.label}
-        <span aria-hidden className="text-ink-400">
+        <span aria-hidden className="text-ink-500">
           {active ? (state.dir === "asc" ? "▲" : "▼") : "↕"}
         </span>
       </Link>

@@ -32,7 +32,9 @@ export default async function DeskLayout({ children, params }: { children: React
             <SignOutButton />
           </div>
         </header>
-        <main className="p-6">{children}</main>
+        <main id="main" className="p-6">
+          {children}
+        </main>
       </div>
     </div>
   );

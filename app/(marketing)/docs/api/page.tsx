@@ -49,7 +49,7 @@ export default function ApiDocsPage() {
           </nav>
         </div>
       </header>
-      <main className="mx-auto max-w-6xl space-y-10 px-4 py-8">
+      <main id="main" className="mx-auto max-w-6xl space-y-10 px-4 py-8">
         <section className="max-w-3xl space-y-3">
           <h1 className="text-3xl font-semibold tracking-tight">Build on Faradsmith</h1>
           <p className="text-ink-700">

@@ -52,7 +52,7 @@ export function OrderBoard({ shop, rows, today }: { shop: string; rows: OrderLis
                   </Link>
                 </li>
               ))}
-              {c.rows.length === 0 ? <li className="px-1 text-xs text-ink-400">None</li> : null}
+              {c.rows.length === 0 ? <li className="px-1 text-xs text-ink-500">None</li> : null}
             </ul>
           </section>
         ))}
