@@ -17,8 +17,11 @@ export function OptionTable({
   onFocus,
   compare,
   onCompareChange,
+  rankedBy = "price",
 }: {
   options: PricedOption[];
+  /** the order the options arrive in: the table starts sorted that way, and says so (aria-sort) */
+  rankedBy?: "price" | "life";
   currency: string;
   focus: string | null;
   onFocus: (id: string) => void;
@@ -26,13 +29,15 @@ export function OptionTable({
   compare: string[];
   onCompareChange: (id: string, picked: boolean) => void;
 }) {
-  const [sorting, setSorting] = useState<SortingState>([]);
+  const [sorting, setSorting] = useState<SortingState>(() => [rankedBy === "life" ? { id: "life", desc: true } : { id: "price", desc: false }]);
   const columns = useMemo(() => optionColumns(currency), [currency]);
   const table = useReactTable({
     data: options,
     columns,
     state: { sorting },
     onSortingChange: setSorting,
+    // a column is always sorted one way or the other; ties keep the ranking's order (the rows' index)
+    enableSortingRemoval: false,
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),
     getRowId: optionId,
@@ -57,7 +62,7 @@ export function OptionTable({
                       className="inline-flex items-center gap-1 text-left uppercase hover:text-ink-900"
                     >
                       {flexRender(h.column.columnDef.header, h.getContext())}
-                      <span aria-hidden="true" className="text-ink-400">
+                      <span aria-hidden="true" className="text-ink-500">
                         {dir === "asc" ? "▲" : dir === "desc" ? "▼" : "↕"}
                       </span>
                     </button>
