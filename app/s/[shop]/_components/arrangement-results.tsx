@@ -6,6 +6,7 @@ import { BankDiagram } from "@/components/bank-diagram/bank-diagram";
 import { CellVoltageChart } from "@/components/charts/cell-voltage-chart";
 import { DischargeChart } from "@/components/charts/discharge-chart";
 import { PriceMassChart } from "@/components/charts/price-mass-chart";
+import { formatMoney } from "@/lib/pricing/currency";
 import { formatQuantity as q } from "@/lib/quantities";
 import { optionId } from "@/lib/validation/quote";
 import { arrangementLabel, describeRequirement, TOPOLOGY_LABELS } from "@/lib/vocabulary";
@@ -97,12 +98,16 @@ export function ArrangementResults({
         <h2 id="results" className="text-xl font-semibold">
           {options.length} arrangement{options.length === 1 ? "" : "s"} from stock
         </h2>
-        <p className="text-sm text-ink-600">For {describeRequirement(requirement)}. Ranked by price; choose a row to see it drawn and charted.</p>
+        <p className="text-sm text-ink-600">
+          For {describeRequirement(requirement)}. Ranked by {requirement.rankBy === "life" ? "expected life" : "price"}; choose a row to see it drawn and
+          charted.
+        </p>
       </div>
       <OptionTable
         options={options}
         currency={currency}
         focus={id}
+        rankedBy={requirement.rankBy === "life" ? "life" : "price"}
         onFocus={onFocus}
         compare={compare}
         onCompareChange={(optionKey, on) =>
@@ -169,6 +174,12 @@ export function ArrangementResults({
                 attachmentIds={attachmentIds}
                 onBeforeSignIn={() => onBeforeSignIn(shownId)}
                 onQuoted={onQuoted}
+                summary={{
+                  title: `${shown.cell.sku}: ${arrangementLabel(shown)}, ${TOPOLOGY_LABELS[shown.topology].toLowerCase()}`,
+                  quantity: requirement.quantity,
+                  total: shown.price ? formatMoney(shown.price.amount, currency) : null,
+                  validityDays: result.quoteValidityDays,
+                }}
               />
             </div>
             <OptionCautions option={shown} />
