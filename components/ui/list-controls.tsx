@@ -104,7 +104,7 @@ function ListTable({
   children: React.ReactNode;
 }) {
   return (
-    <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
+    <div className="scroll-cue rounded-lg ring-1 ring-ink-100">
       <table className="w-full text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-ink-50 text-ink-700">
