@@ -67,7 +67,7 @@ export function QuoteView({
         </ul>
       </section>
 
-      <section className="overflow-x-auto rounded-lg bg-white p-4 ring-1 ring-ink-100">
+      <section className="rounded-lg bg-white p-4 ring-1 ring-ink-100">
         <h2 className="text-sm font-semibold text-ink-800">The bank</h2>
         <BankDiagram
           topology={o.topology}

@@ -19,7 +19,7 @@ const EXAMPLE_EVENT = {
 
 function Code({ children, label }: { children: string; label: string }) {
   return (
-    <pre aria-label={label} className="overflow-x-auto rounded-md bg-ink-900 p-4 font-mono text-xs leading-relaxed text-ink-50">
+    <pre aria-label={label} tabIndex={0} className="overflow-x-auto rounded-md bg-ink-900 p-4 font-mono text-xs leading-relaxed text-ink-50">
       <code>{children}</code>
     </pre>
   );

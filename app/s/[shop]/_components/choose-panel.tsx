@@ -144,7 +144,10 @@ export function ChoosePanel({
               </dd>
             </div>
           </dl>
-          <p className="mt-2 text-xs text-ink-600">Confirming issues the numbered quote and e-mails it to you (a bank beyond what the shop quotes automatically goes to its estimators first). Nothing is ordered or paid yet.</p>
+          <p className="mt-2 text-xs text-ink-600">
+            Confirming issues the numbered quote and e-mails it to you (a bank beyond what the shop quotes automatically goes to its estimators first). Nothing
+            is ordered or paid yet.
+          </p>
           <div className="mt-3 flex flex-wrap gap-2">
             <Button type="button" onClick={() => void choose(true)} disabled={pending} aria-busy={pending}>
               {pending ? "Preparing your quote…" : "Confirm and get the quote"}
