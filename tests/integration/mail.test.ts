@@ -185,6 +185,9 @@ describe("e-mail through the outbox and the job queue", () => {
     expect(mail.to.map((t) => t.address)).toEqual([shop.customers[0].email]);
     expect(mail.subject).toBe(`Your quote ${quoteNumber} (revision 1) is ready`);
     expect(mail.headers["message-id"]).toBe(sent.messageId);
+    // sent as the shop through the product's address, replies going to the shop's manager (RFC 5322 §3.6.2)
+    expect(mail.headers.from).toBe(`${shop.name} via Faradsmith <${/<([^>]+)>/.exec(mailSettings().from)?.[1]}>`);
+    expect(mail.headers["reply-to"]).toBe(shop.manager.email);
     const pdfs = (mail.attachments ?? []).filter((a) => a.contentType === "application/pdf");
     expect(pdfs).toHaveLength(1);
     expect(pdfs[0]!.filename).toContain(quoteNumber);
