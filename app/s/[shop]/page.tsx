@@ -30,13 +30,15 @@ export default async function StorefrontPage({ params, searchParams }: { params:
       </section>
       <section aria-labelledby="stock">
         <h2 id="stock" className="text-sm font-semibold uppercase tracking-wide text-ink-500">
-          Cells in stock to build from
+          Cell types in stock to build from
         </h2>
         <ul className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
           {families.map((f) => (
             <li key={f.technology} className="rounded-lg bg-white p-4 ring-1 ring-ink-100">
               <p className="text-2xl font-semibold num">{f.lines}</p>
-              <p className="text-sm text-ink-600">{TECHNOLOGY_LABELS[f.technology]}</p>
+              <p className="text-sm text-ink-600">
+                {TECHNOLOGY_LABELS[f.technology]} cell {f.lines === 1 ? "type" : "types"}
+              </p>
             </li>
           ))}
         </ul>

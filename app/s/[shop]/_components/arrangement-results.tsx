@@ -9,7 +9,7 @@ import { PriceMassChart } from "@/components/charts/price-mass-chart";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatQuantity as q } from "@/lib/quantities";
 import { optionId } from "@/lib/validation/quote";
-import { arrangementLabel, describeRequirement, TOPOLOGY_LABELS } from "@/lib/vocabulary";
+import { arrangementLabel, describeRequirement, reasonWords, TOPOLOGY_LABELS } from "@/lib/vocabulary";
 import type { ExploreResult } from "../actions";
 import { ChoosePanel } from "./choose-panel";
 import { OptionDepthPanel } from "./option-depth-panel";
@@ -71,7 +71,7 @@ export function ArrangementResults({
         <p className="text-sm text-ink-600">For {describeRequirement(requirement)}:</p>
         <ul className="list-disc space-y-1 pl-5 text-sm text-ink-800" data-testid="no-fit-reasons">
           {result.reasons.map((r) => (
-            <li key={r}>{r}</li>
+            <li key={r}>{reasonWords(r)}</li>
           ))}
         </ul>
         <p className="text-sm text-ink-600">The shop&apos;s estimators can look at it: they may order other cells or suggest a change.</p>
