@@ -116,6 +116,7 @@ test("at 390 px: the request, the options (the wide table shows it scrolls), the
   const page = await context.newPage();
   const email = `maren.quill.${unique()}@saltholm-ferries.example`;
   await page.goto(`/s/${K}/join`);
+  await page.waitForLoadState("networkidle");
   await page.getByLabel("Your name").fill("Maren Quill");
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill("saltholm-quay-password");
