@@ -95,13 +95,20 @@ for (const [role, email] of [
   test(`the ${role}'s desk: every section it can open`, async ({ page }) => {
     test.setTimeout(180_000);
     await signIn(page, email);
+    const titles: string[] = [];
     for (const section of DESK_PAGES) {
       const path = `/desk/${K}/${section}`;
       const res = await page.goto(path);
       // a section the role may not open answers 403 with the "not allowed" page, which is checked too
       expect([200, 403]).toContain(res?.status());
+      if (res?.status() === 200) titles.push(await page.title());
       await expectNoSeriousA11y(page, `${path} as ${role}`);
     }
+    // every page the role opens has a browser-tab title of its own
+    expect(
+      titles.filter((t, i) => titles.indexOf(t) !== i),
+      "titles used twice",
+    ).toEqual([]);
     // a catalog line
     await page.goto(`/desk/${K}/catalog`);
     await page.getByRole("table").locator("tbody a").first().click();

@@ -1,10 +1,16 @@
+import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { countActiveCellsByTechnology } from "@/db/queries/catalog";
-import { getShopSettings } from "@/db/queries/shops";
+import { getShopBySlug, getShopSettings } from "@/db/queries/shops";
 import { getShopContext } from "@/lib/auth/context";
 import { TECHNOLOGY_LABELS } from "@/lib/vocabulary";
 import { StorefrontJourney } from "./_components/storefront-journey";
 import type { Viewer } from "./_components/viewer";
+
+export async function generateMetadata({ params }: { params: Promise<{ shop: string }> }): Promise<Metadata> {
+  const shop = await getShopBySlug((await params).shop);
+  return { title: shop ? `Design a bank with ${shop.name}` : "Design a bank" };
+}
 
 export default async function StorefrontPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<{ resume?: string }> }) {
   const { shop: slug } = await params;
