@@ -13,6 +13,7 @@ import { arrangementLabel, describeRequirement, reasonWords, TOPOLOGY_LABELS } f
 import type { ExploreResult } from "../actions";
 import { ChoosePanel } from "./choose-panel";
 import { OptionDepthPanel } from "./option-depth-panel";
+import { OptionGlossary } from "./option-glossary";
 import { OptionCautions, OptionFigures } from "./option-figures";
 import { MAX_COMPARED, OptionTable } from "./option-table";
 import type { Viewer } from "./viewer";
@@ -114,6 +115,7 @@ export function ArrangementResults({
           setPicked((now) => (on ? [...now.filter((p) => ids.has(p)), optionKey].slice(0, MAX_COMPARED) : now.filter((p) => p !== optionKey)))
         }
       />
+      <OptionGlossary />
       <div className="flex flex-wrap items-center gap-3 text-sm" data-testid="compare-bar">
         <p className="text-ink-600">
           {compare.length === 0
