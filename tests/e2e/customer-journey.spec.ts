@@ -177,3 +177,19 @@ test("a request beyond the shop's auto-quote limits lands on the estimators' lis
   await expect(row).toContainText(/needs review/i);
   await staff.close();
 });
+
+test("a search that cannot reach the shop is explained beside the form, which keeps what was typed", async ({ page }) => {
+  await page.goto(`/s/${K}`);
+  await fillRequest(page, { max: "48 V", min: "24 V", energy: "20 kJ" });
+  // the storefront's search is a server action: a POST to the page carrying a Next-Action header
+  await page.route(`**/s/${K}`, (route) => (route.request().method() === "POST" ? route.abort("connectionreset") : route.continue()));
+  await page.getByRole("button", { name: "Show arrangements" }).click();
+  await expect(page.getByRole("alert").filter({ hasText: "could not be reached" })).toBeVisible();
+  await expect(page.getByRole("heading", { name: "Describe your bank" })).toBeVisible();
+  await expect(page.getByLabel("Maximum voltage")).toHaveValue("48 V");
+  await expect(page.getByLabel("Usable energy needed")).toHaveValue("20 kJ");
+  // back on line, the same form searches
+  await page.unroute(`**/s/${K}`);
+  await page.getByRole("button", { name: "Show arrangements" }).click();
+  await expect(page.getByTestId("options-table")).toBeVisible();
+});
