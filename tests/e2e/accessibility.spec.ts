@@ -161,13 +161,17 @@ test("at 390 px: the request, the options (the wide table shows it scrolls), the
   expect(tb && tb.x >= 0 && tb.x + tb.width <= 390, "the quote's total is within the screen's width").toBe(true);
   const number = (await page.getByTestId("quote-number").innerText()).trim();
 
-  // the same quote on the estimator's desk, at 1280 px
-  const staff = await browser.newContext();
+  // the same quote and the desk's busiest pages on the estimator's phone
+  const staff = await browser.newContext({ viewport: { width: 390, height: 844 } });
   const desk = await staff.newPage();
   await signIn(desk, ESTIMATOR);
   await desk.goto(`/desk/${K}/quotes/${number}`);
   await expect(desk.getByRole("heading", { level: 1 })).toContainText(number);
-  await expectNoSeriousA11y(desk, "a quote on the desk");
+  await expectNoSeriousA11y(desk, "a quote on the desk at 390 px");
+  for (const section of ["", "requests", "quotes", "catalog", "orders", "orders/list"]) {
+    await desk.goto(`/desk/${K}/${section}`);
+    await expectNoSeriousA11y(desk, `/desk/${K}/${section} at 390 px`);
+  }
   await staff.close();
   await context.close();
 });
