@@ -21,22 +21,10 @@ let fontsRegistered = false;
 export function registerFonts() {
   if (fontsRegistered) return;
   const dir = path.join(process.cwd(), "app", "fonts");
-  Font.register({
-    family: FAMILY,
-    fonts: [
-      { src: path.join(dir, "plex-sans-400.woff"), fontWeight: 400 },
-      { src: path.join(dir, "plex-sans-500.woff"), fontWeight: 500 },
-      { src: path.join(dir, "plex-sans-600.woff"), fontWeight: 600 },
-    ],
-  });
-  Font.register({
-    family: GREEK,
-    fonts: [
-      { src: path.join(dir, "plex-sans-greek-400.woff"), fontWeight: 400 },
-      { src: path.join(dir, "plex-sans-greek-500.woff"), fontWeight: 500 },
-      { src: path.join(dir, "plex-sans-greek-600.woff"), fontWeight: 600 },
-    ],
-  });
+  // the three weights the layout uses, from the Latin files and the Greek ones
+  const weights = (file: string) => [400, 500, 600].map((w) => ({ src: path.join(dir, `${file}-${w}.woff`), fontWeight: w }));
+  Font.register({ family: FAMILY, fonts: weights("plex-sans") });
+  Font.register({ family: GREEK, fonts: weights("plex-sans-greek") });
   // part numbers and figures must never be split across lines with a hyphen
   Font.registerHyphenationCallback((word) => [word]);
   fontsRegistered = true;
