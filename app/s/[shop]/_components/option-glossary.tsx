@@ -13,7 +13,8 @@ const TERMS: { term: string; words: string }[] = [
   },
   {
     term: "Series strings in parallel",
-    words: "Cells are first joined one after another into strings; the strings are then joined side by side. Each cell of each string has its own balancing resistor.",
+    words:
+      "Cells are first joined one after another into strings; the strings are then joined side by side. Each cell of each string has its own balancing resistor.",
   },
   {
     term: "C design",
