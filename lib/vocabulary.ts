@@ -178,3 +178,15 @@ export function describeRequirement(r: Requirement): string {
 export function requirementFacts(r: Requirement): LabelledValue[] {
   return requirementParts(r).map(({ label, value }) => ({ label, value }));
 }
+
+/**
+ * A "no arrangement" reason from the engine in the product's words: its leading technology key
+ * ("edlc: …") becomes the technology's name, and whole numbers of five or more digits are grouped
+ * ("20000 cells" → "20,000 cells"), as figures are everywhere else.
+ */
+export function reasonWords(reason: string): string {
+  const m = /^([a-z-]+): /.exec(reason);
+  const tech = m?.[1] as Technology | undefined;
+  const body = tech && tech in TECHNOLOGY_LABELS ? `${TECHNOLOGY_LABELS[tech]}: ${reason.slice(m?.[0].length ?? 0)}` : reason;
+  return body.replace(/(?<![\d.,])\d{5,}(?![\d.,])/g, (n) => Number(n).toLocaleString("en-GB"));
+}

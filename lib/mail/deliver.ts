@@ -1,6 +1,9 @@
 import "server-only";
+import { getShopSender } from "@/db/queries/mail-sender";
 import { getOutboxRow, lockWaitingOutboxRow, markOutboxSent, recordOutboxFailure } from "@/db/queries/outbox";
 import { withShop } from "@/db/tx";
+import { mailSettings } from "./config";
+import { shopSenderAddress } from "./format";
 import { buildOutboxMessage } from "./messages";
 import { sendMessage } from "./transport";
 
@@ -28,6 +31,11 @@ export async function deliverOutboxRow(shopId: string, outboxId: string, { final
   let message;
   try {
     message = await buildOutboxMessage(row);
+    // sent as the shop, replies to the shop's manager
+    const sender = await getShopSender(shopId);
+    if (sender) {
+      message = { ...message, from: shopSenderAddress(sender.shopName, mailSettings().from), ...(sender.replyTo ? { replyTo: sender.replyTo } : {}) };
+    }
   } catch (error) {
     await recordOutboxFailure(shopId, outboxId, reasonOf(error), final);
     throw error;

@@ -90,7 +90,7 @@ function describeFigures(o: PricedOption): LabelledValue[] {
     { label: "Time to safe voltage (worst case)", value: o.discharge.secondsToSafe > 0 ? q(o.discharge.secondsToSafe, "s") : "Works below the safe voltage" },
     { label: "Mass", value: q(o.mass, "kg") },
     { label: "Cell volume", value: q(o.volume, "m³") },
-    { label: "Lead time", value: `${o.leadTimeDays} days` },
+    { label: "Lead time", value: o.leadTimeDays === 0 ? "from stock" : `${o.leadTimeDays} ${o.leadTimeDays === 1 ? "day" : "days"}` },
   );
   return rows;
 }

@@ -67,6 +67,7 @@ async function newCustomerQuote(page: Page, name: string, email: string, passwor
   await page.getByLabel("Usable energy needed").fill("20 kJ");
   await page.getByRole("button", { name: "Show arrangements" }).click();
   await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();
+  await page.getByTestId("choice-review").getByRole("button", { name: "Confirm and get the quote" }).click();
   await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/Q-\\d{4}-\\d{4}$`), { timeout: 30_000 });
   return { quoteNumber: (await page.getByTestId("quote-number").innerText()).trim(), total: (await page.getByTestId("quote-total").innerText()).trim() };
 }

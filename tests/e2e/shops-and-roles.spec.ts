@@ -60,7 +60,10 @@ test("a manager opens a shop, a customer joins it on the storefront, and the man
   await page.getByRole("navigation", { name: "Desk" }).getByRole("link", { name: "Team" }).click();
   const row = page.getByTestId(`member-bram.${id}@tollis-cranes.example`);
   await expect(row).toContainText("Bram Tollis");
+  // Picking a role only proposes it; it is saved once confirmed.
   await row.getByLabel("Role of Bram Tollis").selectOption("estimator");
+  await expect(row.getByRole("status")).toHaveCount(0);
+  await row.getByRole("button", { name: "Change role" }).click();
   await expect(row.getByRole("status")).toHaveText("Saved");
 
   // On their next page the former customer has the estimator's desk, but not the audit log.
@@ -185,4 +188,13 @@ test.describe("each role reaches its own pages and is refused the others'", () =
     await expect(page.getByRole("heading", { name: "Catalog", level: 1 })).toBeVisible();
     await expect(table.getByRole("columnheader", { name: /SKU/ })).toHaveAttribute("aria-sort", "ascending");
   });
+});
+
+test("signed out, a desk deep link asks to sign in and then opens the page asked for", async ({ page }) => {
+  await page.goto(`/desk/${K}/outbox?status=failed`);
+  await expect(page).toHaveURL(/\/sign-in\?/);
+  await page.getByLabel("E-mail").fill(kestrel.manager);
+  await page.getByLabel("Password").fill("faradsmith-demo-2026");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page).toHaveURL(new RegExp(`/desk/${K}/outbox\\?status=failed$`));
 });

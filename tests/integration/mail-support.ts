@@ -45,6 +45,7 @@ export interface MaildevEmail {
   id: string;
   subject: string;
   to: { address: string }[];
+  from: { name: string; address: string }[];
   headers: Record<string, string>;
   attachments?: { filename?: string; generatedFileName: string; contentType: string; size: number }[];
 }

@@ -90,6 +90,10 @@ describe("e-mail through the outbox and the job queue", () => {
     expect(mail.to.map((t) => t.address)).toEqual([shop.customers[0].email]);
     expect(mail.subject).toBe(`Your quote ${quoteNumber} (revision 1) is ready`);
     expect(mail.headers["message-id"]).toBe(sent.messageId);
+    // sent as the shop through the product's address, replies going to the shop's manager (RFC 5322 §3.6.2)
+    expect(mail.from).toEqual([{ name: `${shop.name} via Faradsmith`, address: /<([^>]+)>/.exec(mailSettings().from)?.[1] }]);
+    const source = await (await fetch(`http://127.0.0.1:${smtp.webPort}/api/email/${mail.id}/source`)).text();
+    expect(source).toMatch(new RegExp(`^Reply-To: ${shop.manager.email.replace(/[.+]/g, "\\$&")}\\r?$`, "im"));
     const pdfs = (mail.attachments ?? []).filter((a) => a.contentType === "application/pdf");
     expect(pdfs).toHaveLength(1);
     expect(pdfs[0]!.filename).toContain(quoteNumber);

@@ -24,6 +24,8 @@ export interface ExploreResult {
   reasons: string[];
   /** SKUs of the shown options' cells that have a datasheet to download */
   datasheets: string[];
+  /** how long a quote issued from this search stays valid (the shop's pricing rules) */
+  quoteValidityDays: number;
 }
 
 /**
@@ -55,6 +57,7 @@ export async function exploreArrangements(shopSlug: string, input: unknown): Pro
       options: result.options,
       reasons: result.options.length === 0 ? result.reasons : [],
       datasheets: datasheetSkus.filter((sku) => shownSkus.has(sku)),
+      quoteValidityDays: catalog.rules.quoteValidityDays,
     },
   };
 }

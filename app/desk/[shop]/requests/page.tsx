@@ -5,7 +5,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { listRequests } from "@/db/queries/requests";
 import { requireShopPage } from "@/lib/auth/guards";
 import { requestList } from "@/lib/validation/lists";
-import { describeRequirement, REQUEST_STATUS_LABELS, REQUEST_STATUSES, type RequestStatus } from "@/lib/vocabulary";
+import { describeRequirement, reasonWords, REQUEST_STATUS_LABELS, REQUEST_STATUSES, type RequestStatus } from "@/lib/vocabulary";
 
 export const metadata: Metadata = { title: "Requests" };
 
@@ -77,7 +77,7 @@ export default async function DeskRequestsPage({
               ) : r.reviewReasons.length > 0 ? (
                 <ul className="list-disc space-y-0.5 pl-4 text-ink-700">
                   {r.reviewReasons.map((reason) => (
-                    <li key={reason}>{reason}</li>
+                    <li key={reason}>{reasonWords(reason)}</li>
                   ))}
                 </ul>
               ) : (
