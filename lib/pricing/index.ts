@@ -3,3 +3,16 @@ export { DEFAULT_PRICING_RULES } from "./defaults";
 export { ISO_4217_MINOR_UNITS, formatMoney, isKnownCurrency, minorUnits, moneyString, roundMoney, toMinorUnits } from "./currency";
 export { PricingError, priceBank, quickPrice, selectDiscountPct, selectEnclosure, tryPriceBank } from "./price-bank";
 export { validateBankBill, validatePricingRules } from "./validate";
+export {
+  LINE_QUANTITY_DECIMALS,
+  MAX_LINE_QUANTITY,
+  MAX_SHEET_LINES,
+  priceSheet,
+  tryPriceSheet,
+  validatePriceSheet,
+  type PriceSheet,
+  type PriceSheetInput,
+  type SheetDiscountInput,
+  type SheetLine,
+  type SheetLineInput,
+} from "./price-sheet";
