@@ -5,7 +5,7 @@ import type { QuoteListRow } from "@/db/queries/quotes";
 import { formatMoney } from "@/lib/pricing";
 import type { ListState } from "@/lib/validation/list-query";
 import type { QuoteListQuery } from "@/lib/validation/lists";
-import { QUOTE_STATUS_LABELS, QUOTE_STATUSES } from "@/lib/vocabulary";
+import { QUOTE_LIST_STATUSES, QUOTE_STATUS_LABELS } from "@/lib/vocabulary";
 
 /**
  * The quote list, as the desk shows every quote of the shop (with its customer) and as the
@@ -42,7 +42,7 @@ export function QuoteList({
           name: "status",
           label: "Status",
           value: q.status,
-          options: [{ value: "all", label: "All" }, ...QUOTE_STATUSES.map((s) => ({ value: s, label: QUOTE_STATUS_LABELS[s] }))],
+          options: [{ value: "all", label: "All" }, ...QUOTE_LIST_STATUSES.map((s) => ({ value: s, label: QUOTE_STATUS_LABELS[s] }))],
         },
       ]}
       columns={[

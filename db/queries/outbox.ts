@@ -118,6 +118,10 @@ export interface NewOutboxMessage {
   toEmail: string;
   subject: string;
   quoteRevisionId: string | null;
+  /** the request a "needs review" notice is about */
+  requestId?: string | null;
+  /** the thread message a "new message" notice carries */
+  quoteMessageId?: string | null;
 }
 
 /** Records a message in the caller's transaction, with what it announces; a repeated dedupe key is a no-op. */

@@ -8,12 +8,14 @@ import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 import { ACCOUNT_EXISTS_KIND, buildAccountExistsMessage } from "./account-notice";
 import { formatMoney } from "@/lib/pricing";
 import { mailSettings } from "./config";
+import { buildQuoteLifeMessage, isQuoteLifeKind } from "./quote-notices";
 import { formatValidity, outboxMessageId, quotePageUrl } from "./format";
 import type { OutgoingMessage } from "./transport";
 
 /** Builds the message an outbox row announces, from the records it points at. */
 export async function buildOutboxMessage(row: EmailOutboxRow): Promise<OutgoingMessage> {
   if (row.kind === ACCOUNT_EXISTS_KIND) return buildAccountExistsMessage(row);
+  if (isQuoteLifeKind(row.kind)) return buildQuoteLifeMessage(row);
   if (row.kind !== "quote-ready") throw new Error(`no message template for outbox kind "${row.kind}"`);
   if (!row.quoteRevisionId) throw new Error("the quote revision of this message no longer exists");
   const facts = await getQuoteReadyFacts(row.shopId, row.quoteRevisionId);

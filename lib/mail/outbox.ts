@@ -42,3 +42,12 @@ export async function dispatchOutbox(): Promise<void> {
     }),
   );
 }
+
+/** dispatchOutbox after a commit, for callers that have answered already: a failure only delays the mail (the queue's sweep delivers it later). */
+export async function dispatchAfterCommit(what: string): Promise<void> {
+  try {
+    await dispatchOutbox();
+  } catch (error) {
+    console.error("dispatchOutbox failed after", what, error);
+  }
+}

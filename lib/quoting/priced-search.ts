@@ -45,13 +45,21 @@ interface Candidate extends PricedOption {
  * or tie with it, nor dominate a shown one (its price would be higher): the dozen and their Pareto
  * marks are exactly what pricing every option would give (a property test checks this).
  */
-export function searchPricedOptions(catalog: ShopCatalog, requirement: Requirement): PricedSearch {
+export function searchPricedOptions(catalog: ShopCatalog, requirement: Requirement, opts: { longerStrings?: number } = {}): PricedSearch {
   const { factors, rules } = catalog;
   const cells = catalog.cells.map(toEngineCell);
   const byId = new Map(catalog.cells.map((c) => [c.id, c]));
   const quantity = requirement.quantity ?? 1;
   const search = (limit: number) =>
-    searchArrangements({ requirement, cells, factors, balancingBoards: balancingBoardsOf(catalog.components), costModel: costModelOf(rules), limit });
+    searchArrangements({
+      requirement,
+      cells,
+      factors,
+      balancingBoards: balancingBoardsOf(catalog.components),
+      costModel: costModelOf(rules),
+      limit,
+      longerStrings: opts.longerStrings,
+    });
 
   const priced: Candidate[] = [];
   let width = FIRST_CUT;

@@ -1,6 +1,6 @@
 import { ROLES } from "@/lib/auth/permissions";
 import { TECHNOLOGIES } from "@/lib/bank/types";
-import { OUTBOX_STATUSES, QUOTE_STATUSES, REQUEST_STATUSES } from "@/lib/vocabulary";
+import { OUTBOX_STATUSES, QUOTE_LIST_STATUSES, REQUEST_STATUSES } from "@/lib/vocabulary";
 import { defineList, type ListQueryOf } from "./list-query";
 
 /**
@@ -30,7 +30,7 @@ export type RequestListQuery = ListQueryOf<typeof requestList>;
 
 export const quoteList = defineList({
   search: true,
-  filters: { status: ["all", ...QUOTE_STATUSES] },
+  filters: { status: ["all", ...QUOTE_LIST_STATUSES] },
   sorts: { number: "desc", customer: "asc", status: "asc", total: "desc", validUntil: "asc", created: "desc" },
   sort: "created",
   size: 20,
