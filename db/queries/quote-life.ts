@@ -84,11 +84,14 @@ export interface NewQuoteMove {
   actor: QuoteActor;
   actorUserId: string | null;
   reason?: string | null;
+  /** when it happened (default: the database's now) */
+  at?: Date;
 }
 
 /** Records a move and puts the quote's own state in step when the move is its latest revision's. */
 export async function recordQuoteMove(tx: Tx, shopId: string, m: NewQuoteMove, quote: { currentRevision: number }): Promise<void> {
-  await tx.insert(quoteMoves).values({ shopId, ...m, reason: m.reason ?? null });
+  const { at, ...move } = m;
+  await tx.insert(quoteMoves).values({ shopId, ...move, reason: m.reason ?? null, ...(at ? { createdAt: at } : {}) });
   if (m.revision === quote.currentRevision) {
     await tx
       .update(quotes)

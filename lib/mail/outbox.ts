@@ -9,6 +9,8 @@ export interface QuoteReadyMessage {
   quoteNumber: string;
   revision: number;
   toEmail: string;
+  /** another key than the revision's own, for a copy sent again on purpose */
+  dedupeKey?: string;
 }
 
 /**
@@ -19,7 +21,7 @@ export interface QuoteReadyMessage {
 export async function enqueueQuoteReady(tx: Tx, m: QuoteReadyMessage): Promise<void> {
   await insertOutboxMessage(tx, m.shopId, {
     kind: "quote-ready",
-    dedupeKey: `quote-ready:${m.quoteRevisionId}`,
+    dedupeKey: m.dedupeKey ?? `quote-ready:${m.quoteRevisionId}`,
     toEmail: m.toEmail,
     subject: `Your quote ${m.quoteNumber} (revision ${m.revision}) is ready`,
     quoteRevisionId: m.quoteRevisionId,

@@ -72,13 +72,13 @@ async function writeMessage(tx: Tx, ctx: ShopContext, quote: Locked, kind: Quote
 }
 
 /** Makes one move of the quote's latest revision, or says why not (the state machine's reason). */
-async function move(tx: Tx, shopId: string, quote: Locked, m: QuoteMove, actor: QuoteActor, actorUserId: string | null, reason?: string) {
+async function move(tx: Tx, shopId: string, quote: Locked, m: QuoteMove, actor: QuoteActor, actorUserId: string | null, reason?: string, at?: Date) {
   const next = nextState(quote.status, m, actor);
   if (!next.ok) return next;
   await recordQuoteMove(
     tx,
     shopId,
-    { quoteId: quote.id, revision: quote.currentRevision, fromStatus: quote.status, toStatus: next.to, actor, actorUserId, reason },
+    { quoteId: quote.id, revision: quote.currentRevision, fromStatus: quote.status, toStatus: next.to, actor, actorUserId, reason, at },
     quote,
   );
   return next;
@@ -148,7 +148,7 @@ export async function acceptQuoteRevision(
       return answer(true, (await getAcceptance(tx, shopId, quote.id))?.createdAt ?? now);
     if (input.revision !== quote.currentRevision) return refusalFor(quote, input.revision, "");
     if (await expireIfDue(tx, shopId, quote, now)) return conflict(`Revision ${rev.revision} expired on ${rev.validUntil}; ask the shop for a new one.`);
-    const next = await move(tx, shopId, quote, "accept", "customer", ctx.user.id);
+    const next = await move(tx, shopId, quote, "accept", "customer", ctx.user.id, undefined, now);
     if (!next.ok) return conflict(next.reason);
     await recordShopEvent(tx, shopId, "quote.accepted", {
       number: quote.number,

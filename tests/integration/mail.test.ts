@@ -1,7 +1,5 @@
-import { spawn, type ChildProcess } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import fs from "node:fs";
-import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { and, eq, sql } from "drizzle-orm";
@@ -17,6 +15,7 @@ import { MAIL_QUEUE, PGBOSS_SCHEMA } from "@/lib/mail/queue";
 import { startMailWorker, stopMailWorker } from "@/lib/mail/worker";
 import { outboxList } from "@/lib/validation/lists";
 import { createQuote, createShop, type TestShop } from "./fixtures";
+import { freePort, maildevOnFreePorts, portOpen, waitFor, type Maildev } from "./maildev";
 
 // The SMTP stand-in here is maildev (npm), started by this file on ports of its own so that it
 // can be stopped and started again; its REST API (GET /api/email) lists what it received.
@@ -24,80 +23,12 @@ import { createQuote, createShop, type TestShop } from "./fixtures";
 /** This file's own shop: its customer receives the quotes. */
 let shop: TestShop;
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.once("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
-
-function portOpen(port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const s = net.connect({ port, host: "127.0.0.1" });
-    s.once("connect", () => {
-      s.destroy();
-      resolve(true);
-    });
-    s.once("error", () => resolve(false));
-  });
-}
-
-/** Polls until `check` holds; the limit only bounds a broken run, it measures nothing. */
-async function waitFor<T>(what: string, read: () => Promise<T>, check: (value: T) => boolean, limitMs = 45_000): Promise<T> {
-  const until = Date.now() + limitMs;
-  for (;;) {
-    const value = await read();
-    if (check(value)) return value;
-    if (Date.now() > until) throw new Error(`gave up waiting for ${what}; last seen ${JSON.stringify(value)}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
-
-interface MaildevEmail {
-  id: string;
-  subject: string;
-  to: { address: string }[];
-  headers: Record<string, string>;
-  attachments?: { filename?: string; generatedFileName: string; contentType: string; size: number }[];
-}
-
-let smtpPort = 0;
-let webPort = 0;
 let mailDir = "";
-let maildev: ChildProcess | null = null;
-
-async function startMaildev() {
-  maildev = spawn(
-    path.resolve("node_modules/.bin/maildev"),
-    ["--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "--smtp", String(smtpPort), "--web", String(webPort), "--mail-directory", mailDir, "--silent"],
-    { stdio: "ignore" },
-  );
-  await waitFor(
-    "maildev to listen",
-    async () => (await portOpen(smtpPort)) && (await portOpen(webPort)),
-    (up) => up,
-    20_000,
-  );
-}
-
-async function stopMaildev() {
-  const child = maildev;
-  maildev = null;
-  if (!child || child.exitCode !== null) return;
-  const exited = new Promise((r) => child.once("exit", r));
-  child.kill("SIGTERM");
-  await exited;
-}
-
-async function inbox(): Promise<MaildevEmail[]> {
-  const res = await fetch(`http://127.0.0.1:${webPort}/api/email`);
-  if (!res.ok) throw new Error(`maildev answered ${res.status}`);
-  return (await res.json()) as MaildevEmail[];
-}
+let maildev: Maildev;
+let smtpPort = 0;
+const startMaildev = () => maildev.start();
+const stopMaildev = () => maildev.stop();
+const inbox = () => maildev.inbox();
 
 const messagesFor = async (quoteNumber: string) =>
   (await inbox()).filter((m) => m.subject.includes(`${quoteNumber} `) && m.to.some((t) => t.address === shop.customers[0].email));
@@ -131,9 +62,9 @@ async function jobsFor(outboxId: string): Promise<{ state: string }[]> {
 
 beforeAll(async () => {
   shop = await createShop("kestrel");
-  smtpPort = await freePort();
-  webPort = await freePort();
   mailDir = fs.mkdtempSync(path.join(os.tmpdir(), "faradsmith-mail-test-"));
+  maildev = await maildevOnFreePorts(mailDir);
+  smtpPort = maildev.smtpPort;
   // short waits so an outage of a few seconds is retried several times within the test
   configureMail({
     smtpHost: "127.0.0.1",
@@ -199,7 +130,7 @@ describe("e-mail through the outbox and the job queue", () => {
     expect(pdfs).toHaveLength(1);
     expect(pdfs[0]!.filename).toContain(quoteNumber);
     // the attachment is a PDF file (ISO 32000-1 §7.5.2: a PDF starts with the header "%PDF-")
-    const res = await fetch(`http://127.0.0.1:${webPort}/api/email/${mail.id}/attachment/${pdfs[0]!.generatedFileName}`);
+    const res = await fetch(`http://127.0.0.1:${maildev.webPort}/api/email/${mail.id}/attachment/${pdfs[0]!.generatedFileName}`);
     expect(res.status).toBe(200);
     const bytes = Buffer.from(await res.arrayBuffer());
     expect(bytes.subarray(0, 5).toString("latin1")).toBe("%PDF-");
