@@ -7,9 +7,10 @@ import { SAMPLE_CATALOG } from "./sample-quote";
 // An invented quote: the sample catalog's options for one requirement, priced by the default rules.
 const requirement = { maxVoltage: 48, minVoltage: 24, energy: 20_000, quantity: 2 };
 const found = searchPricedOptions(SAMPLE_CATALOG, requirement);
-const [first, second] = found.options;
-const [firstRecord, secondRecord] = found.records;
-if (!first || !second || !firstRecord?.price || !secondRecord?.price) throw new Error("the sample requirement needs two priced options");
+const first = found.options[0]!;
+const second = found.options[1]!;
+const firstPrice = found.records[0]!.price!;
+const secondPrice = found.records[1]!.price!;
 
 const freight: ExtraLineInput = { kind: "freight", description: "Pallet freight", quantity: "1", unit: "lot", unitPrice: "85.00" };
 const enclosure: ExtraLineInput = { kind: "enclosure", description: "Steel cabinet", quantity: "1", unit: "pc", unitPrice: "240.00" };
@@ -18,15 +19,15 @@ function revision(
   n: number,
   over: {
     option?: typeof first;
-    price?: typeof firstRecord.price;
+    price?: typeof firstPrice;
     extras?: ExtraLineInput[];
     discount?: { kind: "percent" | "amount"; value: string; reason: string } | null;
     validUntil?: string;
     bankOverride?: string;
   } = {},
 ): FrozenRevision {
-  const option = over.option ?? first!;
-  const price = over.price ?? firstRecord!.price!;
+  const option = over.option ?? first;
+  const price = over.price ?? firstPrice;
   const sheet = buildSheet({
     currency: price.currency,
     taxPct: price.taxPct,
@@ -83,17 +84,14 @@ describe("the diff between two revisions", () => {
   });
 
   it("shows a different arrangement and validity", () => {
-    const d = diffRevisions(facts(revision(1)), facts(revision(2, { option: second, price: secondRecord!.price!, validUntil: "2026-07-31" })));
+    const d = diffRevisions(facts(revision(1)), facts(revision(2, { option: second, price: secondPrice, validUntil: "2026-07-31" })));
     const labels = d.arrangement.map((c) => c.label);
     expect(labels).toContain("Arrangement");
     expect(d.totals.find((c) => c.label === "Valid until")).toEqual({ label: "Valid until", from: "2026-06-30", to: "2026-07-31" });
   });
 
   it("sums up for an e-mail: the total first, and no more than it is given room for", () => {
-    const d = diffRevisions(
-      facts(revision(1, { extras: [enclosure] })),
-      facts(revision(2, { option: second, price: secondRecord!.price!, extras: [freight] })),
-    );
+    const d = diffRevisions(facts(revision(1, { extras: [enclosure] })), facts(revision(2, { option: second, price: secondPrice, extras: [freight] })));
     const lines = summarizeDiff(d, 4);
     expect(lines).toHaveLength(4);
     expect(lines[0]).toMatch(/^Total: €[\d,.]+ → €[\d,.]+$/);
