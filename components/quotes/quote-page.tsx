@@ -1,38 +1,83 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { getQuoteLife } from "@/db/queries/quote-life";
 import { getQuoteByNumber, getRevision } from "@/db/queries/quotes";
 import { toQuoteDocument } from "@/lib/quoting/quote-document";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
+import { revisionStates } from "@/lib/quoting/quote-states";
+import { compareParams } from "@/lib/validation/quote-life";
+import { QUOTE_STATUS_LABELS } from "@/lib/vocabulary";
+import { QuoteLifeSections, type QuoteLifeActions } from "./quote-life";
 import { QuoteView } from "./quote-view";
+
+export type QuoteSearch = Record<string, string | string[] | undefined>;
 
 /**
  * A quote page's body, for the desk and the storefront alike: the breadcrumb back to the list the
- * reader came from, then the frozen revision. A quote the reader may not see is "not found".
+ * reader came from, the revision asked for (the latest unless `?revision=n`), then the quote's life
+ * (where it stands and the reader's moves, every revision with a comparison, the thread). A quote
+ * the reader may not see is "not found".
  */
 export async function QuotePageBody({
   shop,
   number,
   back,
   maySee,
+  search,
+  actions,
 }: {
-  shop: { id: string; slug: string };
+  shop: { id: string; slug: string; name: string };
   number: string;
   back: { href: string; label: string };
   maySee: (ownerUserId: string) => boolean;
+  search: QuoteSearch;
+  actions: QuoteLifeActions;
 }) {
   const quote = isQuoteNumber(number) ? await getQuoteByNumber(shop.id, number) : null;
-  const rev = quote && maySee(quote.customerUserId) ? await getRevision(shop.id, quote.revisionId) : null;
+  if (!quote || !maySee(quote.customerUserId)) notFound();
+  const life = await getQuoteLife(shop.id, quote.id);
+  const { view, from, to } = compareParams(search, quote.currentRevision);
+  const viewed = life.revisions.find((r) => r.revision.revision === view)?.revision;
+  const rev = viewed ? await getRevision(shop.id, viewed.id) : null;
   if (!rev) notFound();
   const doc = toQuoteDocument(rev);
+  const state = revisionStates(life.moves).get(view);
+  const pagePath = `${back.href}/${doc.number}`;
   return (
-    <div className="space-y-4">
+    <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm text-ink-600">
         <Link href={back.href} className="hover:underline">
           {back.label}
         </Link>{" "}
         / {doc.number}
       </nav>
-      <QuoteView doc={doc} pdfHref={`/api/v1/shops/${shop.slug}/quotes/${doc.number}/pdf`} />
+      {view !== quote.currentRevision ? (
+        <p role="status" className="rounded-md bg-hazard-100 px-4 py-3 text-sm text-hazard-700" data-testid="older-revision">
+          You are reading revision {view}
+          {state ? ` (${QUOTE_STATUS_LABELS[state].toLowerCase()})` : ""}. The latest is{" "}
+          <Link href={pagePath} className="font-medium underline">
+            revision {quote.currentRevision}
+          </Link>
+          .
+        </p>
+      ) : null}
+      <QuoteView doc={doc} pdfHref={`/api/v1/shops/${shop.slug}/quotes/${doc.number}/pdf${view !== quote.currentRevision ? `?revision=${view}` : ""}`} />
+      <QuoteLifeSections
+        shop={shop}
+        quote={{
+          number: quote.number,
+          status: quote.status,
+          currentRevision: quote.currentRevision,
+          requestId: quote.requestId,
+          changeRequestedAt: quote.changeRequestedAt,
+        }}
+        life={life}
+        viewing={view}
+        compare={{ from, to }}
+        askForChange={search.ask === "change"}
+        now={new Date()}
+        actions={actions}
+      />
     </div>
   );
 }

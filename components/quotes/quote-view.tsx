@@ -1,4 +1,5 @@
 import { BankDiagram } from "@/components/bank-diagram/bank-diagram";
+import { NetworkDiagram } from "@/components/bank-diagram/network-diagram";
 import type { LabelledValue, QuoteDocument } from "@/lib/quoting/quote-document";
 
 function Facts({ title, rows }: { title: string; rows: LabelledValue[] }) {
@@ -57,14 +58,18 @@ export function QuoteView({ doc, pdfHref }: { doc: QuoteDocument; pdfHref: strin
 
       <section className="overflow-x-auto rounded-lg bg-white p-4 ring-1 ring-ink-100">
         <h2 className="text-sm font-semibold text-ink-800">The bank</h2>
-        <BankDiagram
-          topology={o.topology}
-          seriesCount={o.seriesCount}
-          parallelCount={o.parallelCount}
-          cellLabel={o.cell.sku}
-          balancing={o.balancing}
-          bleeder={o.discharge.bleeder ? { resistance: o.discharge.bleeder.resistance, switched: o.discharge.bleeder.switched } : null}
-        />
+        {doc.design.source === "custom" ? (
+          <NetworkDiagram tree={doc.design.network} weakest={doc.design.figures.weakest.id} />
+        ) : (
+          <BankDiagram
+            topology={o.topology}
+            seriesCount={o.seriesCount}
+            parallelCount={o.parallelCount}
+            cellLabel={o.cell.sku}
+            balancing={o.balancing}
+            bleeder={o.discharge.bleeder ? { resistance: o.discharge.bleeder.resistance, switched: o.discharge.bleeder.switched } : null}
+          />
+        )}
       </section>
 
       <div className="grid gap-4 md:grid-cols-2">
@@ -75,7 +80,7 @@ export function QuoteView({ doc, pdfHref }: { doc: QuoteDocument; pdfHref: strin
       </div>
 
       <section className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
-        <h2 className="px-4 pt-4 text-sm font-semibold text-ink-800">Price build-up for one bank</h2>
+        <h2 className="px-4 pt-4 text-sm font-semibold text-ink-800">Prices</h2>
         <table className="mt-2 w-full text-sm">
           <thead className="bg-ink-50 text-ink-700">
             <tr>

@@ -381,3 +381,54 @@ export async function getReviewMailFacts(shopId: string, requestId: string) {
     return row ?? null;
   });
 }
+
+/** A customer of the shop by e-mail (staff quoting for them through the API); null when there is no such customer. */
+export async function findShopCustomerByEmail(shopId: string, email: string) {
+  return withShop(shopId, async (tx) => {
+    const [row] = await tx
+      .select({ id: users.id, name: users.name, email: users.email })
+      .from(members)
+      .innerJoin(users, eq(users.id, members.userId))
+      .where(and(eq(members.shopId, shopId), eq(members.role, "customer"), eq(users.email, email)))
+      .limit(1);
+    return row ?? null;
+  });
+}
+
+/** A quote by number with every revision (frozen) and each revision's state, for the API; null when not in this shop. */
+export async function getQuoteWithRevisions(shopId: string, number: string) {
+  return withShop(shopId, async (tx) => {
+    const [quote] = await tx
+      .select({ id: quotes.id, number: quotes.number, status: quotes.status, currentRevision: quotes.currentRevision, customerUserId: quotes.customerUserId })
+      .from(quotes)
+      .where(and(eq(quotes.shopId, shopId), eq(quotes.number, number)))
+      .limit(1);
+    if (!quote) return null;
+    const [revisions, moves] = await Promise.all([
+      tx
+        .select()
+        .from(quoteRevisions)
+        .where(and(eq(quoteRevisions.shopId, shopId), eq(quoteRevisions.quoteId, quote.id)))
+        .orderBy(asc(quoteRevisions.revision)),
+      tx
+        .select({ revision: quoteMoves.revision, toStatus: quoteMoves.toStatus })
+        .from(quoteMoves)
+        .where(and(eq(quoteMoves.shopId, shopId), eq(quoteMoves.quoteId, quote.id)))
+        .orderBy(asc(quoteMoves.createdAt), asc(quoteMoves.id)),
+    ]);
+    return { quote, revisions, moves };
+  });
+}
+
+/** The id of one revision of a quote, by the quote's number; null when there is no such revision in this shop. */
+export async function getRevisionIdByNumber(shopId: string, number: string, revision: number): Promise<string | null> {
+  return withShop(shopId, async (tx) => {
+    const [row] = await tx
+      .select({ id: quoteRevisions.id })
+      .from(quoteRevisions)
+      .innerJoin(quotes, and(eq(quotes.shopId, quoteRevisions.shopId), eq(quotes.id, quoteRevisions.quoteId)))
+      .where(and(eq(quoteRevisions.shopId, shopId), eq(quotes.number, number), eq(quoteRevisions.revision, revision)))
+      .limit(1);
+    return row?.id ?? null;
+  });
+}

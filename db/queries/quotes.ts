@@ -84,6 +84,7 @@ export async function getQuoteByNumber(shopId: string, number: string) {
       customerUserId: quotes.customerUserId,
       requestId: quotes.requestId,
       currentRevision: quotes.currentRevision,
+      changeRequestedAt: quotes.changeRequestedAt,
       revisionId: quoteRevisions.id,
       createdAt: quotes.createdAt,
     })

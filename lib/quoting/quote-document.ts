@@ -1,8 +1,9 @@
 import type { RevisionWithLines } from "@/db/queries/quotes";
-import { formatMoney, type BankPrice } from "@/lib/pricing";
+import { formatMoney, type PriceSheet } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
 import { requirementFacts, TECHNOLOGY_LABELS, TOPOLOGY_LABELS, type LabelledValue } from "@/lib/vocabulary";
-import type { FrozenCell, PricedOption } from "./types";
+import { revisionSheet } from "./revision-sheet";
+import type { FrozenCell, PricedOption, RevisionDesign } from "./types";
 
 export type { LabelledValue };
 
@@ -41,6 +42,10 @@ export interface QuoteDocument {
   notes: string[];
   /** the frozen option, for the diagram on the page */
   option: PricedOption;
+  /** how the bank was arrived at (a custom bank's tree is drawn from it) */
+  design: RevisionDesign;
+  /** the shop's note with this revision ("" when none) */
+  note: string;
 }
 
 const q = (value: number, unit: string) => formatQuantity(value, unit);
@@ -101,14 +106,16 @@ function describeCell(cell: FrozenCell, o: PricedOption): LabelledValue[] {
   ];
 }
 
-function describeTotals(p: BankPrice): LabelledValue[] {
-  const m = (a: string) => formatMoney(a, p.currency);
-  const rows: LabelledValue[] = [
-    { label: "Price per bank", value: m(p.unitPrice) },
-    { label: "Quantity", value: String(p.quantity) },
-  ];
-  if (p.discount !== "" && Number(p.discountPct) > 0) rows.push({ label: `Quantity discount (${p.discountPct} %)`, value: `−${m(p.discount)}` });
-  rows.push({ label: "Subtotal", value: m(p.subtotal) }, { label: `Tax (${p.taxPct} %)`, value: m(p.tax) }, { label: "Total", value: m(p.total) });
+/** The sell totals: the lines, the quantity break, a discount with its reason, tax and the total. */
+function describeTotals(s: PriceSheet): LabelledValue[] {
+  const m = (a: string) => formatMoney(a, s.currency);
+  const rows: LabelledValue[] = [];
+  const reductions = Number(s.breakDiscount) > 0 || s.discount !== null;
+  if (reductions) rows.push({ label: "Lines", value: m(s.lineTotal) });
+  const breakLine = s.lines.find((l) => Number(l.breakDiscount) > 0);
+  if (breakLine) rows.push({ label: `Quantity discount (${breakLine.breakPct ?? "0"} %)`, value: `−${m(s.breakDiscount)}` });
+  if (s.discount) rows.push({ label: `Discount: ${s.discount.reason}`, value: `−${m(s.discount.amount)}` });
+  rows.push({ label: "Subtotal", value: m(s.subtotal) }, { label: `Tax (${s.taxPct} %)`, value: m(s.tax) }, { label: "Total", value: m(s.total) });
   return rows;
 }
 
@@ -116,9 +123,9 @@ function describeTotals(p: BankPrice): LabelledValue[] {
 export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
   const r = rev.revision;
   const option = r.arrangement;
-  const price = r.pricing;
+  const sheet = revisionSheet(r);
   const money = (a: string) => formatMoney(a, r.currency);
-  const totals = describeTotals(price);
+  const totals = describeTotals(sheet);
   return {
     shopName: rev.shopName,
     number: rev.quoteNumber,
@@ -133,8 +140,9 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     arrangement: describeArrangement(option),
     cell: describeCell(r.cell, option),
     figures: describeFigures(option),
-    lines: rev.lines.map((l) => ({
-      position: l.position,
+    // what the customer pays for: the bank as one line and the lines the shop added (sell prices)
+    lines: sheet.lines.map((l, i) => ({
+      position: i + 1,
       description: l.description,
       quantity: String(Number(l.quantity)),
       unit: l.unit,
@@ -146,5 +154,7 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     cautions: option.cautions ?? [],
     notes: option.warnings ?? [],
     option,
+    design: r.design ?? { source: "customer-choice" },
+    note: r.note,
   };
 }

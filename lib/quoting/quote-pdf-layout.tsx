@@ -138,7 +138,7 @@ export function QuotePdfLayout({ doc }: { doc: QuoteDocument }) {
           </View>
         </View>
 
-        <Text style={styles.h2}>Price build-up for one bank</Text>
+        <Text style={styles.h2}>Prices</Text>
         <View style={styles.tableHead}>
           <Text style={styles.cDesc}>Item</Text>
           <Text style={styles.cQty}>Quantity</Text>

@@ -75,3 +75,10 @@ export function isFinal(state: QuoteStatus): boolean {
 export function mayRevise(state: QuoteStatus): boolean {
   return state !== "accepted" && state !== "draft";
 }
+
+/** Each revision's state from a quote's moves in the order they happened: the latest move of each revision. */
+export function revisionStates(moves: readonly { revision: number; toStatus: QuoteStatus }[]): Map<number, QuoteStatus> {
+  const out = new Map<number, QuoteStatus>();
+  for (const m of moves) out.set(m.revision, m.toStatus);
+  return out;
+}

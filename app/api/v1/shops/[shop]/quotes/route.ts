@@ -2,7 +2,12 @@ import { listQuotes } from "@/db/queries/quotes";
 import { withShopApi } from "@/lib/auth/guards";
 import { ownerScope, reads } from "@/lib/auth/ownership";
 import { jsonError } from "@/lib/http/json-error";
+import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
+import { readJsonBody } from "@/lib/http/read-json";
+import { createQuoteForApi } from "@/lib/quoting/quote-api";
+import { fromZod } from "@/lib/validation/bank";
 import { quoteList } from "@/lib/validation/lists";
+import { createQuoteRequestSchema } from "@/lib/validation/quote-api";
 
 /**
  * GET /api/v1/shops/{shop}/quotes — { rows, total, page, size }: a customer's own quotes, or all of
@@ -15,5 +20,30 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
     const { query, issues } = quoteList.parse(new URL(request.url).searchParams);
     if (issues.length > 0) return jsonError(400, "Invalid query.", issues);
     return Response.json(await listQuotes(ctx.shop.id, ownerScope(ctx, "quote"), query));
+  });
+}
+
+/**
+ * POST /api/v1/shops/{shop}/quotes — `{ requirement, choice: { sku, topology, seriesCount,
+ * parallelCount }, idempotencyKey, customerEmail?, notes? }` (lib/validation/quote-api.ts): a
+ * signed-in customer for themselves, or staff for a customer they name. 201 `{ number, revision,
+ * total }` when quoted at once, 202 `{ requestId, status: "needs-review" }` when it waits for the
+ * estimators; the same key and body again answers the same (with `Idempotent-Replayed: true`),
+ * another body with that key 409. Rate-limited per client.
+ */
+export async function POST(request: Request, { params }: { params: Promise<{ shop: string }> }) {
+  const { shop } = await params;
+  return withShopApi(request, shop, ["request:create", "quote:issue"], async (ctx) => {
+    const gate = await limits.quoteApi.hit(requestClient(request.headers));
+    if (!gate.allowed) return tooManyRequests(gate);
+    const body = await readJsonBody(request);
+    if (!body.ok) return body.response;
+    const parsed = createQuoteRequestSchema.safeParse(body.value);
+    if (!parsed.success) {
+      const bad = fromZod(parsed.error);
+      return jsonError(400, bad.ok ? "Invalid body." : bad.error, bad.ok ? undefined : bad.issues);
+    }
+    const answer = await createQuoteForApi(ctx, parsed.data);
+    return Response.json(answer.body, { status: answer.status, headers: answer.replayed ? { "idempotent-replayed": "true" } : undefined });
   });
 }
