@@ -7,9 +7,13 @@ import { contentDisposition } from "@/lib/attachments/content-type";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
+/** Files a browser may show in place (`?view=inline`): their content was sniffed at upload; a DXF drawing is always downloaded. */
+const INLINE_TYPES = new Set(["application/pdf", "image/png", "image/jpeg"]);
+
 /**
- * GET /api/v1/shops/{shop}/attachments/{id} — the file, to the customer who uploaded it and to the
- * shop's staff; 404 to anyone else in the shop (ids cannot be probed).
+ * GET /api/v1/shops/{shop}/attachments/{id}[?view=inline] — the file, to the customer who uploaded
+ * it and to the shop's staff; 404 to anyone else in the shop (ids cannot be probed). PDF, PNG and
+ * JPEG files are shown in the browser with `?view=inline`; anything else is always a download.
  */
 export async function GET(request: Request, { params }: { params: Promise<{ shop: string; id: string }> }) {
   const { shop, id } = await params;
@@ -20,7 +24,10 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
       headers: {
         "content-type": row.contentType,
         "content-length": String(row.sizeBytes),
-        "content-disposition": contentDisposition(row.fileName),
+        "content-disposition":
+          new URL(request.url).searchParams.get("view") === "inline" && INLINE_TYPES.has(row.contentType)
+            ? contentDisposition(row.fileName).replace(/^attachment;/, "inline;")
+            : contentDisposition(row.fileName),
         "x-content-type-options": "nosniff",
         "cache-control": "private, no-store",
       },
