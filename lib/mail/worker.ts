@@ -4,6 +4,7 @@ import { z } from "zod";
 import { env } from "@/lib/env";
 import { mailSettings } from "./config";
 import { deliverOutboxRow } from "./deliver";
+import { startQuoteExpiry } from "@/lib/quoting/expiry-job";
 import { dispatchOutbox } from "./outbox";
 import { ensureQueues, getBoss, MAIL_QUEUE, stopBoss, SWEEP_QUEUE } from "./queue";
 
@@ -38,6 +39,8 @@ async function startOnce(): Promise<void> {
     await dispatchOutbox();
   });
   await boss.schedule(SWEEP_QUEUE, s.sweepCron);
+  // the same worker runs the quotes' scheduled expiry
+  await startQuoteExpiry(boss);
   // rows committed while no server was running (or whose dispatch failed) go out now
   await dispatchOutbox();
 }

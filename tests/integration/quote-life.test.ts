@@ -18,6 +18,8 @@ import { getRequest } from "@/db/queries/requests";
 import { auditEvents, emailOutbox, quoteMoves, quoteRevisions, quotes, shopEvents, shopSettings } from "@/db/schema";
 import type { Requirement } from "@/lib/bank";
 import { configureMail } from "@/lib/mail/config";
+import { getBoss, stopBoss } from "@/lib/mail/queue";
+import { QUOTE_EXPIRY_CRON, QUOTE_EXPIRY_QUEUE, startQuoteExpiry } from "@/lib/quoting/expiry-job";
 import { deliverOutboxRow } from "@/lib/mail/deliver";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { issueQuoteRevision } from "@/lib/quoting/issue-revision";
@@ -102,6 +104,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
+  await stopBoss();
   await maildev.stop();
   fs.rmSync(mailDir, { recursive: true, force: true });
 });
@@ -303,6 +306,13 @@ describe("accepting", () => {
     // an expired quote may be issued again as a new revision
     expect((await issue(shop, await requestOf(shop, old), await engineDraft(shop), 1)).ok).toBe(true);
     expect(await states(shop.id, old)).toEqual({ 1: "expired", 2: "sent" });
+  });
+
+  it("the job worker schedules the expiry job", async () => {
+    const boss = await getBoss();
+    await startQuoteExpiry(boss);
+    const schedules = await boss.getSchedules();
+    expect(schedules.filter((x) => x.name === QUOTE_EXPIRY_QUEUE).map((x) => x.cron)).toEqual([QUOTE_EXPIRY_CRON]);
   });
 
   it("concurrent accept and supersede resolve to one state", async () => {
