@@ -29,6 +29,20 @@ export interface PartChoice {
   retired: boolean;
 }
 
+/** The catalog's parts as the options of a part chooser: active ones first, then retired ones. */
+function PartOptions({ parts }: { parts: PartChoice[] }) {
+  const label = (p: PartChoice) => `${p.sku} — ${p.summary}${p.retired ? " (retired)" : ""}`;
+  return (
+    <>
+      {[...parts.filter((p) => !p.retired), ...parts.filter((p) => p.retired)].map((p) => (
+        <option key={p.sku} value={p.sku}>
+          {label(p)}
+        </option>
+      ))}
+    </>
+  );
+}
+
 const tool =
   "rounded-md bg-white px-2.5 py-1.5 text-xs font-medium text-ink-800 ring-1 ring-ink-200 hover:bg-ink-50 focus-visible:outline-none focus-visible:ring-2 focus-visible:ring-copper-500 disabled:text-ink-300";
 
@@ -122,11 +136,11 @@ export function NetworkEditor({
       e.preventDefault();
       e.stopPropagation();
     };
-    if ((e.ctrlKey || e.metaKey) && k.toLowerCase() === "z") return handled(), back();
-    if (e.altKey && k === "ArrowUp") return handled(), apply(move(tree, node.key, -1));
-    if (e.altKey && k === "ArrowDown") return handled(), apply(move(tree, node.key, 1));
-    if (e.altKey && k === "ArrowLeft") return handled(), apply(outdent(tree, node.key));
-    if (e.altKey && k === "ArrowRight") return handled(), apply(indent(tree, node.key));
+    if ((e.ctrlKey || e.metaKey) && k.toLowerCase() === "z") return (handled(), back());
+    if (e.altKey && k === "ArrowUp") return (handled(), apply(move(tree, node.key, -1)));
+    if (e.altKey && k === "ArrowDown") return (handled(), apply(move(tree, node.key, 1)));
+    if (e.altKey && k === "ArrowLeft") return (handled(), apply(outdent(tree, node.key)));
+    if (e.altKey && k === "ArrowRight") return (handled(), apply(indent(tree, node.key)));
     if (e.altKey || e.ctrlKey || e.metaKey) return;
     switch (k) {
       case "ArrowDown":
@@ -186,7 +200,6 @@ export function NetworkEditor({
 
   const weakest = figures?.weakest.id ?? null;
   const sortedCells = figures ? [...figures.cells].sort((a, b) => b.worstVoltage / b.ratedVoltage - a.worstVoltage / a.ratedVoltage) : [];
-  const partLabel = (p: PartChoice) => `${p.sku} — ${p.summary}${p.retired ? " (retired)" : ""}`;
   const selectedPlace = placeOf.get(focused.node.key) ?? "";
 
   return (
@@ -198,12 +211,13 @@ export function NetworkEditor({
               <label htmlFor={`${id}-new-part`} className="block text-xs font-medium text-ink-700">
                 Part for new cells
               </label>
-              <select id={`${id}-new-part`} value={newPart} onChange={(e) => setNewPart(e.target.value)} className="mt-1 max-w-[16rem] rounded-md border border-ink-200 bg-white px-2 py-1.5 text-xs">
-                {parts.map((p) => (
-                  <option key={p.sku} value={p.sku}>
-                    {partLabel(p)}
-                  </option>
-                ))}
+              <select
+                id={`${id}-new-part`}
+                value={newPart}
+                onChange={(e) => setNewPart(e.target.value)}
+                className="mt-1 max-w-[16rem] rounded-md border border-ink-200 bg-white px-2 py-1.5 text-xs"
+              >
+                <PartOptions parts={parts} />
               </select>
             </div>
             <div>
@@ -252,8 +266,8 @@ export function NetworkEditor({
             </button>
           </div>
           <p id={`${id}-keys`} className="text-xs text-ink-500">
-            In the tree: ↑ ↓ move, → opens a group, ← closes it or goes to its group; c, s, p add a cell, a series or a parallel group (into the selected group, or after the
-            selected cell); d copies; Delete removes; Alt+arrows move the selected node; Enter chooses its part; Ctrl+Z undoes.
+            In the tree: ↑ ↓ move, → opens a group, ← closes it or goes to its group; c, s, p add a cell, a series or a parallel group (into the selected group,
+            or after the selected cell); d copies; Delete removes; Alt+arrows move the selected node; Enter chooses its part; Ctrl+Z undoes.
           </p>
           <ul
             id={`${id}-tree`}
@@ -328,11 +342,7 @@ export function NetworkEditor({
                 className="mt-1 w-full rounded-md border border-ink-200 bg-white px-2 py-1.5 text-sm"
               >
                 {focused.node.sku === "" ? <option value="">Choose a part</option> : null}
-                {parts.map((p) => (
-                  <option key={p.sku} value={p.sku}>
-                    {partLabel(p)}
-                  </option>
-                ))}
+                <PartOptions parts={parts} />
               </select>
               <div className="mt-2 flex flex-wrap gap-2">
                 <button type="button" className={tool} onClick={() => apply(wrap(tree, focused.node.key, "parallel"))}>
@@ -350,7 +360,13 @@ export function NetworkEditor({
                 <div className="mt-1 flex gap-4 text-sm">
                   {(["series", "parallel"] as const).map((kind) => (
                     <label key={kind} className="inline-flex items-center gap-1.5">
-                      <input type="radio" name={`${id}-kind`} checked={focused.node.kind === kind} onChange={() => apply(setKind(tree, focused.node.key, kind))} /> {kind}
+                      <input
+                        type="radio"
+                        name={`${id}-kind`}
+                        checked={focused.node.kind === kind}
+                        onChange={() => apply(setKind(tree, focused.node.key, kind))}
+                      />{" "}
+                      {kind}
                     </label>
                   ))}
                 </div>
@@ -367,11 +383,7 @@ export function NetworkEditor({
                   className="mt-1 w-full rounded-md border border-ink-200 bg-white px-2 py-1.5 text-sm"
                 >
                   <option value="">Choose a part</option>
-                  {parts.map((p) => (
-                    <option key={p.sku} value={p.sku}>
-                      {partLabel(p)}
-                    </option>
-                  ))}
+                  <PartOptions parts={parts} />
                 </select>
               </div>
             </div>
@@ -397,7 +409,8 @@ export function NetworkEditor({
                 </dd>
                 <dt className="text-ink-600">Weakest cell</dt>
                 <dd className="num font-semibold text-danger-700" data-testid="weakest-cell">
-                  {figures.weakest.id} ({figures.weakest.sku}): up to {formatQuantity(figures.weakest.worstVoltage, "V")} of {formatQuantity(figures.weakest.ratedVoltage, "V")}
+                  {figures.weakest.id} ({figures.weakest.sku}): up to {formatQuantity(figures.weakest.worstVoltage, "V")} of{" "}
+                  {formatQuantity(figures.weakest.ratedVoltage, "V")}
                 </dd>
               </dl>
             ) : (
@@ -422,8 +435,14 @@ export function NetworkEditor({
       </div>
 
       {figures ? (
-        <details className="rounded-lg bg-white p-3 text-sm ring-1 ring-ink-100" open={allCells} onToggle={(e) => setAllCells((e.target as HTMLDetailsElement).open)}>
-          <summary className="cursor-pointer font-medium text-ink-800">Each cell&apos;s voltage ({figures.cellCount} cells, nearest their rating first)</summary>
+        <details
+          className="rounded-lg bg-white p-3 text-sm ring-1 ring-ink-100"
+          open={allCells}
+          onToggle={(e) => setAllCells((e.target as HTMLDetailsElement).open)}
+        >
+          <summary className="cursor-pointer font-medium text-ink-800">
+            Each cell&apos;s voltage ({figures.cellCount} cells, nearest their rating first)
+          </summary>
           <div className="mt-2 max-h-72 overflow-auto">
             <table className="w-full text-xs">
               <thead className="bg-ink-50 text-ink-700">

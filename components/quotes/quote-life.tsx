@@ -151,6 +151,7 @@ export function QuoteLifeSections({
         shopName={shop.name}
         form={
           <QuoteMessageForm
+            key={askForChange ? "ask-for-change" : "message"}
             shop={shop.slug}
             number={quote.number}
             send={actions.write}

@@ -19,6 +19,23 @@ export interface RevisionRow {
   basis: string;
 }
 
+function RevisionSelect({ id, name, label, value, rows }: { id: string; name: string; label: string; value: number; rows: RevisionRow[] }) {
+  return (
+    <div>
+      <label htmlFor={id} className="block text-xs font-medium text-ink-700">
+        {label}
+      </label>
+      <select id={id} name={name} defaultValue={value} className="mt-1 rounded-md border border-ink-200 bg-white px-2 py-1.5 text-sm">
+        {rows.map((r) => (
+          <option key={r.revision} value={r.revision}>
+            {r.revision}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
 /**
  * Every revision of the quote with its state, a link to read each one, and a comparison of any
  * two (the choice lives in the URL: ?from=1&to=2).
@@ -105,30 +122,8 @@ export function RevisionHistory({
         <div className="mt-4 space-y-3 border-t border-ink-100 pt-4">
           <form method="get" action={base} className="flex flex-wrap items-end gap-3" aria-label="Compare revisions">
             <input type="hidden" name="revision" value={viewing} />
-            <div>
-              <label htmlFor="compare-from" className="block text-xs font-medium text-ink-700">
-                Compare revision
-              </label>
-              <select id="compare-from" name="from" defaultValue={compare.from} className="mt-1 rounded-md border border-ink-200 bg-white px-2 py-1.5 text-sm">
-                {rows.map((r) => (
-                  <option key={r.revision} value={r.revision}>
-                    {r.revision}
-                  </option>
-                ))}
-              </select>
-            </div>
-            <div>
-              <label htmlFor="compare-to" className="block text-xs font-medium text-ink-700">
-                with revision
-              </label>
-              <select id="compare-to" name="to" defaultValue={compare.to} className="mt-1 rounded-md border border-ink-200 bg-white px-2 py-1.5 text-sm">
-                {rows.map((r) => (
-                  <option key={r.revision} value={r.revision}>
-                    {r.revision}
-                  </option>
-                ))}
-              </select>
-            </div>
+            <RevisionSelect id="compare-from" name="from" label="Compare revision" value={compare.from} rows={rows} />
+            <RevisionSelect id="compare-to" name="to" label="with revision" value={compare.to} rows={rows} />
             <button type="submit" className="rounded-md bg-white px-3 py-1.5 text-sm font-medium text-ink-800 ring-1 ring-ink-200 hover:bg-ink-50">
               Show what changed
             </button>

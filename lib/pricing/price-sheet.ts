@@ -115,7 +115,7 @@ export function validatePriceSheet(input: PriceSheetInput): PricingIssue[] {
   });
   const d = input.discount;
   if (d) {
-    if (d.reason.trim() === "") issues.push({ path: "discount.reason", message: "say why the discount is given" });
+    if (d.reason.trim() === "") issues.push({ path: "discount.reason", message: "Say why the discount is given" });
     if (d.kind === "percent") checkDecimal(issues, "discount.value", d.value, { digits: 4, max: 100, positive: true });
     else checkDecimal(issues, "discount.value", d.value, { digits, positive: true });
   }

@@ -9,26 +9,14 @@ import os from "node:os";
 import path from "node:path";
 import { sql } from "drizzle-orm";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
-import { Client } from "pg";
 import { afterAll, describe, expect, it } from "vitest";
 import { createDb } from "@/db/client";
+import { adminStatement } from "./helpers";
 
 const base = new URL(process.env.DATABASE_URL!);
 const scratch = `faradsmith_quote_life_${process.pid}`;
 /** the last migration before quotes had moves */
 const BEFORE = "0002_audit-and-shop-events";
-
-async function admin(statement: string) {
-  const url = new URL(base);
-  url.pathname = "/postgres";
-  const client = new Client({ connectionString: url.toString() });
-  await client.connect();
-  try {
-    await client.query(statement);
-  } finally {
-    await client.end();
-  }
-}
 
 /** A copy of the migrations folder that ends at `last`. */
 function migrationsUpTo(last: string): string {
@@ -44,11 +32,11 @@ function migrationsUpTo(last: string): string {
 
 describe("the quote-life migrations", () => {
   afterAll(async () => {
-    await admin(`DROP DATABASE IF EXISTS "${scratch}" WITH (FORCE)`);
+    await adminStatement(`DROP DATABASE IF EXISTS "${scratch}" WITH (FORCE)`);
   });
 
   it("keep every existing quote's meaning and give it the moves that led to its state", async () => {
-    await admin(`CREATE DATABASE "${scratch}"`);
+    await adminStatement(`CREATE DATABASE "${scratch}"`);
     const url = new URL(base);
     url.pathname = `/${scratch}`;
     const { db, pool } = createDb(url.toString(), 1);

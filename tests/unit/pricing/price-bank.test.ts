@@ -12,22 +12,13 @@ import {
   type BankPrice,
   type PricingRules,
 } from "@/lib/pricing";
+import { sixCellBill } from "./six-cell-bill";
 
 // All parts, part numbers and shops below are invented.
 const rules = (over: Partial<PricingRules> = {}): PricingRules => ({
   ...DEFAULT_PRICING_RULES,
   ...over,
 });
-
-const sixCellBill: BankBill = {
-  cell: { sku: "QX-350F-2V7", description: "EDLC cell 350 F 2.7 V", unitCost: "6.40" },
-  cellCount: 6,
-  balancingResistors: { count: 6, resistance: 1000, powerRating: 0.25 },
-  bleeder: { resistance: 330, power: 2 },
-  activeBoards: null,
-  volumeM3: 0.000528,
-  quantity: 10,
-};
 
 const lineAmounts = (p: BankPrice): Record<string, string> => Object.fromEntries(p.lines.map((l) => [l.code, l.amount]));
 

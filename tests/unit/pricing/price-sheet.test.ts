@@ -1,5 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+import { sixCellBill } from "./six-cell-bill";
 import { DEFAULT_PRICING_RULES, PricingError, priceBank, priceSheet, selectDiscountPct, tryPriceSheet, type BankBill } from "@/lib/pricing";
 
 // Parts and figures are invented.
@@ -78,15 +79,7 @@ describe("priceSheet — hand-worked example, EUR", () => {
 });
 
 describe("a bank-only sheet says exactly what priceBank says", () => {
-  const bill: BankBill = {
-    cell: { sku: "QX-350F-2V7", description: "EDLC cell 350 F 2.7 V", unitCost: "6.40" },
-    cellCount: 6,
-    balancingResistors: { count: 6, resistance: 1000, powerRating: 0.25 },
-    bleeder: { resistance: 330, power: 2 },
-    activeBoards: null,
-    volumeM3: 0.000528,
-    quantity: 1,
-  };
+  const bill: BankBill = { ...sixCellBill, quantity: 1 };
   it("for any quantity, margin and tax rate", () => {
     fc.assert(
       fc.property(

@@ -150,7 +150,7 @@ export function Workbench(p: WorkbenchProps) {
     const checked = issuableDraftSchema.safeParse(next);
     const local: Record<string, string[]> = {};
     if (!checked.success) for (const i of checked.error.issues) (local[i.path.join(".") || "_form"] ??= []).push(i.message);
-    if (composed && !composed.ok) Object.assign(local, composed.fieldErrors);
+    if (composed && !composed.ok) for (const [k, v] of Object.entries(composed.fieldErrors)) local[k] ??= v;
     if (!resolved?.ok) local.bank = [resolved ? resolved.message : "Choose one of the engine's options or build a custom bank."];
     setErrors(local);
     if (Object.keys(local).length > 0) {

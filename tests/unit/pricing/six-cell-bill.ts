@@ -1,0 +1,12 @@
+import type { BankBill } from "@/lib/pricing";
+
+/** An invented six-cell bank (invented part number) that the pricing tests work by hand. */
+export const sixCellBill: BankBill = {
+  cell: { sku: "QX-350F-2V7", description: "EDLC cell 350 F 2.7 V", unitCost: "6.40" },
+  cellCount: 6,
+  balancingResistors: { count: 6, resistance: 1000, powerRating: 0.25 },
+  bleeder: { resistance: 330, power: 2 },
+  activeBoards: null,
+  volumeM3: 0.000528,
+  quantity: 10,
+};
