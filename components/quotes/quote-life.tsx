@@ -55,21 +55,7 @@ function standing(status: QuoteStatus, side: "customer" | "shop", revision: numb
   }
 }
 
-/**
- * The life of a quote on its page, below the revision itself: where it stands and what the reader
- * may do (the customer: accept, ask for a change, decline; the staff: revise, re-send, withdraw),
- * every revision with a comparison of any two, and the thread. Pure rendering of what the page loaded.
- */
-export function QuoteLifeSections({
-  shop,
-  quote,
-  life,
-  viewing,
-  compare,
-  askForChange,
-  now,
-  actions,
-}: {
+interface LifeProps {
   shop: { slug: string; name: string };
   quote: QuoteLifeQuote;
   life: QuoteLife;
@@ -79,11 +65,77 @@ export function QuoteLifeSections({
   askForChange: boolean;
   now: Date;
   actions: QuoteLifeActions;
-}) {
+}
+
+/** The latest revision and the state the reader sees (a revision past its last day reads as expired before the job has run). */
+function latestOf({ quote, life, now }: Pick<LifeProps, "quote" | "life" | "now">) {
+  const latest = life.revisions.find((r) => r.revision.revision === quote.currentRevision)?.revision;
+  const status: QuoteStatus = quote.status === "sent" && latest && isExpired(latest.validUntil, now) ? "expired" : quote.status;
+  return { latest, status };
+}
+
+const pagePathOf = (side: "customer" | "shop", slug: string, number: string) =>
+  side === "customer" ? `/s/${slug}/quotes/${number}` : `/desk/${slug}/quotes/${number}`;
+
+/**
+ * Where the quote stands and what the reader may do: the customer accepts, asks for a change or
+ * declines the latest sent revision; the staff revise it in the workbench, send its e-mail again
+ * or withdraw it. At the top of the quote page.
+ */
+export function QuoteStanding({ shop, quote, life, now, actions }: Pick<LifeProps, "shop" | "quote" | "life" | "now" | "actions">) {
+  const side = actions.side;
+  const { latest, status } = latestOf({ quote, life, now });
+  const changeAsked = quote.changeRequestedAt !== null;
+  return (
+    <section aria-labelledby="standing-title" className="rounded-lg bg-white p-4 ring-1 ring-ink-100" data-testid="quote-standing">
+      <div className="flex flex-wrap items-center gap-2">
+        <h2 id="standing-title" className="text-sm font-semibold text-ink-800">
+          Where this quote stands
+        </h2>
+        <QuoteStatusBadge status={status} />
+        {changeAsked && status !== "accepted" ? (
+          <span className="rounded-full bg-hazard-100 px-2 py-0.5 text-xs font-medium text-hazard-700">Change asked for</span>
+        ) : null}
+      </div>
+      <p className="mt-1 text-sm text-ink-700">{standing(status, side, quote.currentRevision, latest?.validUntil ?? "", changeAsked)}</p>
+      <div className="mt-3">
+        {actions.side === "customer" ? (
+          status === "sent" && latest ? (
+            <CustomerQuoteActions
+              shop={shop.slug}
+              number={quote.number}
+              revision={quote.currentRevision}
+              total={formatMoney(latest.total, latest.currency)}
+              validUntil={latest.validUntil}
+              accept={actions.accept}
+              decline={actions.decline}
+              askHref={`${pagePathOf(side, shop.slug, quote.number)}?ask=change#thread-title`}
+            />
+          ) : null
+        ) : (
+          <StaffQuoteActions
+            shop={shop.slug}
+            number={quote.number}
+            workbenchHref={mayRevise(status) ? `/desk/${shop.slug}/requests/${quote.requestId}` : null}
+            canResend={status === "sent" || status === "accepted"}
+            canWithdraw={status === "sent"}
+            resend={actions.resend}
+            withdraw={actions.withdraw}
+          />
+        )}
+      </div>
+    </section>
+  );
+}
+
+/**
+ * The rest of a quote's life, below the revision itself: every revision with a comparison of any
+ * two, and the thread with the reader's writing box. Pure rendering of what the page loaded.
+ */
+export function QuoteLifeDetails({ shop, quote, life, viewing, compare, askForChange, now, actions }: LifeProps) {
   const side = actions.side;
   const states = revisionStates(life.moves);
-  const latest = life.revisions.find((r) => r.revision.revision === quote.currentRevision)?.revision;
-  const pagePath = side === "customer" ? `/s/${shop.slug}/quotes/${quote.number}` : `/desk/${shop.slug}/quotes/${quote.number}`;
+  const { status } = latestOf({ quote, life, now });
   const rows: RevisionRow[] = life.revisions.map(({ revision: r, createdByName }) => ({
     revision: r.revision,
     state: states.get(r.revision) ?? "sent",
@@ -98,53 +150,16 @@ export function QuoteLifeSections({
   const a = life.revisions.find((r) => r.revision.revision === compare.from)?.revision;
   const b = life.revisions.find((r) => r.revision.revision === compare.to)?.revision;
   const diff = a && b ? diffRevisions(revisionFacts(frozenRevisionOf(a)), revisionFacts(frozenRevisionOf(b))) : null;
-  // a revision past its last day reads as expired even before the job has run
-  const status: QuoteStatus = quote.status === "sent" && latest && isExpired(latest.validUntil, now) ? "expired" : quote.status;
-  const changeAsked = quote.changeRequestedAt !== null;
-
   return (
     <div className="space-y-6">
-      <section aria-labelledby="standing-title" className="rounded-lg bg-white p-4 ring-1 ring-ink-100" data-testid="quote-standing">
-        <div className="flex flex-wrap items-center gap-2">
-          <h2 id="standing-title" className="text-sm font-semibold text-ink-800">
-            Where this quote stands
-          </h2>
-          <QuoteStatusBadge status={status} />
-          {changeAsked && status !== "accepted" ? (
-            <span className="rounded-full bg-hazard-100 px-2 py-0.5 text-xs font-medium text-hazard-700">Change asked for</span>
-          ) : null}
-        </div>
-        <p className="mt-1 text-sm text-ink-700">{standing(status, side, quote.currentRevision, latest?.validUntil ?? "", changeAsked)}</p>
-        <div className="mt-3">
-          {actions.side === "customer" ? (
-            status === "sent" && latest ? (
-              <CustomerQuoteActions
-                shop={shop.slug}
-                number={quote.number}
-                revision={quote.currentRevision}
-                total={formatMoney(latest.total, latest.currency)}
-                validUntil={latest.validUntil}
-                accept={actions.accept}
-                decline={actions.decline}
-                askHref={`${pagePath}?ask=change#thread-title`}
-              />
-            ) : null
-          ) : (
-            <StaffQuoteActions
-              shop={shop.slug}
-              number={quote.number}
-              workbenchHref={mayRevise(status) ? `/desk/${shop.slug}/requests/${quote.requestId}` : null}
-              canResend={status === "sent" || status === "accepted"}
-              canWithdraw={status === "sent"}
-              resend={actions.resend}
-              withdraw={actions.withdraw}
-            />
-          )}
-        </div>
-      </section>
-
-      <RevisionHistory base={pagePath} rows={rows} viewing={viewing} compare={compare} diff={diff} showIssuer={side === "shop"} />
-
+      <RevisionHistory
+        base={pagePathOf(side, shop.slug, quote.number)}
+        rows={rows}
+        viewing={viewing}
+        compare={compare}
+        diff={diff}
+        showIssuer={side === "shop"}
+      />
       <QuoteThread
         messages={life.messages}
         reader={side}

@@ -7,7 +7,7 @@ import { isQuoteNumber } from "@/lib/quoting/quote-number";
 import { revisionStates } from "@/lib/quoting/quote-states";
 import { compareParams } from "@/lib/validation/quote-life";
 import { QUOTE_STATUS_LABELS } from "@/lib/vocabulary";
-import { QuoteLifeSections, type QuoteLifeActions } from "./quote-life";
+import { QuoteLifeDetails, QuoteStanding, type QuoteLifeActions } from "./quote-life";
 import { QuoteView } from "./quote-view";
 
 export type QuoteSearch = Record<string, string | string[] | undefined>;
@@ -43,6 +43,14 @@ export async function QuotePageBody({
   const doc = toQuoteDocument(rev);
   const state = revisionStates(life.moves).get(view);
   const pagePath = `${back.href}/${doc.number}`;
+  const now = new Date();
+  const lifeQuote = {
+    number: quote.number,
+    status: quote.status,
+    currentRevision: quote.currentRevision,
+    requestId: quote.requestId,
+    changeRequestedAt: quote.changeRequestedAt,
+  };
   return (
     <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm text-ink-600">
@@ -61,21 +69,16 @@ export async function QuotePageBody({
           .
         </p>
       ) : null}
+      <QuoteStanding shop={shop} quote={lifeQuote} life={life} now={now} actions={actions} />
       <QuoteView doc={doc} pdfHref={`/api/v1/shops/${shop.slug}/quotes/${doc.number}/pdf${view !== quote.currentRevision ? `?revision=${view}` : ""}`} />
-      <QuoteLifeSections
+      <QuoteLifeDetails
         shop={shop}
-        quote={{
-          number: quote.number,
-          status: quote.status,
-          currentRevision: quote.currentRevision,
-          requestId: quote.requestId,
-          changeRequestedAt: quote.changeRequestedAt,
-        }}
+        quote={lifeQuote}
         life={life}
         viewing={view}
         compare={{ from, to }}
         askForChange={search.ask === "change"}
-        now={new Date()}
+        now={now}
         actions={actions}
       />
     </div>

@@ -73,8 +73,15 @@ export function RevisionDiffView({ diff }: { diff: RevisionDiff }) {
                   </>
                 ) : (
                   <>
-                    <span className="font-medium text-copper-700">Changed</span> {l.description}:{" "}
-                    {l.changes.map((c) => `${c.label.toLowerCase()} ${c.from ?? "—"} → ${c.to ?? "—"}`).join("; ")}
+                    <span className="font-medium text-copper-700">Changed</span> {l.description}
+                    <ul className="mt-0.5 space-y-0.5 pl-4 text-xs text-ink-700">
+                      {l.changes.map((c) => (
+                        <li key={c.label}>
+                          {c.label}: <del className="decoration-danger-500">{c.from ?? "—"}</del> →{" "}
+                          <ins className="no-underline font-medium text-ink-900">{c.to ?? "—"}</ins>
+                        </li>
+                      ))}
+                    </ul>
                   </>
                 )}
               </li>

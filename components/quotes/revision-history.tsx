@@ -69,7 +69,7 @@ export function RevisionHistory({
               <th scope="col" className="px-3 py-1.5 text-left font-medium">
                 Revision
               </th>
-              <th scope="col" className="px-3 py-1.5 text-left font-medium">
+              <th scope="col" className="hidden px-3 py-1.5 text-left font-medium sm:table-cell">
                 Issued
               </th>
               <th scope="col" className="px-3 py-1.5 text-left font-medium">
@@ -78,10 +78,10 @@ export function RevisionHistory({
               <th scope="col" className="px-3 py-1.5 text-right font-medium">
                 Total
               </th>
-              <th scope="col" className="px-3 py-1.5 text-left font-medium">
+              <th scope="col" className="hidden px-3 py-1.5 text-left font-medium md:table-cell">
                 Valid until
               </th>
-              <th scope="col" className="px-3 py-1.5 text-left font-medium">
+              <th scope="col" className="hidden px-3 py-1.5 text-left font-medium md:table-cell">
                 Note
               </th>
             </tr>
@@ -102,8 +102,12 @@ export function RevisionHistory({
                     </Link>
                   )}
                   <span className="block text-xs font-normal text-ink-500">{r.basis}</span>
+                  <span className="block text-xs font-normal text-ink-500 sm:hidden">
+                    {r.issuedOn}, valid until {r.validUntil}
+                  </span>
+                  {r.note ? <span className="mt-1 block max-w-[14rem] whitespace-normal text-xs font-normal text-ink-700 md:hidden">{r.note}</span> : null}
                 </th>
-                <td className="num whitespace-nowrap px-3 py-1.5 text-ink-600">
+                <td className="num hidden whitespace-nowrap px-3 py-1.5 text-ink-600 sm:table-cell">
                   {r.issuedOn}
                   {showIssuer && r.issuedBy ? <span className="block text-xs">by {r.issuedBy}</span> : null}
                 </td>
@@ -111,8 +115,8 @@ export function RevisionHistory({
                   <QuoteStatusBadge status={r.state} />
                 </td>
                 <td className="num whitespace-nowrap px-3 py-1.5 text-right">{formatMoney(r.total, r.currency)}</td>
-                <td className="num whitespace-nowrap px-3 py-1.5">{r.validUntil}</td>
-                <td className="max-w-xs px-3 py-1.5 text-ink-700">{r.note || <span className="text-ink-400">—</span>}</td>
+                <td className="num hidden whitespace-nowrap px-3 py-1.5 md:table-cell">{r.validUntil}</td>
+                <td className="hidden max-w-xs px-3 py-1.5 text-ink-700 md:table-cell">{r.note || <span className="text-ink-400">—</span>}</td>
               </tr>
             ))}
           </tbody>

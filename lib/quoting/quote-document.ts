@@ -2,6 +2,7 @@ import type { RevisionWithLines } from "@/db/queries/quotes";
 import { formatMoney, type PriceSheet } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
 import { requirementFacts, TECHNOLOGY_LABELS, TOPOLOGY_LABELS, type LabelledValue } from "@/lib/vocabulary";
+import { partsOf } from "./custom-bank";
 import { revisionSheet } from "./revision-sheet";
 import type { FrozenCell, PricedOption, RevisionDesign } from "./types";
 
@@ -71,6 +72,24 @@ function describeArrangement(o: PricedOption): LabelledValue[] {
   return rows;
 }
 
+/** A custom bank's shape: its parts and its longest series path; balancing is fitted as a line, when the estimator fits it. */
+function describeCustomArrangement(o: PricedOption, design: Extract<RevisionDesign, { source: "custom" }>): LabelledValue[] {
+  const rows = describeArrangement(o).filter((r) => r.label === "Bleeder");
+  return [
+    { label: "Built as", value: "Custom bank of series and parallel groups" },
+    {
+      label: "Parts",
+      value: partsOf(design.network)
+        .map((p) => `${p.count} × ${p.sku}`)
+        .join(", "),
+    },
+    { label: "Cells per bank", value: String(o.cellCount) },
+    { label: "Cells along the longest series path", value: String(o.seriesCount) },
+    { label: "Balancing", value: "Not sized for a custom bank; fitted and priced as a line where needed" },
+    ...rows,
+  ];
+}
+
 function describeFigures(o: PricedOption): LabelledValue[] {
   const rows: LabelledValue[] = [
     { label: "Rated voltage", value: q(o.maxVoltage, "V") },
@@ -137,7 +156,7 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     currency: r.currency,
     quantity: r.quantity,
     requirement: requirementFacts(r.requirement),
-    arrangement: describeArrangement(option),
+    arrangement: r.design?.source === "custom" ? describeCustomArrangement(option, r.design) : describeArrangement(option),
     cell: describeCell(r.cell, option),
     figures: describeFigures(option),
     // what the customer pays for: the bank as one line and the lines the shop added (sell prices)

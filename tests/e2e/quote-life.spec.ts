@@ -135,7 +135,7 @@ test("an estimator quotes a needs-review request with a custom mixed-cell bank, 
   await expect(page.getByLabel("Ask for a change to the quote")).toBeChecked();
   await page.getByLabel("What should change?").fill("We collect ourselves: please drop the freight.");
   await page.getByRole("button", { name: "Ask for the change" }).click();
-  await expect(page.getByTestId("quote-thread").getByTestId("thread-message")).toContainText("please drop the freight");
+  await expect(page.getByTestId("quote-thread").locator("[data-kind=change-request]")).toContainText("please drop the freight");
   await expect(page.getByTestId("quote-standing")).toContainText("Change asked for");
   await mailTo(KESTREL_ESTIMATOR, new RegExp(`Change asked for: quote ${number}`));
 

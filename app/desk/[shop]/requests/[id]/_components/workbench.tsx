@@ -611,7 +611,7 @@ export function Workbench(p: WorkbenchProps) {
                   <th scope="col" className="px-2 py-1.5 text-right font-medium">
                     Quantity
                   </th>
-                  <th scope="col" className="px-2 py-1.5 text-right font-medium">
+                  <th scope="col" className="hidden px-2 py-1.5 text-right font-medium sm:table-cell">
                     Unit price
                   </th>
                   <th scope="col" className="px-2 py-1.5 text-right font-medium">
@@ -629,7 +629,7 @@ export function Workbench(p: WorkbenchProps) {
                     <td className="num px-2 py-1.5 text-right">
                       {Number(l.quantity)} {l.unit}
                     </td>
-                    <td className="num px-2 py-1.5 text-right">{money(l.unitPrice)}</td>
+                    <td className="num hidden px-2 py-1.5 text-right sm:table-cell">{money(l.unitPrice)}</td>
                     <td className="num px-2 py-1.5 text-right">{money(l.amount)}</td>
                   </tr>
                 ))}
