@@ -27,7 +27,7 @@ import { acceptQuoteRevision, declineQuoteRevision, expireDueQuotes, postQuoteMe
 import { NO_OVERRIDES, searchWithOverrides } from "@/lib/quoting/review-search";
 import type { CustomNode } from "@/lib/quoting/types";
 import { issueRevisionSchema, type IssuableDraft } from "@/lib/validation/workbench";
-import { cheapestOption, choiceOf, contextOf, createQuote, createShop, KESTREL_REQUIREMENT, type TestShop } from "./fixtures";
+import { cheapestOption, choiceOf, contextOf, createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, type TestShop } from "./fixtures";
 import { maildevOnFreePorts, type Maildev } from "./maildev";
 
 const staff = (shop: TestShop) => contextOf(shop, shop.estimator, "estimator");
@@ -222,6 +222,45 @@ describe("revisions from the workbench", () => {
       ["QFS-1200R27", 20],
     ]);
     expect(rev.sheet?.lines.map((l) => l.code)).toEqual(["bank", "enclosure"]);
+  });
+
+  it("works for a shop of film and electrolytic banks in pounds: an engine option, then a custom bank of two film parts", async () => {
+    const shop = await createShop("marlow");
+    const number = await createQuote(shop, shop.customers[0], MARLOW_REQUIREMENT);
+    const requestId = await requestOf(shop, number);
+    const o = await cheapestOption(shop.id, MARLOW_REQUIREMENT);
+    const draft: IssuableDraft = {
+      bank: {
+        kind: "engine",
+        choice: { sku: o.cell.sku, topology: o.topology, seriesCount: o.seriesCount, parallelCount: o.parallelCount },
+        overrides: NO_OVERRIDES,
+      },
+      bankPrice: { unitPrice: "99.00", reason: "Match last year's price" },
+      lines: [{ kind: "engineering", description: "Test report", quantity: "1.5", unit: "h", unitPrice: "80.00" }],
+      discount: null,
+      validityDays: 21,
+      note: "",
+    };
+    expect(await issue(shop, requestId, draft, 1)).toMatchObject({ ok: true, data: { revision: 2 } });
+    // 800 V across two 1100 V film capacitors in series, each a 1 µF and a 10 µF part in parallel
+    const group: CustomNode = {
+      kind: "parallel",
+      children: [
+        { kind: "cell", sku: "TD-PB-105K-1200" },
+        { kind: "cell", sku: "TD-PB-106K-1100" },
+      ],
+    };
+    const custom: CustomNode = { kind: "series", children: [group, group] };
+    expect(await issue(shop, requestId, { ...draft, bank: { kind: "custom", network: custom, overrides: NO_OVERRIDES }, bankPrice: null }, 2)).toMatchObject({
+      ok: true,
+      data: { revision: 3 },
+    });
+    const [rev] = await db
+      .select()
+      .from(quoteRevisions)
+      .where(and(eq(quoteRevisions.shopId, shop.id), eq(quoteRevisions.revision, 3)));
+    expect(rev?.currency).toBe("GBP");
+    expect(rev?.design?.source).toBe("custom");
   });
 
   it("refuses a custom bank with a cell past its surge voltage, and a draft based on a revision someone else replaced", async () => {
