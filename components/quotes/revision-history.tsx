@@ -75,7 +75,7 @@ export function RevisionHistory({
               <th scope="col" className="px-3 py-1.5 text-left font-medium">
                 State
               </th>
-              <th scope="col" className="px-3 py-1.5 text-right font-medium">
+              <th scope="col" className="hidden px-3 py-1.5 text-right font-medium sm:table-cell">
                 Total
               </th>
               <th scope="col" className="hidden px-3 py-1.5 text-left font-medium md:table-cell">
@@ -103,7 +103,7 @@ export function RevisionHistory({
                   )}
                   <span className="block text-xs font-normal text-ink-500">{r.basis}</span>
                   <span className="block text-xs font-normal text-ink-500 sm:hidden">
-                    {r.issuedOn}, valid until {r.validUntil}
+                    {formatMoney(r.total, r.currency)}, issued {r.issuedOn}, valid until {r.validUntil}
                   </span>
                   {r.note ? <span className="mt-1 block max-w-[14rem] whitespace-normal text-xs font-normal text-ink-700 md:hidden">{r.note}</span> : null}
                 </th>
@@ -114,7 +114,7 @@ export function RevisionHistory({
                 <td className="px-3 py-1.5">
                   <QuoteStatusBadge status={r.state} />
                 </td>
-                <td className="num whitespace-nowrap px-3 py-1.5 text-right">{formatMoney(r.total, r.currency)}</td>
+                <td className="num hidden whitespace-nowrap px-3 py-1.5 text-right sm:table-cell">{formatMoney(r.total, r.currency)}</td>
                 <td className="num hidden whitespace-nowrap px-3 py-1.5 md:table-cell">{r.validUntil}</td>
                 <td className="hidden max-w-xs px-3 py-1.5 text-ink-700 md:table-cell">{r.note || <span className="text-ink-400">—</span>}</td>
               </tr>

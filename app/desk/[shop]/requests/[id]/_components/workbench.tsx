@@ -13,7 +13,7 @@ import { FACTOR_OVERRIDES, effectiveFactors, factorRange } from "@/lib/quoting/r
 import { OVERRIDABLE_FACTORS, type CatalogCell, type CatalogComponent, type CustomNode, type PricedOption } from "@/lib/quoting/types";
 import { formatQuantity } from "@/lib/quantities";
 import { issuableDraftSchema, type WorkbenchDraft } from "@/lib/validation/workbench";
-import { arrangementLabel, EXTRA_LINE_KINDS, EXTRA_LINE_LABELS, TECHNOLOGY_SHORT, type ExtraLineKind } from "@/lib/vocabulary";
+import { arrangementLabel, EXTRA_LINE_KINDS, EXTRA_LINE_LABELS, TECHNOLOGY_SHORT, TOPOLOGY_LABELS, type ExtraLineKind } from "@/lib/vocabulary";
 import { exploreReviewOptions, issueRevision, saveReviewDraft, type ReviewOptions } from "../actions";
 
 const DEFAULT_UNITS: Record<ExtraLineKind, string> = { enclosure: "pc", "discharge-circuit": "pc", engineering: "h", freight: "lot", other: "pc" };
@@ -338,7 +338,11 @@ export function Workbench(p: WorkbenchProps) {
                         </td>
                         <td className="whitespace-nowrap px-2 py-1.5">
                           {arrangementLabel(o)}
-                          {o.longerLife ? <span className="block text-xs text-ink-500">longer string</span> : null}
+                          <span className="block text-xs text-ink-500">
+                            {TOPOLOGY_LABELS[o.topology]}
+                            {o.longerLife ? ", longer string" : ""}
+                            {o.balancing.activeBoard ? ", active balancing" : ""}
+                          </span>
                         </td>
                         <td className="num px-2 py-1.5 text-right">{formatQuantity(o.capacitance.nominal, "F")}</td>
                         <td className="num px-2 py-1.5 text-right">{formatQuantity(o.worstCellVoltage, "V")}</td>
