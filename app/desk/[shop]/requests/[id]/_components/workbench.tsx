@@ -328,7 +328,7 @@ export function Workbench(p: WorkbenchProps) {
                             type="radio"
                             name={`${id}-option`}
                             checked={chosen}
-                            aria-label={`Choose ${o.cell.sku}, ${arrangementLabel(o)}`}
+                            aria-label={`Choose ${o.cell.sku}, ${arrangementLabel(o)}, ${TOPOLOGY_LABELS[o.topology]}`}
                             onChange={() => setChoice({ sku: o.cell.sku, topology: o.topology, seriesCount: o.seriesCount, parallelCount: o.parallelCount })}
                           />
                         </td>
