@@ -112,22 +112,38 @@ export function evaluateCustomBank(tree: CustomNode, catalog: readonly CatalogCe
   const evaluation = evaluateNetwork(network, v);
   const placed = cellsOf(tree);
 
+  // Worst case of each cell: scaling every capacitance by (1 + m) leaves the voltage shares as they
+  // are, so "this cell at C(1 − m), every other at C(1 + m)" is "this cell times (1 − m)/(1 + m), the
+  // rest nominal". Changing one cell changes only its ancestors: walk up its path (at most the
+  // tree's depth) updating each group's sum, and multiply the series shares on the way.
   const flat = flattenNetwork(network);
   const n = flat.cells.length;
   const m = factors.matchingTolerance;
-  const caps = new Float64Array(n);
+  const ratio = (1 - m) / (1 + m);
+  const caps = Float64Array.from(flat.cells, (c) => c.capacitance);
   const cap = new Float64Array(flat.size);
   const acc = new Float64Array(flat.size);
-  const fraction = new Float64Array(flat.size);
+  evaluateFlat(flat, caps, cap, acc, new Float64Array(flat.size));
+  const worstShare = (x: number): number => {
+    let child = flat.cellNode[x] as number;
+    let childCap = (cap[child] as number) * ratio;
+    let share = 1;
+    for (let p = flat.parent[child] as number; p >= 0; child = p, p = flat.parent[p] as number) {
+      const series = flat.parentSeries[child] === 1;
+      const sum = series ? (acc[p] as number) - 1 / (cap[child] as number) + 1 / childCap : (acc[p] as number) - (cap[child] as number) + childCap;
+      const parentCap = series ? 1 / sum : sum;
+      if (series) share *= parentCap / childCap;
+      childCap = parentCap;
+    }
+    return share;
+  };
   const cells: CustomCellState[] = placed.map((p, x) => {
-    for (let y = 0; y < n; y++) caps[y] = (flat.cells[y]?.capacitance ?? 0) * (y === x ? 1 - m : 1 + m);
-    evaluateFlat(flat, caps, cap, acc, fraction);
     const part = bySku.get(p.sku) as EngineCell;
     return {
       id: p.at,
       sku: p.sku,
       voltage: evaluation.cells[x]?.voltage ?? 0,
-      worstVoltage: (fraction[flat.cellNode[x] as number] as number) * v,
+      worstVoltage: worstShare(x) * v,
       ratedVoltage: part.ratedVoltage,
       surgeVoltage: Math.max(part.surgeVoltage, part.ratedVoltage),
     };

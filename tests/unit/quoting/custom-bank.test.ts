@@ -1,5 +1,6 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { DEFAULT_DESIGN_FACTORS, searchArrangements, worstCaseCellVoltage } from "@/lib/bank";
+import { DEFAULT_DESIGN_FACTORS, evaluateNetwork, searchArrangements, worstCaseCellVoltage, type NetworkNode } from "@/lib/bank";
 import { priceBank } from "@/lib/pricing";
 import { toEngineCell } from "@/lib/quoting/bill";
 import { checkCustomTree, customBankBill, customBankOption, evaluateCustomBank, partsOf } from "@/lib/quoting/custom-bank";
@@ -38,6 +39,32 @@ describe("a custom bank evaluated by the engine", () => {
     const r = evaluateCustomBank(tree, [C100], { maxVoltage: 100, capacitance: 1 }, { ...DEFAULT_DESIGN_FACTORS, matchingTolerance: m });
     if (!r.ok) throw new Error("not ok");
     for (const c of r.figures.cells) expect(c.worstVoltage).toBeCloseTo(worstCaseCellVoltage(100, 7, m), 9);
+  });
+
+  it("each cell's worst case equals evaluating the whole tree again with that cell low and every other high", () => {
+    const parts = [C100, C50, cell("TST-220F-16", 220)];
+    const node: fc.Arbitrary<CustomNode> = fc.letrec<{ node: CustomNode }>((tie) => ({
+      node: fc.oneof(
+        { depthSize: "small", withCrossShrink: true },
+        fc.constantFrom(...parts.map((p) => leaf(p.sku))),
+        fc.record({ kind: fc.constantFrom("series" as const, "parallel" as const), children: fc.array(tie("node"), { minLength: 1, maxLength: 4 }) }),
+      ),
+    })).node;
+    fc.assert(
+      fc.property(node, fc.double({ min: 0, max: 0.2, noNaN: true }), (tree, m) => {
+        const f = { ...DEFAULT_DESIGN_FACTORS, matchingTolerance: m };
+        const r = evaluateCustomBank(tree, parts, { maxVoltage: 10, capacitance: 1 }, f);
+        if (!r.ok) return; // too deep for the editor
+        r.figures.cells.forEach((c, x) => {
+          let i = 0;
+          const scale = (n: NetworkNode): NetworkNode =>
+            n.kind === "cell" ? { ...n, capacitance: n.capacitance * (i++ === x ? 1 - m : 1 + m) } : { ...n, children: n.children.map(scale) };
+          const brute = evaluateNetwork(scale(r.network), 10).cells[x]?.voltage ?? NaN;
+          expect(c.worstVoltage).toBeCloseTo(brute, 9);
+        });
+      }),
+      { numRuns: 200 },
+    );
   });
 
   it("a bank built as the engine's option has the option's figures", () => {
