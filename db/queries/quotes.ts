@@ -22,6 +22,8 @@ export interface QuoteListRow {
   total: string;
   validUntil: string;
   createdAt: Date;
+  /** the customer asked for a change no revision has answered yet */
+  changeRequestedAt: Date | null;
 }
 
 const QUOTE_SORTS = {
@@ -63,6 +65,7 @@ export async function listQuotes(shopId: string, scope: OwnerScope, q: QuoteList
           total: quoteRevisions.total,
           validUntil: quoteRevisions.validUntil,
           createdAt: quotes.createdAt,
+          changeRequestedAt: quotes.changeRequestedAt,
         })
         .from(quotes)
         .innerJoin(quoteRevisions, current)
