@@ -59,7 +59,7 @@ test("an estimator quotes a needs-review request with a custom mixed-cell bank, 
   await expect(page.getByTestId("review-notice")).toBeVisible();
 
   // The estimator is told, opens the request in the workbench and sees the notes and the drawing.
-  await mailTo(KESTREL_ESTIMATOR, /needs review/);
+  await mailTo(KESTREL_ESTIMATOR, /^Request from Wynne Callard needs review$/);
   const desk = await staffPage(browser);
   await desk.goto(`/desk/${K}/requests?status=needs-review`);
   const row = desk.getByRole("row").filter({ hasText: email });
