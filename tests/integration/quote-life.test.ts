@@ -10,6 +10,8 @@ import os from "node:os";
 import path from "node:path";
 import { and, count, eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { GET as downloadRoute } from "@/app/api/v1/shops/[shop]/attachments/[id]/route";
+import { POST as uploadRoute } from "@/app/api/v1/shops/[shop]/attachments/route";
 import { db } from "@/db";
 import { loadShopCatalog } from "@/db/queries/catalog";
 import { getQuoteDraft, getQuoteLife, listRetiredCells, saveQuoteDraft } from "@/db/queries/quote-life";
@@ -28,6 +30,7 @@ import { NO_OVERRIDES, searchWithOverrides } from "@/lib/quoting/review-search";
 import type { CustomNode } from "@/lib/quoting/types";
 import { issueRevisionSchema, type IssuableDraft } from "@/lib/validation/workbench";
 import { cheapestOption, choiceOf, contextOf, createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, type TestShop } from "./fixtures";
+import { request, sessionCookie } from "./helpers";
 import { maildevOnFreePorts, type Maildev } from "./maildev";
 
 const staff = (shop: TestShop) => contextOf(shop, shop.estimator, "estimator");
@@ -469,5 +472,39 @@ describe("declining, asking for a change and the thread", () => {
     expect(await acceptQuoteRevision(customer(shop), { number, revision: 1 })).toMatchObject({ ok: false, message: expect.stringMatching(/withdrew/) });
     const audit = await db.select().from(auditEvents).where(eq(auditEvents.shopId, shop.id));
     expect(audit.map((a) => a.action).sort()).toEqual(["quote.resend", "quote.resend", "quote.withdraw"]);
+  });
+});
+
+describe("drawings in the workbench", () => {
+  it("PDF, PNG and JPEG files are shown in the browser when asked; a DXF drawing is always downloaded", async () => {
+    const shop = await createShop("kestrel");
+    // smallest files of each kind: PDF header (ISO 32000-1 §7.5.2), PNG signature and IHDR (ISO/IEC 15948 §5.2), ASCII DXF "0 / SECTION" (from memory)
+    const files = {
+      "plan.pdf": Buffer.from("%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n", "latin1"),
+      "plan.png": Buffer.concat([
+        Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13]),
+        Buffer.from("IHDR"),
+        Buffer.from([0, 0, 0, 1, 0, 0, 0, 1, 8, 2, 0, 0, 0, 0x90, 0x77, 0x53, 0xde]),
+      ]),
+      "plan.dxf": Buffer.from("  0\r\nSECTION\r\n  2\r\nENTITIES\r\n  0\r\nENDSEC\r\n  0\r\nEOF\r\n", "latin1"),
+    };
+    const customerCookie = await sessionCookie(shop.customers[0].email);
+    const staffCookie = await sessionCookie(shop.estimator.email);
+    const shown: Record<string, string> = {};
+    for (const [name, bytes] of Object.entries(files)) {
+      const form = new FormData();
+      form.set("file", new File([new Uint8Array(bytes)], name));
+      const up = await uploadRoute(request(`/api/v1/shops/${shop.slug}/attachments`, { method: "POST", body: form, cookie: customerCookie }), {
+        params: Promise.resolve({ shop: shop.slug }),
+      });
+      const { id } = (await up.json()) as { id: string };
+      const res = await downloadRoute(request(`/api/v1/shops/${shop.slug}/attachments/${id}?view=inline`, { cookie: staffCookie }), {
+        params: Promise.resolve({ shop: shop.slug, id }),
+      });
+      expect(res.status).toBe(200);
+      expect(res.headers.get("x-content-type-options")).toBe("nosniff");
+      shown[name] = (res.headers.get("content-disposition") ?? "").split(";")[0] ?? "";
+    }
+    expect(shown).toEqual({ "plan.pdf": "inline", "plan.png": "inline", "plan.dxf": "attachment" });
   });
 });
