@@ -1,4 +1,5 @@
 import { defineConfig, devices } from "@playwright/test";
+import { CHROMIUM_LAUNCH } from "./scripts/chromium.mjs";
 
 const port = Number(process.env.APP_PORT ?? 3100);
 const baseURL = `http://127.0.0.1:${port}`;
@@ -16,18 +17,7 @@ export default defineConfig({
     baseURL,
     trace: "retain-on-failure",
     screenshot: "only-on-failure",
-    launchOptions: {
-      executablePath: "/usr/bin/chromium",
-      args: [
-        "--no-sandbox",
-        "--disable-gpu",
-        "--disable-dev-shm-usage",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-        "--no-first-run",
-      ],
-    },
+    launchOptions: CHROMIUM_LAUNCH,
   },
   projects: [{ name: "chromium", use: { ...devices["Desktop Chrome"], channel: undefined } }],
   webServer: {

@@ -3,6 +3,8 @@ import { z } from "zod";
 
 /** The development secret: fine on a laptop, refused by a production server (see below). */
 export const DEVELOPMENT_AUTH_SECRET = "faradsmith-local-secret-change-me-in-production";
+/** The development key for webhook signing secrets at rest: fine on a laptop, refused by a production server. */
+export const DEVELOPMENT_WEBHOOK_KEY = "faradsmith-local-webhook-key-change-me-in-production";
 
 /** "10.0.0.0/8, 127.0.0.1 ::1" → ["10.0.0.0/8", "127.0.0.1", "::1"]; each must be an address or a CIDR range. */
 const addressList = z
@@ -39,6 +41,8 @@ const schema = z.object({
     .default("false")
     .transform((v) => v === "true"),
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(120),
+  /** requests per minute each shop API key may make (lib/http/limits.ts `apiKey`) */
+  API_KEY_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(300),
   SMTP_HOST: z.string().default("127.0.0.1"),
   SMTP_PORT: z.coerce.number().int().positive().default(1025),
   /** production SMTP: TLS from the first byte ("true", port 465) and credentials; none on loopback */
@@ -51,6 +55,8 @@ const schema = z.object({
   MAIL_FROM: z.string().default("Faradsmith <quotes@faradsmith.example>"),
   /** "off" keeps the e-mail worker out of this server (another process runs it, or none is wanted) */
   MAIL_WORKER: z.enum(["on", "off"]).default("on"),
+  /** "off" keeps the payment reconciliation job out of this server (another process runs it) */
+  PAYMENTS_WORKER: z.enum(["on", "off"]).default("on"),
   MAIL_INBOX_URL: z.string().url().default("http://127.0.0.1:1080"),
   UPLOAD_DIR: z.string().default(".data/uploads"),
   /**
@@ -68,6 +74,16 @@ const schema = z.object({
     .regex(/^(sk|rk)_(test|live)_[A-Za-z0-9_]+$/, "must be a Stripe secret key (sk_test_…, sk_live_…)")
     .default("sk_test_faradsmith_local_standin_key"),
   STRIPE_WEBHOOK_SECRET: z.string().startsWith("whsec_").default("whsec_faradsmith_local_standin_secret"),
+  /**
+   * Outbound webhooks. WEBHOOK_SECRET_KEY encrypts the endpoints' signing secrets at rest (at least
+   * 32 characters; npm start generates one into .data/webhook-key). WEBHOOK_ALLOW_LOOPBACK lets
+   * endpoints on 127.0.0.0/8 and ::1 through (default: yes outside production, no in production);
+   * private, link-local and other non-public addresses are refused always. WEBHOOK_WORKER=off keeps
+   * the delivery worker out of this server.
+   */
+  WEBHOOK_SECRET_KEY: z.string().min(32).default(DEVELOPMENT_WEBHOOK_KEY),
+  WEBHOOK_ALLOW_LOOPBACK: z.enum(["true", "false"]).optional(),
+  WEBHOOK_WORKER: z.enum(["on", "off"]).default("on"),
 });
 
 const parsed = schema.safeParse(process.env);
@@ -87,6 +103,11 @@ if (parsed.data.NODE_ENV === "production" && !building) {
   if (parsed.data.BETTER_AUTH_SECRET.length < 32) {
     throw new Error("Invalid environment: BETTER_AUTH_SECRET must be at least 32 characters in production");
   }
+  if (parsed.data.WEBHOOK_SECRET_KEY === DEVELOPMENT_WEBHOOK_KEY) {
+    throw new Error(
+      "Invalid environment: WEBHOOK_SECRET_KEY is the built-in development key; a production server needs its own (npm start generates one into .data/webhook-key)",
+    );
+  }
 }
 
 const betterAuthUrl = parsed.data.BETTER_AUTH_URL ?? parsed.data.APP_URL;
@@ -95,6 +116,7 @@ const stripeBase = new URL(parsed.data.STRIPE_API_BASE);
 export const env = {
   ...parsed.data,
   BETTER_AUTH_URL: betterAuthUrl,
+  WEBHOOK_ALLOW_LOOPBACK: parsed.data.WEBHOOK_ALLOW_LOOPBACK ? parsed.data.WEBHOOK_ALLOW_LOOPBACK === "true" : parsed.data.NODE_ENV !== "production",
   /** the origins our pages are served from: writes sent by any other are refused */
   APP_ORIGINS: [...new Set([new URL(parsed.data.APP_URL).origin, new URL(betterAuthUrl).origin])],
   /** STRIPE_API_BASE as the SDK takes it: `new Stripe(key, { ...env.STRIPE_API })`. */

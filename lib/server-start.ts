@@ -2,7 +2,9 @@
  * What a Node.js server does once at start (instrumentation.ts): the environment is validated
  * before anything is served, so an invalid one (for example a production server with the
  * development session secret) stops the process instead of failing every request; then the
- * e-mail worker starts, unless MAIL_WORKER=off.
+ * e-mail worker starts, unless MAIL_WORKER=off; the payment reconciliation job, unless
+ * PAYMENTS_WORKER=off; and the webhook delivery worker, unless WEBHOOK_WORKER=off (tried again
+ * every 10 s while the database cannot be reached).
  */
 export async function startServer(): Promise<void> {
   try {
@@ -13,4 +15,14 @@ export async function startServer(): Promise<void> {
   }
   const { startMailWorker } = await import("@/lib/mail/worker");
   await startMailWorker();
+  const { startPaymentsWorker } = await import("@/lib/payments/worker");
+  // in the background: a payment service that is slow to answer must not hold the server's start
+  void startPaymentsWorker();
+  const { startWebhookWorker } = await import("@/lib/webhooks/worker");
+  const startWebhooks = () =>
+    startWebhookWorker().catch((error: unknown) => {
+      console.error(`[webhooks] worker did not start (${error instanceof Error ? error.message : String(error)}); trying again in 10 s`);
+      setTimeout(() => void startWebhooks(), 10_000).unref();
+    });
+  await startWebhooks();
 }

@@ -4,7 +4,7 @@
  * customer's requirement. Pages, e-mails, the quote and its PDF all take their words from here.
  * Pure: no framework, no database (client components import it too).
  */
-import type { Requirement, Technology, Topology } from "./bank/types";
+import type { FaultFilter, Requirement, Technology, Topology } from "./bank/types";
 import type { Role } from "./auth/permissions";
 import { formatQuantity as q } from "./quantities";
 
@@ -27,6 +27,13 @@ export const TOPOLOGY_LABELS: Record<Topology, string> = {
 export function arrangementLabel(o: { seriesCount: number; parallelCount: number }): string {
   return `${o.seriesCount} S × ${o.parallelCount} P`;
 }
+
+/** The failures a customer may ask a bank to survive, in words ("survives one shorted cell"). */
+export const FAULT_FILTER_LABELS: Record<FaultFilter, string> = {
+  short: "one shorted cell",
+  open: "one open cell",
+  both: "one shorted or one open cell",
+};
 
 export const ROLE_LABELS: Record<Role, string> = { manager: "Manager", estimator: "Estimator", customer: "Customer" };
 export const ROLE_PLURALS: Record<Role, string> = { manager: "Managers", estimator: "Estimators", customer: "Customers" };
@@ -75,9 +82,60 @@ export const REQUEST_STATUSES = ["quoted", "needs-review", "closed"] as const;
 export type RequestStatus = (typeof REQUEST_STATUSES)[number];
 export const REQUEST_STATUS_LABELS: Record<RequestStatus, string> = { "needs-review": "Needs review", quoted: "Quoted", closed: "Closed" };
 
+/**
+ * An order's stages on the floor, in order, then the states beside them (DESIGN.md §5). The moves
+ * allowed between them are in lib/orders/stages.ts.
+ */
+export const ORDER_STATUSES = ["paid", "kitting", "assembling", "testing", "ready", "shipped", "delivered", "on-hold", "cancelled", "refunded"] as const;
+export type OrderStatus = (typeof ORDER_STATUSES)[number];
+export const ORDER_STATUS_LABELS: Record<OrderStatus, string> = {
+  paid: "Paid",
+  kitting: "Kitting",
+  assembling: "Assembling",
+  testing: "Testing",
+  ready: "Ready to ship",
+  shipped: "Shipped",
+  delivered: "Delivered",
+  "on-hold": "On hold",
+  cancelled: "Cancelled",
+  refunded: "Refunded",
+};
+
+/** A checkout's state: waiting on the payment page, paid, or lapsed unpaid. */
+export const PAYMENT_STATUSES = ["open", "paid", "expired"] as const;
+export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
+/** What a payment pays: the whole quote, the shop's deposit, or what is left after a deposit. */
+export const PAYMENT_KINDS = ["full", "deposit", "balance"] as const;
+export type PaymentKind = (typeof PAYMENT_KINDS)[number];
+export const PAYMENT_KIND_LABELS: Record<PaymentKind, string> = { full: "Full payment", deposit: "Deposit", balance: "Balance" };
+
 /** What a shop's own systems can hear of through outbound webhooks (db/schema/records.ts). */
 export const SHOP_EVENT_TYPES = ["quote.issued", "quote.accepted", "order.status_changed", "payment.refunded", "catalog.imported"] as const;
 export type ShopEventType = (typeof SHOP_EVENT_TYPES)[number];
+/** What each event means, as the webhook form explains it. */
+export const SHOP_EVENT_LABELS: Record<ShopEventType, string> = {
+  "quote.issued": "A quote or a new revision of it was issued to a customer",
+  "quote.accepted": "A customer accepted a quote",
+  "order.status_changed": "An order moved (kitting, assembling, testing, ready, shipped, delivered, cancelled)",
+  "payment.refunded": "A payment was refunded",
+  "catalog.imported": "A catalog import was applied",
+};
+
+/** An outbound webhook endpoint: sending, or stopped (by the manager, or after failing for days). */
+export const WEBHOOK_ENDPOINT_STATES = ["active", "disabled"] as const;
+export type WebhookEndpointState = (typeof WEBHOOK_ENDPOINT_STATES)[number];
+export const WEBHOOK_ENDPOINT_STATE_LABELS: Record<WebhookEndpointState, string> = { active: "Sending", disabled: "Stopped" };
+
+/** One delivery of one event to one endpoint, through its attempts. */
+export const WEBHOOK_DELIVERY_STATES = ["waiting", "retrying", "delivered", "failed", "cancelled"] as const;
+export type WebhookDeliveryState = (typeof WEBHOOK_DELIVERY_STATES)[number];
+export const WEBHOOK_DELIVERY_STATE_LABELS: Record<WebhookDeliveryState, string> = {
+  waiting: "Waiting",
+  retrying: "Trying again",
+  delivered: "Delivered",
+  failed: "Gave up",
+  cancelled: "Not sent (endpoint stopped)",
+};
 
 export const OUTBOX_STATUSES = ["waiting", "sent", "failed"] as const;
 export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
@@ -126,6 +184,19 @@ function requirementParts(r: Requirement): RequirementPart[] {
   if (r.maxMass !== undefined) parts.push({ label: "Mass limit", value: q(r.maxMass, "kg"), phrase: `at most ${q(r.maxMass, "kg")}` });
   if (r.maxVolume !== undefined) parts.push({ label: "Volume limit", value: q(r.maxVolume, "m³"), phrase: `at most ${q(r.maxVolume, "m³")}` });
   if (r.technology) parts.push({ label: "Technology", value: TECHNOLOGY_LABELS[r.technology], phrase: `${TECHNOLOGY_LABELS[r.technology]} only` });
+  if (r.ambientTemperature !== undefined) {
+    const t = `${Number(r.ambientTemperature.toFixed(1))} °C`;
+    parts.push({ label: "Ambient temperature", value: t, phrase: `${t} ambient` });
+  }
+  if (r.rmsCurrent !== undefined) parts.push({ label: "RMS current", value: q(r.rmsCurrent, "A"), phrase: `${q(r.rmsCurrent, "A")} rms` });
+  if (r.survives) {
+    const what = FAULT_FILTER_LABELS[r.survives];
+    parts.push({ label: "Must survive", value: what, phrase: `survives ${what}` });
+  }
+  if (r.minLifeYears !== undefined) {
+    const years = `${Number(r.minLifeYears.toFixed(1))} years`;
+    parts.push({ label: "Expected life at least", value: years, phrase: `lasts ${years}` });
+  }
   const quantity = r.quantity ?? 1;
   parts.push({ label: "Quantity", value: banks(quantity), phrase: banks(quantity) });
   return parts;

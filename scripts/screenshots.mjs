@@ -4,6 +4,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { chromium } from "@playwright/test";
+import { CHROMIUM_LAUNCH } from "./chromium.mjs";
 
 const args = process.argv.slice(2);
 let base = "http://127.0.0.1:3000";
@@ -18,18 +19,7 @@ for (let i = 0; i < args.length; i++) {
 }
 const out = path.resolve(".data", "screenshots");
 fs.mkdirSync(out, { recursive: true });
-const browser = await chromium.launch({
-  executablePath: "/usr/bin/chromium",
-  args: [
-    "--no-sandbox",
-    "--disable-gpu",
-    "--disable-dev-shm-usage",
-    "--disable-background-networking",
-    "--disable-component-update",
-    "--disable-sync",
-    "--no-first-run",
-  ],
-});
+const browser = await chromium.launch(CHROMIUM_LAUNCH);
 const page = await browser.newPage({ viewport: { width, height: 900 } });
 if (as) {
   const [email, password] = as.split(":");

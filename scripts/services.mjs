@@ -226,8 +226,21 @@ export async function startStripeStandin({ apiBase, webhookUrl, env }) {
  * BETTER_AUTH_SECRET) rotates it: every session signed with the old one ends (README, "Secrets").
  */
 export function ensureAuthSecret({ dir = path.join(root, ".data"), env = process.env } = {}) {
-  if (env.BETTER_AUTH_SECRET) return env.BETTER_AUTH_SECRET;
-  const file = path.join(dir, "auth-secret");
+  return ensureSecretFile({ given: env.BETTER_AUTH_SECRET, file: path.join(dir, "auth-secret"), what: "a session secret" });
+}
+
+/**
+ * The key webhook signing secrets are encrypted with: WEBHOOK_SECRET_KEY when the environment gives
+ * one, otherwise generated once into .data/webhook-key like the session secret. Losing or changing
+ * it makes the stored signing secrets unreadable: each endpoint then needs a new secret (README, "Secrets").
+ */
+export function ensureWebhookKey({ dir = path.join(root, ".data"), env = process.env } = {}) {
+  return ensureSecretFile({ given: env.WEBHOOK_SECRET_KEY, file: path.join(dir, "webhook-key"), what: "a webhook key" });
+}
+
+function ensureSecretFile({ given, file, what }) {
+  if (given) return given;
+  const dir = path.dirname(file);
   fs.mkdirSync(dir, { recursive: true });
   try {
     const secret = fs.readFileSync(file, "utf8").trim();
@@ -243,6 +256,6 @@ export function ensureAuthSecret({ dir = path.join(root, ".data"), env = process
   const secret = randomBytes(32).toString("base64url");
   fs.writeFileSync(file, `${secret}\n`, { mode: 0o600 });
   fs.chmodSync(file, 0o600);
-  log(`generated a session secret in ${path.relative(root, file)} (keep it private; see README, "Secrets")`);
+  log(`generated ${what} in ${path.relative(root, file)} (keep it private; see README, "Secrets")`);
   return secret;
 }

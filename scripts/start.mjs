@@ -6,6 +6,7 @@ import { spawnSync } from "node:child_process";
 import path from "node:path";
 import {
   ensureAuthSecret,
+  ensureWebhookKey,
   ensureDebianPackages,
   ensureNpmPackages,
   ensurePostgres,
@@ -44,6 +45,9 @@ const env = {
   APP_URL: appUrl,
   BETTER_AUTH_URL: appUrl,
   BETTER_AUTH_SECRET: ensureAuthSecret(),
+  WEBHOOK_SECRET_KEY: ensureWebhookKey(),
+  // endpoints on this machine (a receiver you run yourself) are allowed locally; set "false" to try the production rule
+  WEBHOOK_ALLOW_LOOPBACK: process.env.WEBHOOK_ALLOW_LOOPBACK ?? "true",
   SMTP_HOST: "127.0.0.1",
   SMTP_PORT: String(SMTP_PORT),
   MAIL_INBOX_URL: `http://127.0.0.1:${INBOX_PORT}`,

@@ -69,6 +69,18 @@ export function DischargeChart({ option, requirement, safeVoltage }: { option: C
                 label={{ value: `safe ${formatQuantity(safeVoltage, "V")}`, position: "right", fontSize: 10, fill: C.hazard }}
               />
             ) : null}
+            {curve.kind === "resistive" && option.handling?.floorVoltage ? (
+              <ReferenceLine
+                y={option.handling.floorVoltage}
+                stroke={C.danger}
+                label={{
+                  value: `never below ${formatQuantity(option.handling.floorVoltage, "V")}`,
+                  position: "insideBottomRight",
+                  fontSize: 10,
+                  fill: C.danger,
+                }}
+              />
+            ) : null}
             {curve.requiredSeconds !== null ? (
               <ReferenceLine
                 x={curve.requiredSeconds / div}
@@ -82,9 +94,11 @@ export function DischargeChart({ option, requirement, safeVoltage }: { option: C
         </ResponsiveContainer>
       </div>
       <p className="mt-1 text-xs text-ink-600">
-        {curve.kind === "resistive"
-          ? `Reaches ${formatQuantity(curve.points.at(-1)?.v ?? 0, "V")} after ${formatDuration(curve.seconds)}; worst-case capacitance (upper tolerance), balancing${option.discharge.bleeder ? " and bleeder" : ""} resistors only, as the time to the safe voltage is figured.`
-          : `Lasts ${formatDuration(curve.seconds)} down to ${formatQuantity(vMin, "V")} with end-of-life capacitance and ESR${curve.requiredSeconds !== null ? ` (asked: ${formatDuration(curve.requiredSeconds)})` : ""}.`}
+        {curve.kind === "resistive" && option.handling?.floorVoltage
+          ? `Switched off, the balancing resistors take the bank to ${formatQuantity(curve.points.at(-1)?.v ?? 0, "V")}, the lowest its hybrid cells may go (below it they are damaged), after ${formatDuration(curve.seconds)} with the upper-tolerance capacitance${option.handling.standby?.seconds ? `; at the lower tolerance and with the cells' own leakage, after ${formatDuration(option.handling.standby.seconds)}` : ""}.`
+          : curve.kind === "resistive"
+            ? `Reaches ${formatQuantity(curve.points.at(-1)?.v ?? 0, "V")} after ${formatDuration(curve.seconds)}; worst-case capacitance (upper tolerance), balancing${option.discharge.bleeder ? " and bleeder" : ""} resistors only, as the time to the safe voltage is figured.`
+            : `Lasts ${formatDuration(curve.seconds)} down to ${formatQuantity(vMin, "V")} with end-of-life capacitance and ESR${curve.requiredSeconds !== null ? ` (asked: ${formatDuration(curve.requiredSeconds)})` : ""}.`}
       </p>
     </figure>
   );

@@ -1,8 +1,11 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getQuoteLife } from "@/db/queries/quote-life";
+import { getDatasheetBySku } from "@/db/queries/catalog-edit";
 import { getQuoteByNumber, getRevision } from "@/db/queries/quotes";
+import { toCostBuildUp } from "@/lib/quoting/cost-build-up";
 import { toQuoteDocument } from "@/lib/quoting/quote-document";
+import { CostBuildUpPanel } from "./cost-build-up";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
 import { revisionStates } from "@/lib/quoting/quote-states";
 import { compareParams } from "@/lib/validation/quote-life";
@@ -25,6 +28,8 @@ export async function QuotePageBody({
   maySee,
   search,
   actions,
+  aside,
+  showCosts = false,
 }: {
   shop: { id: string; slug: string; name: string };
   number: string;
@@ -32,6 +37,10 @@ export async function QuotePageBody({
   maySee: (ownerUserId: string) => boolean;
   search: QuoteSearch;
   actions: QuoteLifeActions;
+  /** a section shown above the quote (the storefront's pay panel) */
+  aside?: React.ReactNode;
+  /** the shop's cost build-up and margin under the customer's view: the desk only */
+  showCosts?: boolean;
 }) {
   const quote = isQuoteNumber(number) ? await getQuoteByNumber(shop.id, number) : null;
   if (!quote || !maySee(quote.customerUserId)) notFound();
@@ -51,6 +60,7 @@ export async function QuotePageBody({
     requestId: quote.requestId,
     changeRequestedAt: quote.changeRequestedAt,
   };
+  const datasheet = await getDatasheetBySku(shop.id, doc.option.cell.sku);
   return (
     <div className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm text-ink-600">
@@ -70,7 +80,13 @@ export async function QuotePageBody({
         </p>
       ) : null}
       <QuoteStanding shop={shop} quote={lifeQuote} life={life} now={now} actions={actions} />
-      <QuoteView doc={doc} pdfHref={`/api/v1/shops/${shop.slug}/quotes/${doc.number}/pdf${view !== quote.currentRevision ? `?revision=${view}` : ""}`} />
+      {aside}
+      <QuoteView
+        doc={doc}
+        pdfHref={`/api/v1/shops/${shop.slug}/quotes/${doc.number}/pdf${view !== quote.currentRevision ? `?revision=${view}` : ""}`}
+        datasheetHref={datasheet ? `/api/v1/shops/${shop.slug}/cells/${encodeURIComponent(doc.option.cell.sku)}/datasheet` : null}
+        staffOnly={showCosts ? <CostBuildUpPanel build={toCostBuildUp(rev.revision.pricing)} /> : null}
+      />
       <QuoteLifeDetails
         shop={shop}
         quote={lifeQuote}

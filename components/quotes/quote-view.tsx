@@ -1,6 +1,8 @@
 import { BankDiagram } from "@/components/bank-diagram/bank-diagram";
 import { NetworkDiagram } from "@/components/bank-diagram/network-diagram";
+import { QuoteEngineeringSection } from "./quote-engineering-section";
 import type { LabelledValue, QuoteDocument } from "@/lib/quoting/quote-document";
+import { QuotePriceLines } from "./quote-price-lines";
 
 function Facts({ title, rows }: { title: string; rows: LabelledValue[] }) {
   return (
@@ -19,7 +21,17 @@ function Facts({ title, rows }: { title: string; rows: LabelledValue[] }) {
 }
 
 /** A frozen quote revision as the customer and the shop's staff see it; the PDF says the same. */
-export function QuoteView({ doc, pdfHref }: { doc: QuoteDocument; pdfHref: string }) {
+export function QuoteView({
+  doc,
+  pdfHref,
+  staffOnly,
+  datasheetHref,
+}: {
+  doc: QuoteDocument;
+  pdfHref: string;
+  staffOnly?: React.ReactNode;
+  datasheetHref?: string | null;
+}) {
   const o = doc.option;
   return (
     <article className="space-y-6" aria-labelledby="quote-title">
@@ -76,54 +88,21 @@ export function QuoteView({ doc, pdfHref }: { doc: QuoteDocument; pdfHref: strin
         <Facts title="Your requirement" rows={doc.requirement} />
         <Facts title="Arrangement" rows={doc.arrangement} />
         <Facts title="Bank figures" rows={doc.figures} />
-        <Facts title="Cell" rows={doc.cell} />
+        <div className="space-y-2">
+          <Facts title="Cell" rows={doc.cell} />
+          {datasheetHref ? (
+            <a href={datasheetHref} className="inline-flex text-sm font-medium text-copper-600 hover:underline" data-testid="datasheet-link">
+              Cell datasheet (PDF)
+            </a>
+          ) : null}
+        </div>
       </div>
 
-      <section className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
-        <h2 className="px-4 pt-4 text-sm font-semibold text-ink-800">Prices</h2>
-        <table className="mt-2 w-full text-sm">
-          <thead className="bg-ink-50 text-ink-700">
-            <tr>
-              <th scope="col" className="px-4 py-2 text-left font-medium">
-                Item
-              </th>
-              <th scope="col" className="px-4 py-2 text-right font-medium">
-                Quantity
-              </th>
-              <th scope="col" className="px-4 py-2 text-left font-medium">
-                Unit
-              </th>
-              <th scope="col" className="px-4 py-2 text-right font-medium">
-                Unit price
-              </th>
-              <th scope="col" className="px-4 py-2 text-right font-medium">
-                Amount
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {doc.lines.map((l) => (
-              <tr key={l.position} className="border-t border-ink-100">
-                <td className="px-4 py-1.5">{l.description}</td>
-                <td className="num px-4 py-1.5 text-right">{l.quantity}</td>
-                <td className="px-4 py-1.5">{l.unit}</td>
-                <td className="num px-4 py-1.5 text-right">{l.unitPrice}</td>
-                <td className="num px-4 py-1.5 text-right">{l.amount}</td>
-              </tr>
-            ))}
-          </tbody>
-          <tfoot>
-            {doc.totals.map((t, i) => (
-              <tr key={t.label} className={i === doc.totals.length - 1 ? "border-t-2 border-ink-800 text-base font-semibold" : "border-t border-ink-100"}>
-                <th scope="row" colSpan={4} className="px-4 py-1.5 text-right font-medium">
-                  {t.label}
-                </th>
-                <td className="num px-4 py-1.5 text-right">{t.value}</td>
-              </tr>
-            ))}
-          </tfoot>
-        </table>
-      </section>
+      <QuoteEngineeringSection e={doc.engineering} />
+
+      <QuotePriceLines doc={doc} />
+
+      {staffOnly}
 
       {doc.notes.length > 0 ? (
         <section className="rounded-lg bg-white p-4 text-sm ring-1 ring-ink-100">

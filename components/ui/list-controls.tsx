@@ -187,7 +187,7 @@ export function ListView({
 }) {
   return (
     <div className="space-y-3">
-      <FilterForm state={state} fields={filters} />
+      {filters.length > 0 ? <FilterForm state={state} fields={filters} /> : null}
       <ListTable state={state} columns={columns} caption={caption} empty={empty}>
         {children}
       </ListTable>

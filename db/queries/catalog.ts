@@ -2,8 +2,9 @@ import "server-only";
 import { and, asc, count, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { catalogCells, catalogComponents } from "@/db/schema";
+import { DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank/reliability-settings";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
-import { DEFAULT_PRICING_RULES } from "@/lib/pricing/defaults";
+import { DEFAULT_PRICING_RULES, readPricingRules } from "@/lib/pricing/defaults";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import type { ShopCatalog } from "@/lib/quoting/types";
 import { getShopSettings } from "./shops";
@@ -25,16 +26,17 @@ export async function listActiveComponents(shopId: string) {
 }
 
 /**
- * Everything one search and one quote need from a shop, read once: design factors, pricing rules
- * and auto-quote limits (the defaults when the shop has no settings row), active cells and active
+ * Everything one search and one quote need from a shop, read once: design factors, pricing rules,
+ * auto-quote limits and failure/yield/life settings (the defaults when the shop has no settings row), active cells and active
  * components. Searching and quoting are pure functions of this (lib/quoting/priced-search.ts).
  */
 export async function loadShopCatalog(shopId: string): Promise<ShopCatalog> {
   const [settings, cells, components] = await Promise.all([getShopSettings(shopId), listActiveCells(shopId), listActiveComponents(shopId)]);
   return {
     factors: settings?.designFactors ?? DEFAULT_DESIGN_FACTORS,
-    rules: settings?.pricingRules ?? DEFAULT_PRICING_RULES,
+    rules: settings ? readPricingRules(settings.pricingRules) : DEFAULT_PRICING_RULES,
     autoQuoteLimits: settings?.autoQuoteLimits ?? DEFAULT_AUTO_QUOTE_LIMITS,
+    reliability: { ...DEFAULT_RELIABILITY_SETTINGS, ...settings?.reliabilitySettings },
     cells,
     components,
   };

@@ -122,6 +122,8 @@ export interface NewOutboxMessage {
   requestId?: string | null;
   /** the thread message a "new message" notice carries */
   quoteMessageId?: string | null;
+  /** the order an order message is about */
+  orderId?: string | null;
 }
 
 /** Records a message in the caller's transaction, with what it announces; a repeated dedupe key is a no-op. */

@@ -6,3 +6,7 @@ export * from "./quote-life";
 export * from "./mail";
 export * from "./security";
 export * from "./records";
+export * from "./orders";
+export * from "./webhooks";
+export * from "./pricing";
+export * from "./api-keys";

@@ -2,6 +2,7 @@ import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } f
 import { OUTBOX_STATUSES } from "../../lib/vocabulary";
 import { shops } from "./auth";
 import { quoteMessages } from "./quote-life";
+import { orders } from "./orders";
 import { bankRequests, quoteRevisions } from "./quotes";
 
 export const emailStatusEnum = pgEnum("email_status", OUTBOX_STATUSES);
@@ -26,6 +27,8 @@ export const emailOutbox = pgTable(
     requestId: uuid().references(() => bankRequests.id, { onDelete: "set null" }),
     /** the thread message a "new message" notice carries */
     quoteMessageId: uuid().references(() => quoteMessages.id, { onDelete: "set null" }),
+    /** the order an order message is about (confirmed, ready, shipped, delivered) */
+    orderId: uuid().references(() => orders.id, { onDelete: "set null" }),
     status: emailStatusEnum().notNull().default("waiting"),
     attempts: integer().notNull().default(0),
     lastError: text(),

@@ -1,4 +1,5 @@
 import { jsonb, pgTable, text, timestamp } from "drizzle-orm/pg-core";
+import { DEFAULT_RELIABILITY_SETTINGS, type ReliabilitySettings } from "@/lib/bank/reliability-settings";
 import type { DesignFactors } from "@/lib/bank/types";
 import type { PricingRules } from "@/lib/pricing/types";
 import { DEFAULT_AUTO_QUOTE_LIMITS, type AutoQuoteLimits } from "@/lib/quoting/auto-quote-limits";
@@ -16,6 +17,8 @@ export const shopSettings = pgTable("shop_settings", {
   pricingRules: jsonb().$type<PricingRules>().notNull(),
   /** beyond any of these a request goes to the estimators instead of being quoted at once */
   autoQuoteLimits: jsonb().$type<AutoQuoteLimits>().notNull().default(DEFAULT_AUTO_QUOTE_LIMITS),
+  /** failure, yield and life settings (DESIGN.md §3.5): a group of its own beside the design factors */
+  reliabilitySettings: jsonb().$type<ReliabilitySettings>().notNull().default(DEFAULT_RELIABILITY_SETTINGS),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });

@@ -1,4 +1,5 @@
 import type { NewCatalogCell, NewCatalogComponent } from "../schema/catalog";
+import { withLifeData } from "./cell-life";
 import { makers } from "./manufacturers";
 
 /*
@@ -13,7 +14,7 @@ import { makers } from "./manufacturers";
  * practice, from memory).
  * Plain data: no database access here; the seed script adds shopId.
  */
-export const kestrelCells: Omit<NewCatalogCell, "shopId">[] = [
+export const kestrelCells: Omit<NewCatalogCell, "shopId">[] = withLifeData([
   // EDLC 2.7 V, Quillfen large cells
   {
     sku: "QFS-0650R27",
@@ -821,7 +822,7 @@ export const kestrelCells: Omit<NewCatalogCell, "shopId">[] = [
     stock: 6,
     leadTimeDays: 21,
   },
-];
+]);
 
 /** Balancing boards, interconnects, terminal sets and enclosures for the bill of materials. */
 export const kestrelComponents: Omit<NewCatalogComponent, "shopId">[] = [
@@ -968,5 +969,47 @@ export const kestrelComponents: Omit<NewCatalogComponent, "shopId">[] = [
     specs: { volumeM3: 0.2, ipRating: "IP54" },
     stock: 2,
     leadTimeDays: 21,
+  },
+  // balancing and bleeder resistors, one per power class: a bank takes the smallest class that covers twice the part's dissipation
+  {
+    kind: "resistor",
+    sku: "KBW-RES-0W25",
+    name: "Metal-film resistor, 0.25 W",
+    unitCost: "0.1200",
+    specs: { powerRatingW: 0.25 },
+    stock: 2000,
+    leadTimeDays: 1,
+  },
+  { kind: "resistor", sku: "KBW-RES-0W5", name: "Metal-film resistor, 0.5 W", unitCost: "0.1800", specs: { powerRatingW: 0.5 }, stock: 1500, leadTimeDays: 1 },
+  { kind: "resistor", sku: "KBW-RES-1W", name: "Metal-film resistor, 1 W", unitCost: "0.3200", specs: { powerRatingW: 1 }, stock: 1200, leadTimeDays: 1 },
+  { kind: "resistor", sku: "KBW-RES-2W", name: "Metal-oxide resistor, 2 W", unitCost: "0.6500", specs: { powerRatingW: 2 }, stock: 800, leadTimeDays: 2 },
+  { kind: "resistor", sku: "KBW-RES-5W", name: "Wirewound resistor, 5 W", unitCost: "1.4000", specs: { powerRatingW: 5 }, stock: 400, leadTimeDays: 2 },
+  { kind: "resistor", sku: "KBW-RES-10W", name: "Wirewound resistor, 10 W", unitCost: "3.2000", specs: { powerRatingW: 10 }, stock: 250, leadTimeDays: 3 },
+  {
+    kind: "resistor",
+    sku: "KBW-RES-25W",
+    name: "Aluminium-housed resistor, 25 W",
+    unitCost: "7.8000",
+    specs: { powerRatingW: 25 },
+    stock: 120,
+    leadTimeDays: 5,
+  },
+  {
+    kind: "resistor",
+    sku: "KBW-RES-50W",
+    name: "Aluminium-housed resistor, 50 W",
+    unitCost: "14.5000",
+    specs: { powerRatingW: 50 },
+    stock: 60,
+    leadTimeDays: 7,
+  },
+  {
+    kind: "resistor",
+    sku: "KBW-RES-100W",
+    name: "Aluminium-housed resistor, 100 W",
+    unitCost: "26.0000",
+    specs: { powerRatingW: 100 },
+    stock: 25,
+    leadTimeDays: 10,
   },
 ];

@@ -1,4 +1,5 @@
 import type { NewCatalogCell, NewCatalogComponent } from "../schema/catalog";
+import { withLifeData } from "./cell-life";
 import { makers } from "./manufacturers";
 
 /*
@@ -12,7 +13,7 @@ import { makers } from "./manufacturers";
  * C·dV/dt at the rated pulse slope (all common practice, from memory).
  * Plain data: no database access here; the seed script adds shopId.
  */
-export const marlowCells: Omit<NewCatalogCell, "shopId">[] = [
+export const marlowCells: Omit<NewCatalogCell, "shopId">[] = withLifeData([
   // film: Tarnwick boxes (pulse, snubber, high voltage)
   {
     sku: "TD-PB-105K-1200",
@@ -888,7 +889,7 @@ export const marlowCells: Omit<NewCatalogCell, "shopId">[] = [
     stock: 0,
     leadTimeDays: 49,
   },
-];
+]);
 
 /** Balancing boards, interconnects, terminal sets and enclosures for the bill of materials. */
 export const marlowComponents: Omit<NewCatalogComponent, "shopId">[] = [
@@ -1039,5 +1040,78 @@ export const marlowComponents: Omit<NewCatalogComponent, "shopId">[] = [
     specs: { volumeM3: 0.4, ipRating: "IP54" },
     stock: 0,
     leadTimeDays: 42,
+  },
+  // balancing and bleeder resistors, one per power class: a bank takes the smallest class that covers twice the part's dissipation
+  {
+    kind: "resistor",
+    sku: "MP-RS-0W5HV",
+    name: "High-voltage thick-film resistor, 0.5 W",
+    unitCost: "0.4500",
+    specs: { powerRatingW: 0.5 },
+    stock: 1200,
+    leadTimeDays: 2,
+  },
+  {
+    kind: "resistor",
+    sku: "MP-RS-1WHV",
+    name: "High-voltage thick-film resistor, 1 W",
+    unitCost: "0.8000",
+    specs: { powerRatingW: 1 },
+    stock: 900,
+    leadTimeDays: 2,
+  },
+  {
+    kind: "resistor",
+    sku: "MP-RS-2WHV",
+    name: "High-voltage thick-film resistor, 2 W",
+    unitCost: "1.4000",
+    specs: { powerRatingW: 2 },
+    stock: 600,
+    leadTimeDays: 3,
+  },
+  {
+    kind: "resistor",
+    sku: "MP-RS-5WHV",
+    name: "High-voltage wirewound resistor, 5 W",
+    unitCost: "3.1000",
+    specs: { powerRatingW: 5 },
+    stock: 300,
+    leadTimeDays: 5,
+  },
+  {
+    kind: "resistor",
+    sku: "MP-RS-10WHV",
+    name: "High-voltage wirewound resistor, 10 W",
+    unitCost: "6.2000",
+    specs: { powerRatingW: 10 },
+    stock: 150,
+    leadTimeDays: 7,
+  },
+  {
+    kind: "resistor",
+    sku: "MP-RS-25WHV",
+    name: "Aluminium-housed high-voltage resistor, 25 W",
+    unitCost: "12.5000",
+    specs: { powerRatingW: 25 },
+    stock: 60,
+    leadTimeDays: 10,
+  },
+  {
+    kind: "resistor",
+    sku: "MP-RS-50WHV",
+    name: "Aluminium-housed high-voltage resistor, 50 W",
+    unitCost: "22.0000",
+    specs: { powerRatingW: 50 },
+    stock: 30,
+    leadTimeDays: 14,
+  },
+  {
+    kind: "resistor",
+    sku: "MP-RS-100WHV",
+    name: "Aluminium-housed high-voltage resistor, 100 W",
+    unitCost: "39.0000",
+    specs: { powerRatingW: 100 },
+    stock: 12,
+    leadTimeDays: 21,
   },
 ];

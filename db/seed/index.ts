@@ -6,14 +6,15 @@ import { randomUUID } from "node:crypto";
 import { hashPassword } from "better-auth/crypto";
 import { count } from "drizzle-orm";
 import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank/types";
-import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
+import { DEFAULT_PRICING_RULES, type PricingRules } from "@/lib/pricing";
 import type { Db } from "../client";
 import { accounts, catalogCells, catalogComponents, members, shopSettings, shops, users, type NewCatalogCell, type NewCatalogComponent } from "../schema";
 import { kestrelCells, kestrelComponents } from "./catalog-kestrel";
 import { marlowCells, marlowComponents } from "./catalog-marlow";
 import { DEMO_PASSWORD, demoPeople, demoShops, type DemoPerson, type DemoShopPeople } from "./people";
+import { demoPricingRules } from "./pricing-rules";
 
-export { DEMO_PASSWORD, demoPeople, demoShops };
+export { DEMO_PASSWORD, demoPeople, demoPricingRules, demoShops };
 
 /** Each demo shop's catalog (tests copy them into shops of their own). */
 export const demoCatalogs = {
@@ -41,10 +42,12 @@ export interface ShopSeed {
   tagline?: string;
   description?: string;
   people: DemoShopPeople;
+  /** the shop's pricing rules (default: the defaults in its currency) */
+  pricingRules?: PricingRules;
   catalog: { cells: Omit<NewCatalogCell, "shopId">[]; components: Omit<NewCatalogComponent, "shopId">[] };
 }
 
-/** Loads one shop with the default design factors and pricing rules; answers its id and its people's user ids. */
+/** Loads one shop with the default design factors and its pricing rules; answers its id and its people's user ids. */
 export async function seedShop(db: Db, shop: ShopSeed, passwordHash: string): Promise<{ shopId: string; userIds: Map<string, string> }> {
   const shopId = randomUUID();
   await db.insert(shops).values({ id: shopId, name: shop.name, slug: shop.slug });
@@ -54,7 +57,7 @@ export async function seedShop(db: Db, shop: ShopSeed, passwordHash: string): Pr
     tagline: shop.tagline,
     description: shop.description,
     designFactors: DEFAULT_DESIGN_FACTORS,
-    pricingRules: { ...DEFAULT_PRICING_RULES, currency: shop.currency },
+    pricingRules: shop.pricingRules ?? { ...DEFAULT_PRICING_RULES, currency: shop.currency },
   });
   const { people } = shop;
   const staff: [DemoPerson, "manager" | "estimator" | "customer"][] = [
@@ -77,6 +80,6 @@ export async function seedShop(db: Db, shop: ShopSeed, passwordHash: string): Pr
 export async function seedDemo(db: Db): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   for (const shop of demoShops) {
-    await seedShop(db, { ...shop, people: demoPeople[shop.slug], catalog: demoCatalogs[shop.slug] }, passwordHash);
+    await seedShop(db, { ...shop, people: demoPeople[shop.slug], pricingRules: demoPricingRules[shop.slug], catalog: demoCatalogs[shop.slug] }, passwordHash);
   }
 }

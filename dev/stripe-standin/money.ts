@@ -5,8 +5,7 @@
  * whole units although ISO gives them two decimals — recalled from Stripe's currency docs); the
  * demo shops price in EUR and GBP, where the two agree.
  */
-import { formatMoney, isKnownCurrency, minorUnits } from "../../lib/pricing/currency";
-import { Dec } from "../../lib/pricing/decimal";
+import { formatMoney, fromMinorUnits, isKnownCurrency } from "../../lib/pricing/currency";
 
 /** Largest amount Stripe takes in one payment: 99,999,999 minor units (eight digits), from memory. */
 export const MAX_AMOUNT = 99_999_999;
@@ -53,8 +52,7 @@ export function minimumAmount(currency: string): number {
 
 /** An integer count of minor units as an exact decimal string: (1234, "eur") → "12.34". */
 export function minorToDecimal(amount: number, currency: string): string {
-  const digits = minorUnits(currency.toUpperCase());
-  return new Dec(amount).dividedBy(new Dec(10).pow(digits)).toFixed(digits);
+  return fromMinorUnits(amount, currency.toUpperCase());
 }
 
 /** For people: (1234, "eur") → "€12.34", with exactly the currency's minor digits. */

@@ -2,7 +2,7 @@ import "server-only";
 /** Attachments: the bytes of uploaded files under UPLOAD_DIR, outside public/, one folder per shop. */
 import { createHash, randomUUID } from "node:crypto";
 import { createReadStream } from "node:fs";
-import { mkdir, writeFile } from "node:fs/promises";
+import { mkdir, rm, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { Readable } from "node:stream";
 import { env } from "@/lib/env";
@@ -27,4 +27,9 @@ export async function storeAttachmentBytes(shopId: string, bytes: Uint8Array): P
 /** The stored bytes as a web stream for a Response body. */
 export function attachmentStream(storageKey: string): ReadableStream<Uint8Array> {
   return Readable.toWeb(createReadStream(fileOf(storageKey))) as ReadableStream<Uint8Array>;
+}
+
+/** Removes stored bytes that nothing points at any more (a replaced datasheet); a missing file is fine. */
+export async function removeStoredBytes(storageKey: string): Promise<void> {
+  await rm(fileOf(storageKey), { force: true });
 }

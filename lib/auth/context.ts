@@ -3,6 +3,7 @@ import { headers } from "next/headers";
 import { cache } from "react";
 import { getMemberRole } from "@/db/queries/members";
 import { getShopBySlug } from "@/db/queries/shops";
+import type { ApiKeyScope } from "./api-key-scopes";
 import type { Role } from "./permissions";
 import { auth } from "./server";
 
@@ -10,6 +11,16 @@ export interface ShopContext {
   user: { id: string; name: string; email: string };
   shop: { id: string; slug: string; name: string };
   role: Role;
+  /**
+   * Set when a shop's API key made the request (lib/auth/api-keys.ts): then `user` is the person
+   * who created the key (who answers for it) and `role` is staff, but only the key's scopes count.
+   */
+  apiKey?: { id: string; name: string; scopes: readonly ApiKeyScope[] };
+}
+
+/** Who acted, for the audit log: the signed-in person, or the API key (never both). */
+export function actorOf(ctx: ShopContext): { actorUserId: string | null; actorKeyId: string | null } {
+  return ctx.apiKey ? { actorUserId: null, actorKeyId: ctx.apiKey.id } : { actorUserId: ctx.user.id, actorKeyId: null };
 }
 
 /** Who is asking in a shop: a member with a role, or one of the three ways not to be one. */

@@ -4,7 +4,11 @@ import { forbidden, notFound, redirect } from "next/navigation";
 import type { z } from "zod";
 import { env } from "@/lib/env";
 import { jsonError } from "@/lib/http/json-error";
+import { limits, tooManyRequests } from "@/lib/http/limits";
 import { crossOriginRefusal } from "@/lib/http/origin";
+import { getShopBySlug } from "@/db/queries/shops";
+import { keyAllows } from "./api-key-scopes";
+import { bearerToken, recordKeyCall, resolveApiKey } from "./api-keys";
 import { NUL_MESSAGE, findNul } from "@/lib/validation/text";
 import { getShopContext, resolveShopContext, type ContextResult, type ShopContext } from "./context";
 import { can, type Permission, type Role } from "./permissions";
@@ -79,15 +83,55 @@ export async function requireShopPage(shopSlug: string, access?: Access, next?: 
   forbidden();
 }
 
+export interface ShopApiOptions {
+  /**
+   * "not-found": a signed-in person who is not a member of this shop (a member of another shop)
+   * gets 404, as if the shop did not exist — for staff routes whose URL should not tell outsiders
+   * anything. By default they get 403.
+   */
+  outsiders?: "forbidden" | "not-found";
+}
+
 /**
  * For route handlers: the context from the request itself, or the refusal as JSON before the handler runs.
  * A write (any method but GET/HEAD/OPTIONS) sent by a page of another site is refused first (403).
+ *
+ * A request with `Authorization: Bearer <key>` is a shop API key's (lib/auth/api-keys.ts): an
+ * unknown or revoked key is 401, a key whose scopes do not cover `access` 403 (one mapping:
+ * lib/auth/api-key-scopes.ts), past its rate limit 429; every call with a known key, answered or
+ * refused, goes into the shop's audit log.
  */
-export async function withShopApi(request: Request, shopSlug: string, access: Access, handler: (ctx: ShopContext) => Promise<Response>): Promise<Response> {
+export async function withShopApi(
+  request: Request,
+  shopSlug: string,
+  access: Access,
+  handler: (ctx: ShopContext) => Promise<Response>,
+  options: ShopApiOptions = {},
+): Promise<Response> {
   const crossOrigin = crossOriginRefusal(request, env.APP_ORIGINS);
   if (crossOrigin) return crossOrigin;
+  const token = bearerToken(request.headers);
+  if (token !== null) return withKey(request, shopSlug, token, access, handler);
   const r = authorize(await resolveShopContext(request.headers, shopSlug), access);
-  return r.ok ? handler(r.ctx) : refusedResponse(r.refusal);
+  if (r.ok) return handler(r.ctx);
+  return refusedResponse(r.refusal === "not-member" && options.outsiders === "not-found" ? "no-shop" : r.refusal);
+}
+
+async function withKey(request: Request, shopSlug: string, token: string, access: Access, handler: (ctx: ShopContext) => Promise<Response>) {
+  const shop = await getShopBySlug(shopSlug);
+  if (!shop) return refusedResponse("no-shop");
+  const key = await resolveApiKey(shop, token);
+  if (key.status === "invalid") return jsonError(401, "This API key is not valid for this shop.", undefined, { headers: { "www-authenticate": "Bearer" } });
+  const keyId = key.status === "ok" ? (key.ctx.apiKey?.id ?? "") : key.keyId;
+  let answer: Response;
+  if (key.status === "revoked") answer = jsonError(401, "This API key has been revoked.", undefined, { headers: { "www-authenticate": "Bearer" } });
+  else if (!keyAllows(key.ctx.apiKey?.scopes ?? [], access)) answer = jsonError(403, "This API key's scopes do not allow this.");
+  else {
+    const gate = await limits.apiKey.hit(keyId);
+    answer = gate.allowed ? await handler(key.ctx) : tooManyRequests(gate);
+  }
+  await recordKeyCall(shop.id, keyId, request, answer.status);
+  return answer;
 }
 
 function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
@@ -102,6 +146,19 @@ function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
 /** An action's answer to input its schema refused: the messages go back onto the fields. */
 export function invalidResult(error: z.ZodError): { ok: false; code: "invalid"; message: string; fieldErrors: Record<string, string[]> } {
   return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors: fieldErrorsOf(error) };
+}
+
+/** An action's answer to input refused field by field by our own readers (messages keyed by field path). */
+export function invalidFields(errors: Record<string, string | string[]> | readonly { field: string; message: string }[]): {
+  ok: false;
+  code: "invalid";
+  message: string;
+  fieldErrors: Record<string, string[]>;
+} {
+  const fieldErrors: Record<string, string[]> = {};
+  if (Array.isArray(errors)) for (const e of errors as readonly { field: string; message: string }[]) (fieldErrors[e.field] ??= []).push(e.message);
+  else for (const [k, v] of Object.entries(errors as Record<string, string | string[]>)) fieldErrors[k] = Array.isArray(v) ? v : [v];
+  return { ok: false, code: "invalid", message: "Please correct the marked fields.", fieldErrors };
 }
 
 /**

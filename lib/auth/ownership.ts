@@ -2,18 +2,19 @@ import type { ShopContext } from "./context";
 import { can, type Permission } from "./permissions";
 
 /**
- * Who sees which owned records, in one place: a customer sees only their own quotes, requests and
- * files; the shop's staff see all of the shop's. Every page, route handler and action that reads an
+ * Who sees which owned records, in one place: a customer sees only their own quotes, requests,
+ * files and orders; the shop's staff see all of the shop's. Every page, route handler and action that reads an
  * owned record asks here. A record the member may not see answers "not found", never "forbidden",
  * so ids and numbers cannot be probed.
  */
-type Owned = "quote" | "request" | "attachment";
+type Owned = "quote" | "request" | "attachment" | "order";
 
 const RULES: Record<Owned, { all: Permission; own: Permission }> = {
   quote: { all: "quote:read-all", own: "quote:read-own" },
   request: { all: "request:read-all", own: "request:read-own" },
   // a drawing belongs to the request it was uploaded for
   attachment: { all: "request:read-all", own: "request:read-own" },
+  order: { all: "order:read-all", own: "order:read-own" },
 };
 
 /** The permissions that let a member read some records of this kind: for a guard's `access`. */

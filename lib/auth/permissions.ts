@@ -11,10 +11,14 @@ export const STATEMENTS = {
   pricing: ["read", "write"],
   request: ["create", "read-own", "read-all", "review"],
   quote: ["read-own", "read-all", "issue", "accept"],
-  order: ["read-own", "read-all", "update-status"],
+  order: ["read-own", "read-all", "update-status", "refund"],
   team: ["read", "update-role"],
   settings: ["read", "write"],
   outbox: ["read"],
+  reports: ["read"],
+  webhook: ["manage"],
+  /** the shop's API keys for its own systems: make, see, revoke */
+  apikey: ["manage"],
 } as const;
 
 type Statements = typeof STATEMENTS;

@@ -1,9 +1,23 @@
-import { formatQuantity } from "../quantities";
+import { formatDuration, formatQuantity } from "../quantities";
 import { sizeBalancing, sizeBleeder, type BalancingResult, type BleederResult } from "./balancing";
 import { MAX_CELLS_PER_BANK, MAX_LONGER_STRINGS, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from "./bounds";
 import { constantPowerSeconds } from "./discharge";
 import { storedEnergy as storedEnergyOf, usableEnergy as usableEnergyOf } from "./energy";
-import { TECHNOLOGIES, type BalancingBoard, type DesignFactors, type EngineCell, type Requirement, type Technology, type Topology } from "./types";
+import { analyzeOptionFailures, optionFailureCases, survivesFault, type FailureModeSummary, type OptionFailureCase, type OptionFailureInput } from "./failures";
+import { checkStandby, shippingNotes, standingHeat, standingHeatWarning, technologyCautions, type StandbyCheck, type StandingHeat } from "./handling";
+import { cappedLifeHours, DEFAULT_AMBIENT_TEMPERATURE, estimateOptionLife, HOURS_PER_YEAR, lifeFactors, type LifeCell } from "./life";
+import { DEFAULT_RELIABILITY_SETTINGS, type ReliabilitySettings } from "./reliability-settings";
+import type { ToleranceDistribution } from "./tolerance";
+import {
+  TECHNOLOGIES,
+  type BalancingBoard,
+  type DesignFactors,
+  type EngineCell,
+  type FaultFilter,
+  type Requirement,
+  type Technology,
+  type Topology,
+} from "./types";
 
 /** Stored energy above which the burn and arc caution is shown (common practice: 10 J, from memory). */
 export const HIGH_ENERGY_CAUTION_J = 10;
@@ -26,7 +40,77 @@ export type ArrangementCellFigures = Pick<
   | "peakCurrent"
   | "mass"
   | "volume"
->;
+> & {
+  /** the cell's minimum voltage (V), null when it may go to 0 V */
+  minVoltage: number | null;
+};
+
+/** What one failed cell of a kind does to an option (analyzeOptionFailures, at V_max, matched cells at their worst). */
+export interface OptionFailureVerdict {
+  /** every single fault of this kind leaves the bank working, every remaining cell within surge */
+  survives: boolean;
+  /** … and every remaining cell within its rating */
+  withinRating: boolean;
+  /** the fault shorts the whole bank */
+  shortCircuit: boolean;
+  /** capacitance after the fault (F), null on a short circuit */
+  capacitance: number | null;
+  /** the highest voltage on a remaining cell (V) */
+  maxCellVoltage: number;
+  /** "Survives one shorted cell: no — the other cells of that string reach 3.1 V, surge 2.85 V." */
+  text: string;
+}
+
+/** Temperature and expected life of an option's cells in service (lib/bank/life.ts). */
+export interface OptionLife {
+  /** the ambient the estimate is for (°C) */
+  ambientTemperature: number;
+  /** no ambient was stated: DEFAULT_AMBIENT_TEMPERATURE is assumed */
+  ambientAssumed: boolean;
+  /** each cell's working voltage V_max/N_s (V) and rms current I_rms/N_p (A) */
+  cellVoltage: number;
+  cellRmsCurrent: number;
+  /** I²·ESR per cell (W) and the self-heating ΔT it causes (K) */
+  dissipation: number;
+  selfHeating: number;
+  cellTemperature: number;
+  /** the top of the cell's range (°C) */
+  maxTemperature: number;
+  temperatureFactor: number;
+  voltageFactor: number;
+  lifeHours: number | null;
+  lifeYears: number | null;
+  /** the life reached the shop's ceiling */
+  capped: boolean;
+  /** why the cell cannot run there; null when it can */
+  refusal: string | null;
+  /** the bank at the bottom of the cell's range, where the catalog gives cold factors */
+  cold: null | { temperature: number | null; capacitance: number | null; esr: number | null };
+  assumptions: string[];
+}
+
+/** Each technology's limits and handling for an option (lib/bank/handling.ts). */
+export interface OptionHandling {
+  /** the cell's minimum voltage (V), null when it may go to 0 V */
+  minCellVoltage: number | null;
+  /** N_s × that minimum: the bank must never be taken below it (V) */
+  floorVoltage: number | null;
+  /** standby drain through the balancing resistors, for cells with a minimum voltage */
+  standby: StandbyCheck | null;
+  /** heat of the balancing resistors (and a continuous bleeder) in the enclosure */
+  standingHeat: StandingHeat;
+  /** transport classification and how to ship */
+  shipping: string[];
+}
+
+/** What an option's tolerance yield is computed from (lib/bank/option-yield.ts), so a frozen option reproduces it. */
+export interface YieldBasis {
+  /** the shop's grading m: each cell's tolerance band clipped to ±m */
+  matchingTolerance: number;
+  distribution: ToleranceDistribution;
+  /** end-of-life capacitance fade f_C: the requirement is checked at end of life */
+  capacitanceFade: number;
+}
 
 export interface ArrangementOption {
   cell: ArrangementCellFigures;
@@ -82,6 +166,12 @@ export interface ArrangementOption {
   leadTimeDays: number;
   warnings: string[];
   cautions: string[];
+  /** one shorted cell and one open cell, at V_max (DESIGN §3.5) */
+  failures: { short: OptionFailureVerdict; open: OptionFailureVerdict };
+  /** temperature and expected life; null when the catalog gives no life data for the cell */
+  life: OptionLife | null;
+  handling: OptionHandling;
+  yieldBasis: YieldBasis;
 }
 
 /**
@@ -123,6 +213,8 @@ export interface ArrangementSearchInput {
    * longer-life variant, DESIGN §3.2); an estimator may allow more, up to MAX_LONGER_STRINGS.
    */
   longerStrings?: number;
+  /** the shop's failure, yield and life settings (default DEFAULT_RELIABILITY_SETTINGS) */
+  reliability?: ReliabilitySettings;
 }
 
 export interface ArrangementSearchResult {
@@ -135,7 +227,7 @@ const TOPO_STRINGS = 1; // index in TOPOLOGIES (0 is series-of-parallel-groups)
 const TOPOLOGIES: readonly Topology[] = ["series-of-parallel-groups", "parallel-of-series-strings"];
 
 /** what set N_p; 'string': even one string is beyond the mass, volume or cell-count limit */
-type Driver = "capacitance" | "energy" | "backup" | "esr" | "peak" | "string" | "none";
+type Driver = "capacitance" | "energy" | "backup" | "esr" | "peak" | "rms" | "thermal" | "string" | "none";
 type Limit = "mass" | "volume" | "count";
 
 interface TechnologyTally {
@@ -149,6 +241,17 @@ interface TechnologyTally {
   missLimit: Limit;
   /** N_s of the nearest miss */
   missSeries: number;
+  /** cells whose range excludes the ambient: [too hot, too cold] */
+  tooHot: number;
+  tooCold: number;
+  /** the shortest string whose cells would sit below their minimum voltage at V_min (0: none met) */
+  floorSeries: number;
+  floorCellMin: number;
+  /** candidates the customer's filters set aside: not surviving the fault, too short a life */
+  faultFiltered: number;
+  lifeFiltered: number;
+  /** the longest life among the candidates set aside for it (years) */
+  bestFilteredLife: number;
 }
 
 function isPositive(x: number): boolean {
@@ -160,6 +263,9 @@ function isNonNegative(x: number): boolean {
 }
 
 function validCell(c: EngineCell): boolean {
+  const min = c.minVoltage ?? 0;
+  // a hybrid cell must say how low it may go (its minimum is what keeps it whole)
+  if (c.technology === "hybrid" ? !(isPositive(min) && min < c.ratedVoltage) : !(isNonNegative(min) && min < c.ratedVoltage)) return false;
   return (
     isPositive(c.capacitance) &&
     isPositive(c.ratedVoltage) &&
@@ -195,7 +301,7 @@ export function worstCaseCellVoltage(maxVoltage: number, seriesCount: number, ma
   return maxVoltage / (1 + (seriesCount - 1) * ((1 - m) / (1 + m)));
 }
 
-const NUMBER_FIELDS = ["maxVoltage", "minVoltage", "capacitance", "energy", "maxMass", "maxVolume", "quantity"] as const;
+const NUMBER_FIELDS = ["maxVoltage", "minVoltage", "capacitance", "energy", "maxMass", "maxVolume", "quantity", "rmsCurrent", "minLifeYears"] as const;
 
 /** Refuses (RangeError) a requirement or design factors no search can mean; bounds are the schemas' job. */
 function checkInputs(req: Requirement, f: DesignFactors): void {
@@ -214,6 +320,7 @@ function checkInputs(req: Requirement, f: DesignFactors): void {
   ] as const) {
     if (v !== undefined && !(Number.isFinite(v) && v >= 0)) bad(what);
   }
+  if (req.ambientTemperature !== undefined && !(Number.isFinite(req.ambientTemperature) && req.ambientTemperature >= -273.15)) bad("ambientTemperature");
   if (!(req.maxVoltage > 0)) bad("maxVoltage");
   const vMin = req.minVoltage ?? 0;
   if (!(vMin < req.maxVoltage)) throw new RangeError("minVoltage must be at least 0 and below maxVoltage");
@@ -312,6 +419,25 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const derating = factors.voltageDerating;
   const fade = factors.capacitanceFade;
   const growth = factors.esrGrowth;
+  const reliability = input.reliability ?? DEFAULT_RELIABILITY_SETTINGS;
+  const ambientStated = req.ambientTemperature !== undefined;
+  const ambient = req.ambientTemperature ?? DEFAULT_AMBIENT_TEMPERATURE;
+  const rms = req.rmsCurrent ?? 0;
+  const survives: FaultFilter | null = req.survives ?? null;
+  const minLifeHours = req.minLifeYears !== undefined && req.minLifeYears > 0 ? req.minLifeYears * HOURS_PER_YEAR : 0;
+  const byLife = req.rankBy === "life";
+  // Survival of one fault depends only on the topology, the counts and the cell's two voltage
+  // ratings: cells that share them share the answer (most of a catalog does).
+  const survival = new Map<string, boolean>();
+  const survivalOf = (cell: EngineCell, t: number, ns: number, np: number): boolean => {
+    const key = `${t}|${ns}|${np}|${cell.ratedVoltage}|${cell.surgeVoltage}`;
+    let ok = survival.get(key);
+    if (ok === undefined) {
+      ok = survivesFaults(survives ?? "both", cell, TOPOLOGIES[t] as Topology, ns, np, vMax, m);
+      survival.set(key, ok);
+    }
+    return ok;
+  };
 
   // the caps, read once (module bindings are getters in some bundles)
   const maxSeries = MAX_SERIES_COUNT;
@@ -320,7 +446,22 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
 
   const tallies = new Map<Technology, TechnologyTally>();
   for (const t of TECHNOLOGIES) {
-    tallies.set(t, { cells: 0, invalid: 0, seriesBound: 0, missRatio: Infinity, missDriver: "none", missLimit: "count", missSeries: 0 });
+    tallies.set(t, {
+      cells: 0,
+      invalid: 0,
+      seriesBound: 0,
+      missRatio: Infinity,
+      missDriver: "none",
+      missLimit: "count",
+      missSeries: 0,
+      tooHot: 0,
+      tooCold: 0,
+      floorSeries: 0,
+      floorCellMin: 0,
+      faultFiltered: 0,
+      lifeFiltered: 0,
+      bestFilteredLife: 0,
+    });
   }
 
   // Candidate store: one row per (cell, N_s, topology), structure of arrays, no per-candidate objects.
@@ -336,6 +477,8 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const cMass = new Float64Array(capacity);
   const cVolume = new Float64Array(capacity);
   const cLead = new Float64Array(capacity);
+  /** expected life (h) for ranking by life; −1 when the catalog gives no life data */
+  const cLife = new Float64Array(capacity);
   let count = 0;
 
   for (let ci = 0; ci < cells.length; ci++) {
@@ -353,6 +496,23 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
     const surge = Math.max(cell.surgeVoltage, vr);
     const cd = cn * (1 - cell.toleranceMinus) * (1 - fade);
     const esrEol = cell.esr * (1 + growth);
+    const cellMin = cell.minVoltage ?? 0;
+    const life = lifeCellOf(cell);
+    const thermal = cell.thermal ?? null;
+    const maxT = thermal?.maxTemperature ?? null;
+    const minT = thermal?.minTemperature ?? null;
+
+    // The cell's temperature range must hold the stated ambient (DESIGN §3.5).
+    if (ambientStated && maxT !== null && ambient > maxT) {
+      tally.tooHot++;
+      continue;
+    }
+    if (ambientStated && minT !== null && ambient < minT) {
+      tally.tooCold++;
+      continue;
+    }
+    // A cell with a minimum voltage (hybrid) must stay above it at V_min: N_s ≤ V_min / V_cell,min.
+    const nsFloor = cellMin > 0 ? floorSafe(vMin / cellMin) : Infinity;
 
     // The fewest cells the voltage needs, checked as an integer before any string is tried.
     const nsVoltage = Math.max(1, ceilSafe(vMax / (derating * vr)));
@@ -386,6 +546,13 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
 
     // the shortest safe string, then `longer` more (by default one: the longer-life variant)
     for (let ns = nsSafe; ns <= nsSafe + longer && ns <= maxSeries; ns++) {
+      if (ns > nsFloor) {
+        if (tally.floorSeries === 0 || ns < tally.floorSeries) {
+          tally.floorSeries = ns;
+          tally.floorCellMin = cellMin;
+        }
+        continue;
+      }
       const board = stringBalancing(vMax, ns, m, vr, surge, boards);
       if (board === DOES_NOT_FIT) continue;
       const perString = board >= 0 ? boardsPerString(ns, boards[board] as BalancingBoard) : 0;
@@ -401,6 +568,16 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       if (peakI > 0) {
         if ((n = countAtLeast((esrEol * ns * peakI) / maxDrop)) > npNeed) [npNeed, driver] = [n, "esr"];
         if ((n = countAtLeast(cell.peakCurrent > 0 ? peakI / cell.peakCurrent : Infinity)) > npNeed) [npNeed, driver] = [n, "peak"];
+      }
+      if (rms > 0) {
+        // each parallel path carries I_rms/N_p: within the continuous rating, and self-heating
+        // (I_rms/N_p)²·ESR·R_th within the headroom from the ambient to the top of the range
+        if (cell.continuousCurrent > 0 && (n = countAtLeast(rms / cell.continuousCurrent)) > npNeed) [npNeed, driver] = [n, "rms"];
+        const rth = thermal?.thermalResistance ?? null;
+        if (maxT !== null && rth !== null && rth > 0) {
+          const headroom = maxT - ambient;
+          if ((n = headroom > 0 ? countAtLeast(rms * Math.sqrt((cell.esr * rth) / headroom)) : Infinity) > npNeed) [npNeed, driver] = [n, "thermal"];
+        }
       }
 
       // Upper bounds on N_p from the mass, volume and cell-count limits.
@@ -469,6 +646,18 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
         }
       }
 
+      // expected life, for the customer's filter and ranking (numbers only: O(1) per candidate)
+      let lifeHours = -1;
+      if ((minLifeHours > 0 || byLife) && life) {
+        const f = lifeFactors(life, ambient, vMax / ns, rms / np, reliability.voltageDoublingStep[cell.technology]);
+        lifeHours = cappedLifeHours(life.ratedLifeHours, f.temperatureFactor, f.voltageFactor, reliability);
+      }
+      if (minLifeHours > 0 && lifeHours < minLifeHours * (1 - 1e-12)) {
+        tally.lifeFiltered++;
+        if (lifeHours > 0) tally.bestFilteredLife = Math.max(tally.bestFilteredLife, lifeHours / HOURS_PER_YEAR);
+        continue;
+      }
+
       const cellCount = ns * np;
       const cellCost = cellCount * cell.unitCost;
       const mass = cellCount * cell.mass;
@@ -479,6 +668,10 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       // one topology when both are the same circuit (a single string or a single group)
       const topologies = ns === 1 || np === 1 ? 1 : 2;
       for (let t = 0; t < topologies; t++) {
+        if (survives !== null && !survivalOf(cell, t, ns, np)) {
+          tally.faultFiltered++;
+          continue;
+        }
         const boardCount = bd ? (t === TOPO_STRINGS ? perString * np : perString) : 0;
         cCell[count] = ci;
         cNs[count] = ns;
@@ -494,6 +687,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
         cMass[count] = mass;
         cVolume[count] = volume;
         cLead[count] = lead;
+        cLife[count] = lifeHours;
         count++;
       }
     }
@@ -503,6 +697,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   // or one sort when most candidates are wanted.
   const compare = (a: number, b: number): number => {
     const d =
+      (byLife ? (cLife[b] as number) - (cLife[a] as number) : 0) ||
       (cCost[a] as number) - (cCost[b] as number) ||
       (cMass[a] as number) - (cMass[b] as number) ||
       (cVolume[a] as number) - (cVolume[b] as number) ||
@@ -540,6 +735,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       lead: cLead[i] as number,
       req,
       factors,
+      reliability,
       quantity,
     });
   });
@@ -560,7 +756,19 @@ function fmt(value: number, unit: string): string {
 
 function reasonFor(tech: Technology, tally: TechnologyTally, req: Requirement): string {
   if (tally.cells === 0) return `${tech}: no ${tech} cells in the catalog`;
-  if (tally.invalid === tally.cells) return `${tech}: no cell has complete electrical data`;
+  if (tally.invalid === tally.cells) {
+    return `${tech}: no cell has complete electrical data${tech === "hybrid" ? " (a hybrid cell needs its minimum voltage)" : ""}`;
+  }
+  // sized, but set aside by the customer's own filters
+  if (tally.faultFiltered > 0 || tally.lifeFiltered > 0) {
+    const parts: string[] = [];
+    if (tally.faultFiltered > 0) parts.push(`none survives ${faultWords(req.survives ?? "both")}`);
+    if (tally.lifeFiltered > 0) {
+      const best = tally.bestFilteredLife > 0 ? ` (the longest: ${tally.bestFilteredLife.toFixed(1)} years)` : " (no life data for these cells)";
+      parts.push(`none is expected to last ${req.minLifeYears ?? 0} years${best}`);
+    }
+    return `${tech}: of the arrangements that fit, ${parts.join(" and ")}`;
+  }
   if (tally.missDriver !== "none") {
     const within =
       tally.missLimit === "mass" ? fmt(req.maxMass ?? 0, "kg") : tally.missLimit === "volume" ? fmt(req.maxVolume ?? 0, "m³") : `${MAX_CELLS_PER_BANK} cells`;
@@ -579,15 +787,89 @@ function reasonFor(tech: Technology, tally: TechnologyTally, req: Requirement): 
       case "esr":
         need = `a drop of at most ${fmt(req.peakCurrent?.maxDrop ?? 0, "V")} at ${fmt(req.peakCurrent?.current ?? 0, "A")}`;
         break;
+      case "rms":
+        need = `${fmt(req.rmsCurrent ?? 0, "A")} rms within the cells' continuous rating`;
+        break;
+      case "thermal":
+        need = `${fmt(req.rmsCurrent ?? 0, "A")} rms without heating its cells past their maximum temperature at ${degrees(req.ambientTemperature ?? DEFAULT_AMBIENT_TEMPERATURE)}`;
+        break;
       default:
         need = `${fmt(req.peakCurrent?.current ?? 0, "A")} peak current`;
     }
     return `${tech}: no cell reaches ${need} within ${within}`;
   }
+  if (tally.floorSeries > 0) {
+    const ns = tally.floorSeries;
+    const vMin = req.minVoltage ?? 0;
+    return `${tech}: a safe string needs ${ns} cells in series, and at the ${fmt(vMin, "V")} minimum each would sit at ${fmt(vMin / ns, "V")}, below the cells' ${fmt(tally.floorCellMin, "V")} minimum; such a bank needs a minimum voltage of at least ${fmt(ns * tally.floorCellMin, "V")}`;
+  }
+  if (tally.tooHot + tally.tooCold > 0) {
+    return `${tech}: the ${degrees(req.ambientTemperature ?? DEFAULT_AMBIENT_TEMPERATURE)} ambient is outside every cell's temperature range`;
+  }
   if (tally.seriesBound > 0) {
     return `${tech}: at ${fmt(req.maxVoltage, "V")} no cell stays within its ratings in a string of at most ${MAX_SERIES_COUNT.toLocaleString("en-GB")} cells in series (the search's bound)`;
   }
   return `${tech}: no cell fits`;
+}
+
+function degrees(x: number): string {
+  return `${Number(x.toFixed(1))} °C`;
+}
+
+function faultWords(f: FaultFilter): string {
+  return f === "short" ? "one shorted cell" : f === "open" ? "one open cell" : "one shorted and one open cell";
+}
+
+/** The cell's life data in the form lib/bank/life.ts reads; null without a rated life and a top temperature. */
+function lifeCellOf(cell: EngineCell): LifeCell | null {
+  const t = cell.thermal;
+  if (!t || t.ratedLifeHours === null || !(t.ratedLifeHours > 0) || t.maxTemperature === null || !Number.isFinite(t.maxTemperature)) return null;
+  const life: LifeCell = {
+    technology: cell.technology,
+    ratedVoltage: cell.ratedVoltage,
+    esr: cell.esr,
+    capacitance: cell.capacitance,
+    ratedLifeHours: t.ratedLifeHours,
+    maxTemperature: t.maxTemperature,
+    thermalResistance: t.thermalResistance !== null && t.thermalResistance >= 0 ? t.thermalResistance : 0,
+  };
+  if (t.ratedTemperature !== null) life.ratedTemperature = t.ratedTemperature;
+  if (t.minTemperature !== null) life.minTemperature = t.minTemperature;
+  if (t.coldCapacitanceFactor !== null || t.coldEsrFactor !== null) {
+    life.coldFactors = {
+      ...(t.coldCapacitanceFactor !== null ? { capacitance: t.coldCapacitanceFactor } : {}),
+      ...(t.coldEsrFactor !== null ? { esr: t.coldEsrFactor } : {}),
+    };
+  }
+  return life;
+}
+
+/** The one-cell failure analysis of an arrangement: at V_max, with matched cells at their worst. */
+function failureInput(cell: EngineCell, topology: Topology, ns: number, np: number, vMax: number, m: number): OptionFailureInput {
+  return {
+    cell: { capacitance: cell.capacitance, ratedVoltage: cell.ratedVoltage, surgeVoltage: Math.max(cell.surgeVoltage, cell.ratedVoltage) },
+    topology,
+    seriesCount: ns,
+    parallelCount: np,
+    appliedVoltage: vMax,
+    matchingTolerance: m,
+  };
+}
+
+function survivesFaults(filter: FaultFilter, cell: EngineCell, topology: Topology, ns: number, np: number, vMax: number, m: number): boolean {
+  const { cases } = optionFailureCases(failureInput(cell, topology, ns, np, vMax, m));
+  return (filter === "open" || survivesFault(cases.short)) && (filter === "short" || survivesFault(cases.open));
+}
+
+function verdictOf(summary: FailureModeSummary, c: OptionFailureCase): OptionFailureVerdict {
+  return {
+    survives: summary.survives,
+    withinRating: summary.withinRating,
+    shortCircuit: c.shortCircuit,
+    capacitance: c.capacitance,
+    maxCellVoltage: c.maxCellVoltage,
+    text: summary.text,
+  };
 }
 
 /** Balancing chain (Infinity when none) and bleeder in parallel; null when the bank has neither. */
@@ -609,6 +891,7 @@ function buildOption(a: {
   lead: number;
   req: Requirement;
   factors: DesignFactors;
+  reliability: ReliabilitySettings;
   quantity: number;
 }): ArrangementOption {
   const { cell, ns, np, req, factors } = a;
@@ -634,14 +917,20 @@ function buildOption(a: {
     resistorSeries: factors.resistorSeries,
   });
   const cWorst = cNominal * (1 + cell.tolerancePlus);
-  const discharge = sizeBleeder({
-    capacitance: cWorst,
-    maxVoltage: vMax,
-    chainResistance: balancing.chainResistance,
-    safeVoltage: factors.safeVoltage,
-    safeTime: factors.safeTime,
-    resistorSeries: factors.resistorSeries,
-  });
+  const minCellVoltage = cell.minVoltage !== undefined && cell.minVoltage !== null && cell.minVoltage > 0 ? cell.minVoltage : null;
+  const floorVoltage = minCellVoltage === null ? null : ns * minCellVoltage;
+  // A cell with a minimum voltage gets no permanent bleeder: it would drain the cells below it.
+  const discharge: BleederResult =
+    minCellVoltage === null || !Number.isFinite(balancing.chainResistance)
+      ? sizeBleeder({
+          capacitance: cWorst,
+          maxVoltage: vMax,
+          chainResistance: balancing.chainResistance,
+          safeVoltage: factors.safeVoltage,
+          safeTime: factors.safeTime,
+          resistorSeries: factors.resistorSeries,
+        })
+      : { secondsToSafe: vMax <= factors.safeVoltage ? 0 : cWorst * balancing.chainResistance * Math.log(vMax / factors.safeVoltage), bleeder: null };
 
   const warnings: string[] = [];
   const needed = cellCount * a.quantity;
@@ -663,6 +952,38 @@ function buildOption(a: {
     warnings.push(`A continuous bleeder would dissipate ${fmt(discharge.bleeder.power, "W")}: a switched discharge circuit is needed instead.`);
   }
 
+  // standby drain: switched off at V_max, the cells must outlast the shop's standby time above their
+  // minimum; the worst case is the cell at its lower tolerance (the least charge to lose)
+  let standby: StandbyCheck | null = null;
+  if (minCellVoltage !== null) {
+    standby = checkStandby(
+      {
+        startVoltage: vMax / ns,
+        minVoltage: minCellVoltage,
+        capacitance: cell.capacitance * (1 - cell.toleranceMinus),
+        leakageCurrent: cell.leakageCurrent,
+        resistance: balancing.resistance,
+        cellsPerResistor: a.topology === "series-of-parallel-groups" ? np : 1,
+      },
+      a.reliability.standbyDays,
+    );
+    if (standby.needsDisconnect) {
+      warnings.push(
+        `Standby drain: switched off, the balancing resistors take each cell from ${fmt(vMax / ns, "V")} to its ${fmt(minCellVoltage, "V")} minimum in ${formatDuration(standby.seconds ?? 0)}, sooner than the shop's ${a.reliability.standbyDays}-day standby: the bank needs a disconnect that opens the balancing circuit while it stands idle (or a recharge within that time).`,
+      );
+    }
+    if (floorVoltage !== null && vMax > factors.safeVoltage && floorVoltage < factors.safeVoltage) {
+      warnings.push(
+        `No bleeder is fitted: a permanent one would drain the hybrid cells below their minimum. Bring the bank to the ${fmt(factors.safeVoltage, "V")} safe voltage with a switched discharge circuit that stops there (the cells must stay above ${fmt(floorVoltage, "V")}).`,
+      );
+    }
+  }
+
+  // standing heat of what dissipates whenever the bank is charged
+  const continuousBleeder = discharge.bleeder && !discharge.bleeder.switched ? discharge.bleeder.power : 0;
+  const heat = standingHeat(balancing.standbyLoss + continuousBleeder, cellCount * cell.volume);
+  if (heat.significant) warnings.push(standingHeatWarning(heat, continuousBleeder > 0));
+
   let backupSeconds: number | undefined;
   if (req.backup && req.backup.power > 0) {
     backupSeconds = constantPowerSeconds(cDesign, esrEol, vMax, req.backup.power, vMin);
@@ -676,18 +997,18 @@ function buildOption(a: {
     }
   }
 
-  const cautions: string[] = [];
-  if (vMax > factors.safeVoltage) {
-    cautions.push(`Shock hazard: the bank works at up to ${fmt(vMax, "V")}, above the ${fmt(factors.safeVoltage, "V")} safe voltage.`);
-  }
-  if (storedEnergy > HIGH_ENERGY_CAUTION_J) {
-    cautions.push(`Burn and arc hazard: the bank stores about ${fmt(storedEnergy, "J")} at ${fmt(vMax, "V")}.`);
-  }
-  cautions.push(
-    "A charged bank keeps its energy after the supply is removed: discharge it and short its terminals before handling.",
-    "Ship discharged, with a shorting link fitted across the terminals.",
-    "These figures are an engineering estimate; local electrical codes and licensed practice decide.",
-  );
+  const cautions = technologyCautions({
+    technology: cell.technology,
+    maxVoltage: vMax,
+    safeVoltage: factors.safeVoltage,
+    storedEnergy,
+    highEnergy: HIGH_ENERGY_CAUTION_J,
+    floorVoltage,
+    minCellVoltage,
+  });
+
+  const analysis = analyzeOptionFailures(failureInput(cell, a.topology, ns, np, vMax, factors.matchingTolerance));
+  const life = optionLife(cell, a.topology, ns, np, req, a.reliability);
 
   const option: ArrangementOption = {
     cell: {
@@ -703,6 +1024,7 @@ function buildOption(a: {
       peakCurrent: cell.peakCurrent,
       mass: cell.mass,
       volume: cell.volume,
+      minVoltage: minCellVoltage,
     },
     cellId: cell.id,
     topology: a.topology,
@@ -739,7 +1061,68 @@ function buildOption(a: {
     leadTimeDays: a.lead,
     warnings,
     cautions,
+    failures: {
+      short: verdictOf(analysis.summary.short, analysis.cases.short),
+      open: verdictOf(analysis.summary.open, analysis.cases.open),
+    },
+    life,
+    handling: {
+      minCellVoltage,
+      floorVoltage,
+      standby,
+      standingHeat: heat,
+      shipping: shippingNotes({ technology: cell.technology, capacitance: cell.capacitance, ratedVoltage: cell.ratedVoltage, minVoltage: minCellVoltage }),
+    },
+    yieldBasis: { matchingTolerance: factors.matchingTolerance, distribution: a.reliability.yieldDistribution, capacitanceFade: factors.capacitanceFade },
   };
   if (backupSeconds !== undefined) option.backupSeconds = backupSeconds;
   return option;
+}
+
+/** The option's temperature and life in service; null when the catalog gives no life data (or figures the estimate refuses). */
+function optionLife(cell: EngineCell, topology: Topology, ns: number, np: number, req: Requirement, settings: ReliabilitySettings): OptionLife | null {
+  const lifeCell = lifeCellOf(cell);
+  if (!lifeCell) return null;
+  const ambientAssumed = req.ambientTemperature === undefined;
+  const ambient = req.ambientTemperature ?? DEFAULT_AMBIENT_TEMPERATURE;
+  let e: ReturnType<typeof estimateOptionLife>;
+  try {
+    e = estimateOptionLife({
+      cell: lifeCell,
+      topology,
+      seriesCount: ns,
+      parallelCount: np,
+      workingVoltage: req.maxVoltage,
+      ambientTemperature: ambient,
+      ...(req.rmsCurrent !== undefined ? { rmsCurrent: req.rmsCurrent } : {}),
+      settings,
+    });
+  } catch (error) {
+    if (error instanceof RangeError) return null;
+    throw error;
+  }
+  const stated: string[] = [];
+  if (ambientAssumed) stated.push(`No ambient temperature was stated: ${degrees(ambient)} is assumed.`);
+  if (req.rmsCurrent === undefined) stated.push("No rms current was stated: the cells are taken not to heat themselves.");
+  else if (cell.thermal?.thermalResistance === null || cell.thermal?.thermalResistance === undefined)
+    stated.push("The catalog gives no thermal resistance for this cell: self-heating is not counted.");
+  const assumptions = [...stated, ...e.assumptions];
+  return {
+    ambientTemperature: ambient,
+    ambientAssumed,
+    cellVoltage: e.cellVoltage,
+    cellRmsCurrent: e.cellRmsCurrent,
+    dissipation: e.dissipation,
+    selfHeating: e.selfHeating,
+    cellTemperature: e.cellTemperature,
+    maxTemperature: lifeCell.maxTemperature,
+    temperatureFactor: e.temperatureFactor,
+    voltageFactor: e.voltageFactor,
+    lifeHours: e.lifeHours,
+    lifeYears: e.lifeYears,
+    capped: e.capped,
+    refusal: e.refusal,
+    cold: e.bankCold ? { temperature: e.cold?.temperature ?? null, capacitance: e.bankCold.capacitance, esr: e.bankCold.esr } : null,
+    assumptions,
+  };
 }

@@ -37,6 +37,18 @@ export const MAX_MASS = 1e6;
 /** 1,000 m³: about thirty shipping containers. */
 export const MAX_VOLUME = 1e3;
 
+/** −100 °C: below the coldest air measured on Earth (about −89 °C, from memory). */
+export const MIN_AMBIENT_TEMPERATURE = -100;
+
+/** 200 °C: above the top of any capacitor's range (film reaches about 125–150 °C, from memory), so no cell runs there. */
+export const MAX_AMBIENT_TEMPERATURE = 200;
+
+/** 100 years: far beyond the life of any capacitor (sealed cells age out within a few decades, common practice). */
+export const MAX_LIFE_YEARS = 100;
+
+/** 10 m: longer than any capacitor cell or bank enclosure (a cell's dimensions in the catalog). */
+export const MAX_LENGTH = 10;
+
 /** Banks per request: a year of a large production line. */
 export const MAX_QUANTITY = 100_000;
 
@@ -66,6 +78,7 @@ export const MAX_BY_UNIT = {
   Ω: MAX_RESISTANCE,
   kg: MAX_MASS,
   "m³": MAX_VOLUME,
+  m: MAX_LENGTH,
 } as const;
 
 /** A bound as people read it in a field message: "2 MV", "1 GJ", "86,400 s", "1,000,000 kg". */

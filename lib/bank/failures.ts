@@ -530,7 +530,7 @@ function summarizeCases(mode: FailureMode, cases: readonly CaseFigures[]): Failu
       minCap = minCap === null ? c.capacitance : Math.min(minCap, c.capacitance);
       maxCap = maxCap === null ? c.capacitance : Math.max(maxCap, c.capacitance);
     }
-    const dead = c.shortCircuit || c.capacitance === 0 || c.pastSurgeCount > 0;
+    const dead = !survivesFault(c);
     if (dead) survives = false;
     if (dead || c.overstressedCount > 0) withinRating = false;
   }
@@ -746,6 +746,32 @@ function cellWord(count: number, what: string): string {
  * any size. Throws RangeError on counts below 1 or non-positive figures.
  */
 export function analyzeOptionFailures(input: OptionFailureInput): OptionFailureAnalysis {
+  const { cases, healthy } = optionFailureCases(input);
+  const { cell } = input;
+  const surgeVoltage = cell.surgeVoltage ?? null;
+  const summarize = (c: OptionFailureCase): FailureModeSummary => {
+    const summary = summarizeCases(c.mode, [c]);
+    let top: OptionCellClass | null = null;
+    for (const k of c.classes) if (k.voltage > 0 && (!top || k.voltage > top.voltage)) top = k;
+    const stressed = top ? { cells: top.cells, count: top.count, voltage: top.voltage, ratedVoltage: cell.ratedVoltage, surgeVoltage } : null;
+    return completeSummary(summary, c, null, stressed, healthy.capacitance, "bank");
+  };
+  return {
+    appliedVoltage: input.appliedVoltage,
+    healthy,
+    cases,
+    summary: { short: summarize(cases.short), open: summarize(cases.open) },
+  };
+}
+
+/**
+ * The two cases of analyzeOptionFailures without their verdicts in words: cheap enough to run on
+ * every candidate of a search (the customer's filter for banks that survive).
+ */
+export function optionFailureCases(input: OptionFailureInput): {
+  cases: { short: OptionFailureCase; open: OptionFailureCase };
+  healthy: { capacitance: number; maxCellVoltage: number };
+} {
   const { cell, topology, appliedVoltage: V } = input;
   const ns = input.seriesCount;
   const np = input.parallelCount;
@@ -814,19 +840,13 @@ export function analyzeOptionFailures(input: OptionFailureInput): OptionFailureA
     return { mode, capacitance, maxCellVoltage, overstressedCount, pastSurgeCount, shortCircuit: capacitance === null, classes };
   };
 
-  const healthyCapacitance = (np * C) / ns;
-  const cases = { short: make("short"), open: make("open") };
-  const summarize = (c: OptionFailureCase): FailureModeSummary => {
-    const summary = summarizeCases(c.mode, [c]);
-    let top: OptionCellClass | null = null;
-    for (const k of c.classes) if (k.voltage > 0 && (!top || k.voltage > top.voltage)) top = k;
-    const stressed = top ? { cells: top.cells, count: top.count, voltage: top.voltage, ratedVoltage: cell.ratedVoltage, surgeVoltage } : null;
-    return completeSummary(summary, c, null, stressed, healthyCapacitance, "bank");
-  };
   return {
-    appliedVoltage: V,
-    healthy: { capacitance: healthyCapacitance, maxCellVoltage: lowAmong(ns - 1) },
-    cases,
-    summary: { short: summarize(cases.short), open: summarize(cases.open) },
+    cases: { short: make("short"), open: make("open") },
+    healthy: { capacitance: (np * C) / ns, maxCellVoltage: lowAmong(ns - 1) },
   };
+}
+
+/** A fault case leaves the bank working: no short circuit, some capacitance, every remaining cell within surge (as the summaries judge). */
+export function survivesFault(c: Pick<OptionFailureCase, "shortCircuit" | "capacitance" | "pastSurgeCount">): boolean {
+  return !(c.shortCircuit || c.capacitance === 0 || c.pastSurgeCount > 0);
 }

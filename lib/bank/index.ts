@@ -12,3 +12,5 @@ export * from "./tolerance";
 export * from "./life";
 export { normalCdf, normalQuantile, splitMix64, Xoshiro128 } from "./random";
 export * from "./option-network";
+export * from "./handling";
+export * from "./reliability-settings";

@@ -101,6 +101,39 @@ function finite(x: number, what: string, min = -Infinity): void {
   if (!(Number.isFinite(x) && x >= min)) throw new RangeError(`${what} must be a number${min > -Infinity ? ` of at least ${min}` : ""}`);
 }
 
+/** Ambient temperature the estimate assumes when none is stated (°C): a room. */
+export const DEFAULT_AMBIENT_TEMPERATURE = 25;
+
+/**
+ * The figures behind an estimate, numbers only (no checks, no words): self-heating, cell
+ * temperature and the two factors on the rated life. Shared by estimateCellLife and the
+ * search, which ranks and filters every candidate by it.
+ */
+export function lifeFactors(
+  cell: { ratedVoltage: number; esr: number; thermalResistance: number; maxTemperature: number; ratedTemperature?: number },
+  ambient: number,
+  cellVoltage: number,
+  cellRmsCurrent: number,
+  voltageStep: number,
+): { dissipation: number; selfHeating: number; cellTemperature: number; temperatureFactor: number; voltageFactor: number } {
+  const ratedTemperature = cell.ratedTemperature ?? cell.maxTemperature;
+  const dissipation = cellRmsCurrent * cellRmsCurrent * cell.esr;
+  const selfHeating = dissipation * cell.thermalResistance;
+  const cellTemperature = ambient + selfHeating;
+  return {
+    dissipation,
+    selfHeating,
+    cellTemperature,
+    temperatureFactor: 2 ** ((ratedTemperature - cellTemperature) / 10),
+    voltageFactor: 2 ** ((cell.ratedVoltage - cellVoltage) / (voltageStep * cell.ratedVoltage)),
+  };
+}
+
+/** Expected life in hours with the settings' ceiling, numbers only: rated life × both factors. */
+export function cappedLifeHours(ratedLifeHours: number, temperatureFactor: number, voltageFactor: number, settings: LifeSettings): number {
+  return Math.min(ratedLifeHours * temperatureFactor * voltageFactor, settings.maxLifeYears * HOURS_PER_YEAR);
+}
+
 /**
  * Cell temperature and expected life for one cell in service. A cell that would run above its
  * maximum temperature, or sits in an ambient below its minimum, is refused (ok: false) with the
@@ -124,11 +157,7 @@ export function estimateCellLife(input: LifeInput): LifeEstimate {
   const ratedTemperature = cell.ratedTemperature ?? cell.maxTemperature;
   finite(ratedTemperature, "rated temperature", -273.15);
 
-  const dissipation = current * current * cell.esr;
-  const selfHeating = dissipation * cell.thermalResistance;
-  const cellTemperature = ambient + selfHeating;
-  const temperatureFactor = 2 ** ((ratedTemperature - cellTemperature) / 10);
-  const voltageFactor = 2 ** ((cell.ratedVoltage - cellVoltage) / (step * cell.ratedVoltage));
+  const { dissipation, selfHeating, cellTemperature, temperatureFactor, voltageFactor } = lifeFactors(cell, ambient, cellVoltage, current, step);
   const f = (x: number, unit: string): string => formatQuantity(x, unit);
   const degrees = (x: number): string => `${Number(x.toFixed(1))} °C`;
 
@@ -173,11 +202,9 @@ export function estimateCellLife(input: LifeInput): LifeEstimate {
       capped: false,
     };
   }
-  const ceiling = settings.maxLifeYears * HOURS_PER_YEAR;
-  const raw = cell.ratedLifeHours * temperatureFactor * voltageFactor;
-  const capped = raw > ceiling;
+  const lifeHours = cappedLifeHours(cell.ratedLifeHours, temperatureFactor, voltageFactor, settings);
+  const capped = lifeHours < cell.ratedLifeHours * temperatureFactor * voltageFactor;
   if (capped) assumptions.push(`Capped at ${settings.maxLifeYears} years: beyond that, ageing of seals and electrolyte decides, not temperature or voltage.`);
-  const lifeHours = capped ? ceiling : raw;
   return { ...base, ok: true, refusal: null, lifeHours, lifeYears: lifeHours / HOURS_PER_YEAR, capped };
 }
 

@@ -1,4 +1,4 @@
-import type { ArrangementOption } from "./arrangement-search";
+import type { ArrangementOption, OptionHandling } from "./arrangement-search";
 import { constantCurrentDischarge, constantPowerDischarge, resistiveDischarge, type DischargePoint } from "./discharge";
 import type { Requirement } from "./types";
 
@@ -9,7 +9,10 @@ import type { Requirement } from "./types";
  */
 
 /** What the curves read of an option. */
-export type CurveOption = Pick<ArrangementOption, "seriesCount" | "worstCellVoltage" | "capacitance" | "esr" | "discharge">;
+export type CurveOption = Pick<ArrangementOption, "seriesCount" | "worstCellVoltage" | "capacitance" | "esr" | "discharge"> & {
+  /** cells with a minimum voltage: the switched-off curve stops at the bank's floor */
+  handling?: Pick<OptionHandling, "floorVoltage" | "standby">;
+};
 
 export interface ChargingVoltages {
   /** the weakest position (lowest capacitance within the matching tolerance): V_w */
@@ -48,7 +51,8 @@ const CURVE_POINTS = 80;
  * capacitance and end-of-life ESR, as option.backupSeconds is computed. A peak current: constant
  * current, likewise. Otherwise the bank left alone after switch-off, through its balancing chain
  * and bleeder with the worst-case capacitance, as option.discharge.secondsToSafe is computed, run on
- * below V_min and V_safe so both crossings show. Null when the bank has no discharge path.
+ * below V_min and V_safe so both crossings show — but never below the floor of cells with a minimum
+ * voltage (hybrid), which the drain must not pass. Null when the bank has no discharge path.
  */
 export function dischargeCurve(option: CurveOption, requirement: Requirement, safeVoltage: number): DischargeCurve | null {
   const v0 = requirement.maxVoltage;
@@ -65,7 +69,8 @@ export function dischargeCurve(option: CurveOption, requirement: Requirement, sa
   }
   const { resistance, capacitance } = option.discharge;
   if (resistance === null || !(resistance > 0)) return null;
-  const stop = Math.min(v0 / 4, vEnd > 0 ? 0.8 * vEnd : v0 / 4, 0.8 * safeVoltage);
+  const floor = option.handling?.floorVoltage ?? null;
+  const stop = Math.max(Math.min(v0 / 4, vEnd > 0 ? 0.8 * vEnd : v0 / 4, 0.8 * safeVoltage), floor !== null && floor < v0 ? floor : 0);
   const d = resistiveDischarge({ capacitance, resistance, v0, vEnd: stop, points: CURVE_POINTS });
   return { kind: "resistive", points: d.points, seconds: d.seconds, requiredSeconds: null };
 }

@@ -45,6 +45,29 @@ export interface EngineCell {
   unitCost: number;
   stock: number;
   leadTimeDays: number;
+  /**
+   * lowest voltage the cell may be taken to (V): hybrid (lithium-ion) cells must carry one
+   * (commonly about 2.2 V); none (or 0) means the cell may be discharged to 0 V
+   */
+  minVoltage?: number | null;
+  /** temperature and life data, where the catalog gives it */
+  thermal?: CellThermal | null;
+}
+
+/** A cell's temperature and life data as the catalog gives it; any figure may be missing. */
+export interface CellThermal {
+  /** life at the rated temperature and rated voltage (h) */
+  ratedLifeHours: number | null;
+  /** temperature the rated life is given at (°C); missing: the top of the range */
+  ratedTemperature: number | null;
+  /** operating range (°C) */
+  minTemperature: number | null;
+  maxTemperature: number | null;
+  /** thermal resistance cell to ambient (K/W) */
+  thermalResistance: number | null;
+  /** capacitance and ESR at the bottom of the range, as factors of their values at 25 °C */
+  coldCapacitanceFactor: number | null;
+  coldEsrFactor: number | null;
 }
 
 /** Active balancing board: clamps each channel (one series position) at or below maxCellVoltage. */
@@ -102,7 +125,22 @@ export interface Requirement {
   maxVolume?: number;
   quantity?: number;
   technology?: Technology;
+  /** ambient temperature around the bank in service (°C); the life estimate assumes 25 °C without it */
+  ambientTemperature?: number;
+  /** rms current the bank carries in service (A): sizes self-heating */
+  rmsCurrent?: number;
+  /** show only banks that survive one failed cell of this kind */
+  survives?: FaultFilter;
+  /** show only banks expected to last at least this many years */
+  minLifeYears?: number;
+  /** which options come first: the cheapest (default) or the longest-lived */
+  rankBy?: RankBy;
 }
+
+export const FAULT_FILTERS = ["short", "open", "both"] as const;
+export type FaultFilter = (typeof FAULT_FILTERS)[number];
+export const RANK_BY = ["price", "life"] as const;
+export type RankBy = (typeof RANK_BY)[number];
 
 export const TOPOLOGIES = ["series-of-parallel-groups", "parallel-of-series-strings"] as const;
 export type Topology = (typeof TOPOLOGIES)[number];

@@ -23,6 +23,8 @@ export const limits = {
   engine: createRateLimiter({ name: "engine", limit: env.API_RATE_LIMIT_PER_MINUTE, windowSeconds: 60, store }),
   /** the storefront's search action: the same budget as the endpoint, counted apart */
   storefrontSearch: createRateLimiter({ name: "search", limit: env.API_RATE_LIMIT_PER_MINUTE, windowSeconds: 60, store }),
+  /** each shop API key (Authorization: Bearer …), counted by key wherever it calls from */
+  apiKey: createRateLimiter({ name: "api-key", limit: env.API_KEY_RATE_LIMIT_PER_MINUTE, windowSeconds: 60, store }),
   /** new accounts (open a shop, join a shop): as many per address as sign-in attempts */
   signUp: createRateLimiter({ name: "sign-up", limit: env.AUTH_SIGN_IN_LIMIT, windowSeconds: 10, store }),
   /** messages in quote threads, per person (each is e-mailed): a conversation's pace, not a flood */

@@ -234,3 +234,14 @@ export function toMinorUnits(amount: Decimal | string, code: string): number {
   const result = minor.toNumber();
   return result === 0 ? 0 : result;
 }
+
+/**
+ * An integer count of minor units as an exact decimal string with the currency's minor digits,
+ * the inverse of toMinorUnits: (1234, "EUR") → "12.34", (1200, "JPY") → "1200", (12345, "KWD") → "12.345".
+ */
+export function fromMinorUnits(minor: number, code: string): string {
+  if (!Number.isSafeInteger(minor)) throw new Error(`Minor units must be a safe integer, got ${minor}`);
+  const digits = minorUnits(code);
+  const value = new Dec(minor).dividedBy(new Dec(10).pow(digits));
+  return (value.isZero() ? new Dec(0) : value).toFixed(digits);
+}

@@ -14,8 +14,6 @@ export const DEFAULT_PRICING_RULES: Readonly<PricingRules> = Object.freeze({
   marginPct: "28",
   taxRatePct: "20",
   interconnectCostPerCell: "1.80",
-  balancingResistorCost: "0.35",
-  bleederCostPerWatt: "0.90",
   balancingBoardCost: "18.50",
   terminalSetCost: "24.00",
   enclosures: [
@@ -31,4 +29,14 @@ export const DEFAULT_PRICING_RULES: Readonly<PricingRules> = Object.freeze({
     { minQuantity: 25, discountPct: "10" },
   ],
   quoteValidityDays: 30,
+  depositPercent: 0,
 });
+
+/**
+ * Rules as stored, read the way they are used today: a rule set saved before a field existed gets
+ * that field's meaning of "nothing" (no deposit). Pure; db/queries reads every stored rule set
+ * through it.
+ */
+export function readPricingRules(stored: Omit<PricingRules, "depositPercent"> & { depositPercent?: number }): PricingRules {
+  return { ...stored, depositPercent: stored.depositPercent ?? 0 };
+}

@@ -1,8 +1,19 @@
-export type { BankBill, BankPrice, PriceBankResult, PriceLine, PriceLineCode, PriceLineKind, PricingErrorCode, PricingIssue, PricingRules } from "./types";
-export { DEFAULT_PRICING_RULES } from "./defaults";
-export { ISO_4217_MINOR_UNITS, formatMoney, isKnownCurrency, minorUnits, moneyString, roundMoney, toMinorUnits } from "./currency";
+export type {
+  BankBill,
+  BankPrice,
+  ExtraLine,
+  ExtraLineInput,
+  PriceBankResult,
+  PriceLine,
+  PriceLineCode,
+  PriceLineKind,
+  PricingErrorCode,
+  PricingIssue,
+  PricingRules,
+} from "./types";
+export { DEFAULT_PRICING_RULES, readPricingRules } from "./defaults";
+export { ISO_4217_MINOR_UNITS, formatMoney, fromMinorUnits, isKnownCurrency, minorUnits, moneyString, roundMoney, toMinorUnits } from "./currency";
 export { PricingError, priceBank, quickPrice, selectDiscountPct, selectEnclosure, tryPriceBank } from "./price-bank";
-export { validateBankBill, validatePricingRules } from "./validate";
 export {
   LINE_QUANTITY_DECIMALS,
   MAX_LINE_QUANTITY,
@@ -16,3 +27,4 @@ export {
   type SheetLine,
   type SheetLineInput,
 } from "./price-sheet";
+export { validateBankBill, validateExtraLines, validatePricingRules } from "./validate";

@@ -24,8 +24,8 @@
  */
 import { minorUnits, roundMoney } from "./currency";
 import { Dec, Decimal, isDecimalString } from "./decimal";
-import type { BankBill, BankPrice, PriceBankResult, PriceLine, PricingErrorCode, PricingIssue, PricingRules } from "./types";
-import { validateBankBill, validatePricingRules } from "./validate";
+import type { BankBill, BankPrice, ExtraLine, ExtraLineInput, PriceBankResult, PriceLine, PricingErrorCode, PricingIssue, PricingRules } from "./types";
+import { validateBankBill, validateExtraLines, validatePricingRules } from "./validate";
 
 /** An expected failure to price (bad rules or bill, nothing fits): callers may show it. */
 export class PricingError extends Error {
@@ -93,7 +93,7 @@ function pct(value: string): Decimal {
  * Prices a bank; throws PricingError for invalid rules or bill, a board with no unit cost and
  * no fallback, or a bank no enclosure holds. See the file header for the order of rounding.
  */
-export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
+export function priceBank(bill: BankBill, rules: PricingRules, extraInputs: readonly ExtraLineInput[] = []): BankPrice {
   const ruleIssues = validatePricingRules(rules);
   if (ruleIssues.length > 0) {
     throw new PricingError("invalid-rules", "The pricing rules are not valid", ruleIssues);
@@ -101,6 +101,10 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
   const billIssues = validateBankBill(bill);
   if (billIssues.length > 0) {
     throw new PricingError("invalid-bill", "The bill of materials is not valid", billIssues);
+  }
+  const extraIssues = validateExtraLines(extraInputs, rules.currency);
+  if (extraIssues.length > 0) {
+    throw new PricingError("invalid-extras", "The extra lines are not valid", extraIssues);
   }
 
   const currency = rules.currency;
@@ -135,22 +139,16 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
     const r = bill.balancingResistors;
     addMaterial(
       "balancing-resistors",
-      `Balancing resistor ${formatSi(r.resistance, "Ω")}, ${formatPlain(r.powerRating, "W")}`,
+      `Balancing resistor ${formatSi(r.resistance, "Ω")}, ${formatPlain(r.powerRating, "W")}${r.sku ? ` (${r.sku})` : ""}`,
       r.count,
       "pc",
-      rules.balancingResistorCost,
+      r.unitCost,
     );
   }
 
   if (bill.bleeder) {
     const b = bill.bleeder;
-    addMaterial(
-      "bleeder",
-      `Bleeder resistor ${formatSi(b.resistance, "Ω")}, ${formatPlain(b.power, "W")}`,
-      1,
-      "pc",
-      new Dec(rules.bleederCostPerWatt).times(b.power),
-    );
+    addMaterial("bleeder", `Bleeder resistor ${formatSi(b.resistance, "Ω")}, ${formatPlain(b.power, "W")}${b.sku ? ` (${b.sku})` : ""}`, 1, "pc", b.unitCost);
   }
 
   addMaterial("interconnects", "Cell interconnects", bill.cellCount, "pc", rules.interconnectCostPerCell);
@@ -223,7 +221,13 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
   const discountPct = selectDiscountPct(quantity, rules.quantityBreaks);
   const gross = unitPrice.times(quantity);
   const discount = round(gross.times(pct(discountPct)));
-  const subtotal = gross.minus(discount);
+  // extra lines are sell prices already: no overhead, no margin, no quantity discount
+  const extras: ExtraLine[] = extraInputs.map((e) => {
+    const unit = round(e.unitPrice);
+    return { description: e.description, quantity: e.quantity, unit: e.unit, unitPrice: str(unit), amount: str(unit.times(e.quantity)) };
+  });
+  const extrasTotal = extras.reduce((acc, e) => acc.plus(e.amount), new Dec(0));
+  const subtotal = gross.minus(discount).plus(extrasTotal);
   const taxPct = new Dec(rules.taxRatePct);
   const tax = round(subtotal.times(pct(rules.taxRatePct)));
   const total = subtotal.plus(tax);
@@ -253,6 +257,7 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
     quantity,
     discountPct,
     discount: str(discount),
+    ...(extras.length > 0 ? { extras } : {}),
     subtotal: str(subtotal),
     taxPct: taxPct.toString(),
     tax: str(tax),
@@ -261,9 +266,9 @@ export function priceBank(bill: BankBill, rules: PricingRules): BankPrice {
 }
 
 /** priceBank as a result: expected failures come back as { ok: false, code, message, issues }. */
-export function tryPriceBank(bill: BankBill, rules: PricingRules): PriceBankResult {
+export function tryPriceBank(bill: BankBill, rules: PricingRules, extras: readonly ExtraLineInput[] = []): PriceBankResult {
   try {
-    return { ok: true, data: priceBank(bill, rules) };
+    return { ok: true, data: priceBank(bill, rules, extras) };
   } catch (error) {
     if (error instanceof PricingError) {
       return { ok: false, code: error.code, message: error.message, issues: error.issues };

@@ -17,10 +17,13 @@ export interface PricingRules {
   marginPct: string;
   taxRatePct: string;
   interconnectCostPerCell: string;
-  /** Per balancing resistor, whatever its value. */
-  balancingResistorCost: string;
-  /** The bleeder resistor is priced by its power rating: cost per watt × watts. */
-  bleederCostPerWatt: string;
+  /**
+   * No longer read: balancing and bleeder resistors are priced from the catalog by their power
+   * class (lib/quoting/bill.ts). Kept optional so rules saved before that still read.
+   */
+  balancingResistorCost?: string;
+  /** No longer read (see balancingResistorCost). */
+  bleederCostPerWatt?: string;
   /** Used when an active balancing board in the bill has no unit cost of its own. */
   balancingBoardCost?: string;
   /** Per bank. */
@@ -32,6 +35,11 @@ export interface PricingRules {
   /** The largest break whose minQuantity ≤ ordered quantity applies. */
   quantityBreaks: { minQuantity: number; discountPct: string }[];
   quoteValidityDays: number;
+  /**
+   * The share of the total a customer pays up front when accepting, in % (0–100): 0 = the full
+   * total at once (no deposit). Rules saved before it existed read as 0 (readPricingRules).
+   */
+  depositPercent: number;
 }
 
 /** What one bank is built from, as chosen by the engine (lib/bank). */
@@ -43,10 +51,13 @@ export interface BankBill {
    * to cellCount. When given, `cell` is not priced on its own (it names the bank's first part).
    */
   mixedCells?: { sku: string; description: string; unitCost: string; count: number }[];
-  /** Resistance in Ω, power rating in W. */
-  balancingResistors: { count: number; resistance: number; powerRating: number } | null;
-  /** Resistance in Ω, power (rating) in W. */
-  bleeder: { resistance: number; power: number } | null;
+  /**
+   * Resistance in Ω, power rating in W; the catalog part of that power class (its SKU, when it has
+   * one) and its unit cost.
+   */
+  balancingResistors: { count: number; resistance: number; powerRating: number; sku?: string; unitCost: string } | null;
+  /** Resistance in Ω, power (rating) in W, with the catalog part's SKU and unit cost. */
+  bleeder: { resistance: number; power: number; sku?: string; unitCost: string } | null;
   /** An empty unitCost ("") means "no unit cost": rules.balancingBoardCost is used. */
   activeBoards: { sku: string; count: number; unitCost: string } | null;
   /** Total cell volume of one bank, m³. */
@@ -69,6 +80,24 @@ export type PriceLineCode =
   | "labour-assembly"
   | "labour-test"
   | "overhead";
+
+/**
+ * A line the estimator adds to a quote beside the bank (a spare-cell kit, a site visit, a custom
+ * enclosure): already a sell price, so it carries no overhead or margin; not discounted by the
+ * quantity breaks; taxed with the rest.
+ */
+export interface ExtraLineInput {
+  description: string;
+  quantity: number;
+  /** 'pc', 'set', 'h', 'lot' … */
+  unit: string;
+  unitPrice: string;
+}
+
+/** An extra line as priced: its amount is unitPrice × quantity in the currency's minor unit. */
+export interface ExtraLine extends ExtraLineInput {
+  amount: string;
+}
 
 /** One line of the per-bank price build-up. */
 export interface PriceLine {
@@ -99,6 +128,11 @@ export interface BankPrice {
   discountPct: string;
   /** For the whole order. */
   discount: string;
+  /**
+   * Lines added beside the bank, at sell prices (absent on revisions priced before they existed,
+   * which read as none): subtotal = unitPrice × quantity − discount + Σ extras.
+   */
+  extras?: ExtraLine[];
   subtotal: string;
   taxPct: string;
   tax: string;
@@ -111,6 +145,6 @@ export interface PricingIssue {
   message: string;
 }
 
-export type PricingErrorCode = "invalid-rules" | "invalid-bill" | "no-enclosure-fits" | "missing-board-cost";
+export type PricingErrorCode = "invalid-rules" | "invalid-bill" | "invalid-extras" | "no-enclosure-fits" | "missing-board-cost";
 
 export type PriceBankResult = { ok: true; data: BankPrice } | { ok: false; code: PricingErrorCode; message: string; issues: PricingIssue[] };

@@ -1,6 +1,6 @@
 import { isKnownCurrency, minorUnits } from "./currency";
 import { Dec, isDecimalString } from "./decimal";
-import type { BankBill, PricingIssue, PricingRules } from "./types";
+import type { BankBill, ExtraLineInput, PricingIssue, PricingRules } from "./types";
 
 type Issues = PricingIssue[];
 
@@ -67,11 +67,11 @@ export function validatePricingRules(rules: PricingRules): PricingIssue[] {
     digits = minorUnits(r.currency);
   }
 
-  for (const key of ["labourRatePerHour", "interconnectCostPerCell", "balancingResistorCost", "bleederCostPerWatt", "terminalSetCost"] as const) {
+  for (const key of ["labourRatePerHour", "interconnectCostPerCell", "terminalSetCost"] as const) {
     checkMoney(issues, key, r[key], digits);
   }
-  if (r.balancingBoardCost !== undefined) {
-    checkMoney(issues, "balancingBoardCost", r.balancingBoardCost, digits);
+  for (const key of ["balancingBoardCost", "balancingResistorCost", "bleederCostPerWatt"] as const) {
+    if (r[key] !== undefined) checkMoney(issues, key, r[key], digits);
   }
 
   for (const key of ["setupMinutes", "minutesPerCell", "testMinutes"] as const) {
@@ -128,6 +128,8 @@ export function validatePricingRules(rules: PricingRules): PricingIssue[] {
   }
 
   checkNumber(issues, "quoteValidityDays", r.quoteValidityDays, { min: 1, integer: true });
+  checkNumber(issues, "depositPercent", r.depositPercent, { min: 0 });
+  if (typeof r.depositPercent === "number" && r.depositPercent > 100) issues.push({ path: "depositPercent", message: "must be at most 100 %" });
   return issues;
 }
 
@@ -179,6 +181,7 @@ export function validateBankBill(bill: BankBill): PricingIssue[] {
       checkNumber(issues, "balancingResistors.count", r.count, { min: 0, integer: true });
       checkNumber(issues, "balancingResistors.resistance", r.resistance, { min: 0, minExclusive: true });
       checkNumber(issues, "balancingResistors.powerRating", r.powerRating, { min: 0, minExclusive: true });
+      checkMoney(issues, "balancingResistors.unitCost", r.unitCost, null);
     }
   }
   if (b.bleeder !== null) {
@@ -188,6 +191,7 @@ export function validateBankBill(bill: BankBill): PricingIssue[] {
     } else {
       checkNumber(issues, "bleeder.resistance", r.resistance, { min: 0, minExclusive: true });
       checkNumber(issues, "bleeder.power", r.power, { min: 0, minExclusive: true });
+      checkMoney(issues, "bleeder.unitCost", r.unitCost, null);
     }
   }
   if (b.activeBoards !== null) {
@@ -202,5 +206,28 @@ export function validateBankBill(bill: BankBill): PricingIssue[] {
       if (a.unitCost !== "") checkMoney(issues, "activeBoards.unitCost", a.unitCost, null);
     }
   }
+  return issues;
+}
+
+/** Most extra lines one quote carries. */
+export const MAX_EXTRA_LINES = 50;
+
+/** Checks extra lines: a description, a positive quantity, a unit and a non-negative money unit price in the currency. */
+export function validateExtraLines(extras: readonly ExtraLineInput[], currency: string): PricingIssue[] {
+  const issues: Issues = [];
+  if (!Array.isArray(extras)) return [{ path: "extras", message: "must be a list" }];
+  if (extras.length > MAX_EXTRA_LINES) issues.push({ path: "extras", message: `must hold at most ${MAX_EXTRA_LINES} lines` });
+  const digits = isKnownCurrency(currency) ? minorUnits(currency) : null;
+  extras.slice(0, MAX_EXTRA_LINES).forEach((e, i) => {
+    const p = `extras[${i}]`;
+    if (!isObject(e)) {
+      issues.push({ path: p, message: "must be an object" });
+      return;
+    }
+    if (typeof e.description !== "string" || e.description.trim() === "") issues.push({ path: `${p}.description`, message: "must not be empty" });
+    if (typeof e.unit !== "string" || e.unit.trim() === "") issues.push({ path: `${p}.unit`, message: "must not be empty" });
+    checkNumber(issues, `${p}.quantity`, e.quantity, { min: 0, minExclusive: true });
+    checkMoney(issues, `${p}.unitPrice`, e.unitPrice, digits);
+  });
   return issues;
 }

@@ -11,7 +11,7 @@
  * and a point.
  */
 
-export type QuantityUnit = "F" | "V" | "Ω" | "A" | "J" | "W" | "s" | "kg" | "m³" | "Wh";
+export type QuantityUnit = "F" | "V" | "Ω" | "A" | "J" | "W" | "s" | "kg" | "m³" | "Wh" | "m";
 
 export type ParseQuantityResult = { ok: true; value: number; unit: QuantityUnit | null } | { ok: false; message: string };
 
@@ -108,9 +108,22 @@ const UNITS: Record<QuantityUnit, UnitDef> = {
     ],
   },
   Wh: { name: "watt-hours", barePrefix: true, symbols: [{ symbol: "Wh", anyCase: true, prefixed: true }] },
+  // lengths (cell dimensions): `60.7 mm`, `0.0607 m`, `6 cm`; a bare `m` after a number is milli, so lengths always name their unit
+  m: {
+    name: "metres",
+    barePrefix: false,
+    symbols: [
+      { symbol: "m", prefixed: true },
+      { symbol: "cm", prefixed: false, exponent: -2 },
+    ],
+  },
 };
 
-const ALL_UNITS = Object.keys(UNITS) as QuantityUnit[];
+/**
+ * Units recognised when the caller names none. Length is left out: there `m` after a number keeps
+ * meaning milli (`470m` = 0.47), as it always has.
+ */
+const ALL_UNITS = (Object.keys(UNITS) as QuantityUnit[]).filter((u) => u !== "m");
 
 const NUMBER_RE = /^([+-])?(\d+(?:[.,]\d*)?|[.,]\d+)(?:[eE]([+-]?\d{1,3}))?/;
 

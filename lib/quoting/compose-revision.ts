@@ -76,7 +76,9 @@ export function resolveEngineOption(
   let cost = record.price;
   const warnings: string[] = [];
   if (!cost) {
-    const priced = priceForReview(billFor({ ...figures, cellId: cell.id, costEstimate: 0 }, cell, ctx.components, ctx.quantity), ctx.rules);
+    const bill = billFor(figures, cell, ctx.components, ctx.quantity);
+    if (!bill.ok) return { ok: false, message: bill.message };
+    const priced = priceForReview(bill.bill, ctx.rules);
     if (!priced.ok) return { ok: false, message: priced.message };
     cost = priced.cost;
     warnings.push(...priced.warnings);
@@ -100,6 +102,7 @@ export function resolveCustomBank(
   ctx: {
     cells: readonly CatalogCell[];
     retiredSkus: ReadonlySet<string>;
+    components: readonly CatalogComponent[];
     rules: PricingRules;
     factors: DesignFactors;
     shopFactors: DesignFactors;
@@ -112,7 +115,9 @@ export function resolveCustomBank(
   if (evaluated.problems.length > 0) return { ok: false, message: evaluated.problems.join(" "), figures: evaluated.figures };
   const quantity = ctx.requirement.quantity ?? 1;
   const option = customBankOption(tree, evaluated.figures, ctx.cells, ctx.requirement, ctx.factors, { warnings: evaluated.warnings });
-  const priced = priceForReview(customBankBill(tree, option, ctx.cells, quantity), ctx.rules);
+  const bill = customBankBill(tree, option, ctx.cells, ctx.components, quantity);
+  if (!bill.ok) return { ok: false, message: bill.message, figures: evaluated.figures };
+  const priced = priceForReview(bill.bill, ctx.rules);
   if (!priced.ok) return { ok: false, message: priced.message, figures: evaluated.figures };
   const skus = new Set(evaluated.figures.cells.map((c) => c.sku));
   const frozenCells = ctx.cells.filter((c) => skus.has(c.sku)).map(freezeCell);

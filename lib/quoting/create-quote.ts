@@ -16,7 +16,7 @@ import type { ChooseArrangementInput } from "@/lib/validation/quote";
 import { checkAutoQuoteLimits } from "./auto-quote-limits";
 import { indexOfChosen, searchPricedOptions } from "./priced-search";
 import { formatQuoteNumber, numberingYear } from "./quote-number";
-import { bankLineDescription, buildSheet } from "./revision-sheet";
+import { revisionSheet } from "./revision-sheet";
 import type { ChosenRecord } from "./types";
 import { validUntilFrom } from "./validity";
 
@@ -102,17 +102,8 @@ export async function createQuoteFromChoice(ctx: ShopContext, input: ChooseArran
 
   let made: { number: string } | null;
   try {
-    const sheet = buildSheet({
-      currency: pricing.currency,
-      taxPct: pricing.taxPct,
-      quantity: pricing.quantity,
-      bankDescription: bankLineDescription(option, { source: "customer-choice" }),
-      bankUnitPrice: pricing.unitPrice,
-      bankBreakPct: pricing.discountPct,
-      bankOverride: null,
-      extras: [],
-      discount: null,
-    });
+    // the rules' own price, as the customer reads it (the same lines a revision without a sheet shows)
+    const sheet = revisionSheet({ sheet: null, pricing, arrangement: option, design: { source: "customer-choice" } });
     made = await withShop(shopId, async (tx) => {
       const requestId = await insertBankRequest(tx, shopId, {
         customerUserId: ctx.user.id,

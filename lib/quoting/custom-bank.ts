@@ -19,11 +19,10 @@ import {
   type Requirement,
 } from "@/lib/bank";
 import { evaluateFlat, flattenNetwork } from "@/lib/bank/flat-network";
-import type { BankBill } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
 import { MAX_CUSTOM_BANK_CELLS, MAX_CUSTOM_BANK_DEPTH } from "@/lib/validation/limits";
-import { toEngineCell } from "./bill";
-import type { CatalogCell, CustomBankFigures, CustomCellState, CustomNode, PricedOption } from "./types";
+import { billFor, toEngineCell, type BillResult } from "./bill";
+import type { CatalogCell, CatalogComponent, CustomBankFigures, CustomCellState, CustomNode, PricedOption } from "./types";
 
 /** Why a tree cannot be evaluated: its place in the tree ("" for the root) and what is wrong. */
 export interface CustomTreeIssue {
@@ -276,10 +275,14 @@ export function customBankOption(
     "Ship discharged, with a shorting link fitted across the terminals.",
     "These figures are an engineering estimate; local electrical codes and licensed practice decide.",
   );
-  const option: Omit<PricedOption, "price" | "pareto"> = {
+  // A custom bank carries no one-fault, life, handling or yield analysis of the engine's regular
+  // arrangements: those fields are left out, and the quote's engineering sections read them as not
+  // recorded (lib/quoting/quote-engineering.ts handles options frozen without them).
+  const option = {
     cell: {
       sku: weak.sku,
       technology: weak.technology,
+      minVoltage: weak.minVoltage ?? null,
       capacitance: weak.capacitance,
       toleranceMinus: weak.toleranceMinus,
       tolerancePlus: weak.tolerancePlus,
@@ -316,7 +319,7 @@ export function customBankOption(
     leadTimeDays: lead,
     warnings,
     cautions,
-  };
+  } as Omit<PricedOption, "price" | "pareto">;
   if (requirement.backup && requirement.backup.power > 0) option.backupSeconds = constantPowerSeconds(cDesign, esrEol, vMax, requirement.backup.power, vMin);
   return option;
 }
@@ -333,28 +336,24 @@ function scaleTree(tree: CustomNode, bySku: ReadonlyMap<string, EngineCell>, cap
   return build(tree, "");
 }
 
-/** The bill of materials of a custom bank for the shop's pricing rules: one cell line per part, no balancing resistors, the bleeder when a continuous one will do. */
+/**
+ * The bill of materials of a custom bank for the shop's pricing rules: one cell line per part, no
+ * balancing resistors, the bleeder (a catalog resistor of its power class) when a continuous one
+ * will do — billFor's bill with the mixed cells in place of one cell.
+ */
 export function customBankBill(
   tree: CustomNode,
-  option: Pick<PricedOption, "discharge" | "volume" | "cellCount">,
+  option: Pick<PricedOption, "discharge" | "volume" | "cellCount" | "balancing">,
   catalog: readonly CatalogCell[],
+  components: readonly CatalogComponent[],
   quantity: number,
-): BankBill {
+): BillResult {
   const bySku = new Map(catalog.map((c) => [c.sku, c]));
-  const parts = partsOf(tree).map((p) => {
-    const c = bySku.get(p.sku) as CatalogCell;
-    return { sku: c.sku, description: `${c.manufacturer} ${c.series}`, unitCost: c.unitCost, count: p.count };
-  });
-  const first = parts[0] as (typeof parts)[number];
-  const bleeder = option.discharge.bleeder;
-  return {
-    cell: { sku: first.sku, description: first.description, unitCost: first.unitCost },
-    cellCount: option.cellCount,
-    mixedCells: parts,
-    balancingResistors: null,
-    bleeder: bleeder && !bleeder.switched ? { resistance: bleeder.resistance, power: bleeder.powerRating ?? bleeder.power } : null,
-    activeBoards: null,
-    volumeM3: option.volume,
-    quantity,
-  };
+  const cells = partsOf(tree).map((p) => ({ cell: bySku.get(p.sku) as CatalogCell, count: p.count }));
+  const first = (cells[0] as (typeof cells)[number]).cell;
+  const noBalancing = { ...option.balancing, resistance: null, count: 0, activeBoard: null };
+  const made = billFor({ ...option, balancing: noBalancing }, first, components, quantity);
+  if (!made.ok) return made;
+  const mixedCells = cells.map(({ cell, count }) => ({ sku: cell.sku, description: `${cell.manufacturer} ${cell.series}`, unitCost: cell.unitCost, count }));
+  return { ok: true, bill: { ...made.bill, mixedCells } };
 }

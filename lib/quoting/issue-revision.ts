@@ -75,6 +75,7 @@ export async function issueQuoteRevision(ctx: ShopContext, input: IssueRevisionI
     resolved = resolveCustomBank(draft.bank.network, {
       cells: [...catalog.cells, ...retired],
       retiredSkus,
+      components: catalog.components,
       rules: catalog.rules,
       factors: effectiveFactors(catalog.factors, overrides),
       shopFactors: catalog.factors,

@@ -124,41 +124,51 @@ export async function acceptQuoteRevision(
   input: { number: string; revision: number },
   now: Date = new Date(),
 ): Promise<ActionResult<AcceptedRevision>> {
+  return withShop(ctx.shop.id, (tx) => acceptQuoteRevisionIn(tx, ctx, input, now));
+}
+
+/**
+ * acceptQuoteRevision in the caller's transaction (the checkout opens its payment in the same one,
+ * so an accept and its payment page stand or fall together). Locks the quote's row first.
+ */
+export async function acceptQuoteRevisionIn(
+  tx: Tx,
+  ctx: ShopContext,
+  input: { number: string; revision: number },
+  now: Date = new Date(),
+): Promise<ActionResult<AcceptedRevision>> {
   if (!can(ctx.role, "quote:accept")) return { ok: false, code: "forbidden", message: "Only the quote's customer may accept it." };
   const shopId = ctx.shop.id;
-  const result = await withShop(shopId, async (tx): Promise<ActionResult<AcceptedRevision>> => {
-    const quote = await lockVisible(tx, ctx, input.number);
-    if (!quote || input.revision < 1 || input.revision > quote.currentRevision) return NOT_FOUND;
-    const rev = await getRevisionOf(tx, shopId, quote.id, input.revision);
-    if (!rev) return NOT_FOUND;
-    const answer = (alreadyAccepted: boolean, acceptedAt: Date): ActionResult<AcceptedRevision> => ({
-      ok: true,
-      data: {
-        quoteId: quote.id,
-        number: quote.number,
-        revision: rev.revision,
-        revisionId: rev.id,
-        currency: rev.currency,
-        total: rev.total,
-        acceptedAt,
-        alreadyAccepted,
-      },
-    });
-    if (quote.status === "accepted" && input.revision === quote.currentRevision)
-      return answer(true, (await getAcceptance(tx, shopId, quote.id))?.createdAt ?? now);
-    if (input.revision !== quote.currentRevision) return refusalFor(quote, input.revision, "");
-    if (await expireIfDue(tx, shopId, quote, now)) return conflict(`Revision ${rev.revision} expired on ${rev.validUntil}; ask the shop for a new one.`);
-    const next = await move(tx, shopId, quote, "accept", "customer", ctx.user.id, undefined, now);
-    if (!next.ok) return conflict(next.reason);
-    await recordShopEvent(tx, shopId, "quote.accepted", {
+  const quote = await lockVisible(tx, ctx, input.number);
+  if (!quote || input.revision < 1 || input.revision > quote.currentRevision) return NOT_FOUND;
+  const rev = await getRevisionOf(tx, shopId, quote.id, input.revision);
+  if (!rev) return NOT_FOUND;
+  const answer = (alreadyAccepted: boolean, acceptedAt: Date): ActionResult<AcceptedRevision> => ({
+    ok: true,
+    data: {
+      quoteId: quote.id,
       number: quote.number,
       revision: rev.revision,
-      total: { amount: rev.total, currency: rev.currency },
-      acceptedAt: now.toISOString(),
-    });
-    return answer(false, now);
+      revisionId: rev.id,
+      currency: rev.currency,
+      total: rev.total,
+      acceptedAt,
+      alreadyAccepted,
+    },
   });
-  return result;
+  if (quote.status === "accepted" && input.revision === quote.currentRevision)
+    return answer(true, (await getAcceptance(tx, shopId, quote.id))?.createdAt ?? now);
+  if (input.revision !== quote.currentRevision) return refusalFor(quote, input.revision, "");
+  if (await expireIfDue(tx, shopId, quote, now)) return conflict(`Revision ${rev.revision} expired on ${rev.validUntil}; ask the shop for a new one.`);
+  const next = await move(tx, shopId, quote, "accept", "customer", ctx.user.id, undefined, now);
+  if (!next.ok) return conflict(next.reason);
+  await recordShopEvent(tx, shopId, "quote.accepted", {
+    number: quote.number,
+    revision: rev.revision,
+    total: { amount: rev.total, currency: rev.currency },
+    acceptedAt: now.toISOString(),
+  });
+  return answer(false, now);
 }
 
 /** The customer declines the latest sent revision, with a reason the shop reads (in the thread, e-mailed to the staff). */

@@ -8,7 +8,7 @@ import { Decimal } from "decimal.js";
 import { searchArrangements, type ArrangementOption, type DesignFactors, type Requirement } from "@/lib/bank";
 import { tryPriceBank, type BankPrice } from "@/lib/pricing";
 import { balancingBoardsOf, billFor, costModelOf, freezeCell, priceLowerBound, SWITCHED_DISCHARGE_NOTE, toEngineCell } from "./bill";
-import { rankPriced, SHOWN } from "./rank";
+import { compareByLife, rankPriced, SHOWN } from "./rank";
 import type { CatalogCell, FrozenCell, PricedOption, ShopCatalog } from "./types";
 
 /** What stands behind one shown option: the shop's full price build-up and the cell as it is now. */
@@ -37,7 +37,8 @@ interface Candidate extends PricedOption {
 }
 
 /**
- * Searches and prices. The engine returns options in the order of a float cost estimate that the
+ * Searches and prices. Ranked by life (requirement.rankBy), the engine's longest-lived dozen is
+ * priced and shown. Ranked by price (the default): the engine returns options in the order of a float cost estimate that the
  * cost model keeps below the exact cost (bill.ts costModelOf), so priceLowerBound(estimate) is a
  * floor under the exact price. The options are priced exactly in that order, widening the cut
  * (24, 48, 96 …) until either every feasible option is priced or the floor of the first unpriced
@@ -56,10 +57,19 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
       cells,
       factors,
       balancingBoards: balancingBoardsOf(catalog.components),
-      costModel: costModelOf(rules),
+      costModel: costModelOf(rules, catalog.components),
+      reliability: catalog.reliability,
       limit,
       longerStrings: opts.longerStrings,
     });
+
+  if (requirement.rankBy === "life") {
+    // The engine already returns the longest-lived dozen (ties by cost estimate): price them and
+    // rank them by life, then exact price. Pareto marks are over the dozen shown.
+    const result = search(SHOWN);
+    const priced = result.options.map((option) => priceOption(option, byId.get(option.cellId) as CatalogCell, catalog, quantity));
+    return shownOf(catalog, rankPriced(priced, SHOWN, compareByLife), result.reasons);
+  }
 
   const priced: Candidate[] = [];
   let width = FIRST_CUT;
@@ -74,20 +84,25 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
     result = search(width);
   }
 
-  const shown = rankPriced(priced, SHOWN);
+  return shownOf(catalog, rankPriced(priced, SHOWN), result.reasons);
+}
+
+/** The ranked dozen as the search answers it: options for customers, records behind them. */
+function shownOf(catalog: ShopCatalog, shown: (Candidate & { pareto: boolean })[], reasons: string[]): PricedSearch {
   return {
-    designFactors: factors,
-    currency: rules.currency,
+    designFactors: catalog.factors,
+    currency: catalog.rules.currency,
     options: shown.map(({ record: _record, ...option }) => option),
     records: shown.map((c) => c.record),
-    reasons: result.reasons,
+    reasons,
   };
 }
 
 function priceOption(found: ArrangementOption, cell: CatalogCell, catalog: ShopCatalog, quantity: number): Candidate {
   const { cellId: _cellId, costEstimate: _costEstimate, ...figures } = found;
   const record = (price: BankPrice | null): OptionRecord => ({ price, cell: freezeCell(cell) });
-  const priced = tryPriceBank(billFor(found, cell, catalog.components, quantity), catalog.rules);
+  const bill = billFor(found, cell, catalog.components, quantity);
+  const priced = bill.ok ? tryPriceBank(bill.bill, catalog.rules) : ({ ok: false, message: bill.message } as const);
   if (!priced.ok) {
     return { ...figures, price: null, pareto: false, warnings: [...figures.warnings, `Not priced automatically: ${priced.message}`], record: record(null) };
   }

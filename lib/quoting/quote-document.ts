@@ -3,6 +3,7 @@ import { formatMoney, type PriceSheet } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
 import { requirementFacts, TECHNOLOGY_LABELS, TOPOLOGY_LABELS, type LabelledValue } from "@/lib/vocabulary";
 import { partsOf } from "./custom-bank";
+import { toQuoteEngineering, type QuoteEngineering } from "./quote-engineering";
 import { revisionSheet } from "./revision-sheet";
 import type { FrozenCell, PricedOption, RevisionDesign } from "./types";
 
@@ -18,8 +19,10 @@ export interface QuoteDocumentLine {
 }
 
 /**
- * Everything a quote shows, already worded and formatted, from one frozen revision. The quote page
- * and the PDF both render this, so they say the same thing. Pure: no database, no framework.
+ * Everything a quote shows its customer, already worded and formatted, from one frozen revision.
+ * The quote page, the PDF and the e-mail render this, so they say the same thing. Prices are sell
+ * prices only (lib/pricing/sell.ts): the bank as one line, extra lines, the quantity discount, tax
+ * and the total; the shop's costs are in cost-build-up.ts, for the desk. Pure: no database, no framework.
  */
 export interface QuoteDocument {
   shopName: string;
@@ -35,7 +38,9 @@ export interface QuoteDocument {
   arrangement: LabelledValue[];
   cell: LabelledValue[];
   figures: LabelledValue[];
+  /** sell lines: the bank, then any extra lines */
   lines: QuoteDocumentLine[];
+  /** below the lines: the quantity discount (if any), subtotal, tax and total */
   totals: LabelledValue[];
   /** the order total, formatted (the last row of totals) */
   total: string;
@@ -47,6 +52,8 @@ export interface QuoteDocument {
   design: RevisionDesign;
   /** the shop's note with this revision ("" when none) */
   note: string;
+  /** one failed cell, tolerance yield, temperature and life, handling (quote-engineering.ts) */
+  engineering: QuoteEngineering;
 }
 
 const q = (value: number, unit: string) => formatQuantity(value, unit);
@@ -125,6 +132,8 @@ function describeCell(cell: FrozenCell, o: PricedOption): LabelledValue[] {
   ];
 }
 
+export { bankLineDescription } from "./revision-sheet";
+
 /** The sell totals: the lines, the quantity break, a discount with its reason, tax and the total. */
 function describeTotals(s: PriceSheet): LabelledValue[] {
   const m = (a: string) => formatMoney(a, s.currency);
@@ -175,5 +184,6 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     option,
     design: r.design ?? { source: "customer-choice" },
     note: r.note,
+    engineering: toQuoteEngineering(r.requirement, option),
   };
 }

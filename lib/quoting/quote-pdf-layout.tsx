@@ -1,6 +1,9 @@
 import path from "node:path";
 import { Document, Font, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
-import type { LabelledValue, QuoteDocument } from "./quote-document";
+import { KeyValues } from "./pdf-parts";
+import { pdfText } from "./pdf-text";
+import type { QuoteDocument } from "./quote-document";
+import { QuotePdfEngineering } from "./quote-pdf-engineering";
 
 /**
  * The PDF layout: the quote as a PDF (@react-pdf/renderer), from the same worded document the quote
@@ -11,7 +14,7 @@ import type { LabelledValue, QuoteDocument } from "./quote-document";
 const FAMILY = "IBM Plex Sans";
 let fontsRegistered = false;
 
-function registerFonts() {
+export function registerFonts() {
   if (fontsRegistered) return;
   const dir = path.join(process.cwd(), "app", "fonts");
   Font.register({
@@ -27,10 +30,7 @@ function registerFonts() {
   fontsRegistered = true;
 }
 
-/** The shipped Latin subset has no Ω: print the unit's name instead. */
-export function pdfText(s: string): string {
-  return s.replace(/\u03a9|\u2126/g, "Ohm");
-}
+export { pdfText };
 
 const ink = "#1f2933";
 const muted = "#52606d";
@@ -46,14 +46,11 @@ const styles = StyleSheet.create({
   h2: { fontSize: 10.5, fontWeight: 600, marginTop: 12, marginBottom: 4 },
   columns: { flexDirection: "row", gap: 16 },
   column: { flex: 1 },
-  kvRow: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: rule, paddingVertical: 2 },
-  kvLabel: { width: "58%", color: muted, paddingRight: 4 },
-  kvValue: { width: "42%" },
   tableHead: { flexDirection: "row", borderBottomWidth: 1, borderBottomColor: ink, paddingBottom: 2, fontWeight: 500 },
   tableRow: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: rule, paddingVertical: 2 },
-  cDesc: { width: "46%" },
-  cQty: { width: "14%", textAlign: "right" },
-  cUnit: { width: "8%", paddingLeft: 4 },
+  cDesc: { width: "50%", paddingRight: 6 },
+  cQty: { width: "8%", textAlign: "right" },
+  cUnit: { width: "10%", paddingLeft: 4 },
   cPrice: { width: "16%", textAlign: "right" },
   cAmount: { width: "16%", textAlign: "right" },
   totals: { marginTop: 6, marginLeft: "50%" },
@@ -72,19 +69,6 @@ const styles = StyleSheet.create({
   cautionBox: { borderWidth: 1, borderColor: "#c2410c", padding: 6, marginTop: 4 },
   footer: { position: "absolute", bottom: 24, left: 40, right: 40, flexDirection: "row", justifyContent: "space-between", color: muted, fontSize: 7.5 },
 });
-
-function KeyValues({ rows }: { rows: LabelledValue[] }) {
-  return (
-    <View>
-      {rows.map((r) => (
-        <View key={r.label} style={styles.kvRow} wrap={false}>
-          <Text style={styles.kvLabel}>{pdfText(r.label)}</Text>
-          <Text style={styles.kvValue}>{pdfText(r.value)}</Text>
-        </View>
-      ))}
-    </View>
-  );
-}
 
 export function QuotePdfLayout({ doc }: { doc: QuoteDocument }) {
   const totals = doc.totals.slice(0, -1);
@@ -138,11 +122,11 @@ export function QuotePdfLayout({ doc }: { doc: QuoteDocument }) {
           </View>
         </View>
 
-        <Text style={styles.h2}>Prices</Text>
+        <Text style={styles.h2}>Price</Text>
         <View style={styles.tableHead}>
           <Text style={styles.cDesc}>Item</Text>
           <Text style={styles.cQty}>Quantity</Text>
-          <Text style={styles.cUnit}>Unit</Text>
+          <Text style={styles.cUnit}></Text>
           <Text style={styles.cPrice}>Unit price</Text>
           <Text style={styles.cAmount}>Amount</Text>
         </View>
@@ -167,6 +151,8 @@ export function QuotePdfLayout({ doc }: { doc: QuoteDocument }) {
             <Text>{doc.total}</Text>
           </View>
         </View>
+
+        <QuotePdfEngineering e={doc.engineering} />
 
         <View wrap={false}>
           <Text style={styles.h2}>Safety</Text>

@@ -36,6 +36,18 @@ export function comparePriced(a: RankableOption, b: RankableOption): number {
   return a.seriesCount - b.seriesCount || TOPOLOGY_ORDER[a.topology] - TOPOLOGY_ORDER[b.topology];
 }
 
+/** Expected life first (longest first, options without life data last), then the price order. */
+export function compareByLife(a: RankableOption & LifeRankable, b: RankableOption & LifeRankable): number {
+  const la = a.life?.lifeHours ?? -1;
+  const lb = b.life?.lifeHours ?? -1;
+  return lb - la || comparePriced(a, b);
+}
+
+/** What ranking by life reads of an option. */
+export interface LifeRankable {
+  life: { lifeHours: number | null } | null;
+}
+
 /** b is at least as good as a in price, mass and volume, and better in one (both priced). */
 function dominates(b: RankableOption, a: RankableOption): boolean {
   if (!a.price || !b.price) return false;
@@ -44,11 +56,16 @@ function dominates(b: RankableOption, a: RankableOption): boolean {
 }
 
 /**
- * The best `limit` options in exact price order, each marked Pareto-optimal when it is priced and
- * no other priced option among ALL those given dominates it over (price, mass, volume).
+ * The best `limit` options in exact price order (or another order given), each marked
+ * Pareto-optimal when it is priced and no other priced option among ALL those given dominates it
+ * over (price, mass, volume).
  */
-export function rankPriced<T extends RankableOption>(options: readonly T[], limit = SHOWN): (T & { pareto: boolean })[] {
-  const order = options.map((_, i) => i).sort((i, j) => comparePriced(options[i] as T, options[j] as T) || i - j);
+export function rankPriced<T extends RankableOption>(
+  options: readonly T[],
+  limit = SHOWN,
+  compare: (a: T, b: T) => number = comparePriced,
+): (T & { pareto: boolean })[] {
+  const order = options.map((_, i) => i).sort((i, j) => compare(options[i] as T, options[j] as T) || i - j);
   return order.slice(0, Math.max(0, limit)).map((i) => {
     const o = options[i] as T;
     return { ...o, pareto: o.price !== null && !options.some((b) => b !== o && dominates(b, o)) };

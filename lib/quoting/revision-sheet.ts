@@ -6,7 +6,10 @@
  */
 import type { BankPrice, PriceSheet, SheetDiscountInput, SheetLineInput } from "@/lib/pricing";
 import { priceSheet } from "@/lib/pricing";
-import { arrangementLabel, EXTRA_LINE_LABELS, type ExtraLineKind } from "@/lib/vocabulary";
+import { Dec } from "@/lib/pricing/decimal";
+import { sellPresentation, type SellLine } from "@/lib/pricing/sell";
+import { formatQuantity } from "@/lib/quantities";
+import { EXTRA_LINE_LABELS, TECHNOLOGY_LABELS, type ExtraLineKind } from "@/lib/vocabulary";
 import { partsOf } from "./custom-bank";
 import type { PricedOption, RevisionDesign } from "./types";
 
@@ -21,15 +24,24 @@ export interface ExtraLineInput {
   unitPrice: string;
 }
 
-/** The bank line's words: "Capacitor bank, 18 S × 4 P of KBW-3000 (72 cells), assembled and tested". */
-export function bankLineDescription(option: Pick<PricedOption, "seriesCount" | "parallelCount" | "cellCount" | "cell">, design: RevisionDesign): string {
+/**
+ * The bank as the customer's one line: what it is, how it is built, assembled and tested
+ * ("Supercapacitor (EDLC) bank rated 48.6 V, 23.1 F: 18 S × 2 P of QFS-1200R27 with balancing resistors,
+ * enclosure and terminals, assembled and tested"); a custom bank names the cells it is made of.
+ */
+export function bankLineDescription(o: Omit<PricedOption, "price" | "pareto">, design: RevisionDesign = { source: "customer-choice" }): string {
   if (design.source === "custom") {
     const parts = partsOf(design.network)
       .map((p) => `${p.count} × ${p.sku}`)
       .join(", ");
-    return `Custom capacitor bank of ${option.cellCount} cells (${parts}), assembled and tested`;
+    return `Custom capacitor bank of ${o.cellCount} cells (${parts}), assembled and tested`;
   }
-  return `Capacitor bank, ${arrangementLabel(option)} of ${option.cell.sku} (${option.cellCount} cells), assembled and tested`;
+  const b = o.balancing;
+  const balancing = b.activeBoard ? "active balancing boards" : b.resistance !== null && b.count > 0 ? "balancing resistors" : null;
+  const bleeder = o.discharge.bleeder ? (o.discharge.bleeder.switched ? "a switched discharge circuit (priced apart)" : "a bleeder resistor") : null;
+  const parts = [balancing, bleeder, "enclosure and terminals"].filter(Boolean).join(", ");
+  const tech = TECHNOLOGY_LABELS[o.cell.technology] ?? o.cell.technology;
+  return `${tech} bank rated ${formatQuantity(o.maxVoltage, "V")}, ${formatQuantity(o.capacitance.nominal, "F")}: ${o.seriesCount} S × ${o.parallelCount} P of ${o.cell.sku} with ${parts}, assembled and tested`;
 }
 
 export interface SheetInput {
@@ -79,21 +91,27 @@ export function buildSheet(input: SheetInput): PriceSheet {
 }
 
 /**
- * A revision's sheet: as frozen, or — for revisions frozen before sheets were kept — the one bank
- * line its price build-up gives, which adds up to exactly the same totals.
+ * A revision's sheet: as frozen, or — for revisions priced by the shop's rules alone (priceBank,
+ * with any extra lines) — the customer's lines as sellPresentation gives them, in the sheet's shape.
+ * The totals are the frozen price's own.
  */
 export function revisionSheet(rev: { sheet: PriceSheet | null; pricing: BankPrice; arrangement: PricedOption; design: RevisionDesign | null }): PriceSheet {
   if (rev.sheet) return rev.sheet;
-  const p = rev.pricing;
-  return buildSheet({
-    currency: p.currency,
-    taxPct: p.taxPct,
-    quantity: p.quantity,
-    bankDescription: bankLineDescription(rev.arrangement, rev.design ?? { source: "customer-choice" }),
-    bankUnitPrice: p.unitPrice,
-    bankBreakPct: p.discountPct || "0",
-    bankOverride: null,
-    extras: [],
+  const sell = sellPresentation(rev.pricing, bankLineDescription(rev.arrangement, rev.design ?? { source: "customer-choice" }));
+  const [bank, ...extras] = sell.lines as [SellLine, ...SellLine[]];
+  const breakDiscount = sell.discount?.amount ?? new Dec(0).toFixed(new Dec(sell.total).decimalPlaces());
+  return {
+    currency: sell.currency,
+    lines: [
+      { code: "bank", ...bank, quantity: String(bank.quantity), breakPct: sell.discount?.pct ?? "0", breakDiscount },
+      ...extras.map((e) => ({ code: "other", ...e, quantity: String(e.quantity), breakDiscount: new Dec(0).toFixed(new Dec(e.amount).decimalPlaces()) })),
+    ],
+    lineTotal: new Dec(sell.subtotal).plus(breakDiscount).toFixed(new Dec(sell.subtotal).decimalPlaces()),
+    breakDiscount,
     discount: null,
-  });
+    subtotal: sell.subtotal,
+    taxPct: sell.taxPct,
+    tax: sell.tax,
+    total: sell.total,
+  };
 }

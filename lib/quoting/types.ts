@@ -4,7 +4,7 @@
  * loadShopCatalog), the priced options a search shows, and the records behind them.
  */
 import type { CatalogCellRow, CatalogComponentRow } from "@/db/schema";
-import type { ArrangementOption, DesignFactors, Requirement } from "@/lib/bank";
+import type { ArrangementOption, DesignFactors, ReliabilitySettings, Requirement } from "@/lib/bank";
 import type { BankPrice, PricingRules } from "@/lib/pricing";
 import type { AutoQuoteLimits } from "./auto-quote-limits";
 
@@ -34,6 +34,14 @@ export type CatalogCell = Pick<
   | "unitCost"
   | "stock"
   | "leadTimeDays"
+  | "minVoltageV"
+  | "ratedLifeHours"
+  | "ratedLifeTemperatureC"
+  | "minTemperatureC"
+  | "maxTemperatureC"
+  | "thermalResistanceKPerW"
+  | "coldCapacitanceFactor"
+  | "coldEsrFactor"
 >;
 
 /** A catalog component (balancing board, interconnect, terminal, enclosure) as quoting reads it. */
@@ -44,6 +52,8 @@ export interface ShopCatalog {
   factors: DesignFactors;
   rules: PricingRules;
   autoQuoteLimits: AutoQuoteLimits;
+  /** failure, yield and life settings */
+  reliability: ReliabilitySettings;
   /** active cells */
   cells: CatalogCell[];
   /** active components */

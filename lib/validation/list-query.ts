@@ -158,7 +158,47 @@ export function defineList<const F extends Choices, const S extends string>(spec
     };
   }
 
-  return { spec, defaults, parse, params, state };
+  /**
+   * The list's URL parameters as a schema, for the API description: every one optional, with the
+   * values each takes (parse() above is what reads them, forgivingly).
+   */
+  const querySchema = z.object({
+    ...(spec.search ? { q: z.string().max(MAX_LIST_SEARCH_LENGTH).optional().meta({ description: "search text" }) } : {}),
+    ...Object.fromEntries(
+      Object.entries(spec.filters).map(([name, values]) => [
+        name,
+        z
+          .enum(values)
+          .optional()
+          .meta({ description: `default ${values[0]}` }),
+      ]),
+    ),
+    sort: z
+      .enum(sortKeys)
+      .optional()
+      .meta({ description: `default ${spec.sort}` }),
+    dir: z.enum(["asc", "desc"]).optional().meta({ description: "default: the column's useful direction" }),
+    page: z.number().int().min(1).max(MAX_PAGE).optional().meta({ description: "default 1; past the last page answers the last page" }),
+    size: z
+      .number()
+      .int()
+      .min(1)
+      .max(MAX_PAGE_SIZE)
+      .optional()
+      .meta({ description: `rows per page, default ${spec.size}` }),
+  });
+
+  return { spec, defaults, parse, params, state, querySchema };
+}
+
+/** A page of a list as a JSON route answers it: `{ rows, total, page, size }`. */
+export function pageSchema<R extends z.ZodType>(row: R) {
+  return z.object({
+    rows: z.array(row),
+    total: z.number().int().min(0).meta({ description: "rows in the filtered set" }),
+    page: z.number().int().min(1).meta({ description: "the page read (the last one when the asked page is beyond it)" }),
+    size: z.number().int().min(1),
+  });
 }
 
 export type ListQueryOf<L extends { defaults: unknown }> = L["defaults"];

@@ -1,7 +1,19 @@
 import { ROLES } from "@/lib/auth/permissions";
 import { TECHNOLOGIES } from "@/lib/bank/types";
-import { OUTBOX_STATUSES, QUOTE_LIST_STATUSES, REQUEST_STATUSES } from "@/lib/vocabulary";
-import { defineList, type ListQueryOf } from "./list-query";
+import { COMPONENT_KIND_VALUES } from "@/lib/catalog/component-fields";
+import {
+  ORDER_STATUSES,
+  OUTBOX_STATUSES,
+  QUOTE_LIST_STATUSES,
+  QUOTE_STATUSES,
+  REQUEST_STATUSES,
+  SHOP_EVENT_TYPES,
+  WEBHOOK_DELIVERY_STATES,
+  WEBHOOK_ENDPOINT_STATES,
+} from "@/lib/vocabulary";
+import { z } from "zod";
+import { decimalSchema } from "./bank";
+import { defineList, pageSchema, type ListQueryOf } from "./list-query";
 
 /**
  * Every list's URL state: what it can be filtered and sorted by, and which way a column sorts on its
@@ -18,6 +30,15 @@ export const catalogList = defineList({
   size: 25,
 });
 export type CatalogListQuery = ListQueryOf<typeof catalogList>;
+
+export const componentList = defineList({
+  search: true,
+  filters: { kind: ["all", ...COMPONENT_KIND_VALUES] },
+  sorts: { sku: "asc", kind: "asc", name: "asc", cost: "asc", stock: "asc", lead: "asc" },
+  sort: "kind",
+  size: 25,
+});
+export type ComponentListQuery = ListQueryOf<typeof componentList>;
 
 export const requestList = defineList({
   search: true,
@@ -37,6 +58,23 @@ export const quoteList = defineList({
 });
 export type QuoteListQuery = ListQueryOf<typeof quoteList>;
 
+/** A page of GET /api/v1/shops/{shop}/quotes. */
+export const quotePageSchema = pageSchema(
+  z.object({
+    id: z.uuid(),
+    number: z.string().meta({ example: "Q-2026-0001" }),
+    status: z.enum(QUOTE_STATUSES),
+    revision: z.number().int().min(1),
+    customerName: z.string(),
+    customerEmail: z.string(),
+    currency: z.string().length(3),
+    quantity: z.number().int(),
+    total: decimalSchema,
+    validUntil: z.iso.date(),
+    createdAt: z.iso.datetime({ offset: true }),
+  }),
+).meta({ id: "QuotePage" });
+
 export const memberList = defineList({
   search: true,
   filters: { role: ["all", ...ROLES] },
@@ -46,6 +84,18 @@ export const memberList = defineList({
 });
 export type MemberListQuery = ListQueryOf<typeof memberList>;
 
+/** A page of GET /api/v1/shops/{shop}/members. */
+export const memberPageSchema = pageSchema(
+  z.object({
+    id: z.string(),
+    userId: z.string(),
+    name: z.string(),
+    email: z.string(),
+    role: z.enum(ROLES),
+    joinedAt: z.iso.datetime({ offset: true }),
+  }),
+).meta({ id: "MemberPage" });
+
 export const outboxList = defineList({
   search: true,
   filters: { status: ["all", ...OUTBOX_STATUSES] },
@@ -54,3 +104,50 @@ export const outboxList = defineList({
   size: 20,
 });
 export type OutboxListQuery = ListQueryOf<typeof outboxList>;
+
+/** Orders: "open" is every stage still on the floor; "late" those of them past their due date. Soonest due first. */
+export const orderList = defineList({
+  search: true,
+  filters: { status: ["all", "open", ...ORDER_STATUSES], timing: ["all", "late"] },
+  sorts: { number: "desc", customer: "asc", status: "asc", due: "asc", total: "desc", created: "desc" },
+  sort: "due",
+  size: 20,
+});
+export type OrderListQuery = ListQueryOf<typeof orderList>;
+
+export const webhookEndpointList = defineList({
+  search: true,
+  filters: { state: ["all", ...WEBHOOK_ENDPOINT_STATES] },
+  sorts: { created: "desc", url: "asc", state: "asc", failing: "asc" },
+  sort: "created",
+  size: 20,
+});
+export type WebhookEndpointListQuery = ListQueryOf<typeof webhookEndpointList>;
+
+/** One endpoint's delivery log: newest first; failures and the next retry can be brought up first. */
+export const webhookDeliveryList = defineList({
+  search: true,
+  filters: { state: ["all", ...WEBHOOK_DELIVERY_STATES], event: ["all", ...SHOP_EVENT_TYPES] },
+  sorts: { created: "desc", state: "asc", attempts: "desc", code: "desc", duration: "desc", next: "asc" },
+  sort: "created",
+  size: 25,
+});
+export type WebhookDeliveryListQuery = ListQueryOf<typeof webhookDeliveryList>;
+
+export const apiKeyList = defineList({
+  search: true,
+  filters: { status: ["all", "live", "revoked"] },
+  sorts: { status: "asc", name: "asc", created: "desc", used: "desc" },
+  sort: "status",
+  size: 20,
+});
+export type ApiKeyListQuery = ListQueryOf<typeof apiKeyList>;
+
+export const ruleVersionList = defineList({
+  search: false,
+  filters: {},
+  sorts: { version: "desc" },
+  sort: "version",
+  size: 10,
+});
+export type RuleVersionListQuery = ListQueryOf<typeof ruleVersionList>;

@@ -45,6 +45,81 @@ export const toleranceRequestSchema = z
   });
 export type ToleranceRequestInput = z.infer<typeof toleranceRequestSchema>;
 
+const failureModeSchema = z.enum(["short", "open"]);
+const failureWorstSchema = z.object({
+  cellId: z.string().nullable(),
+  shortCircuit: z.boolean(),
+  capacitance: z.number().nullable(),
+  stressed: z
+    .object({ cells: z.string(), count: z.number().int(), voltage: z.number(), ratedVoltage: z.number(), surgeVoltage: z.number().nullable() })
+    .nullable(),
+  overstressedCount: z.number().int(),
+  pastSurgeCount: z.number().int(),
+});
+const failureSummarySchema = z.object({
+  mode: failureModeSchema,
+  survives: z.boolean(),
+  withinRating: z.boolean(),
+  capacitanceRange: z.object({ min: z.number().nullable(), max: z.number().nullable() }),
+  worst: failureWorstSchema.nullable(),
+  text: z.string().meta({ description: "the verdict in plain words" }),
+});
+
+/** The answer of POST /api/v1/networks/failures. */
+export const failuresAnswerSchema = z
+  .object({
+    appliedVoltage: z.number(),
+    healthy: z.object({ capacitance: z.number(), maxCellVoltage: z.number(), withinRating: z.boolean(), withinSurge: z.boolean() }),
+    cases: z
+      .array(
+        z.object({
+          cellId: z.string(),
+          mode: failureModeSchema,
+          capacitance: z.number().nullable().meta({ description: "F after the fault; null when it shorts the whole network" }),
+          maxCellVoltage: z.number(),
+          overstressed: z.array(z.string()),
+          overstressedCount: z.number().int(),
+          pastSurge: z.array(z.string()),
+          pastSurgeCount: z.number().int(),
+          shortCircuit: z.boolean(),
+        }),
+      )
+      .meta({ description: "each cell shorted, then open, in document order" }),
+    summary: z.object({ short: failureSummarySchema, open: failureSummarySchema }),
+    listLimit: z.number().int().meta({ description: "most cell ids each list of a case holds" }),
+  })
+  .meta({ id: "FailureAnalysis" });
+
+const distributionSchema = z.object({
+  mean: z.number(),
+  std: z.number(),
+  p01: z.number(),
+  p50: z.number(),
+  p99: z.number(),
+  min: z.number(),
+  max: z.number(),
+});
+const histogramSchema = z.array(z.object({ from: z.number(), to: z.number(), count: z.number().int() }));
+
+/** The answer of POST /api/v1/networks/tolerance. */
+export const toleranceAnswerSchema = z
+  .object({
+    samples: z.number().int(),
+    seed: z.number().int(),
+    distribution: z.enum(["uniform", "normal"]),
+    nominal: z.object({ capacitance: z.number(), maxCellVoltage: z.number() }),
+    capacitance: distributionSchema,
+    maxCellVoltage: distributionSchema,
+    histogram: z.object({ capacitance: histogramSchema, maxCellVoltage: histogramSchema }),
+    shares: z.object({
+      withinSurge: z.number().min(0).max(1),
+      withinRating: z.number().min(0).max(1),
+      meetingRequirement: z.number().min(0).max(1).nullable(),
+    }),
+    requiredCapacitance: z.number().nullable(),
+  })
+  .meta({ id: "ToleranceYield" });
+
 /**
  * Walk a parsed network without recursion: its node count, and the first cell (by path) whose
  * surge voltage is below its rated voltage or whose id repeats an earlier one (when ids must be unique).

@@ -1,7 +1,7 @@
 import { z } from "zod";
-import { formatBound, MAX_BY_UNIT } from "../bank/bounds";
+import { formatBound, MAX_AMBIENT_TEMPERATURE, MAX_BY_UNIT, MAX_LIFE_YEARS, MIN_AMBIENT_TEMPERATURE } from "../bank/bounds";
 import { backupEnergy, capacitanceForEnergy, maxEsrFor, storedEnergy, usableEnergy as usableEnergyOf } from "../bank/energy";
-import type { Requirement, Technology } from "../bank/types";
+import { FAULT_FILTERS, RANK_BY, type Requirement, type Technology } from "../bank/types";
 import { parseQuantity, type QuantityUnit } from "../quantities";
 import { technologySchema } from "./bank";
 import { MAX_NOTES_LENGTH, MAX_QUANTITY } from "./limits";
@@ -32,6 +32,12 @@ export const requestFormFieldsSchema = z.object({
   quantity: text,
   technology: z.union([z.literal(""), technologySchema], { message: "Choose a technology from the list" }),
   notes: z.string().max(MAX_NOTES_LENGTH, `Keep the notes under ${MAX_NOTES_LENGTH} characters`),
+  // service conditions (optional) and the customer's filters over the options
+  ambientTemperature: text,
+  rmsCurrent: text,
+  survives: z.union([z.literal(""), z.enum(FAULT_FILTERS)], { message: "Choose which failure the bank must survive" }),
+  minLifeYears: text,
+  rankBy: z.enum(RANK_BY, { message: "Choose price or life" }),
 });
 
 export type RequestFormValues = z.infer<typeof requestFormFieldsSchema>;
@@ -52,6 +58,11 @@ export const EMPTY_REQUEST_FORM: RequestFormValues = {
   quantity: "1",
   technology: "",
   notes: "",
+  ambientTemperature: "",
+  rmsCurrent: "",
+  survives: "",
+  minLifeYears: "",
+  rankBy: "price",
 };
 
 export interface RequestFormResult {
@@ -73,6 +84,7 @@ const WHAT: Record<string, string> = {
   maxDrop: "allowed voltage drop",
   maxMass: "mass limit",
   maxVolume: "volume limit",
+  rmsCurrent: "rms current",
 };
 
 const EXAMPLES: Record<QuantityUnit, string> = {
@@ -86,6 +98,7 @@ const EXAMPLES: Record<QuantityUnit, string> = {
   "m³": "12 L",
   Ω: "10 mΩ",
   Wh: "5.5 Wh",
+  m: "60 mm",
 };
 
 /**
@@ -117,6 +130,39 @@ function required(value: number | undefined, raw: string, field: RequestFormFiel
   if (value === undefined && raw.trim() === "") {
     issues.push({ field, message: `Enter the ${WHAT[field] ?? field}, e.g. ${EXAMPLES[unit]}` });
   }
+}
+
+/**
+ * Reads a temperature in °C: `40`, `40 °C`, `40 C`, `-20 °C`, `−20°C`, a decimal comma allowed.
+ * Empty → undefined. Outside the physical bounds (lib/bank/bounds.ts) it is refused at the field.
+ */
+function readTemperature(raw: string, field: RequestFormField, issues: Issue[]): number | undefined {
+  const s = raw.trim();
+  if (s === "") return undefined;
+  const m = /^([+\-\u2212]?\d+(?:[.,]\d+)?)\s*(?:°\s*C|℃|C|degC)?$/i.exec(s);
+  if (!m) {
+    issues.push({ field, message: `"${s}" is not a temperature; write it in degrees Celsius, like 40 °C or -20 °C` });
+    return undefined;
+  }
+  const value = Number((m[1] as string).replace("\u2212", "-").replace(",", "."));
+  if (value < MIN_AMBIENT_TEMPERATURE || value > MAX_AMBIENT_TEMPERATURE) {
+    issues.push({ field, message: `The ambient temperature must be from ${MIN_AMBIENT_TEMPERATURE} °C to ${MAX_AMBIENT_TEMPERATURE} °C` });
+    return undefined;
+  }
+  return value;
+}
+
+/** Reads a number of years: `10`, `7.5`, `10 years`. Empty → undefined. */
+function readYears(raw: string, field: RequestFormField, issues: Issue[]): number | undefined {
+  const s = raw.trim();
+  if (s === "") return undefined;
+  const m = /^(\d+(?:[.,]\d+)?)\s*(?:y|yr|yrs|year|years)?$/i.exec(s);
+  const value = m ? Number((m[1] as string).replace(",", ".")) : NaN;
+  if (!(value > 0) || value > MAX_LIFE_YEARS) {
+    issues.push({ field, message: `Enter a number of years above 0 and at most ${MAX_LIFE_YEARS}, like 10` });
+    return undefined;
+  }
+  return value;
 }
 
 /**
@@ -182,6 +228,15 @@ export function readRequestForm(values: RequestFormValues): { ok: true; data: Re
   }
   if (values.technology !== "") requirement.technology = values.technology as Technology;
 
+  const ambient = readTemperature(values.ambientTemperature, "ambientTemperature", issues);
+  if (ambient !== undefined) requirement.ambientTemperature = ambient;
+  const rms = readQuantity(values.rmsCurrent, "rmsCurrent", "A", issues);
+  if (rms !== undefined) requirement.rmsCurrent = rms;
+  if (values.survives !== "") requirement.survives = values.survives;
+  const minLife = readYears(values.minLifeYears, "minLifeYears", issues);
+  if (minLife !== undefined) requirement.minLifeYears = minLife;
+  if (values.rankBy === "life") requirement.rankBy = "life";
+
   return issues.length > 0 ? { ok: false, issues } : { ok: true, data: { requirement, notes: values.notes.trim() } };
 }
 
@@ -215,7 +270,7 @@ export interface DerivedFigures {
 }
 
 /** A field's value when it reads as a quantity within its bound, else null (the field shows why). */
-function quiet(raw: string, unit: Exclude<QuantityUnit, "Wh">, allowZero = false): number | null {
+function quiet(raw: string, unit: Exclude<QuantityUnit, "Wh" | "m">, allowZero = false): number | null {
   if (raw.trim() === "") return null;
   let value: number | null = null;
   const r = parseQuantity(raw, unit, { allowZero });

@@ -27,6 +27,7 @@ function edit() {
   const r = resolveCustomBank(tree, {
     cells: [SAMPLE_CELL, other],
     retiredSkus: new Set(),
+    components: [],
     rules: DEFAULT_PRICING_RULES,
     factors: DEFAULT_DESIGN_FACTORS,
     shopFactors: DEFAULT_DESIGN_FACTORS,

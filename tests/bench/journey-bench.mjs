@@ -2,6 +2,7 @@
 // Chromium against a running `next start` with the demo data. Prints figures; never a pass/fail test.
 /* global MutationObserver, requestAnimationFrame -- used inside the page */
 import { chromium } from "@playwright/test";
+import { CHROMIUM_LAUNCH } from "../../scripts/chromium.mjs";
 
 const RUNS = 20;
 const WARM_UPS = 2;
@@ -19,18 +20,7 @@ function percentile(sorted, p) {
  * @returns {Promise<{ medianMs: number, p95Ms: number, runs: number[] }>}
  */
 export async function runJourneyBench({ appUrl }) {
-  const browser = await chromium.launch({
-    executablePath: "/usr/bin/chromium",
-    args: [
-      "--no-sandbox",
-      "--disable-gpu",
-      "--disable-dev-shm-usage",
-      "--disable-background-networking",
-      "--disable-component-update",
-      "--disable-sync",
-      "--no-first-run",
-    ],
-  });
+  const browser = await chromium.launch(CHROMIUM_LAUNCH);
   const times = [];
   try {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });

@@ -1,3 +1,7 @@
+import { execFileSync } from "node:child_process";
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import { and, eq } from "drizzle-orm";
 import { Client } from "pg";
 import { db } from "@/db";
@@ -79,5 +83,27 @@ export async function adminStatement(statement: string): Promise<void> {
     await client.query(statement);
   } finally {
     await client.end();
+  }
+}
+
+/** Polls until `check` holds; the limit only bounds a broken run, it measures nothing. */
+export async function waitFor<T>(what: string, read: () => Promise<T> | T, check: (value: T) => boolean, limitMs = 45_000): Promise<T> {
+  const until = Date.now() + limitMs;
+  for (;;) {
+    const value = await read();
+    if (check(value)) return value;
+    if (Date.now() > until) throw new Error(`gave up waiting for ${what}; last seen ${JSON.stringify(value)}`);
+    await new Promise((r) => setTimeout(r, 100));
+  }
+}
+
+/** Text of a PDF as poppler's pdftotext (an independent PDF reader) extracts it. */
+export function pdfToText(buffer: Buffer): string {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "quote-pdf-"));
+  try {
+    fs.writeFileSync(path.join(dir, "q.pdf"), buffer);
+    return execFileSync("pdftotext", ["-layout", path.join(dir, "q.pdf"), "-"], { encoding: "utf8" });
+  } finally {
+    fs.rmSync(dir, { recursive: true, force: true });
   }
 }

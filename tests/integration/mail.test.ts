@@ -15,7 +15,8 @@ import { MAIL_QUEUE, PGBOSS_SCHEMA } from "@/lib/mail/queue";
 import { startMailWorker, stopMailWorker } from "@/lib/mail/worker";
 import { outboxList } from "@/lib/validation/lists";
 import { createQuote, createShop, type TestShop } from "./fixtures";
-import { freePort, maildevOnFreePorts, portOpen, waitFor, type Maildev } from "./maildev";
+import { waitFor } from "./helpers";
+import { freePort, maildevOnFreePorts, portOpen, type Maildev } from "./maildev";
 
 // The SMTP stand-in here is maildev (npm), started by this file on ports of its own so that it
 // can be stopped and started again; its REST API (GET /api/email) lists what it received.

@@ -6,6 +6,7 @@
 import { spawn, type ChildProcess } from "node:child_process";
 import net from "node:net";
 import path from "node:path";
+import { waitFor } from "./helpers";
 
 export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -27,17 +28,6 @@ export function portOpen(port: number): Promise<boolean> {
     });
     s.once("error", () => resolve(false));
   });
-}
-
-/** Polls until `check` holds; the limit only bounds a broken run, it measures nothing. */
-export async function waitFor<T>(what: string, read: () => Promise<T>, check: (value: T) => boolean, limitMs = 45_000): Promise<T> {
-  const until = Date.now() + limitMs;
-  for (;;) {
-    const value = await read();
-    if (check(value)) return value;
-    if (Date.now() > until) throw new Error(`gave up waiting for ${what}; last seen ${JSON.stringify(value)}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
 }
 
 export interface MaildevEmail {

@@ -16,7 +16,7 @@ import { adminStatement } from "./helpers";
 const base = new URL(process.env.DATABASE_URL!);
 const scratch = `faradsmith_quote_life_${process.pid}`;
 /** the last migration before quotes had moves */
-const BEFORE = "0002_audit-and-shop-events";
+const BEFORE = "0007_catalog-keeping-pricing-versions-api-keys";
 
 /** A copy of the migrations folder that ends at `last`. */
 function migrationsUpTo(last: string): string {

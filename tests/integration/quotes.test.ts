@@ -3,11 +3,7 @@
  * year, frozen revisions, the review path beyond the auto-quote limits, the quote PDF read back by
  * pdftotext, and the quote list route. Every test works in shops of its own.
  */
-import { execFileSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
-import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
 import { and, count, eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { GET as pdfRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/pdf/route";
@@ -22,19 +18,9 @@ import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 import { requestList } from "@/lib/validation/lists";
 import { cheapestOption, choiceOf, contextOf, createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, searchOptions } from "./fixtures";
-import { actAs, request, sessionCookie } from "./helpers";
+import { actAs, pdfToText, request, sessionCookie } from "./helpers";
 
 const params = <T extends Record<string, string>>(p: T) => ({ params: Promise.resolve(p) });
-
-function pdfToText(buffer: Buffer): string {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "quote-pdf-"));
-  try {
-    fs.writeFileSync(path.join(dir, "q.pdf"), buffer);
-    return execFileSync("pdftotext", ["-layout", path.join(dir, "q.pdf"), "-"], { encoding: "utf8" });
-  } finally {
-    fs.rmSync(dir, { recursive: true, force: true });
-  }
-}
 
 describe("quotes from a chosen arrangement", () => {
   it("a double submit (two concurrent calls, one key) makes exactly one quote, one revision and one e-mail", async () => {

@@ -36,7 +36,7 @@ describe("the session secret", () => {
   });
 
   it("takes a proper secret in production, and the development one in development and while building", () => {
-    expect(loadEnv({ NODE_ENV: "production", BETTER_AUTH_SECRET: "x".repeat(43) }).output).toContain("env ok");
+    expect(loadEnv({ NODE_ENV: "production", BETTER_AUTH_SECRET: "x".repeat(43), WEBHOOK_SECRET_KEY: "y".repeat(43) }).output).toContain("env ok");
     expect(loadEnv({ NODE_ENV: "development" }).output).toContain("env ok");
     expect(loadEnv({ NODE_ENV: "production", NEXT_PHASE: "phase-production-build" }).output).toContain("env ok");
   });

@@ -1,5 +1,7 @@
+import path from "node:path";
 import { Client } from "pg";
 import { vi } from "vitest";
+import { apiRouteFiles, withDriftCheck } from "../support/route-drift";
 
 // Each test file works in a database of its own, copied from the migrated and seeded test database
 // (tests/integration/global-setup.ts): no file sees rows, queued jobs or counters another file left.
@@ -30,3 +32,9 @@ vi.mock("next/cache", () => ({ revalidatePath: () => undefined, revalidateTag: (
 
 // `forbidden()` works once next.config's experimental.authInterrupts is on; the build sets this.
 process.env.__NEXT_EXPERIMENTAL_AUTH_INTERRUPTS = "true";
+
+// Drift is impossible: every route handler under app/api/v1 that a test calls has its request and
+// its answer checked against the OpenAPI description (tests/support/route-drift.ts).
+for (const file of apiRouteFiles()) {
+  vi.doMock(path.resolve(file), async (importOriginal) => withDriftCheck(await importOriginal<Record<string, unknown>>(), file));
+}

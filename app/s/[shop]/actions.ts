@@ -1,6 +1,7 @@
 "use server";
 import { headers } from "next/headers";
 import { loadShopCatalog } from "@/db/queries/catalog";
+import { listDatasheetSkus } from "@/db/queries/catalog-edit";
 import { getShopBySlug } from "@/db/queries/shops";
 import { invalidResult, refusedResult, shopAction, type ActionResult } from "@/lib/auth/guards";
 import type { DesignFactors, Requirement } from "@/lib/bank";
@@ -21,6 +22,8 @@ export interface ExploreResult {
   options: PricedOption[];
   /** when no option fits: what ruled each family out */
   reasons: string[];
+  /** SKUs of the shown options' cells that have a datasheet to download */
+  datasheets: string[];
 }
 
 /**
@@ -39,7 +42,9 @@ export async function exploreArrangements(shopSlug: string, input: unknown): Pro
   const checked = arrangementRequestSchema.safeParse(parsed.data.requirement);
   if (!checked.success) return invalidResult(checked.error);
   const requirement = { ...parsed.data.requirement, quantity: checked.data.quantity };
-  const result = searchPricedOptions(await loadShopCatalog(shop.id), requirement);
+  const [catalog, datasheetSkus] = await Promise.all([loadShopCatalog(shop.id), listDatasheetSkus(shop.id)]);
+  const result = searchPricedOptions(catalog, requirement);
+  const shownSkus = new Set(result.options.map((o) => o.cell.sku));
   return {
     ok: true,
     data: {
@@ -49,6 +54,7 @@ export async function exploreArrangements(shopSlug: string, input: unknown): Pro
       designFactors: result.designFactors,
       options: result.options,
       reasons: result.options.length === 0 ? result.reasons : [],
+      datasheets: datasheetSkus.filter((sku) => shownSkus.has(sku)),
     },
   };
 }

@@ -28,9 +28,14 @@ export default async function StorefrontLayout({ children, params }: { children:
             {r.status === "ok" ? (
               <>
                 {r.ctx.role === "customer" ? (
-                  <Link href={`/s/${slug}/quotes`} className="hover:underline">
-                    My quotes
-                  </Link>
+                  <>
+                    <Link href={`/s/${slug}/quotes`} className="hover:underline">
+                      My quotes
+                    </Link>
+                    <Link href={`/s/${slug}/orders`} className="hover:underline">
+                      My orders
+                    </Link>
+                  </>
                 ) : (
                   <Link href={`/desk/${slug}`} className="hover:underline">
                     Staff desk

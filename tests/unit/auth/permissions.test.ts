@@ -20,10 +20,15 @@ describe("role permissions", () => {
     ["quote:read-own", true, false, true],
     ["quote:accept", false, false, true],
     ["order:update-status", true, false, false],
+    ["order:read-all", true, true, false],
+    ["order:read-own", true, false, true],
+    ["order:refund", true, false, false],
+    ["reports:read", true, false, false],
     ["team:read", true, false, false],
     ["team:update-role", true, false, false],
     ["settings:write", true, false, false],
     ["outbox:read", true, false, false],
+    ["apikey:manage", true, false, false],
   ];
   it.each(table)("%s → manager %s, estimator %s, customer %s", (permission, manager, estimator, customer) => {
     expect(can("manager", permission)).toBe(manager);

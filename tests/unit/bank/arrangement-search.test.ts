@@ -295,7 +295,8 @@ function meets(o: ArrangementOption, np: number, req: Requirement, f: DesignFact
   const vMin = req.minVoltage ?? 0;
   const cDesign = (np * cell.capacitance * (1 - cell.toleranceMinus) * (1 - f.capacitanceFade)) / ns;
   const esrEol = (cell.esr * (1 + f.esrGrowth) * ns) / np;
-  const slack = 1 + 1e-9;
+  // the engine forgives 1e-9 relative when it rounds a count up; twice that keeps float noise out
+  const slack = 1 + 2e-9;
   if (req.capacitance !== undefined && cDesign * slack < req.capacitance) return false;
   if (req.energy !== undefined && 0.5 * cDesign * (req.maxVoltage ** 2 - vMin ** 2) * slack < req.energy) return false;
   if (req.peakCurrent) {
@@ -335,7 +336,9 @@ describe("searchArrangements properties (fast-check)", () => {
           }
           // the shortest safe string (DESIGN §3.2): one cell fewer is below what the voltage needs,
           // or its worst case is above the surge rating, or above the rating with no board to clamp it
-          const nsVoltage = Math.max(1, Math.ceil(req.maxVoltage / (factors.voltageDerating * cell.ratedVoltage) - 1e-9));
+          // (forgiving float noise just above a whole number relative to its size, as the engine does)
+          const cellsForVoltage = req.maxVoltage / (factors.voltageDerating * cell.ratedVoltage);
+          const nsVoltage = Math.max(1, Math.ceil(cellsForVoltage - 1e-9 * Math.max(1, cellsForVoltage)));
           const shorter = ns - 1;
           const vwShorter = (req.maxVoltage * (1 / cLo)) / (1 / cLo + (shorter - 1) / cHi);
           const surge = Math.max(cell.surgeVoltage, cell.ratedVoltage);

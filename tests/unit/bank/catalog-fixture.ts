@@ -16,6 +16,9 @@ export function seededRandom(seed: number): () => number {
   };
 }
 
+/** rated life (h) at the top of the range (°C) */
+const LIFE: Record<Technology, [number, number]> = { edlc: [1500, 65], hybrid: [1000, 70], electrolytic: [3000, 105], film: [100_000, 85] };
+
 const PREFIX: Record<Technology, string> = { edlc: "QZ", hybrid: "HV", electrolytic: "EL", film: "FM" };
 
 export function generateCatalog(count: number, seed = 1): EngineCell[] {
@@ -78,6 +81,18 @@ export function generateCatalog(count: number, seed = 1): EngineCell[] {
       unitCost: 0.5 + mass * (20 + 30 * rnd()),
       stock: Math.floor(rnd() * 2000),
       leadTimeDays: pick([7, 14, 21, 42]),
+      // hybrid cells carry their minimum voltage (the usual 2.2 V, common practice)
+      minVoltage: technology === "hybrid" ? 2.2 : null,
+      // life data typical of the technology (common practice ranges, invented values)
+      thermal: {
+        ratedLifeHours: LIFE[technology][0],
+        ratedTemperature: LIFE[technology][1],
+        minTemperature: -25,
+        maxTemperature: LIFE[technology][1],
+        thermalResistance: 2 + 20 * rnd(),
+        coldCapacitanceFactor: null,
+        coldEsrFactor: null,
+      },
     });
   }
   return cells;

@@ -43,6 +43,22 @@ describe("quote-ready e-mail", () => {
     expect(SAFETY_LINE).toMatch(/Local electrical codes and licensed practice decide/);
   });
 
+  it("lists the sell lines and the tax above the total", async () => {
+    const text = await render(
+      createElement(QuoteReadyEmail, {
+        ...props,
+        lines: [{ description: "Supercapacitor (EDLC) bank 48 V, 23.1 F", quantity: "2", unit: "banks", unitPrice: "€5,400.00", amount: "€10,800.00" }],
+        totals: [
+          { label: "Subtotal", value: "€10,800.00" },
+          { label: "Tax (19 %)", value: "€2,052.00" },
+        ],
+      }),
+      { plainText: true },
+    );
+    expect(text).toContain("Supercapacitor (EDLC) bank 48 V, 23.1 F: 2 banks × €5,400.00 = €10,800.00");
+    expect(text.indexOf("Tax (19 %)")).toBeLessThan(text.indexOf("€12,345.60"));
+  });
+
   it("says bank, not banks, for one", async () => {
     const text = await render(createElement(QuoteReadyEmail, { ...props, quantity: 1 }), { plainText: true });
     expect(text).toContain("1 bank");

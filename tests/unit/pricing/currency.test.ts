@@ -1,6 +1,6 @@
 import Decimal from "decimal.js";
 import { describe, expect, it } from "vitest";
-import { ISO_4217_MINOR_UNITS, formatMoney, minorUnits, moneyString, roundMoney, toMinorUnits } from "@/lib/pricing";
+import { ISO_4217_MINOR_UNITS, formatMoney, fromMinorUnits, minorUnits, moneyString, roundMoney, toMinorUnits } from "@/lib/pricing";
 
 describe("minorUnits", () => {
   // Source: ISO 4217 list one (current currency & funds codes), column "Minor unit".
@@ -149,5 +149,24 @@ describe("toMinorUnits", () => {
 
   it("throws for an unknown currency", () => {
     expect(() => toMinorUnits("1", "XYZ")).toThrow(/Unknown currency code/);
+  });
+});
+
+describe("fromMinorUnits (what a payment service reports, back to a decimal)", () => {
+  // ISO 4217 list one: JPY 0, EUR 2, KWD 3 minor-unit digits
+  it.each([
+    [1234, "EUR", "12.34"],
+    [5, "EUR", "0.05"],
+    [0, "EUR", "0.00"],
+    [1200, "JPY", "1200"],
+    [12345, "KWD", "12.345"],
+    [-250, "GBP", "-2.50"],
+  ] as const)("%i %s → %s, and back", (minor, code, decimal) => {
+    expect(fromMinorUnits(minor, code)).toBe(decimal);
+    expect(toMinorUnits(decimal, code)).toBe(minor === 0 ? 0 : minor);
+  });
+
+  it("refuses a fraction of a minor unit", () => {
+    expect(() => fromMinorUnits(1.5, "EUR")).toThrow(/safe integer/);
   });
 });

@@ -26,8 +26,8 @@ describe("priceBank — hand-worked example, EUR, default rules", () => {
   // Arithmetic by hand (EUR, 2 minor digits per ISO 4217; half-up rounding, common practice):
   // materials, per bank
   //   cells            6 × 6.40            =  38.40
-  //   balancing res.   6 × 0.35            =   2.10
-  //   bleeder          0.90 €/W × 2 W      =   1.80
+  //   balancing res.   6 × 0.35 (0.25 W part)  =   2.10
+  //   bleeder          one 2 W part at 1.80     =   1.80
   //   interconnects    6 × 1.80            =  10.80
   //   enclosure        0.000528 m³ × 1.6 = 0.0008448 m³ ≤ 0.002 → "Enclosure S" = 38.00
   //   terminals                            =  24.00
@@ -65,9 +65,9 @@ describe("priceBank — hand-worked example, EUR, default rules", () => {
     expect(p.lines.find((l) => l.code === "bleeder")).toMatchObject({
       quantity: 1,
       unitPrice: "1.80",
-      description: "Bleeder resistor 330 Ω, 2 W",
+      description: "Bleeder resistor 330 Ω, 2 W (RS-2W)",
     });
-    expect(p.lines.find((l) => l.code === "balancing-resistors")?.description).toBe("Balancing resistor 1 kΩ, 0.25 W");
+    expect(p.lines.find((l) => l.code === "balancing-resistors")?.description).toBe("Balancing resistor 1 kΩ, 0.25 W (RS-0W25)");
     expect(p.lines.find((l) => l.code === "labour-assembly")).toMatchObject({
       kind: "labour",
       quantity: 0.6,
@@ -96,6 +96,37 @@ describe("priceBank — hand-worked example, EUR, default rules", () => {
   });
 });
 
+describe("priceBank — extra lines beside the bank", () => {
+  // The six-cell bill at the default rules again (unit price 448.21, 10 banks, 7 % break: gross
+  // 4482.10, discount 313.75), with two sell-priced extras: 2 × 35.50 = 71.00 and 1 × 120.00.
+  // subtotal 4482.10 − 313.75 + 71.00 + 120.00 = 4359.35; tax 20 % = 871.87; total 5231.22.
+  const extras = [
+    { description: "Spare cell kit", quantity: 2, unit: "set", unitPrice: "35.50" },
+    { description: "Commissioning visit", quantity: 1, unit: "lot", unitPrice: "120" },
+  ];
+  const p = priceBank(sixCellBill, rules(), extras);
+
+  it("adds them after the quantity discount, untouched by overhead and margin, and taxes them", () => {
+    expect(p.unitPrice).toBe("448.21");
+    expect(p.discount).toBe("313.75");
+    expect(p.extras).toEqual([
+      { ...extras[0], amount: "71.00" },
+      { ...extras[1], unitPrice: "120.00", amount: "120.00" },
+    ]);
+    expect(p).toMatchObject({ subtotal: "4359.35", tax: "871.87", total: "5231.22" });
+  });
+
+  it("leaves a price without extras exactly as before (no extras field)", () => {
+    expect(priceBank(sixCellBill, rules())).not.toHaveProperty("extras");
+  });
+
+  it("refuses an extra line without a description or with money finer than the currency", () => {
+    const r = tryPriceBank(sixCellBill, rules(), [{ description: " ", quantity: 1, unit: "pc", unitPrice: "1.005" }]);
+    expect(r).toMatchObject({ ok: false, code: "invalid-extras" });
+    if (!r.ok) expect(r.issues.map((i) => i.path)).toEqual(["extras[0].description", "extras[0].unitPrice"]);
+  });
+});
+
 describe("priceBank — hand-worked example, JPY (0 minor digits, ISO 4217)", () => {
   const jpyRules = rules({
     currency: "JPY",
@@ -107,8 +138,6 @@ describe("priceBank — hand-worked example, JPY (0 minor digits, ISO 4217)", ()
     marginPct: "25",
     taxRatePct: "10",
     interconnectCostPerCell: "250",
-    balancingResistorCost: "50",
-    bleederCostPerWatt: "120",
     balancingBoardCost: "2500",
     terminalSetCost: "3000",
     enclosures: [
@@ -123,13 +152,13 @@ describe("priceBank — hand-worked example, JPY (0 minor digits, ISO 4217)", ()
     cell: { sku: "NV-60F-2V7", description: "", unitCost: "1234.5" },
     cellCount: 12,
     balancingResistors: null,
-    bleeder: { resistance: 47, power: 5 },
+    bleeder: { resistance: 47, power: 5, unitCost: "600" },
     activeBoards: { sku: "AB-6S", count: 2, unitCost: "" },
     volumeM3: 0.0072,
     quantity: 3,
   };
   // cells        unit 1234.5 → 1235 (half-up to 0 digits); 12 × 1235 = 14820
-  // bleeder      120 × 5 W                    =   600
+  // bleeder      one 5 W part                 =   600
   // interconnect 12 × 250                     =  3000
   // boards       no unit cost → fallback 2500; 2 × 2500 = 5000
   // enclosure    0.0072 × 1.5 = 0.0108 m³ > 0.01 (Box A) → Box B = 20000
@@ -187,8 +216,6 @@ describe("priceBank — hand-worked example, KWD (3 minor digits, ISO 4217)", ()
     marginPct: "30",
     taxRatePct: "5",
     interconnectCostPerCell: "0.550",
-    balancingResistorCost: "0.105",
-    bleederCostPerWatt: "0.275",
     terminalSetCost: "7.250",
     enclosures: [
       { name: "Case 1", maxVolumeM3: 0.0056, cost: "11.000" },
@@ -201,15 +228,15 @@ describe("priceBank — hand-worked example, KWD (3 minor digits, ISO 4217)", ()
   const bill: BankBill = {
     cell: { sku: "RK-100F-3V0", description: "EDLC cell 100 F 3.0 V", unitCost: "3.1415" },
     cellCount: 4,
-    balancingResistors: { count: 4, resistance: 2200, powerRating: 0.5 },
-    bleeder: { resistance: 1500, power: 0.5 },
+    balancingResistors: { count: 4, resistance: 2200, powerRating: 0.5, unitCost: "0.105" },
+    bleeder: { resistance: 1500, power: 0.5, unitCost: "0.1375" },
     activeBoards: null,
     volumeM3: 0.0035,
     quantity: 1,
   };
   // cells        unit 3.1415 → 3.142 (half-up); 4 × 3.142  = 12.568
   // resistors    4 × 0.105                                  =  0.420
-  // bleeder      0.275 × 0.5 W = 0.1375 → 0.138 (half-up)  =  0.138
+  // bleeder      a 0.5 W part at 0.1375 → 0.138 (half-up)  =  0.138
   // interconnect 4 × 0.550                                  =  2.200
   // enclosure    0.0035 × 1.6 = 0.0056 m³ exactly → fits Case 1 = 11.000
   //              (in binary floats 0.0035 * 1.6 = 0.005600000000000001 and would not fit)
@@ -466,6 +493,7 @@ describe("the quote always adds up (arithmetic identities over generated bills)"
           cellCount: fc.integer({ min: 1, max: 400 }),
           resistors: fc.integer({ min: 0, max: 400 }),
           bleederW: fc.constantFrom(0.25, 0.5, 1, 2, 5, 10, 25),
+          bleederCost: money(4, 500_000),
           volumeM3: fc.double({ min: 1e-6, max: 0.07, noNaN: true }),
           quantity: fc.integer({ min: 1, max: 60 }),
           overheadPct: money(1, 400),
@@ -479,8 +507,8 @@ describe("the quote always adds up (arithmetic identities over generated bills)"
               ...sixCellBill,
               cell: { ...sixCellBill.cell, unitCost: g.unitCost },
               cellCount: g.cellCount,
-              balancingResistors: { count: g.resistors, resistance: 1000, powerRating: 0.25 },
-              bleeder: { resistance: 100, power: g.bleederW },
+              balancingResistors: { count: g.resistors, resistance: 1000, powerRating: 0.25, unitCost: "0.35" },
+              bleeder: { resistance: 100, power: g.bleederW, unitCost: g.bleederCost },
               volumeM3: g.volumeM3,
               quantity: g.quantity,
             },

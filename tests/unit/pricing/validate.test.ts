@@ -40,8 +40,6 @@ describe("validatePricingRules", () => {
       currency: "JPY",
       labourRatePerHour: "6000",
       interconnectCostPerCell: "250",
-      balancingResistorCost: "50",
-      bleederCostPerWatt: "120",
       balancingBoardCost: "2500",
       terminalSetCost: "3000",
       enclosures: [{ name: "Box", maxVolumeM3: 0.01, cost: "9000" }],
@@ -49,6 +47,22 @@ describe("validatePricingRules", () => {
     expect(paths(yen)).toEqual([]);
     expect(paths({ ...yen, labourRatePerHour: "6000.5" })).toEqual(["labourRatePerHour"]);
     expect(paths(rules({ currency: "KWD", labourRatePerHour: "12.500" }))).toEqual([]);
+  });
+
+  it.each([
+    [0, []],
+    [100, []],
+    [30.5, []],
+    [-1, ["depositPercent"]],
+    [100.5, ["depositPercent"]],
+    [Number.NaN, ["depositPercent"]],
+  ])("reads a deposit of %s %% (0 = full payment only, 100 = all up front)", (depositPercent, expected) => {
+    expect(paths(rules({ depositPercent }))).toEqual(expected);
+  });
+
+  it("still reads rules saved with the retired flat resistor costs, and checks them as money", () => {
+    expect(paths(rules({ balancingResistorCost: "0.35", bleederCostPerWatt: "0.90" }))).toEqual([]);
+    expect(paths(rules({ bleederCostPerWatt: "0.9x" }))).toEqual(["bleederCostPerWatt"]);
   });
 
   it("refuses an unknown currency", () => {
@@ -93,8 +107,8 @@ describe("validateBankBill", () => {
   const bill: BankBill = {
     cell: { sku: "QX-350F-2V7", description: "EDLC cell 350 F 2.7 V", unitCost: "6.40" },
     cellCount: 6,
-    balancingResistors: { count: 6, resistance: 1000, powerRating: 0.25 },
-    bleeder: { resistance: 330, power: 2 },
+    balancingResistors: { count: 6, resistance: 1000, powerRating: 0.25, unitCost: "0.35" },
+    bleeder: { resistance: 330, power: 2, unitCost: "1.80" },
     activeBoards: { sku: "AB-6S", count: 1, unitCost: "" },
     volumeM3: 0.000528,
     quantity: 1,
@@ -108,8 +122,8 @@ describe("validateBankBill", () => {
     const issues = validateBankBill({
       cell: { sku: " ", description: "x", unitCost: "1e3" },
       cellCount: 0,
-      balancingResistors: { count: -1, resistance: 0, powerRating: 0.25 },
-      bleeder: { resistance: 330, power: Number.POSITIVE_INFINITY },
+      balancingResistors: { count: -1, resistance: 0, powerRating: 0.25, unitCost: "0.35" },
+      bleeder: { resistance: 330, power: Number.POSITIVE_INFINITY, unitCost: "1.80" },
       activeBoards: { sku: "AB-6S", count: 1.5, unitCost: "-3" },
       volumeM3: 0,
       quantity: 2.5,

@@ -3,7 +3,14 @@ import { DEFAULT_DESIGN_FACTORS, searchArrangements } from "@/lib/bank";
 import { DEFAULT_PRICING_RULES, priceBank } from "@/lib/pricing";
 import { balancingBoardsOf, billFor, costModelOf, freezeCell, toBalancingBoard, toEngineCell } from "@/lib/quoting/bill";
 import type { CatalogCell, CatalogComponent } from "@/lib/quoting/types";
-import { SAMPLE_BOARD, SAMPLE_CELL } from "./sample-quote";
+import { SAMPLE_BOARD, SAMPLE_CELL, SAMPLE_RESISTORS } from "./sample-quote";
+
+/** The bill, or the test fails with the reason it could not be made. */
+function billed(...args: Parameters<typeof billFor>) {
+  const r = billFor(...args);
+  if (!r.ok) throw new Error(r.message);
+  return r.bill;
+}
 
 /** An invented electrolytic box cell. */
 const BOX: CatalogCell = {
@@ -74,14 +81,19 @@ describe("option → bill of materials", () => {
 
   it("bills the cells, the balancing resistors and the board the engine fitted, at the board's own unit cost", () => {
     const withBoard = search(48, [SAMPLE_BOARD]).find((o) => o.balancing.activeBoard !== null)!;
-    const bill = billFor(withBoard, SAMPLE_CELL, [SAMPLE_BOARD], 3);
+    const bill = billed(withBoard, SAMPLE_CELL, [SAMPLE_BOARD, ...SAMPLE_RESISTORS], 3);
     expect(bill.cell).toEqual({ sku: "BWC-3000-27", description: "Brightwater Cells BW-K", unitCost: "38.5000" });
     expect(bill.cellCount).toBe(withBoard.cellCount);
     expect(bill.activeBoards).toEqual({ sku: "BWC-BAL6", count: withBoard.balancing.activeBoard!.count, unitCost: "21.4000" });
+    // twice what each dissipates is above the 0.25 W class and within the 1 W class
+    expect(2 * withBoard.balancing.power).toBeGreaterThan(0.25);
+    expect(2 * withBoard.balancing.power).toBeLessThanOrEqual(1);
     expect(bill.balancingResistors).toEqual({
       count: withBoard.balancing.count,
       resistance: withBoard.balancing.resistance,
-      powerRating: withBoard.balancing.powerRating,
+      powerRating: 1,
+      sku: "BWC-R1W",
+      unitCost: "0.6000",
     });
     expect(bill.volumeM3).toBe(withBoard.volume);
     expect(bill.quantity).toBe(3);
@@ -89,21 +101,41 @@ describe("option → bill of materials", () => {
 
   it("a board the catalog no longer lists is billed with no unit cost, so the rules' fallback prices it", () => {
     const withBoard = search(48, [SAMPLE_BOARD]).find((o) => o.balancing.activeBoard !== null)!;
-    expect(billFor(withBoard, SAMPLE_CELL, [], 1).activeBoards?.unitCost).toBe("");
+    expect(billed(withBoard, SAMPLE_CELL, SAMPLE_RESISTORS, 1).activeBoards?.unitCost).toBe("");
   });
 
-  it("bills a continuous bleeder by its power rating, and leaves a switched discharge circuit to the shop", () => {
+  it("bills a continuous bleeder as the catalog part of its power class, and leaves a switched discharge circuit to the shop", () => {
     // 400 V from one 450 V cell: the bleeder that brings it to 60 V within 5 s would dissipate kW
     const options = searchArrangements({ requirement: { maxVoltage: 400, energy: 300 }, cells: [toEngineCell(BOX)], factors: DEFAULT_DESIGN_FACTORS }).options;
     const switched = options.find((o) => o.discharge.bleeder?.switched)!;
-    expect(billFor(switched, BOX, [], 1).bleeder).toBeNull();
+    expect(billed(switched, BOX, [], 1).bleeder).toBeNull();
+    // 1.6 W dissipated needs a part rated for 3.2 W: the 5 W class (the 1 W class is too small)
     const slow = { ...switched, discharge: { ...switched.discharge, bleeder: { resistance: 1e5, power: 1.6, powerRating: 5, energy: 1, switched: false } } };
-    expect(billFor(slow, BOX, [], 1).bleeder).toEqual({ resistance: 1e5, power: 5 });
+    expect(billed(slow, BOX, SAMPLE_RESISTORS, 1).bleeder).toEqual({ resistance: 1e5, power: 5, sku: "BWC-R5W", unitCost: "1.9000" });
+    // 14 W needs 28 W: beyond the largest class this catalog holds (25 W), so no bill and no made-up price
+    const hot = { ...slow, discharge: { ...slow.discharge, bleeder: { ...slow.discharge.bleeder, power: 14, powerRating: 50 } } };
+    const refused = billFor(hot, BOX, SAMPLE_RESISTORS, 1);
+    expect(refused).toEqual({ ok: false, message: "The catalog holds no resistor rated for 28 W (twice the bleeder's 14 W)." });
+  });
+
+  it("prices a balancing resistor by its power class: a hotter resistor takes a dearer part", () => {
+    const o = search(48, [])[0]!;
+    const cool = billed({ ...o, balancing: { ...o.balancing, power: 0.1 } }, SAMPLE_CELL, SAMPLE_RESISTORS, 1);
+    const hot = billed({ ...o, balancing: { ...o.balancing, power: 2 } }, SAMPLE_CELL, SAMPLE_RESISTORS, 1);
+    // 0.1 W dissipated needs 0.2 W: the 0.25 W class
+    expect(cool.balancingResistors).toMatchObject({ sku: "BWC-R0W25", unitCost: "0.3500" });
+    // 2 W dissipated needs 4 W: the 5 W class
+    expect(hot.balancingResistors).toMatchObject({ sku: "BWC-R5W", powerRating: 5, unitCost: "1.9000" });
+    const line = (b: typeof cool) => priceBank(b, DEFAULT_PRICING_RULES).lines.find((l) => l.code === "balancing-resistors");
+    expect(line(cool)?.unitPrice).toBe("0.35");
+    expect(line(hot)?.unitPrice).toBe("1.90");
+    // with no resistor in the catalog the bank is not billed
+    expect(billFor(o, SAMPLE_CELL, [SAMPLE_BOARD], 1)).toMatchObject({ ok: false });
   });
 
   it("prices through lib/pricing into the lines a quote freezes", () => {
     const o = search(48, [])[0]!;
-    const price = priceBank(billFor(o, SAMPLE_CELL, [], 1), DEFAULT_PRICING_RULES);
+    const price = priceBank(billed(o, SAMPLE_CELL, SAMPLE_RESISTORS, 1), DEFAULT_PRICING_RULES);
     expect(price.lines.find((l) => l.code === "cells")).toMatchObject({ quantity: o.cellCount, unitPrice: "38.50" });
   });
 });
@@ -112,10 +144,12 @@ describe("the float cost model the search orders by", () => {
   it("splits materials (marked up by the overhead) from labour, less the rounding slack", () => {
     // EUR, 68.00/h, 12 % overhead: interconnect 1.80 − 0.005 per cell; terminals 24.00 per bank;
     // assembly 68·6/60 per cell; setup and test 68·(90 + 45)/60 − 0.02 per bank
-    const m = costModelOf(DEFAULT_PRICING_RULES);
+    const m = costModelOf(DEFAULT_PRICING_RULES, SAMPLE_RESISTORS);
     expect(m.perCell).toBeCloseTo(1.8 - 0.005, 12);
     expect(m.perBank).toBe(24);
-    expect(m.perBalancingResistor).toBe(0.35);
+    // the cheapest resistor in the catalog, less the rounding slack
+    expect(m.perBalancingResistor).toBeCloseTo(0.35 - 0.005, 12);
+    expect(costModelOf(DEFAULT_PRICING_RULES).perBalancingResistor).toBe(0);
     expect(m.perBalancingBoard).toBeCloseTo(-0.005, 12);
     expect(m.materialsFactor).toBeCloseTo(1.12, 12);
     expect(m.labourPerCell).toBeCloseTo(6.8, 12);

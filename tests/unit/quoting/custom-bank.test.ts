@@ -126,12 +126,15 @@ describe("a custom bank evaluated by the engine", () => {
     const r = evaluateCustomBank(tree, [C100, C50], requirement, factors);
     if (!r.ok) throw new Error("not ok");
     const option = customBankOption(tree, r.figures, [C100, C50], requirement, factors, { warnings: r.warnings });
-    const bill = customBankBill(tree, option, [C100, C50], 3);
-    expect(bill.mixedCells?.map((c) => [c.sku, c.count])).toEqual([
+    const demo = demoCatalog("kestrel-bank-works");
+    const made = customBankBill(tree, option, [C100, C50], demo.components, 3);
+    if (!made.ok) throw new Error(made.message);
+    expect(made.bill.mixedCells?.map((c) => [c.sku, c.count])).toEqual([
       [C100.sku, 2],
       [C50.sku, 2],
     ]);
-    const price = priceBank(bill, demoCatalog("kestrel-bank-works").rules);
+    expect(made.bill.balancingResistors).toBeNull();
+    const price = priceBank(made.bill, demo.rules);
     expect(price.lines.filter((l) => l.code === "cells").map((l) => l.quantity)).toEqual([2, 2]);
   });
 });

@@ -6,7 +6,7 @@
 import { Decimal } from "decimal.js";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { DEFAULT_DESIGN_FACTORS, searchArrangements, type Requirement } from "@/lib/bank";
+import { DEFAULT_DESIGN_FACTORS, DEFAULT_RELIABILITY_SETTINGS, searchArrangements, type Requirement } from "@/lib/bank";
 import { tryPriceBank, type PricingRules } from "@/lib/pricing";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import { balancingBoardsOf, billFor, costModelOf, priceLowerBound, toEngineCell } from "@/lib/quoting/bill";
@@ -39,8 +39,6 @@ const arbRules: fc.Arbitrary<PricingRules> = fc.constantFrom(...CURRENCIES).chai
     marginPct: pct(60),
     taxRatePct: pct(25),
     interconnectCostPerCell: money(digits, 5 * scale),
-    balancingResistorCost: money(digits, 2 * scale),
-    bleederCostPerWatt: money(digits, 3 * scale),
     balancingBoardCost: money(digits, 80 * scale),
     terminalSetCost: money(digits, 60 * scale),
     enclosures: fc
@@ -51,6 +49,7 @@ const arbRules: fc.Arbitrary<PricingRules> = fc.constantFrom(...CURRENCIES).chai
     enclosurePackingFactor: fc.double({ min: 1, max: 2, noNaN: true }),
     quantityBreaks: fc.constant([{ minQuantity: 5, discountPct: "4" }]),
     quoteValidityDays: fc.constant(30),
+    depositPercent: fc.integer({ min: 0, max: 100 }),
   });
 });
 
@@ -85,6 +84,15 @@ const arbCell = (i: number): fc.Arbitrary<CatalogCell> =>
       lengthMm: null,
       widthMm: null,
       leadTimeDays: 14,
+      // hybrid cells must carry a minimum voltage (common practice: about 2.2 V per 3.8 V cell)
+      minVoltageV: c.technology === "hybrid" ? c.ratedVoltageV * 0.58 : null,
+      ratedLifeHours: 2000,
+      ratedLifeTemperatureC: 85,
+      minTemperatureC: -40,
+      maxTemperatureC: 85,
+      thermalResistanceKPerW: 5,
+      coldCapacitanceFactor: null,
+      coldEsrFactor: null,
     }));
 
 const arbCells: fc.Arbitrary<CatalogCell[]> = fc.integer({ min: 1, max: 24 }).chain((n) => fc.tuple(...Array.from({ length: n }, (_, i) => arbCell(i))));
@@ -110,6 +118,22 @@ const arbBoards: fc.Arbitrary<CatalogComponent[]> = fc
     })),
   );
 
+/** Resistors of a few power classes (the search's lower bound must hold whichever class a bank takes). */
+const arbResistors: fc.Arbitrary<CatalogComponent[]> = fc
+  .uniqueArray(fc.constantFrom(0.125, 0.25, 0.5, 1, 2, 5, 10, 25, 50, 100), { maxLength: 5 })
+  .chain((ratings) => fc.tuple(...ratings.map((w) => fc.integer({ min: 1, max: 400_000 }).map((n) => ({ w, unitCost: (n / 1e4).toFixed(4) })))))
+  .map((rs) =>
+    rs.map((r, i) => ({
+      id: `resistor-${i}`,
+      kind: "resistor" as const,
+      sku: `TQ-RES-${i}`,
+      name: "Resistor",
+      unitCost: r.unitCost,
+      specs: { powerRatingW: r.w },
+      leadTimeDays: 2,
+    })),
+  );
+
 const arbRequirement: fc.Arbitrary<Requirement> = fc
   .record({
     maxVoltage: fc.double({ min: 3, max: 900, noNaN: true }),
@@ -129,8 +153,13 @@ const arbRequirement: fc.Arbitrary<Requirement> = fc
   });
 
 const arbCatalog: fc.Arbitrary<ShopCatalog> = fc
-  .record({ factors: arbFactors, rules: arbRules, cells: arbCells, components: arbBoards })
-  .map((c) => ({ ...c, autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS }));
+  .record({ factors: arbFactors, rules: arbRules, cells: arbCells, boards: arbBoards, resistors: arbResistors })
+  .map(({ boards, resistors, ...c }) => ({
+    ...c,
+    components: [...boards, ...resistors],
+    autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS,
+    reliability: DEFAULT_RELIABILITY_SETTINGS,
+  }));
 
 /** Every feasible option, each priced exactly: what no pre-cut may differ from. */
 function everyOptionPriced(catalog: ShopCatalog, requirement: Requirement) {
@@ -140,12 +169,13 @@ function everyOptionPriced(catalog: ShopCatalog, requirement: Requirement) {
     cells: catalog.cells.map(toEngineCell),
     factors: catalog.factors,
     balancingBoards: balancingBoardsOf(catalog.components),
-    costModel: costModelOf(catalog.rules),
+    costModel: costModelOf(catalog.rules, catalog.components),
     limit: Number.POSITIVE_INFINITY,
   });
   return all.options.map((o) => {
-    const r = tryPriceBank(billFor(o, byId.get(o.cellId)!, catalog.components, requirement.quantity ?? 1), catalog.rules);
-    return { ...o, price: r.ok ? { perBank: r.data.unitPrice, total: r.data.total } : null };
+    const bill = billFor(o, byId.get(o.cellId)!, catalog.components, requirement.quantity ?? 1);
+    const r = bill.ok ? tryPriceBank(bill.bill, catalog.rules) : null;
+    return { ...o, price: r?.ok ? { perBank: r.data.unitPrice, total: r.data.total } : null };
   });
 }
 

@@ -3,7 +3,9 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
+import { NOT_RECORDED, toQuoteEngineering } from "@/lib/quoting/quote-engineering";
 import { pdfText, quotePdfFileName, renderQuotePdfLayout } from "@/lib/quoting/quote-pdf-layout";
+import type { PricedOption } from "@/lib/quoting/types";
 import { sampleQuoteDocument } from "./sample-quote";
 
 /** Text of a PDF as poppler's pdftotext (an independent PDF reader) extracts it. */
@@ -31,6 +33,31 @@ describe("quote PDF", () => {
     expect(text).toMatch(/discharge it and short its terminals/);
     expect(text).toMatch(/engineering estimate/);
     for (const line of doc.lines) expect(text).toContain(line.amount);
+  });
+
+  it("holds the engineering sections as pdftotext reads them: one failed cell, tolerance yield, temperature and life, shipping", async () => {
+    const doc = sampleQuoteDocument();
+    const text = pdfToText(await renderQuotePdfLayout(doc)).replace(/\s+/g, " ");
+    expect(text).toContain("How the bank fails and how long it lasts");
+    // the frozen option's own verdicts, word for word
+    expect(text).toContain(doc.option.failures.short.text.replace(/Ω/g, "Ohm"));
+    expect(text).toContain(doc.option.failures.open.text.replace(/Ω/g, "Ohm"));
+    expect(text).toContain("Tolerance yield");
+    expect(text).toMatch(/10,000, seed 2026/);
+    expect(text).toContain("Temperature and expected life");
+    expect(text).toContain("Life doubles for each 10 °C below the rated 65 °C (common practice).");
+    expect(text).toContain("UN 3499");
+  });
+
+  it("says so when a revision was frozen before these figures existed", async () => {
+    const doc = sampleQuoteDocument();
+    const { failures: _f, life: _l, handling: _h, yieldBasis: _y, ...old } = doc.option;
+    const engineering = toQuoteEngineering({ maxVoltage: 48, minVoltage: 24, energy: 20_000 }, old as unknown as PricedOption);
+    expect(engineering.failures).toBeNull();
+    expect(engineering.tolerance).toBeNull();
+    expect(engineering.lifeNote).toBe(NOT_RECORDED);
+    const text = pdfToText(await renderQuotePdfLayout({ ...doc, engineering })).replace(/\s+/g, " ");
+    expect(text).toContain(`One-cell failures: ${NOT_RECORDED}.`);
   });
 
   it("prints Ω as Ohm, which the shipped Latin font can draw", () => {

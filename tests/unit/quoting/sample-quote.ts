@@ -5,7 +5,7 @@
  * The cell, its maker "Brightwater Cells", the board and the shop are invented.
  */
 import type { RevisionWithLines } from "@/db/queries/quotes";
-import { DEFAULT_DESIGN_FACTORS } from "@/lib/bank";
+import { DEFAULT_DESIGN_FACTORS, DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank";
 import { DEFAULT_PRICING_RULES } from "@/lib/pricing";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import { searchPricedOptions } from "@/lib/quoting/priced-search";
@@ -36,6 +36,14 @@ export const SAMPLE_CELL: CatalogCell = {
   unitCost: "38.5000",
   stock: 400,
   leadTimeDays: 10,
+  minVoltageV: null,
+  ratedLifeHours: 1500,
+  ratedLifeTemperatureC: 65,
+  minTemperatureC: -40,
+  maxTemperatureC: 65,
+  thermalResistanceKPerW: 3.2,
+  coldCapacitanceFactor: 0.9,
+  coldEsrFactor: 2,
 };
 
 export const SAMPLE_BOARD: CatalogComponent = {
@@ -48,12 +56,29 @@ export const SAMPLE_BOARD: CatalogComponent = {
   leadTimeDays: 7,
 };
 
+/** Resistors of four power classes (invented parts), priced by class. */
+export const SAMPLE_RESISTORS: CatalogComponent[] = [
+  ["BWC-R0W25", 0.25, "0.3500"],
+  ["BWC-R1W", 1, "0.6000"],
+  ["BWC-R5W", 5, "1.9000"],
+  ["BWC-R25W", 25, "6.5000"],
+].map(([sku, w, cost], i) => ({
+  id: `00000000-0000-4000-8000-00000000010${i}`,
+  kind: "resistor",
+  sku: String(sku),
+  name: `Resistor ${String(w)} W`,
+  unitCost: String(cost),
+  specs: { powerRatingW: Number(w) },
+  leadTimeDays: 2,
+}));
+
 export const SAMPLE_CATALOG: ShopCatalog = {
   factors: DEFAULT_DESIGN_FACTORS,
   rules: DEFAULT_PRICING_RULES,
   autoQuoteLimits: DEFAULT_AUTO_QUOTE_LIMITS,
+  reliability: DEFAULT_RELIABILITY_SETTINGS,
   cells: [SAMPLE_CELL],
-  components: [SAMPLE_BOARD],
+  components: [SAMPLE_BOARD, ...SAMPLE_RESISTORS],
 };
 
 export function sampleQuoteDocument(quantity = 2): QuoteDocument {

@@ -150,6 +150,29 @@ describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
     ).toEqual([]);
   });
 
+  it("gives every hybrid cell a minimum voltage between 2 V and 2.8 V, and no other cell one (common practice: about 2.2 V)", () => {
+    expect(failing(cells, (c) => (c.technology === "hybrid" ? within(c.minVoltageV ?? 0, 2, 2.8) : c.minVoltageV == null))).toEqual([]);
+  });
+
+  it("gives every cell life and temperature data in its technology's usual band (common practice, from memory)", () => {
+    const top: Record<Technology, [number, number]> = { edlc: [60, 70], hybrid: [70, 85], electrolytic: [85, 105], film: [85, 105] };
+    expect(
+      failing(cells, (c) => {
+        const [lo, hi] = top[c.technology];
+        return (
+          within(c.maxTemperatureC ?? 0, lo, hi) &&
+          (c.minTemperatureC ?? 0) <= -20 &&
+          within(c.ratedLifeHours ?? 0, 1000, 100_000) &&
+          (c.ratedLifeTemperatureC ?? Infinity) <= (c.maxTemperatureC ?? -Infinity) &&
+          // a bare cell in still air: 0.5 to 60 K/W from the largest can to the smallest
+          within(c.thermalResistanceKPerW ?? 0, 0.5, 60) &&
+          (c.coldCapacitanceFactor == null || within(c.coldCapacitanceFactor, 0.5, 1)) &&
+          (c.coldEsrFactor == null || within(c.coldEsrFactor, 1, 10))
+        );
+      }),
+    ).toEqual([]);
+  });
+
   it("rates surge voltage at or above rated voltage", () => {
     expect(failing(cells, (c) => c.surgeVoltageV >= c.ratedVoltageV)).toEqual([]);
   });
@@ -212,7 +235,7 @@ describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
 
   it("has at least 8 components covering every kind, with the specs each kind needs", () => {
     expect(components.length).toBeGreaterThanOrEqual(8);
-    for (const kind of ["balancing-board", "interconnect", "terminal", "enclosure"] as const) {
+    for (const kind of ["balancing-board", "interconnect", "terminal", "enclosure", "resistor"] as const) {
       expect(
         components.some((c) => c.kind === kind),
         kind,
@@ -231,6 +254,8 @@ describe.each(catalogs)("demo catalog of $slug", ({ cells, components }) => {
         case "enclosure":
           // IEC 60529 IP code: "IP" + solids digit 0–6 + water digit 0–9
           return num(s.volumeM3) && typeof s.ipRating === "string" && /^IP[0-6][0-9]$/.test(s.ipRating);
+        case "resistor":
+          return num(s.powerRatingW);
       }
     };
     expect(failing(components, specsOk)).toEqual([]);

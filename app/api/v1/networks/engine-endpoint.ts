@@ -1,6 +1,8 @@
 import { jsonError } from "@/lib/http/json-error";
 import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
 import { readJsonBody } from "@/lib/http/read-json";
+import type { z } from "zod";
+import type { DefinedRoute, Sendable } from "@/lib/api/contract";
 import type { ParseResult } from "@/lib/validation/bank";
 
 /**
@@ -8,7 +10,11 @@ import type { ParseResult } from "@/lib/validation/bank";
  * bounded JSON body reader, a parser that names the field of any bad input (400 `{ error, issues }`),
  * then the pure engine call; an engine RangeError is a 400 on `network`, never a 500.
  */
-export function engineEndpoint<T>(parse: (json: unknown) => ParseResult<T>, compute: (input: T) => unknown) {
+export function engineEndpoint<T, S extends z.ZodType>(
+  contract: DefinedRoute<S>,
+  parse: (json: unknown) => ParseResult<T>,
+  compute: (input: T) => Sendable<z.input<S>>,
+) {
   return async function POST(request: Request): Promise<Response> {
     const gate = await limits.engine.hit(requestClient(request.headers));
     if (!gate.allowed) return tooManyRequests(gate);
@@ -17,7 +23,7 @@ export function engineEndpoint<T>(parse: (json: unknown) => ParseResult<T>, comp
     const parsed = parse(body.value);
     if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
     try {
-      return Response.json(compute(parsed.data));
+      return contract.answer(compute(parsed.data));
     } catch (error) {
       if (error instanceof RangeError) return jsonError(400, error.message, [{ path: "network", message: error.message }]);
       throw error;

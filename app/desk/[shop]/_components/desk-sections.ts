@@ -13,9 +13,22 @@ export const DESK_SECTIONS: { path: string; label: string; permission: Permissio
   { path: "catalog", label: "Catalog", permission: "catalog:read", summary: "Cells and parts the shop builds from." },
   { path: "pricing", label: "Pricing rules", permission: "pricing:read", summary: "Labour, overhead, margin, quantity breaks and tax." },
   { path: "orders", label: "Orders", permission: "order:read-all", summary: "Paid orders through kitting, assembly, test and shipping." },
+  { path: "dashboard", label: "Dashboard", permission: "reports:read", summary: "Quotes, conversion, revenue by month, orders per stage and late orders." },
   { path: "team", label: "Team", permission: "team:read", summary: "The shop's members and their roles." },
   { path: "outbox", label: "Outbox", permission: "outbox:read", summary: "E-mail sent, waiting and failed." },
+  {
+    path: "webhooks",
+    label: "Webhooks",
+    permission: "webhook:manage",
+    summary: "Signed messages to the shop's own systems when quotes, orders and payments change.",
+  },
   { path: "settings", label: "Settings", permission: "settings:write", summary: "Design factors, auto-quote limits and storefront text." },
+  {
+    path: "api-keys",
+    label: "API keys",
+    permission: "apikey:manage",
+    summary: "Keys the shop's own systems use to read and change the catalog, prices and quotes.",
+  },
 ];
 
 export function sectionFor(path: string) {

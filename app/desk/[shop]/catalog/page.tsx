@@ -1,9 +1,12 @@
 import type { Metadata } from "next";
+import Link from "next/link";
+import { buttonClass } from "@/components/ui/button";
 import { ListView } from "@/components/ui/list-controls";
 import { PageHeader } from "@/components/ui/page-header";
 import { listCatalogCells } from "@/db/queries/catalog";
 import { getShopSettings } from "@/db/queries/shops";
 import { requireShopPage } from "@/lib/auth/guards";
+import { can } from "@/lib/auth/permissions";
 import { TECHNOLOGIES } from "@/lib/bank/types";
 import { formatMoney } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
@@ -27,7 +30,23 @@ export default async function CatalogPage({
   const state = catalogList.state(`/desk/${shop}/catalog`, q, page);
   return (
     <div className="space-y-6">
-      <PageHeader title="Catalog">Cells the engine builds from. Editing and import arrive with the catalog tools; inactive cells are never offered.</PageHeader>
+      <PageHeader title="Catalog">
+        Cells the engine builds from, with their unit costs, stock and lead times. Retired cells are never offered; issued quotes keep the figures they were
+        issued with.
+      </PageHeader>
+      <div className="flex flex-wrap gap-3">
+        {can(ctx.role, "catalog:write") ? (
+          <Link href={`/desk/${shop}/catalog/cells/new`} className={buttonClass("primary")}>
+            New cell
+          </Link>
+        ) : null}
+        <Link href={`/desk/${shop}/catalog/import`} className={buttonClass("secondary")}>
+          Export or import CSV
+        </Link>
+        <Link href={`/desk/${shop}/catalog/components`} className={buttonClass("secondary")}>
+          Components: boards, resistors, enclosures…
+        </Link>
+      </div>
       <ListView
         state={state}
         caption="Catalog cells"
@@ -56,8 +75,10 @@ export default async function CatalogPage({
         {page.rows.map((c) => (
           <tr key={c.id} className={`border-t border-ink-100 ${c.isActive ? "" : "text-ink-400"}`}>
             <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">
-              {c.sku}
-              {c.isActive ? "" : " (inactive)"}
+              <Link href={`/desk/${shop}/catalog/cells/${encodeURIComponent(c.sku)}`} className="text-copper-600 hover:underline">
+                {c.sku}
+              </Link>
+              {c.isActive ? "" : " (retired)"}
             </td>
             <td className="px-3 py-2">
               {c.manufacturer} · {c.series}

@@ -1,13 +1,33 @@
-import { SectionPlaceholder } from "../_components/section-placeholder";
+import type { Metadata } from "next";
+import { PageHeader } from "@/components/ui/page-header";
+import { listBoardOrders } from "@/db/queries/orders";
+import { requireShopPage } from "@/lib/auth/guards";
+import { isoDay } from "@/lib/orders/due-date";
+import { isLate } from "@/lib/orders/stages";
+import { OrderBoard } from "./_components/order-board";
+import { OrdersViews } from "./_components/orders-views";
 
-export default async function Page({ params }: { params: Promise<{ shop: string }> }) {
+export const metadata: Metadata = { title: "Orders" };
+
+/** The orders board: every order on the floor by stage, and those closed in the last 30 days. */
+export default async function OrdersBoardPage({ params }: { params: Promise<{ shop: string }> }) {
   const { shop } = await params;
+  const ctx = await requireShopPage(shop, "order:read-all", `/desk/${shop}/orders`);
+  const today = isoDay(new Date());
+  const { rows, more } = await listBoardOrders(ctx.shop.id);
+  const late = rows.filter((r) => isLate(r, today)).length;
   return (
-    <SectionPlaceholder shop={shop} path="orders">
-      <p>
-        Paid orders moving through kitting, assembly, test, ready, shipped and delivered, with travelers, measured capacitance and ESR against the
-        specification, and the customer's e-mails at each step.
-      </p>
-    </SectionPlaceholder>
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-end justify-between gap-4">
+        <PageHeader title="Orders">
+          Paid orders through kitting, assembly, test and shipping. {late > 0 ? `${late} late: past their due date and still on the floor.` : "None is late."}
+        </PageHeader>
+        <OrdersViews shop={shop} current="board" />
+      </div>
+      {more ? (
+        <p className="text-sm text-ink-600">The board shows the first {rows.length} orders by due date; the list view pages through all of them.</p>
+      ) : null}
+      <OrderBoard shop={shop} rows={rows} today={today} />
+    </div>
   );
 }

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { ListView } from "@/components/ui/list-controls";
 import { PageHeader } from "@/components/ui/page-header";
+import { StateCounts } from "@/components/ui/state-counts";
 import { countOutboxByStatus, listOutbox } from "@/db/queries/outbox";
 import { requireShopPage } from "@/lib/auth/guards";
 import { outboxList } from "@/lib/validation/lists";
@@ -31,16 +32,7 @@ export default async function OutboxPage({
         Every e-mail {ctx.shop.name} sends. A message that cannot be delivered waits and is tried again with growing pauses; after the last try it is marked
         failed with the reason.
       </PageHeader>
-      <dl className="flex flex-wrap gap-3 text-sm" aria-label="Messages by state">
-        {OUTBOX_STATUSES.map((s) => (
-          <div key={s} className="rounded-lg bg-white px-4 py-2 ring-1 ring-ink-100">
-            <dt className="text-xs text-ink-600">{OUTBOX_STATUS_LABELS[s]}</dt>
-            <dd className="num text-lg font-semibold" data-testid={`outbox-count-${s}`}>
-              {counts[s]}
-            </dd>
-          </div>
-        ))}
-      </dl>
+      <StateCounts label="Messages by state" states={OUTBOX_STATUSES} labels={OUTBOX_STATUS_LABELS} counts={counts} testId="outbox-count" />
       <ListView
         state={state}
         caption="E-mail messages"

@@ -1,5 +1,7 @@
 "use client";
-import { useDeferredValue } from "react";
+import dynamic from "next/dynamic";
+import { useDeferredValue, useEffect, useRef, useState } from "react";
+import { Button } from "@/components/ui/button";
 import { BankDiagram } from "@/components/bank-diagram/bank-diagram";
 import { CellVoltageChart } from "@/components/charts/cell-voltage-chart";
 import { DischargeChart } from "@/components/charts/discharge-chart";
@@ -9,9 +11,20 @@ import { optionId } from "@/lib/validation/quote";
 import { arrangementLabel, describeRequirement, TOPOLOGY_LABELS } from "@/lib/vocabulary";
 import type { ExploreResult } from "../actions";
 import { ChoosePanel } from "./choose-panel";
+import { OptionDepthPanel } from "./option-depth-panel";
 import { OptionCautions, OptionFigures } from "./option-figures";
-import { OptionTable } from "./option-table";
+import { MAX_COMPARED, OptionTable } from "./option-table";
 import type { Viewer } from "./viewer";
+
+// The yield (the engine's Monte-Carlo) and the comparison load only when they are wanted.
+const OptionYieldPanel = dynamic(() => import("./option-yield-panel"), {
+  ssr: false,
+  loading: () => <div className="h-48 animate-pulse rounded bg-ink-50" aria-hidden="true" />,
+});
+const CompareView = dynamic(() => import("./compare-view"), {
+  ssr: false,
+  loading: () => <div className="h-96 animate-pulse rounded-lg bg-white ring-1 ring-ink-100" aria-hidden="true" />,
+});
 
 export function ArrangementResults({
   slug,
@@ -36,6 +49,17 @@ export function ArrangementResults({
   const focused = options.find((o) => optionId(o) === focus) ?? options[0] ?? null;
   // The table shows first; the diagram and charts render just after, at lower priority.
   const shown = useDeferredValue(focused, null);
+  const [picked, setPicked] = useState<string[]>([]);
+  const [comparing, setComparing] = useState(false);
+  const compareRef = useRef<HTMLDivElement>(null);
+  // picks that a new search no longer offers fall away
+  const ids = new Set(options.map(optionId));
+  const compare = picked.filter((p) => ids.has(p));
+  const compared = compare.map((p) => options.find((o) => optionId(o) === p)).filter((o): o is (typeof options)[number] => o !== undefined);
+  const showCompare = comparing && compared.length >= 2;
+  useEffect(() => {
+    if (showCompare) compareRef.current?.scrollIntoView({ behavior: "smooth", block: "start" });
+  }, [showCompare]);
 
   if (!focused) {
     return (
@@ -75,7 +99,49 @@ export function ArrangementResults({
         </h2>
         <p className="text-sm text-ink-600">For {describeRequirement(requirement)}. Ranked by price; choose a row to see it drawn and charted.</p>
       </div>
-      <OptionTable options={options} currency={currency} focus={id} onFocus={onFocus} />
+      <OptionTable
+        options={options}
+        currency={currency}
+        focus={id}
+        onFocus={onFocus}
+        compare={compare}
+        onCompareChange={(optionKey, on) =>
+          setPicked((now) => (on ? [...now.filter((p) => ids.has(p)), optionKey].slice(0, MAX_COMPARED) : now.filter((p) => p !== optionKey)))
+        }
+      />
+      <div className="flex flex-wrap items-center gap-3 text-sm" data-testid="compare-bar">
+        <p className="text-ink-600">
+          {compare.length === 0
+            ? `Tick two to ${MAX_COMPARED} rows to compare them side by side.`
+            : `${compare.length} picked for comparison${compare.length >= MAX_COMPARED ? " (the most at once)" : ""}.`}
+        </p>
+        <Button type="button" variant="secondary" disabled={compare.length < 2} onClick={() => setComparing(true)}>
+          Compare {compare.length >= 2 ? compare.length : ""} side by side
+        </Button>
+        {compare.length > 0 ? (
+          <Button
+            type="button"
+            variant="quiet"
+            onClick={() => {
+              setPicked([]);
+              setComparing(false);
+            }}
+          >
+            Clear
+          </Button>
+        ) : null}
+      </div>
+      <div ref={compareRef} className="scroll-mt-4">
+        {showCompare ? (
+          <CompareView
+            options={compared}
+            requirement={requirement}
+            currency={currency}
+            onRemove={(optionKey) => setPicked((now) => now.filter((p) => p !== optionKey))}
+            onClose={() => setComparing(false)}
+          />
+        ) : null}
+      </div>
 
       {shown === null ? (
         <div className="h-96 animate-pulse rounded-lg bg-white ring-1 ring-ink-100" aria-hidden="true" />
@@ -118,7 +184,19 @@ export function ArrangementResults({
               <CellVoltageChart option={shown} maxVoltage={requirement.maxVoltage} />
               <DischargeChart option={shown} requirement={requirement} safeVoltage={designFactors.safeVoltage} />
             </div>
-            <OptionFigures option={shown} requirement={requirement} factors={designFactors} currency={currency} />
+            <OptionDepthPanel option={shown} />
+            <div className="max-w-3xl">
+              <OptionYieldPanel key={shownId} option={shown} requirement={requirement} />
+            </div>
+            <OptionFigures
+              option={shown}
+              requirement={requirement}
+              factors={designFactors}
+              currency={currency}
+              datasheetHref={
+                (result.datasheets ?? []).includes(shown.cell.sku) ? `/api/v1/shops/${slug}/cells/${encodeURIComponent(shown.cell.sku)}/datasheet` : null
+              }
+            />
           </article>
 
           <section aria-label="Price against mass" className="rounded-lg bg-white p-5 shadow-sm ring-1 ring-ink-100 sm:p-6">

@@ -1,7 +1,7 @@
 "use client";
 import Link from "next/link";
 import { useId, useState } from "react";
-import { FetchJsonError, fetchJson } from "@/lib/http/fetch-json";
+import { api, apiErrorMessage, asFormData } from "@/lib/api/client";
 import { MAX_ATTACHMENT_SIZE_TEXT, MAX_ATTACHMENTS_PER_REQUEST } from "@/lib/validation/limits";
 import type { UploadedFile } from "./saved-request";
 import type { Viewer } from "./viewer";
@@ -59,15 +59,13 @@ export function AttachmentsField({
           setError(`At most ${MAX_ATTACHMENTS_PER_REQUEST} files per request.`);
           break;
         }
-        const body = new FormData();
-        body.append("file", file);
-        try {
-          const stored = await fetchJson<UploadedFile>(`/api/v1/shops/${slug}/attachments`, { method: "POST", body });
-          added.push({ id: stored.id, fileName: stored.fileName, sizeBytes: stored.sizeBytes });
-        } catch (e) {
-          if (!(e instanceof FetchJsonError)) throw e;
-          setError(`${file.name}: ${e.message}`);
-        }
+        const { data, error, response } = await api.POST("/api/v1/shops/{shop}/attachments", {
+          params: { path: { shop: slug } },
+          body: { file },
+          bodySerializer: asFormData,
+        });
+        if (data) added.push({ id: data.id, fileName: data.fileName, sizeBytes: data.sizeBytes });
+        else setError(`${file.name}: ${apiErrorMessage(error, response)}`);
       }
     } catch {
       setError("The upload failed; check your connection and try again.");

@@ -4,6 +4,7 @@ import { Decimal } from "decimal.js";
 import type { PricedOption } from "@/lib/quoting/types";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatQuantity } from "@/lib/quantities";
+import { failureVerdict, lifeShort } from "@/lib/quoting/option-depth-words";
 import { arrangementLabel, TECHNOLOGY_LABELS, TECHNOLOGY_SHORT, TOPOLOGY_LABELS } from "@/lib/vocabulary";
 
 const col = createColumnHelper<PricedOption>();
@@ -15,6 +16,15 @@ const byPrice: SortingFn<PricedOption> = (a, b) => {
   if (!pa || !pb) return pa ? -1 : pb ? 1 : 0;
   return new Decimal(pa).cmp(new Decimal(pb));
 };
+
+/** Survival of one failed cell as a number to sort by: both kinds survived first. */
+function survivalScore(o: PricedOption): number {
+  const s = (v: PricedOption["failures"]["short"]) => (!v.survives ? 0 : v.withinRating ? 2 : 1);
+  return s(o.failures.short) * 3 + s(o.failures.open);
+}
+
+const VERDICT_MARK = { yes: "✓", "above rating": "!", no: "✗" } as const;
+const VERDICT_CLASS = { yes: "text-charge-700", "above rating": "text-hazard-700", no: "text-danger-700" } as const;
 
 /**
  * The options table's columns. A first click sorts each the useful way (cheaper, lighter, smaller,
@@ -105,6 +115,40 @@ export function optionColumns(currency: string) {
             ◆<span className="sr-only">on the Pareto set</span>
           </span>
         ) : null,
+    }),
+    col.accessor(survivalScore, {
+      id: "survives",
+      header: "One cell fails",
+      ...first(true),
+      cell: (c) => {
+        const o = c.row.original;
+        return (
+          <span className="whitespace-nowrap text-xs" data-testid="survives-cell">
+            {(["short", "open"] as const).map((mode) => {
+              const v = failureVerdict(o.failures[mode]);
+              return (
+                <span key={mode} className={`mr-2 ${VERDICT_CLASS[v]}`} title={o.failures[mode].text}>
+                  {VERDICT_MARK[v]} {mode}
+                  <span className="sr-only">: {v}</span>
+                </span>
+              );
+            })}
+          </span>
+        );
+      },
+    }),
+    col.accessor((o) => o.life?.lifeYears ?? -1, {
+      id: "life",
+      header: "Life",
+      ...first(true),
+      cell: (c) => (
+        <span
+          className="num whitespace-nowrap"
+          title={c.row.original.life ? `${c.row.original.life.cellTemperature.toFixed(0)} °C cell temperature` : "no life data"}
+        >
+          {lifeShort(c.row.original.life)}
+        </span>
+      ),
     }),
   ];
 }

@@ -48,11 +48,14 @@ export function OptionFigures({
   requirement,
   factors,
   currency,
+  datasheetHref = null,
 }: {
   option: PricedOption;
   requirement: Requirement;
   factors: DesignFactors;
   currency: string;
+  /** the cell's datasheet, when the shop has one */
+  datasheetHref?: string | null;
 }) {
   const b = option.balancing;
   const bleeder = option.discharge.bleeder;
@@ -63,6 +66,13 @@ export function OptionFigures({
         <Row label="Cell">
           {option.cell.sku} · {TECHNOLOGY_LABELS[option.cell.technology]}
         </Row>
+        {datasheetHref ? (
+          <Row label="Datasheet">
+            <a href={datasheetHref} className="text-copper-600 hover:underline" data-testid="option-datasheet">
+              PDF
+            </a>
+          </Row>
+        ) : null}
         <Row label="Cell rating">
           {q(option.cell.capacitance, "F")} · {q(option.cell.ratedVoltage, "V")}
         </Row>

@@ -6,17 +6,25 @@ import { optionId } from "@/lib/validation/quote";
 import { arrangementLabel } from "@/lib/vocabulary";
 import { optionColumns } from "./option-columns";
 
+/** Most options side by side. */
+export const MAX_COMPARED = 4;
+
 /** The options as a sortable table; a row's radio (or a click on the row) puts it in focus. */
 export function OptionTable({
   options,
   currency,
   focus,
   onFocus,
+  compare,
+  onCompareChange,
 }: {
   options: PricedOption[];
   currency: string;
   focus: string | null;
   onFocus: (id: string) => void;
+  /** the options picked for the side-by-side comparison (at most MAX_COMPARED) */
+  compare: string[];
+  onCompareChange: (id: string, picked: boolean) => void;
 }) {
   const [sorting, setSorting] = useState<SortingState>([]);
   const columns = useMemo(() => optionColumns(currency), [currency]);
@@ -56,6 +64,9 @@ export function OptionTable({
                   </th>
                 );
               })}
+              <th scope="col" className="px-2 py-2 font-medium">
+                Compare
+              </th>
             </tr>
           ))}
         </thead>
@@ -86,6 +97,16 @@ export function OptionTable({
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 ))}
+                <td className="px-2 py-2 align-top" onClick={(e) => e.stopPropagation()}>
+                  <input
+                    type="checkbox"
+                    checked={compare.includes(row.id)}
+                    disabled={!compare.includes(row.id) && compare.length >= MAX_COMPARED}
+                    onChange={(e) => onCompareChange(row.id, e.target.checked)}
+                    aria-label={`Compare ${o.cell.sku} ${arrangementLabel(o)}`}
+                    className="h-4 w-4 accent-copper-500"
+                  />
+                </td>
               </tr>
             );
           })}

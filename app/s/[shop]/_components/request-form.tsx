@@ -158,6 +158,26 @@ export function RequestForm({
         />
       </fieldset>
 
+      <fieldset className="grid gap-4 sm:grid-cols-2">
+        <legend className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-500">In service (optional)</legend>
+        <TextField
+          id="ambientTemperature"
+          label="Ambient temperature"
+          placeholder="40 °C"
+          hint="Around the bank where it works; sets the cells' temperature and expected life (25 °C if empty)."
+          error={errors.ambientTemperature?.message}
+          {...register("ambientTemperature")}
+        />
+        <TextField
+          id="rmsCurrent"
+          label="RMS current in service"
+          placeholder="30 A"
+          hint="The current the bank carries on average (rms); sizes the cells' self-heating."
+          error={errors.rmsCurrent?.message}
+          {...register("rmsCurrent")}
+        />
+      </fieldset>
+
       <fieldset className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <legend className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-500">Limits and quantity</legend>
         <TextField id="maxMass" label="Mass limit (optional)" placeholder="25 kg" error={errors.maxMass?.message} {...register("maxMass")} />
@@ -184,7 +204,7 @@ export function RequestForm({
         <FieldShell
           id="notes"
           label="Notes (optional)"
-          hint={`Anything the shop should know: mounting, connectors, ambient temperature… up to ${MAX_NOTES_LENGTH} characters.`}
+          hint={`Anything the shop should know: mounting, connectors, duty cycle… up to ${MAX_NOTES_LENGTH} characters.`}
           error={errors.notes?.message}
         >
           <textarea

@@ -1,15 +1,23 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
+import dynamic from "next/dynamic";
 import { useCallback, useEffect, useRef, useState, useTransition } from "react";
 import { useForm } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
 import { optionId } from "@/lib/validation/quote";
 import { EMPTY_REQUEST_FORM, requestFormSchema, type RequestFormField, type RequestFormOutput, type RequestFormValues } from "@/lib/validation/request-form";
 import { exploreArrangements, type ExploreResult } from "../actions";
-import { ArrangementResults } from "./arrangement-results";
+import { OptionFilters } from "./option-filters";
 import { RequestForm } from "./request-form";
 import { clearSavedRequest, loadSavedRequest, saveRequest, type UploadedFile } from "./saved-request";
 import type { Viewer } from "./viewer";
+
+// The results (table, diagram, charts) are needed only after a search: they load then, so the
+// storefront's first load carries the form alone. A search starts fetching them at once.
+const loadResults = () => import("./arrangement-results").then((m) => m.ArrangementResults);
+const ArrangementResults = dynamic(loadResults, {
+  loading: () => <div className="h-96 animate-pulse rounded-lg bg-white ring-1 ring-ink-100" aria-hidden="true" />,
+});
 
 /**
  * The storefront's request → arrangements journey. What is entered is kept in sessionStorage, so
@@ -48,6 +56,7 @@ export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: st
   const search = useCallback(
     (values: RequestFormValues, wantFocus: string | null) => {
       setMessage(null);
+      void loadResults();
       startSearch(async () => {
         const r = await exploreArrangements(slug, values);
         if (!r.ok) {
@@ -92,6 +101,7 @@ export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: st
   }, [form, persist]);
 
   const onSubmit = form.handleSubmit(() => search(form.getValues(), focusRef.current));
+  const applyFilters = () => void form.handleSubmit(() => search(form.getValues(), focusRef.current))();
 
   return (
     <div className="space-y-10">
@@ -128,7 +138,8 @@ export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: st
           <FormMessage>{message}</FormMessage>
         </div>
       </section>
-      <div ref={resultsRef} className="scroll-mt-4">
+      <div ref={resultsRef} className="scroll-mt-4 space-y-4">
+        {result ? <OptionFilters form={form} onApply={applyFilters} searching={searching} /> : null}
         {result ? (
           <ArrangementResults
             slug={slug}

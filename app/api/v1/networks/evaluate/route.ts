@@ -2,9 +2,10 @@ import { jsonError } from "@/lib/http/json-error";
 import { evaluateNetwork } from "@/lib/bank";
 import { readJsonBody } from "@/lib/http/read-json";
 import { parseEvaluateRequest } from "@/lib/validation/bank";
+import { evaluateNetwork as contract } from "@/lib/api/contracts/networks";
 
 /**
- * POST /api/v1/networks/evaluate — public. Body `{ appliedVoltage?, network }` (DESIGN.md §3.1);
+ * POST /api/v1/networks/evaluate — public (contract: lib/api/contracts/networks.ts). Body `{ appliedVoltage?, network }` (DESIGN.md §3.1);
  * answer `{ capacitance, esr?, maxVoltage, energy, charge, cells }`. Any bad input is a 400 with
  * `{ error, issues: [{ path, message }] }`; depth, cell count and body size are bounded.
  */
@@ -15,7 +16,7 @@ export async function POST(request: Request) {
   if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
   try {
     const r = evaluateNetwork(parsed.data.network, parsed.data.appliedVoltage);
-    return Response.json({
+    return contract.answer({
       capacitance: r.capacitance,
       ...(r.esr !== undefined ? { esr: r.esr } : {}),
       maxVoltage: r.maxVoltage,

@@ -1,5 +1,6 @@
 import { analyzeNetworkFailures } from "@/lib/bank";
 import { parseFailuresRequest } from "@/lib/validation/network-analysis";
+import { analyzeFailures } from "@/lib/api/contracts/networks";
 import { engineEndpoint } from "../engine-endpoint";
 
 /**
@@ -9,7 +10,7 @@ import { engineEndpoint } from "../engine-endpoint";
  * pastSurge, pastSurgeCount, shortCircuit }], healthy, summary: { short, open }, listLimit }`
  * (DESIGN.md §3.5). Bad input: 400 `{ error, issues }`.
  */
-export const POST = engineEndpoint(parseFailuresRequest, ({ network, appliedVoltage }) => {
+export const POST = engineEndpoint(analyzeFailures, parseFailuresRequest, ({ network, appliedVoltage }) => {
   const r = analyzeNetworkFailures(network, appliedVoltage);
   return { appliedVoltage: r.appliedVoltage, healthy: r.healthy, cases: r.cases, summary: r.summary, listLimit: r.listLimit };
 });

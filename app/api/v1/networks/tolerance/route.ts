@@ -1,5 +1,6 @@
 import { runToleranceYield } from "@/lib/bank";
 import { parseToleranceRequest } from "@/lib/validation/network-analysis";
+import { toleranceYield } from "@/lib/api/contracts/networks";
 import { engineEndpoint } from "../engine-endpoint";
 
 /**
@@ -11,4 +12,4 @@ import { engineEndpoint } from "../engine-endpoint";
  * body and seed, same numbers. samples × network size is bounded so one request stays near a second
  * of CPU. Bad input: 400 `{ error, issues }`.
  */
-export const POST = engineEndpoint(parseToleranceRequest, runToleranceYield);
+export const POST = engineEndpoint(toleranceYield, parseToleranceRequest, runToleranceYield);

@@ -21,6 +21,7 @@ export default async function DeskQuotePage({
       back={{ href: `/desk/${shop}/quotes`, label: "Quotes" }}
       maySee={() => true}
       search={(await searchParams) ?? {}}
+      showCosts
       actions={{ side: "shop", resend: resendQuote, withdraw: withdrawQuoteRevision, write: replyToQuote }}
     />
   );

@@ -2,7 +2,9 @@
 import { revalidatePath } from "next/cache";
 import { shopAction, type ActionResult } from "@/lib/auth/guards";
 import { reads } from "@/lib/auth/ownership";
+import { openCheckout } from "@/lib/payments/checkout";
 import { acceptQuoteRevision, declineQuoteRevision, postQuoteMessage } from "@/lib/quoting/lifecycle";
+import { startCheckoutSchema } from "@/lib/validation/orders";
 import { acceptQuoteSchema, declineQuoteSchema, quoteMessageSchema } from "@/lib/validation/quote-life";
 
 /** The customer's moves on their quote page: accept a revision, decline it with a reason, write (or ask for a change). */
@@ -42,3 +44,10 @@ const write = shopAction(quoteMessageSchema, reads("quote"), async (ctx, input) 
 export async function writeQuoteMessage(shopSlug: string, input: unknown) {
   return write(shopSlug, input);
 }
+
+/**
+ * "Accept and pay": the quote's own customer accepts the revision and is handed the Checkout
+ * Session to pay it (the whole amount, the deposit or the balance). Acceptance itself is the
+ * quote's life: lib/payments/checkout.ts marks the ACCEPTANCE SEAM where the accept move goes.
+ */
+export const startCheckout = shopAction(startCheckoutSchema, "quote:accept", async (ctx, input) => openCheckout(ctx, input));

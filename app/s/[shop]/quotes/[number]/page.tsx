@@ -1,4 +1,5 @@
 import { redirect } from "next/navigation";
+import { PaySection } from "@/components/orders/pay-section";
 import { QuotePageBody, quoteTitle, type QuoteSearch } from "@/components/quotes/quote-page";
 import { requireShopPage } from "@/lib/auth/guards";
 import { maySee, ownerScope, reads } from "@/lib/auth/ownership";
@@ -11,6 +12,7 @@ export default async function QuotePage({ params, searchParams }: { params: Prom
   const { shop, number } = await params;
   const ctx = await requireShopPage(shop, reads("quote"), `/s/${shop}/quotes/${number}`);
   if (ownerScope(ctx, "quote").all) redirect(`/desk/${shop}/quotes/${encodeURIComponent(number)}`);
+  const cancelled = (await searchParams)?.checkout === "cancelled";
   return (
     <QuotePageBody
       shop={ctx.shop}
@@ -19,6 +21,7 @@ export default async function QuotePage({ params, searchParams }: { params: Prom
       maySee={(owner) => maySee(ctx, "quote", owner)}
       search={(await searchParams) ?? {}}
       actions={{ side: "customer", accept: acceptQuote, decline: declineQuote, write: writeQuoteMessage }}
+      aside={<PaySection shop={ctx.shop} number={number} cancelled={cancelled} />}
     />
   );
 }

@@ -6,6 +6,7 @@ import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
 import { readJsonBody } from "@/lib/http/read-json";
 import { searchPricedOptions } from "@/lib/quoting/priced-search";
 import { parseArrangementRequest } from "@/lib/validation/bank";
+import { searchArrangements as contract } from "@/lib/api/contracts/shops";
 
 /**
  * POST /api/v1/shops/{shop}/arrangements — open to visitors (DESIGN.md §3.2): a requirement in
@@ -23,7 +24,7 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   const parsed = parseArrangementRequest(body.value);
   if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
   const result = searchPricedOptions(await loadShopCatalog(shop.id), parsed.data);
-  return Response.json({
+  return contract.answer({
     designFactors: result.designFactors,
     options: result.options,
     ...(result.options.length === 0 ? { reasons: result.reasons } : {}),

@@ -5,6 +5,7 @@ import { readBodyLimited } from "@/lib/http/read-json";
 import { storeAttachmentBytes } from "@/lib/attachments/storage";
 import { cleanFileName, detectAttachmentType } from "@/lib/attachments/content-type";
 import { MAX_ATTACHMENT_BYTES, MAX_ATTACHMENT_SIZE_TEXT } from "@/lib/validation/limits";
+import { uploadAttachment as contract } from "@/lib/api/contracts/shops";
 
 /** Room for the multipart boundaries and part headers around one file. */
 const MULTIPART_OVERHEAD = 64 * 1024;
@@ -47,6 +48,6 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
       sha256: stored.sha256,
       storageKey: stored.storageKey,
     });
-    return Response.json(row, { status: 201 });
+    return contract.answer({ ...row, contentType: type.contentType });
   });
 }

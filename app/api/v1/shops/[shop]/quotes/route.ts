@@ -7,7 +7,10 @@ import { readJsonBody } from "@/lib/http/read-json";
 import { createQuoteForApi } from "@/lib/quoting/quote-api";
 import { fromZod } from "@/lib/validation/bank";
 import { quoteList } from "@/lib/validation/lists";
-import { createQuoteRequestSchema } from "@/lib/validation/quote-api";
+import { createQuoteRequestSchema, type quoteCreatedResponseSchema } from "@/lib/validation/quote-api";
+import type { z } from "zod";
+import { createQuote } from "@/lib/api/contracts/quotes";
+import { listQuotes as contract } from "@/lib/api/contracts/shops";
 
 /**
  * GET /api/v1/shops/{shop}/quotes — { rows, total, page, size }: a customer's own quotes, or all of
@@ -19,7 +22,7 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
   return withShopApi(request, shop, reads("quote"), async (ctx) => {
     const { query, issues } = quoteList.parse(new URL(request.url).searchParams);
     if (issues.length > 0) return jsonError(400, "Invalid query.", issues);
-    return Response.json(await listQuotes(ctx.shop.id, ownerScope(ctx, "quote"), query));
+    return contract.answer(await listQuotes(ctx.shop.id, ownerScope(ctx, "quote"), query));
   });
 }
 
@@ -44,6 +47,8 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
       return jsonError(400, bad.ok ? "Invalid body." : bad.error, bad.ok ? undefined : bad.issues);
     }
     const answer = await createQuoteForApi(ctx, parsed.data);
-    return Response.json(answer.body, { status: answer.status, headers: answer.replayed ? { "idempotent-replayed": "true" } : undefined });
+    const headers = answer.replayed ? { "idempotent-replayed": "true" } : undefined;
+    if (answer.status === 201) return createQuote.answer(answer.body as z.input<typeof quoteCreatedResponseSchema>, { headers });
+    return Response.json(answer.body, { status: answer.status, headers });
   });
 }

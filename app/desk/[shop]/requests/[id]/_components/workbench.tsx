@@ -99,6 +99,7 @@ export function Workbench(p: WorkbenchProps) {
       return resolveCustomBank(customTree, {
         cells: all,
         retiredSkus: retired,
+        components: p.components,
         rules: p.rules,
         factors: effectiveFactors(p.shopFactors, overrides),
         shopFactors: p.shopFactors,

@@ -3,7 +3,7 @@ import { getQuoteByNumber } from "@/db/queries/quotes";
 import { withShopApi } from "@/lib/auth/guards";
 import { maySee, reads } from "@/lib/auth/ownership";
 import { jsonError } from "@/lib/http/json-error";
-import { contentDisposition } from "@/lib/attachments/content-type";
+import { pdfResponse } from "@/lib/http/pdf-response";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
 import { loadQuotePdf } from "@/lib/quoting/quote-pdf-loader";
 
@@ -18,13 +18,6 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
       asked === null ? quote.revisionId : /^[1-9]\d{0,5}$/.test(asked) ? await getRevisionIdByNumber(ctx.shop.id, number, Number(asked)) : null;
     if (!revisionId) return jsonError(404, `Quote ${number} has no revision ${asked ?? ""}.`);
     const { buffer, fileName } = await loadQuotePdf(ctx.shop.id, revisionId);
-    return new Response(new Uint8Array(buffer), {
-      headers: {
-        "content-type": "application/pdf",
-        "content-length": String(buffer.byteLength),
-        "content-disposition": contentDisposition(fileName),
-        "cache-control": "private, no-store",
-      },
-    });
+    return pdfResponse(buffer, fileName);
   });
 }

@@ -1,0 +1,44 @@
+import { getRulesInForce } from "@/db/queries/pricing-rules";
+import { withShopApi } from "@/lib/auth/guards";
+import { jsonError } from "@/lib/http/json-error";
+import { readJsonBody } from "@/lib/http/read-json";
+import { savePricingRules } from "@/lib/quoting/pricing-rules";
+import { fromZod } from "@/lib/validation/bank";
+import { putPricingRulesSchema } from "@/lib/validation/pricing";
+
+async function inForce(shopId: string): Promise<Response> {
+  const r = await getRulesInForce(shopId);
+  return Response.json({ rules: r.rules, version: r.version, reason: r.reason, savedAt: r.savedAt?.toISOString() ?? null });
+}
+
+/**
+ * GET /api/v1/shops/{shop}/pricing-rules — { rules, version, reason, savedAt }: the rules in force.
+ * PUT — { rules, reason, version? }: the whole rule set and why it changes, saved as a new version
+ * (issued quotes keep their prices); with `version`, rules saved by someone else since are a 409.
+ */
+export async function GET(request: Request, { params }: { params: Promise<{ shop: string }> }) {
+  const { shop } = await params;
+  return withShopApi(request, shop, "pricing:read", (ctx) => inForce(ctx.shop.id), { outsiders: "not-found" });
+}
+
+export async function PUT(request: Request, { params }: { params: Promise<{ shop: string }> }) {
+  const { shop } = await params;
+  return withShopApi(
+    request,
+    shop,
+    "pricing:write",
+    async (ctx) => {
+      const body = await readJsonBody(request);
+      if (!body.ok) return body.response;
+      const parsed = putPricingRulesSchema.safeParse(body.value);
+      if (!parsed.success) {
+        const f = fromZod(parsed.error);
+        return jsonError(400, f.ok ? "Invalid rules." : f.error, f.ok ? undefined : f.issues);
+      }
+      const saved = await savePricingRules(ctx, parsed.data.rules, parsed.data.reason, parsed.data.version ?? null);
+      if (!saved.ok) return jsonError(409, saved.message ?? "The rules changed since.");
+      return inForce(ctx.shop.id);
+    },
+    { outsiders: "not-found" },
+  );
+}

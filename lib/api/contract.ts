@@ -1,0 +1,102 @@
+import type { z } from "zod";
+
+/**
+ * One route's contract, declared once beside the handler's area (lib/api/contracts/<area>.ts):
+ * method, path, who may call it, its parameters and body as the zod schemas that validate them,
+ * its answer as the zod schema that shapes it, and the refusals it can give. The OpenAPI
+ * description (lib/api/document.ts), the reference page, the typed client and the drift checks
+ * of the integration tests are all generated from these objects.
+ */
+
+/** The refusals a route may answer, each with the one error body `{ error, issues? }`. */
+export const ERROR_STATUSES = [400, 401, 403, 404, 409, 429] as const;
+export type ErrorStatus = (typeof ERROR_STATUSES)[number];
+
+export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
+
+/** Who may call a route: anyone (rate-limited per client), or a signed-in member of the shop. */
+export type RouteAccess = "public" | "member";
+
+/** The reference page's sections, in their order. */
+export const API_TAGS = [
+  { name: "Engine", description: "Series/parallel networks: evaluation, one-cell failures, tolerance yield. Open to anyone, no shop." },
+  { name: "Arrangements", description: "Buildable, priced arrangements from a shop's own catalog for a requirement." },
+  { name: "Quotes", description: "A shop's quotes: the list, asking for one, each quote's revisions as JSON, and its PDF." },
+  { name: "Orders", description: "Paying for an accepted quote, and the orders it makes: their stages, history, traveler and test certificate." },
+  { name: "Requests", description: "Drawings and specifications a customer attaches to a request." },
+  { name: "Team", description: "The shop's members." },
+  { name: "Description", description: "This description itself." },
+] as const;
+export type ApiTag = (typeof API_TAGS)[number]["name"];
+
+/** A request the reference page shows as a curl command, and that the tests run. */
+export interface ApiExample {
+  title: string;
+  /** path parameters, e.g. `{ shop: "kestrel-bank-works" }` */
+  params?: Record<string, string>;
+  query?: Record<string, string>;
+  /** a JSON body */
+  json?: unknown;
+  /** multipart fields: a value starting with "@" is a file to upload, as curl reads it */
+  form?: Record<string, string>;
+  /** where curl writes a file answer */
+  output?: string;
+  /** the demo account the example is run as (the shop's manager unless it says otherwise) */
+  as?: "manager" | "customer";
+}
+
+/** What a route answers when it succeeds: JSON shaped by a schema, or a file of the given types. */
+type Success<S extends z.ZodType> =
+  { status: 200 | 201; description: string; json: S; file?: never } | { status: 200; description: string; file: readonly string[]; json?: never };
+
+export interface RouteContract<S extends z.ZodType = z.ZodType> {
+  method: HttpMethod;
+  /** OpenAPI path template: `/api/v1/shops/{shop}/quotes`; the handler lives in the same folders with `[shop]` */
+  path: `/api/v1/${string}`;
+  operationId: string;
+  tag: ApiTag;
+  summary: string;
+  /** Markdown: what it does, its bounds, who may call it */
+  description: string;
+  access: RouteAccess;
+  params?: z.ZodObject;
+  query?: z.ZodObject;
+  /** a JSON body, or a multipart form (file fields are `z.file()`) */
+  body?: { json: z.ZodType; multipart?: never } | { multipart: z.ZodObject; json?: never };
+  ok: Success<S>;
+  /** a second success: 202, the request was taken and waits (e.g. for the shop's estimators); sent with `Response.json(body, { status: 202 })` */
+  pending?: { status: 202; description: string; json: z.ZodType };
+  /** every refusal the route can give, with when it gives it */
+  errors: Partial<Record<ErrorStatus, string>>;
+  examples?: readonly ApiExample[];
+}
+
+/**
+ * A value the handler may send where the schema expects `T`: the same shape, with any string
+ * also given as a Date (Response.json writes it as an ISO string) and arrays read-only.
+ */
+export type Sendable<T> = T extends string
+  ? T | Date
+  : T extends readonly (infer U)[]
+    ? readonly Sendable<U>[]
+    : T extends object
+      ? { [K in keyof T]: Sendable<T[K]> }
+      : T;
+
+export interface DefinedRoute<S extends z.ZodType> extends RouteContract<S> {
+  /** The success answer, typed by the contract's schema (the tests check the value itself). */
+  answer(body: Sendable<z.input<S>>, init?: ResponseInit): Response;
+}
+
+/** Declares a route's contract; `answer` sends its success body with the declared status. */
+export function defineRoute<S extends z.ZodType = z.ZodNever>(contract: RouteContract<S>): DefinedRoute<S> {
+  return {
+    ...contract,
+    answer: (body, init = {}) => Response.json(body, { ...init, status: contract.ok.status }),
+  };
+}
+
+/** `/api/v1/shops/{shop}/quotes` → `app/api/v1/shops/[shop]/quotes/route.ts` */
+export function routeFileOf(path: string): string {
+  return `app${path.replace(/\{([^}]+)\}/g, "[$1]")}/route.ts`;
+}

@@ -1,0 +1,32 @@
+import type { DefinedRoute } from "@/lib/api/contract";
+import type { z } from "zod";
+import { openApiDescription } from "./description";
+import { analyzeFailures, evaluateNetwork, toleranceYield } from "./networks";
+import { checkoutState, listOrders, orderCertificate, orderTraveler, startCheckout } from "./orders";
+import { createQuote, getQuote, getQuoteRevision } from "./quotes";
+import { downloadAttachment, listMembers, listQuotes, quotePdf, searchArrangements, uploadAttachment } from "./shops";
+
+/**
+ * Every route under app/api/v1, once. A new route adds its contract to its area's file in this
+ * folder and one entry here; tests/unit/api/contracts.test.ts fails for a route without one.
+ */
+export const CONTRACTS: readonly DefinedRoute<z.ZodType>[] = [
+  evaluateNetwork,
+  analyzeFailures,
+  toleranceYield,
+  searchArrangements,
+  listQuotes,
+  createQuote,
+  getQuote,
+  getQuoteRevision,
+  quotePdf,
+  uploadAttachment,
+  downloadAttachment,
+  listMembers,
+  startCheckout,
+  checkoutState,
+  listOrders,
+  orderTraveler,
+  orderCertificate,
+  openApiDescription,
+];
