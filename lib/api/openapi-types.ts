@@ -969,6 +969,7 @@ export interface components {
         validUntil: string;
         /** Format: date-time */
         createdAt: string;
+        changeRequestedAt: string | null;
       }[];
       /** @description rows in the filtered set */
       total: number;

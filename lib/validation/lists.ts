@@ -72,6 +72,8 @@ export const quotePageSchema = pageSchema(
     total: decimalSchema,
     validUntil: z.iso.date(),
     createdAt: z.iso.datetime({ offset: true }),
+    /** when the customer asked for a change that no revision has answered yet; null when none is waiting */
+    changeRequestedAt: z.iso.datetime({ offset: true }).nullable(),
   }),
 ).meta({ id: "QuotePage" });
 

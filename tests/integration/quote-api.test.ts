@@ -5,6 +5,7 @@
  */
 import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
+import { createApiKey } from "@/app/desk/[shop]/api-keys/actions";
 import { POST as createRoute } from "@/app/api/v1/shops/[shop]/quotes/route";
 import { GET as quoteRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/route";
 import { GET as revisionRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/revisions/[n]/route";
@@ -16,7 +17,7 @@ import { NO_OVERRIDES } from "@/lib/quoting/review-search";
 import { quoteCreatedResponseSchema, quoteInReviewResponseSchema, quoteRevisionResponseSchema } from "@/lib/validation/quote-api";
 import { issueRevisionSchema } from "@/lib/validation/workbench";
 import { cheapestOption, contextOf, createShop, KESTREL_REQUIREMENT, type TestShop } from "./fixtures";
-import { request, sessionCookie } from "./helpers";
+import { actAs, request, sessionCookie } from "./helpers";
 
 async function post(shop: TestShop, email: string, body: unknown) {
   return createRoute(request(`/api/v1/shops/${shop.slug}/quotes`, { method: "POST", cookie: await sessionCookie(email), body: JSON.stringify(body) }), {
@@ -129,5 +130,39 @@ describe("GET /api/v1/shops/{shop}/quotes/{number}[/revisions/{n}]", () => {
     expect((await get(shop, shop.customers[1].email, made.number)).status).toBe(404);
     expect((await get(shop, shop.customers[1].email, made.number, 1)).status).toBe(404);
     expect((await get(shop, shop.customers[0].email, "Q-1999-0001")).status).toBe(404);
+  });
+});
+
+describe("the quote API with a shop's API key", () => {
+  it("quotes:read reads any of the shop's quotes but cannot make one (403); quotes:write makes one for a named customer", async () => {
+    const shop = await createShop("kestrel");
+    const { choice: c } = await choice(shop);
+    await actAs(shop.manager.email);
+    const keys = await Promise.all(
+      (["quotes:read", "quotes:write"] as const).map(async (scope) => {
+        const r = await createApiKey(shop.slug, { name: `Order system ${scope}`, scopes: [scope] });
+        if (!r.ok) throw new Error(JSON.stringify(r));
+        return r.data.secret;
+      }),
+    );
+    const [reader, writer] = keys as [string, string];
+    const byKey = (secret: string, body: unknown) =>
+      createRoute(
+        request(`/api/v1/shops/${shop.slug}/quotes`, { method: "POST", headers: { authorization: `Bearer ${secret}` }, body: JSON.stringify(body) }),
+        {
+          params: Promise.resolve({ shop: shop.slug }),
+        },
+      );
+    const body = { requirement: KESTREL_REQUIREMENT, choice: c, idempotencyKey: "erp-order-9001", customerEmail: shop.customers[1].email };
+    expect((await byKey(reader, body)).status).toBe(403);
+    const made = await byKey(writer, body);
+    expect(made.status).toBe(201);
+    const { number } = quoteCreatedResponseSchema.parse(await made.json());
+    expect((await getQuoteByNumber(shop.id, number))?.customerUserId).toBe(shop.customers[1].id);
+    const read = await quoteRoute(request(`/api/v1/shops/${shop.slug}/quotes/${number}`, { headers: { authorization: `Bearer ${reader}` } }), {
+      params: Promise.resolve({ shop: shop.slug, number }),
+    });
+    expect(read.status).toBe(200);
+    expect(quoteRevisionResponseSchema.parse(await read.json())).toMatchObject({ number, revision: 1, state: "sent" });
   });
 });
