@@ -1,29 +1,6 @@
-import { Body, Button, Container, Head, Heading, Hr, Html, Preview, Section, Text } from "@react-email/components";
+import { Button, Heading, Hr, Section, Text } from "@react-email/components";
+import { EmailFrame } from "./email-frame";
 import { COPPER, INK_100, INK_600, INK_900, PAPER } from "./theme";
-
-/** The frame of every e-mail the product sends: the preview line, the page and the card with the copper rule. */
-export function MailFrame({ preview, children }: { preview: string; children: React.ReactNode }) {
-  return (
-    <Html lang="en">
-      <Head />
-      <Preview>{preview}</Preview>
-      <Body style={{ backgroundColor: PAPER, color: INK_900, fontFamily: "'IBM Plex Sans', Arial, Helvetica, sans-serif", margin: 0, padding: "24px 0" }}>
-        <Container
-          style={{
-            backgroundColor: "#ffffff",
-            border: `1px solid ${INK_100}`,
-            borderTop: `4px solid ${COPPER}`,
-            borderRadius: 6,
-            maxWidth: 560,
-            padding: "28px 32px",
-          }}
-        >
-          {children}
-        </Container>
-      </Body>
-    </Html>
-  );
-}
 
 /** The frame every notice about a quote shares: the shop's name, a heading, the body, a button to the page and the address written out. */
 export function QuoteMailShell({
@@ -43,7 +20,7 @@ export function QuoteMailShell({
   children: React.ReactNode;
 }) {
   return (
-    <MailFrame preview={preview}>
+    <EmailFrame preview={preview}>
       <Text style={{ color: COPPER, fontSize: 13, fontWeight: 600, letterSpacing: "0.06em", margin: 0, textTransform: "uppercase" }}>{shopName}</Text>
       <Heading as="h1" style={{ fontSize: 22, lineHeight: "30px", margin: "8px 0 16px" }}>
         {heading}
@@ -66,7 +43,7 @@ export function QuoteMailShell({
           <Text style={{ color: INK_600, fontSize: 12, lineHeight: "18px", margin: 0 }}>{footer}</Text>
         </>
       ) : null}
-    </MailFrame>
+    </EmailFrame>
   );
 }
 
