@@ -115,17 +115,20 @@ export async function openCheckout(ctx: ShopContext, input: CheckoutRequest & { 
     }
 
     const paymentId = randomUUID();
-    // the sell prices the customer accepted (added lines and an estimator's discount included)
+    // the sell prices the customer accepted: a revision with added lines or an estimator's
+    // discount is paid as one line for its banks and those lines together
     const sheet = revisionSheet(q);
     const bankLine = sheet.lines[0];
+    const bank = `Capacitor bank ${arrangementLabel(q.arrangement)}, ${q.arrangement.cell.sku} cells`;
+    const composite = sheet.lines.length > 1 || sheet.discount !== null || !bankLine;
     const lines = checkoutLines({
       kind: input.kind,
       currency: q.currency,
       quoteNumber: q.number,
       revision: q.revision,
-      bankName: `Capacitor bank ${arrangementLabel(q.arrangement)}, ${q.arrangement.cell.sku} cells`,
-      quantity: q.quantity,
-      unitPrice: sheet.lines.length === 1 && !sheet.discount && bankLine ? bankLine.unitPrice : sheet.subtotal,
+      bankName: composite ? `${q.quantity} × ${bank}, with the quote's other lines${sheet.discount ? " and its discount" : ""}` : bank,
+      quantity: composite ? 1 : q.quantity,
+      unitPrice: composite ? sheet.subtotal : bankLine.unitPrice,
       discountPct: bankLine?.breakPct ?? "0",
       subtotal: sheet.subtotal,
       taxPct: sheet.taxPct,

@@ -11,15 +11,19 @@ import { POST as checkoutRoute, GET as checkoutStateRoute } from "@/app/api/v1/s
 import { POST as webhookRoute } from "@/app/api/webhooks/stripe/route";
 import { db } from "@/db";
 import { getStripeEvent } from "@/db/queries/payments";
+import { getQuoteByNumber } from "@/db/queries/quotes";
 import { emailOutbox, orderStatusHistory, quoteRevisions, quotes, shopEvents, stripeEvents } from "@/db/schema";
 import { env } from "@/lib/env";
 import { openCheckout } from "@/lib/payments/checkout";
+import { issueQuoteRevision } from "@/lib/quoting/issue-revision";
 import { declineQuoteRevision } from "@/lib/quoting/lifecycle";
+import { NO_OVERRIDES } from "@/lib/quoting/review-search";
+import { issueRevisionSchema } from "@/lib/validation/workbench";
 import { reconcileStripeEvents } from "@/lib/payments/reconcile";
 import { requestRefund } from "@/lib/payments/refunds";
 import { fromMinorUnits, toMinorUnits } from "@/lib/pricing";
 import { Dec } from "@/lib/pricing/decimal";
-import { contextOf, createQuote, createShop, type TestShop } from "./fixtures";
+import { cheapestOption, contextOf, createQuote, createShop, KESTREL_REQUIREMENT, type TestShop } from "./fixtures";
 import { request, sessionCookie } from "./helpers";
 import { acceptedQuote, checkoutFor, ordersOfQuote, payAndSettle, paymentOf, usePaymentRig } from "./payments-support";
 import { control, settle } from "./stripe-standin/helpers";
@@ -170,6 +174,42 @@ describe("checkout", () => {
     const m = await acceptedQuote(M, M.customers[0], { maxVoltage: 800, capacitance: 10e-6, quantity: 1 });
     const refused = await openCheckout(contextOf(M, M.customers[0], "customer"), { number: m, revision: 1, kind: "deposit" });
     expect(refused).toMatchObject({ ok: false, code: "conflict", message: expect.stringMatching(/not offered/) });
+  });
+});
+
+describe("checkout of an estimator's revision", () => {
+  it("charges the revision's sheet: the bank, an added line and the discount with its reason, tax included", async () => {
+    const number = await createQuote(K, K.customers[0]);
+    const quote = await getQuoteByNumber(K.id, number);
+    const o = await cheapestOption(K.id, KESTREL_REQUIREMENT);
+    const draft = {
+      bank: {
+        kind: "engine",
+        choice: { sku: o.cell.sku, topology: o.topology, seriesCount: o.seriesCount, parallelCount: o.parallelCount },
+        overrides: NO_OVERRIDES,
+      },
+      bankPrice: null,
+      lines: [{ kind: "freight", description: "Pallet freight", quantity: "1", unit: "lot", unitPrice: "85.00" }],
+      discount: { kind: "percent", value: "5", reason: "Repeat order" },
+      validityDays: 30,
+      note: "",
+    };
+    const issued = await issueQuoteRevision(
+      contextOf(K, K.estimator, "estimator"),
+      issueRevisionSchema.parse({ requestId: quote!.requestId, draft, basedOnRevision: 1 }),
+    );
+    expect(issued).toMatchObject({ ok: true, data: { revision: 2 } });
+    const [rev2] = await db
+      .select()
+      .from(quoteRevisions)
+      .where(and(eq(quoteRevisions.shopId, K.id), eq(quoteRevisions.quoteId, quote!.id), eq(quoteRevisions.revision, 2)));
+    const sheetTotal = rev2!.sheet!.total;
+    // the price rules alone would ask another amount: the sheet's total is what is charged
+    expect(sheetTotal).not.toBe(rev2!.pricing.total);
+    const opened = await openCheckout(contextOf(K, K.customers[0], "customer"), { number, revision: 2, kind: "full" });
+    if (!opened.ok) throw new Error(JSON.stringify(opened));
+    const session = await rig.sdk.checkout.sessions.retrieve(opened.data.sessionId);
+    expect(session.amount_total).toBe(toMinorUnits(sheetTotal, "EUR"));
   });
 });
 
