@@ -39,8 +39,8 @@ test("an estimator quotes a needs-review request with a custom mixed-cell bank, 
   const email = `wynne.callard.${id}@orrin-cranes.example`;
   const notes = `Outdoor cabinet beside the crane rail (${id}); drawing attached.`;
 
-  // The customer: a bank beyond the shop's auto-quote limits (60 V with 800 F stores ½·C·V² = 1.44 MJ at the
-  // requirement and about 2.1 MJ at the options' rating, above the default 2 MJ), with notes and a drawing.
+  // The customer: a bank beyond the shop's auto-quote limits (60 V with 1200 F stores ½·C·V² = 2.16 MJ at
+  // the requirement already, above the default 2 MJ), with notes and a drawing.
   await page.goto(`/s/${K}/join`);
   await page.getByLabel("Your name").fill("Wynne Callard");
   await page.getByLabel("E-mail").fill(email);
@@ -49,7 +49,7 @@ test("an estimator quotes a needs-review request with a custom mixed-cell bank, 
   await expect(page).toHaveURL(new RegExp(`/s/${K}$`));
   await page.getByLabel("Maximum voltage").fill("60 V");
   await page.getByText("Capacitance", { exact: true }).click();
-  await page.getByLabel("Capacitance needed").fill("800 F");
+  await page.getByLabel("Capacitance needed").fill("1200 F");
   await page.getByLabel("Notes (optional)").fill(notes);
   await page.getByLabel("Drawings and specifications (optional)").setInputFiles({ name: "cabinet-plan.png", mimeType: "image/png", buffer: DRAWING });
   await expect(page.getByRole("list", { name: "Attached files" })).toContainText("cabinet-plan.png");
@@ -63,7 +63,7 @@ test("an estimator quotes a needs-review request with a custom mixed-cell bank, 
   const desk = await staffPage(browser);
   await desk.goto(`/desk/${K}/requests?status=needs-review`);
   const row = desk.getByRole("row").filter({ hasText: email });
-  await expect(row).toContainText("60 V, 800 F, 1 bank");
+  await expect(row).toContainText("60 V, 1.2 kF, 1 bank");
   await row.getByRole("link", { name: "Review in the workbench" }).click();
   await expect(desk.getByTestId("request-notes")).toHaveText(notes);
   await expect(desk.getByRole("img", { name: "Attached drawing cabinet-plan.png" })).toBeVisible();
