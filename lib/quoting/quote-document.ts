@@ -3,7 +3,7 @@ import { formatMoney, type PriceSheet } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
 import { requirementFacts, TECHNOLOGY_LABELS, TOPOLOGY_LABELS, type LabelledValue } from "@/lib/vocabulary";
 import { partsOf } from "./custom-bank";
-import { toQuoteEngineering, type QuoteEngineering } from "./quote-engineering";
+import { NOT_COMPUTED_FOR_CUSTOM, NOT_RECORDED, toQuoteEngineering, type QuoteEngineering } from "./quote-engineering";
 import { revisionSheet } from "./revision-sheet";
 import type { FrozenCell, PricedOption, RevisionDesign } from "./types";
 
@@ -184,6 +184,6 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     option,
     design: r.design ?? { source: "customer-choice" },
     note: r.note,
-    engineering: toQuoteEngineering(r.requirement, option),
+    engineering: toQuoteEngineering(r.requirement, option, r.design?.source === "custom" ? NOT_COMPUTED_FOR_CUSTOM : NOT_RECORDED),
   };
 }

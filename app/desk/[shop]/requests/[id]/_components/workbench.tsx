@@ -642,36 +642,41 @@ export function Workbench(p: WorkbenchProps) {
               <tfoot>
                 {Number(composed.sheet.breakDiscount) > 0 ? (
                   <tr className="border-t border-ink-100">
-                    <th scope="row" colSpan={3} className="px-2 py-1 text-right font-normal">
+                    <th scope="row" colSpan={2} className="px-2 py-1 text-right font-normal">
                       Quantity discount
                     </th>
+                    <td className="hidden sm:table-cell" />
                     <td className="num px-2 py-1 text-right">−{money(composed.sheet.breakDiscount)}</td>
                   </tr>
                 ) : null}
                 {composed.sheet.discount ? (
                   <tr className="border-t border-ink-100">
-                    <th scope="row" colSpan={3} className="px-2 py-1 text-right font-normal">
+                    <th scope="row" colSpan={2} className="px-2 py-1 text-right font-normal">
                       Discount: {composed.sheet.discount.reason}
                     </th>
+                    <td className="hidden sm:table-cell" />
                     <td className="num px-2 py-1 text-right">−{money(composed.sheet.discount.amount)}</td>
                   </tr>
                 ) : null}
                 <tr className="border-t border-ink-100">
-                  <th scope="row" colSpan={3} className="px-2 py-1 text-right font-normal">
+                  <th scope="row" colSpan={2} className="px-2 py-1 text-right font-normal">
                     Subtotal
                   </th>
+                  <td className="hidden sm:table-cell" />
                   <td className="num px-2 py-1 text-right">{money(composed.sheet.subtotal)}</td>
                 </tr>
                 <tr className="border-t border-ink-100">
-                  <th scope="row" colSpan={3} className="px-2 py-1 text-right font-normal">
+                  <th scope="row" colSpan={2} className="px-2 py-1 text-right font-normal">
                     Tax ({composed.sheet.taxPct} %)
                   </th>
+                  <td className="hidden sm:table-cell" />
                   <td className="num px-2 py-1 text-right">{money(composed.sheet.tax)}</td>
                 </tr>
                 <tr className="border-t-2 border-ink-800 text-base font-semibold">
-                  <th scope="row" colSpan={3} className="px-2 py-1 text-right">
+                  <th scope="row" colSpan={2} className="px-2 py-1 text-right">
                     Total
                   </th>
+                  <td className="hidden sm:table-cell" />
                   <td className="num px-2 py-1 text-right" data-testid="workbench-total">
                     {money(composed.sheet.total)}
                   </td>
