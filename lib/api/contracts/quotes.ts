@@ -15,6 +15,7 @@ export const createQuote = defineRoute({
   description:
     "A requirement and the option chosen from it (as the arrangements endpoint lists it: cell SKU, topology, series and parallel counts) in. A signed-in customer asks for themselves; the shop's staff (or an API key with `quotes:write`) name the customer by `customerEmail`. Within the shop's auto-quote limits the quote is issued at once (201); beyond them, or when the option can no longer be priced, the request waits for the shop's estimators (202). The same `idempotencyKey` with the same body answers the same again (header `Idempotent-Replayed: true`); the key with another body is a 409. Rate-limited per client.",
   access: "member",
+  apiKey: "quotes:write",
   params: shopParams,
   body: { json: createQuoteRequestSchema },
   ok: { status: 201, description: "The quote was issued: its number, revision and total.", json: quoteCreatedResponseSchema },
@@ -33,13 +34,13 @@ export const createQuote = defineRoute({
   },
   examples: [
     {
-      title: "A 48 V bank of 19 cells in series",
+      title: "A 48 V bank of 20 cells in series, for a named customer",
       params: { shop: EXAMPLE_SHOP },
       json: {
         requirement: { maxVoltage: 48, minVoltage: 24, energy: 20000 },
-        choice: { sku: "QFS-3000R27", topology: "series-of-parallel-groups", seriesCount: 19, parallelCount: 1 },
+        choice: { sku: "QFS-0650R27", topology: "series-of-parallel-groups", seriesCount: 20, parallelCount: 1 },
         idempotencyKey: "erp-order-4711",
-        customerEmail: "customer@example.com",
+        customerEmail: "renske.haddow@tollmere-tramways.example",
       },
     },
   ],
@@ -56,6 +57,7 @@ export const getQuote = defineRoute({
   summary: "A quote's latest revision",
   description: `The latest revision of the quote: ${readDescription}`,
   access: "member",
+  apiKey: "quotes:read",
   params: quoteParams,
   ok: { status: 200, description: "The latest revision.", json: quoteRevisionResponseSchema },
   errors: { 401: REFUSED.signedOut, 403: REFUSED.notMember, 404: "No such shop, or no such quote this member may see." },
@@ -69,6 +71,7 @@ export const getQuoteRevision = defineRoute({
   summary: "One revision of a quote",
   description: `Revision \`n\` of the quote, as it was issued (revisions never change): ${readDescription}`,
   access: "member",
+  apiKey: "quotes:read",
   params: revisionParams,
   ok: { status: 200, description: "The revision.", json: quoteRevisionResponseSchema },
   errors: { 401: REFUSED.signedOut, 403: REFUSED.notMember, 404: "No such shop, quote this member may see, or revision." },
