@@ -3,9 +3,8 @@ import { withShopApi } from "@/lib/auth/guards";
 import { ownerScope, reads } from "@/lib/auth/ownership";
 import { jsonError } from "@/lib/http/json-error";
 import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
-import { readJsonBody } from "@/lib/http/read-json";
+import { readJsonAs } from "@/lib/http/read-json";
 import { createQuoteForApi } from "@/lib/quoting/quote-api";
-import { fromZod } from "@/lib/validation/bank";
 import { quoteList } from "@/lib/validation/lists";
 import { createQuoteRequestSchema, type quoteCreatedResponseSchema } from "@/lib/validation/quote-api";
 import type { z } from "zod";
@@ -39,14 +38,9 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   return withShopApi(request, shop, ["request:create", "quote:issue"], async (ctx) => {
     const gate = await limits.quoteApi.hit(requestClient(request.headers));
     if (!gate.allowed) return tooManyRequests(gate);
-    const body = await readJsonBody(request);
-    if (!body.ok) return body.response;
-    const parsed = createQuoteRequestSchema.safeParse(body.value);
-    if (!parsed.success) {
-      const bad = fromZod(parsed.error);
-      return jsonError(400, bad.ok ? "Invalid body." : bad.error, bad.ok ? undefined : bad.issues);
-    }
-    const answer = await createQuoteForApi(ctx, parsed.data);
+    const parsed = await readJsonAs(request, createQuoteRequestSchema);
+    if (!parsed.ok) return parsed.response;
+    const answer = await createQuoteForApi(ctx, parsed.value);
     const headers = answer.replayed ? { "idempotent-replayed": "true" } : undefined;
     if (answer.status === 201) return createQuote.answer(answer.body as z.input<typeof quoteCreatedResponseSchema>, { headers });
     return Response.json(answer.body, { status: answer.status, headers });
