@@ -23,6 +23,7 @@ export const CROSS_SHOP_FUNCTIONS = [
   "stale_unlinked_attachments(double precision, integer)",
   "due_webhook_deliveries(integer)",
   "payment_of_intent(text)",
+  "quotes_past_validity(date, integer)",
 ];
 
 /** The role a connection string logs in as. */

@@ -44,6 +44,9 @@ if (!httpOnly) {
   log("engine");
   const engine = spawnSync(bin("tsx"), ["tests/bench/engine-bench.ts"], { cwd: root, stdio: "inherit" });
   if (engine.status !== 0) process.exit(engine.status ?? 1);
+  log("custom bank (network editor)");
+  const custom = spawnSync(bin("tsx"), ["tests/bench/custom-bank-bench.ts"], { cwd: root, stdio: "inherit" });
+  if (custom.status !== 0) process.exit(custom.status ?? 1);
   log("quote PDF");
   const pdf = spawnSync(bin("tsx"), ["tests/bench/pdf-bench.ts"], { cwd: root, stdio: "inherit" });
   if (pdf.status !== 0) process.exit(pdf.status ?? 1);

@@ -123,6 +123,10 @@ export interface NewOutboxMessage {
   toEmail: string;
   subject: string;
   quoteRevisionId: string | null;
+  /** the request a "needs review" notice is about */
+  requestId?: string | null;
+  /** the thread message a "new message" notice carries */
+  quoteMessageId?: string | null;
   /** the order an order message is about */
   orderId?: string | null;
 }

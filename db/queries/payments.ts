@@ -32,6 +32,8 @@ export async function lockQuoteForCheckout(tx: Tx, shopId: string, number: strin
       validUntil: quoteRevisions.validUntil,
       pricing: quoteRevisions.pricing,
       arrangement: quoteRevisions.arrangement,
+      sheet: quoteRevisions.sheet,
+      design: quoteRevisions.design,
     })
     .from(quotes)
     .innerJoin(

@@ -3,8 +3,8 @@ import { and, asc, count, desc, eq } from "drizzle-orm";
 import { quoteLines, quoteRevisions, quotes, shops, users } from "@/db/schema";
 import { withShop, type Tx } from "@/db/tx";
 import type { OwnerScope } from "@/lib/auth/ownership";
-import type { PriceLine } from "@/lib/pricing";
-import type { FrozenQuote } from "@/lib/quoting/types";
+import type { PriceLine, PriceSheet } from "@/lib/pricing";
+import type { FrozenQuote, RevisionDesign } from "@/lib/quoting/types";
 import type { QuoteListQuery } from "@/lib/validation/lists";
 import type { QuoteStatus } from "@/lib/vocabulary";
 import { containsText, ranked, readPage, sortedBy, type Page } from "./paging";
@@ -21,13 +21,15 @@ export interface QuoteListRow {
   total: string;
   validUntil: string;
   createdAt: Date;
+  /** the customer asked for a change no revision has answered yet */
+  changeRequestedAt: Date | null;
 }
 
 const QUOTE_SORTS = {
   number: quotes.number,
   customer: users.name,
   // open quotes first
-  status: ranked(quotes.status, ["issued", "accepted", "expired", "withdrawn"]),
+  status: ranked(quotes.status, ["sent", "accepted", "declined", "expired", "withdrawn", "superseded", "draft"]),
   total: quoteRevisions.total,
   validUntil: quoteRevisions.validUntil,
   created: quotes.createdAt,
@@ -63,6 +65,7 @@ export async function listQuotes(shopId: string, scope: OwnerScope, q: QuoteList
             total: quoteRevisions.total,
             validUntil: quoteRevisions.validUntil,
             createdAt: quotes.createdAt,
+            changeRequestedAt: quotes.changeRequestedAt,
           })
           .from(quotes)
           .innerJoin(quoteRevisions, current)
@@ -86,6 +89,7 @@ export async function getQuoteByNumber(shopId: string, number: string) {
         customerUserId: quotes.customerUserId,
         requestId: quotes.requestId,
         currentRevision: quotes.currentRevision,
+        changeRequestedAt: quotes.changeRequestedAt,
         revisionId: quoteRevisions.id,
         createdAt: quotes.createdAt,
       })
@@ -168,9 +172,18 @@ export interface NewQuoteRevision {
   /** YYYY-MM-DD */
   validUntil: string;
   createdByUserId: string;
+  /** the sell prices the customer sees (lib/quoting/revision-sheet.ts) */
+  sheet: PriceSheet;
+  /** how the bank was arrived at */
+  design: RevisionDesign;
+  /** the shop's note to the customer with this revision */
+  note?: string;
 }
 
-/** Freezes a revision and its price lines (one per line of the build-up, in order); returns its id. */
+/**
+ * Freezes a revision and its price lines (one per line of the bank's build-up, in order); returns its
+ * id. The revision's totals are its sheet's: what the customer pays.
+ */
 export async function insertQuoteRevision(tx: Tx, shopId: string, r: NewQuoteRevision): Promise<string> {
   const { requirement, arrangement, cell, pricing } = r.frozen;
   const [row] = await tx
@@ -183,11 +196,14 @@ export async function insertQuoteRevision(tx: Tx, shopId: string, r: NewQuoteRev
       arrangement,
       cell,
       pricing,
-      currency: pricing.currency,
+      sheet: r.sheet,
+      design: r.design,
+      note: r.note ?? "",
+      currency: r.sheet.currency,
       quantity: pricing.quantity,
-      subtotal: pricing.subtotal,
-      tax: pricing.tax,
-      total: pricing.total,
+      subtotal: r.sheet.subtotal,
+      tax: r.sheet.tax,
+      total: r.sheet.total,
       validUntil: r.validUntil,
       createdByUserId: r.createdByUserId,
     })

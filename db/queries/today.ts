@@ -22,7 +22,7 @@ export async function countTodayWork(shopId: string, today: string, days: number
         and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision)),
       )
       .where(
-        and(eq(quotes.shopId, shopId), eq(quotes.status, "issued"), gte(quoteRevisions.validUntil, today), lte(quoteRevisions.validUntil, sql`${until}::date`)),
+        and(eq(quotes.shopId, shopId), eq(quotes.status, "sent"), gte(quoteRevisions.validUntil, today), lte(quoteRevisions.validUntil, sql`${until}::date`)),
       );
     return { needsReview: review?.n ?? 0, expiringQuotes: expiring?.n ?? 0 };
   });

@@ -31,6 +31,10 @@ export const limits = {
   apiKey: createRateLimiter({ name: "api-key", limit: env.API_KEY_RATE_LIMIT_PER_MINUTE, windowSeconds: 60, store }),
   /** new accounts (open a shop, join a shop): as many per address as sign-in attempts */
   signUp: createRateLimiter({ name: "sign-up", limit: env.AUTH_SIGN_IN_LIMIT, windowSeconds: 10, store }),
+  /** messages in quote threads, per person (each is e-mailed): a conversation's pace, not a flood */
+  quoteMessages: createRateLimiter({ name: "quote-message", limit: 30, windowSeconds: 600, store }),
+  /** quotes made through the quote API (each runs a priced search), per client */
+  quoteApi: createRateLimiter({ name: "quote-api", limit: env.API_RATE_LIMIT_PER_MINUTE, windowSeconds: 60, store }),
 };
 
 /** 429 with Retry-After, for route handlers. */

@@ -10,6 +10,8 @@ export interface QuoteReadyMessage {
   quoteNumber: string;
   revision: number;
   toEmail: string;
+  /** another key than the revision's own, for a copy sent again on purpose */
+  dedupeKey?: string;
 }
 
 /**
@@ -20,7 +22,7 @@ export interface QuoteReadyMessage {
 export async function enqueueQuoteReady(tx: Tx, m: QuoteReadyMessage): Promise<void> {
   await insertOutboxMessage(tx, m.shopId, {
     kind: "quote-ready",
-    dedupeKey: `quote-ready:${m.quoteRevisionId}`,
+    dedupeKey: m.dedupeKey ?? `quote-ready:${m.quoteRevisionId}`,
     toEmail: m.toEmail,
     subject: `Your quote ${m.quoteNumber} (revision ${m.revision}) is ready`,
     quoteRevisionId: m.quoteRevisionId,
@@ -74,4 +76,13 @@ export async function requeueFailedMessage(shopId: string, outboxId: string, act
   if (!row) return "not-failed"; // another manager was quicker
   await dispatchOutbox();
   return "requeued";
+}
+
+/** dispatchOutbox after a commit, for callers that have answered already: a failure only delays the mail (the queue's sweep delivers it later). */
+export async function dispatchAfterCommit(what: string): Promise<void> {
+  try {
+    await dispatchOutbox();
+  } catch (error) {
+    console.error("dispatchOutbox failed after", what, error);
+  }
 }

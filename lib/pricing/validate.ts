@@ -168,6 +168,25 @@ export function validateBankBill(bill: BankBill): PricingIssue[] {
     checkMoney(issues, "cell.unitCost", b.cell.unitCost, null);
   }
   checkNumber(issues, "cellCount", b.cellCount, { min: 1, integer: true });
+  if (b.mixedCells !== undefined) {
+    if (!Array.isArray(b.mixedCells) || b.mixedCells.length === 0) {
+      issues.push({ path: "mixedCells", message: "must be a non-empty list when given" });
+    } else {
+      let sum = 0;
+      b.mixedCells.forEach((c: unknown, i) => {
+        const p = `mixedCells[${i}]`;
+        if (!isObject(c)) {
+          issues.push({ path: p, message: "must be an object" });
+          return;
+        }
+        if (typeof c.sku !== "string" || c.sku.trim() === "") issues.push({ path: `${p}.sku`, message: "must not be empty" });
+        checkMoney(issues, `${p}.unitCost`, c.unitCost, null);
+        checkNumber(issues, `${p}.count`, c.count, { min: 1, integer: true });
+        if (typeof c.count === "number") sum += c.count;
+      });
+      if (sum !== b.cellCount) issues.push({ path: "mixedCells", message: `the counts add up to ${sum}, not the bank's ${String(b.cellCount)} cells` });
+    }
+  }
   checkNumber(issues, "quantity", b.quantity, { min: 1, integer: true });
   checkNumber(issues, "volumeM3", b.volumeM3, { min: 0, minExclusive: true });
 

@@ -46,7 +46,7 @@ interface Candidate extends PricedOption {
  * or tie with it, nor dominate a shown one (its price would be higher): the dozen and their Pareto
  * marks are exactly what pricing every option would give (a property test checks this).
  */
-export function searchPricedOptions(catalog: ShopCatalog, requirement: Requirement): PricedSearch {
+export function searchPricedOptions(catalog: ShopCatalog, requirement: Requirement, opts: { longerStrings?: number } = {}): PricedSearch {
   const { factors, rules } = catalog;
   const cells = catalog.cells.map(toEngineCell);
   const byId = new Map(catalog.cells.map((c) => [c.id, c]));
@@ -60,6 +60,7 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
       costModel: costModelOf(rules, catalog.components),
       reliability: catalog.reliability,
       limit,
+      longerStrings: opts.longerStrings,
     });
 
   if (requirement.rankBy === "life") {

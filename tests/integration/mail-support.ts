@@ -47,6 +47,7 @@ export interface MaildevEmail {
   to: { address: string }[];
   from: { name: string; address: string }[];
   headers: Record<string, string>;
+  text?: string;
   attachments?: { filename?: string; generatedFileName: string; contentType: string; size: number }[];
 }
 

@@ -5,7 +5,7 @@
 import { and, eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { chooseArrangement } from "@/app/s/[shop]/actions";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { countTodayWork } from "@/db/queries/today";
 import { quotes, shopSettings } from "@/db/schema";
 import { choiceOf, cheapestOption, createQuote, createShop, KESTREL_REQUIREMENT } from "./fixtures";

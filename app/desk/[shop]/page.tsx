@@ -55,7 +55,7 @@ export default async function DeskTodayPage({ params }: { params: Promise<{ shop
           ) : null}
           {can(ctx.role, "quote:read-all") ? (
             <Count
-              href={`${base}/quotes?status=issued&sort=validUntil&dir=asc`}
+              href={`${base}/quotes?status=sent&sort=validUntil&dir=asc`}
               n={work.expiringQuotes}
               label={`quotes lapsing within ${EXPIRING_WITHIN_DAYS} days`}
               testId="today-expiring"

@@ -41,7 +41,7 @@ export const listQuotes = defineRoute({
   query: quoteList.querySchema,
   ok: { status: 200, description: "A page of quotes.", json: quotePageSchema },
   errors: { 400: "A query value the list does not take: `issues` names it.", 401: REFUSED.signedOut, 403: REFUSED.notMember, 404: REFUSED.noShop },
-  examples: [{ title: "Issued quotes, largest total first", params: { shop: EXAMPLE_SHOP }, query: { status: "issued", sort: "total" } }],
+  examples: [{ title: "Sent quotes, largest total first", params: { shop: EXAMPLE_SHOP }, query: { status: "sent", sort: "total" } }],
 });
 
 export const quotePdf = defineRoute({

@@ -7,10 +7,14 @@ import { ALLOWED_ATTACHMENT_TYPES, cleanFileName, contentDisposition, type Attac
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
+/** Files a browser may show in place (`?view=inline`): their content was sniffed at upload; a DXF drawing is always downloaded. */
+const INLINE_TYPES = new Set(["application/pdf", "image/png", "image/jpeg"]);
+
 /**
- * GET /api/v1/shops/{shop}/attachments/{id} — the file, to the customer who uploaded it and to the
- * shop's staff; 404 to anyone else in the shop (ids cannot be probed), and 404 when the file itself
- * is gone. The download's name ends in the extension of its content type.
+ * GET /api/v1/shops/{shop}/attachments/{id}[?view=inline] — the file, to the customer who uploaded
+ * it and to the shop's staff; 404 to anyone else in the shop (ids cannot be probed), and 404 when
+ * the file itself is gone. The download's name ends in the extension of its content type. PDF, PNG
+ * and JPEG files are shown in the browser with `?view=inline`; anything else is always a download.
  */
 export async function GET(request: Request, { params }: { params: Promise<{ shop: string; id: string }> }) {
   const { shop, id } = await params;
@@ -27,7 +31,10 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
       headers: {
         "content-type": type,
         "content-length": String(file.sizeBytes),
-        "content-disposition": contentDisposition(cleanFileName(row.fileName, type)),
+        "content-disposition":
+          new URL(request.url).searchParams.get("view") === "inline" && INLINE_TYPES.has(type)
+            ? contentDisposition(cleanFileName(row.fileName, type)).replace(/^attachment;/, "inline;")
+            : contentDisposition(cleanFileName(row.fileName, type)),
         "x-content-type-options": "nosniff",
         "cache-control": "private, no-store",
       },
