@@ -47,7 +47,7 @@ export function RevisionDiffView({ diff }: { diff: RevisionDiff }) {
   return (
     <div className="space-y-4" data-testid="revision-diff">
       {diff.arrangement.length > 0 ? (
-        <section aria-labelledby="diff-arrangement" className="overflow-x-auto">
+        <section aria-labelledby="diff-arrangement" className="overflow-x-auto" tabIndex={0}>
           <h4 id="diff-arrangement" className="mb-1 text-sm font-semibold text-ink-800">
             Arrangement
           </h4>
@@ -90,7 +90,7 @@ export function RevisionDiffView({ diff }: { diff: RevisionDiff }) {
         </section>
       ) : null}
       {diff.totals.length > 0 ? (
-        <section aria-labelledby="diff-totals" className="overflow-x-auto">
+        <section aria-labelledby="diff-totals" className="overflow-x-auto" tabIndex={0}>
           <h4 id="diff-totals" className="mb-1 text-sm font-semibold text-ink-800">
             Totals
           </h4>

@@ -61,7 +61,7 @@ export function RevisionHistory({
       <h2 id="history-title" className="text-sm font-semibold text-ink-800">
         Revisions
       </h2>
-      <div className="mt-2 overflow-x-auto">
+      <div className="scroll-cue mt-2 overflow-x-auto" role="region" aria-label="Revisions (scrolls sideways on a narrow screen)" tabIndex={0}>
         <table className="w-full text-sm">
           <caption className="sr-only">Every revision of this quote, newest last</caption>
           <thead className="bg-ink-50 text-ink-700">

@@ -56,6 +56,7 @@ test("an estimator quotes a needs-review request with a custom mixed-cell bank, 
   await page.getByRole("button", { name: "Show arrangements" }).click();
   await expect(page.getByTestId("options-table")).toBeVisible();
   await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();
+  await page.getByTestId("choice-review").getByRole("button", { name: "Confirm and get the quote" }).click();
   await expect(page.getByTestId("review-notice")).toBeVisible();
 
   // The estimator is told, opens the request in the workbench and sees the notes and the drawing.

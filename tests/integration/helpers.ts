@@ -75,7 +75,8 @@ export async function pageAnswer(render: () => Promise<unknown>): Promise<string
 
 /** Runs one statement on the test cluster's maintenance database (CREATE DATABASE, DROP DATABASE, …). */
 export async function adminStatement(statement: string): Promise<void> {
-  const url = new URL(process.env.DATABASE_URL ?? "");
+  // the tables' owner creates and drops databases (the app's role may not)
+  const url = new URL(process.env.MIGRATION_DATABASE_URL ?? process.env.DATABASE_URL ?? "");
   url.pathname = "/postgres";
   const client = new Client({ connectionString: url.toString() });
   await client.connect();
