@@ -60,6 +60,7 @@ async function measure(url, { desktop, cookie, keepAs }) {
       tbtMs: lhr.audits["total-blocking-time"].numericValue ?? 0,
       transferBytes: lhr.audits["total-byte-weight"].numericValue ?? 0,
       scriptBytes,
+      cpuIndex: lhr.environment.benchmarkIndex ?? 0,
     };
   } finally {
     await chrome.kill();
@@ -122,7 +123,7 @@ export async function runPageBench({ appUrl, root, env, desktop: withDesktop = t
   for (const p of pages) await fetch(`${appUrl}${p.path}`, { headers: p.cookie ? { cookie: p.cookie } : {} });
   const load = () => os.loadavg()[0].toFixed(1);
   console.log(`Lighthouse 12.2.3 in headless Chromium, median of ${RUNS} runs each; machine load (1 min) at start ${load()} on ${os.cpus().length} cores`);
-  const header = ["page", "mobile: perf", "LCP", "TBT", "transfer", "JS", "| desktop: perf", "LCP", "TBT", "transfer", "JS", "| mobile goal"];
+  const header = ["page", "mobile: perf", "LCP", "TBT", "transfer", "JS", "| desktop: perf", "LCP", "TBT", "transfer", "JS", "| mobile goal", "CPU index"];
   const rows = [header];
   for (const p of pages) {
     const mobile = await medianOf(`${appUrl}${p.path}`, { desktop: false, cookie: p.cookie, keepAs: path.join(keep, `lighthouse-${p.name}-mobile.json`) });
@@ -130,12 +131,20 @@ export async function runPageBench({ appUrl, root, env, desktop: withDesktop = t
       ? await medianOf(`${appUrl}${p.path}`, { desktop: true, cookie: p.cookie })
       : { performance: Number.NaN, lcpMs: Number.NaN, tbtMs: Number.NaN, transferBytes: Number.NaN, scriptBytes: Number.NaN };
     const holds = mobile.performance >= GOAL.performance && mobile.lcpMs <= GOAL.lcpMs && mobile.tbtMs <= GOAL.tbtMs;
-    rows.push([p.label ?? p.path, ...figures(mobile), `| ${figures(desktop)[0]}`, ...figures(desktop).slice(1), `| ${holds ? "holds" : "MISSED"}`]);
+    rows.push([
+      p.label ?? p.path,
+      ...figures(mobile),
+      `| ${figures(desktop)[0]}`,
+      ...figures(desktop).slice(1),
+      `| ${holds ? "holds" : "MISSED"}`,
+      mobile.cpuIndex.toFixed(0),
+    ]);
   }
   const widths = header.map((_, i) => Math.max(...rows.map((r) => r[i].length)));
   for (const r of rows) console.log(r.map((cell, i) => cell.padEnd(widths[i])).join("  "));
   console.log(
     `mobile goal: performance ≥ ${GOAL.performance}, LCP ≤ ${sec(GOAL.lcpMs)}, TBT ≤ ${GOAL.tbtMs} ms; machine load (1 min) at end ${load()}. ` +
-      `Transfer is everything the page loads (compressed); JS its scripts. Lighthouse JSON: ${path.relative(root, keep)}/`,
+      `Transfer is everything the page loads (compressed); JS its scripts. CPU index: Lighthouse's benchmark of this machine during the mobile runs ` +
+      `(higher is faster; a loaded machine scores lower and its CPU figures, TBT above all, come out worse). Lighthouse JSON: ${path.relative(root, keep)}/`,
   );
 }
