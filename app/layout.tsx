@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import localFont from "next/font/local";
 import { connection } from "next/server";
+import { BrowserZod } from "@/components/providers/browser-zod";
 import "./globals.css";
 
 // Plex Sans is the text of every page: one variable file (latin, as @fontsource-variable ships it)
@@ -35,7 +36,10 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   await connection();
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
-      <body className="min-h-screen font-sans">{children}</body>
+      <body className="min-h-screen font-sans">
+        <BrowserZod />
+        {children}
+      </body>
     </html>
   );
 }
