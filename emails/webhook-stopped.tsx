@@ -1,5 +1,6 @@
-import { Body, Button, Container, Head, Heading, Hr, Html, Preview, Text } from "@react-email/components";
-import { COPPER, INK_100, INK_600, INK_900, PAPER } from "./theme";
+import { Button, Heading, Hr, Text } from "@react-email/components";
+import { EmailFrame } from "./email-frame";
+import { COPPER, INK_100, INK_600, INK_900 } from "./theme";
 
 export interface WebhookStoppedEmailProps {
   shopName: string;
@@ -22,48 +23,33 @@ export const webhookStoppedSubject = (p: Pick<WebhookStoppedEmailProps, "shopNam
  */
 export function WebhookStoppedEmail({ shopName, url, failingSince, stoppedAt, lastError, endpointUrl }: WebhookStoppedEmailProps) {
   return (
-    <Html lang="en">
-      <Head />
-      <Preview>{`${url} has not accepted a delivery since ${failingSince}; Faradsmith stopped sending to it.`}</Preview>
-      <Body style={{ backgroundColor: PAPER, color: INK_900, fontFamily: "'IBM Plex Sans', Arial, Helvetica, sans-serif", margin: 0, padding: "24px 0" }}>
-        <Container
-          style={{
-            backgroundColor: "#ffffff",
-            border: `1px solid ${INK_100}`,
-            borderTop: `4px solid ${COPPER}`,
-            borderRadius: 6,
-            maxWidth: 560,
-            padding: "28px 32px",
-          }}
-        >
-          <Heading as="h1" style={{ fontSize: 22, lineHeight: "30px", margin: "0 0 16px" }}>
-            A webhook endpoint was stopped
-          </Heading>
-          <Text style={para}>
-            Every delivery from {shopName} to <strong>{url}</strong> has failed since {failingSince}. On {stoppedAt} Faradsmith stopped sending to it, so your
-            system no longer hears of quotes, orders, refunds or catalog imports through it.
-          </Text>
-          <Text style={para}>Last attempt: {lastError}</Text>
-          <Text style={para}>
-            Once the receiving system answers again, start the endpoint from its page and send the missed events again from its delivery log.
-          </Text>
-          <Button
-            href={endpointUrl}
-            style={{ backgroundColor: INK_900, borderRadius: 4, color: "#ffffff", fontSize: 15, fontWeight: 600, margin: "8px 0 16px", padding: "12px 20px" }}
-          >
-            Open the endpoint
-          </Button>
-          <Text style={{ color: INK_600, fontSize: 13, lineHeight: "20px", margin: "0 0 8px" }}>
-            Or open this address:{" "}
-            <a href={endpointUrl} style={{ color: COPPER }}>
-              {endpointUrl}
-            </a>
-          </Text>
-          <Hr style={{ borderColor: INK_100, margin: "20px 0" }} />
-          <Text style={{ color: INK_600, fontSize: 12, lineHeight: "18px", margin: 0 }}>You receive this because you are a manager of {shopName}.</Text>
-        </Container>
-      </Body>
-    </Html>
+    <EmailFrame preview={`${url} has not accepted a delivery since ${failingSince}; Faradsmith stopped sending to it.`}>
+      <Heading as="h1" style={{ fontSize: 22, lineHeight: "30px", margin: "0 0 16px" }}>
+        A webhook endpoint was stopped
+      </Heading>
+      <Text style={para}>
+        Every delivery from {shopName} to <strong>{url}</strong> has failed since {failingSince}. On {stoppedAt} Faradsmith stopped sending to it, so your
+        system no longer hears of quotes, orders, refunds or catalog imports through it.
+      </Text>
+      <Text style={para}>Last attempt: {lastError}</Text>
+      <Text style={para}>
+        Once the receiving system answers again, start the endpoint from its page and send the missed events again from its delivery log.
+      </Text>
+      <Button
+        href={endpointUrl}
+        style={{ backgroundColor: INK_900, borderRadius: 4, color: "#ffffff", fontSize: 15, fontWeight: 600, margin: "8px 0 16px", padding: "12px 20px" }}
+      >
+        Open the endpoint
+      </Button>
+      <Text style={{ color: INK_600, fontSize: 13, lineHeight: "20px", margin: "0 0 8px" }}>
+        Or open this address:{" "}
+        <a href={endpointUrl} style={{ color: COPPER }}>
+          {endpointUrl}
+        </a>
+      </Text>
+      <Hr style={{ borderColor: INK_100, margin: "20px 0" }} />
+      <Text style={{ color: INK_600, fontSize: 12, lineHeight: "18px", margin: 0 }}>You receive this because you are a manager of {shopName}.</Text>
+    </EmailFrame>
   );
 }
 

@@ -1,4 +1,5 @@
 import type { z } from "zod";
+import type { ApiKeyScope } from "@/lib/auth/api-key-scopes";
 
 /**
  * One route's contract, declared once beside the handler's area (lib/api/contracts/<area>.ts):
@@ -8,19 +9,31 @@ import type { z } from "zod";
  * of the integration tests are all generated from these objects.
  */
 
-/** The refusals a route may answer, each with the one error body `{ error, issues? }`. */
-export const ERROR_STATUSES = [400, 401, 403, 404, 409, 429] as const;
+/**
+ * The refusals a route may answer, each with the one error body `{ error, issues? }` unless the
+ * contract gives the status a body of its own (a CSV import's 422 lists its rows' errors).
+ */
+export const ERROR_STATUSES = [400, 401, 403, 404, 409, 413, 415, 422, 429] as const;
 export type ErrorStatus = (typeof ERROR_STATUSES)[number];
+
+/** When a route gives a refusal: a sentence (the body is the error body), or the sentence and the body's own schema. */
+export type RefusalContract = string | { description: string; json: z.ZodType };
 
 export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
 
-/** Who may call a route: anyone (rate-limited per client), or a signed-in member of the shop. */
-export type RouteAccess = "public" | "member";
+/**
+ * Who may call a route: anyone (rate-limited per client); anyone, with a member's session seeing
+ * more (`open`); or a signed-in member of the shop (or a shop API key, when the contract names
+ * the key's scope).
+ */
+export type RouteAccess = "public" | "open" | "member";
 
 /** The reference page's sections, in their order. */
 export const API_TAGS = [
   { name: "Engine", description: "Series/parallel networks: evaluation, one-cell failures, tolerance yield. Open to anyone, no shop." },
   { name: "Arrangements", description: "Buildable, priced arrangements from a shop's own catalog for a requirement." },
+  { name: "Catalog", description: "A shop's cells: one at a time, as CSV (export, template, import with a dry run), and each cell's datasheet." },
+  { name: "Pricing", description: "A shop's pricing rules: the set in force, and a new version with the reason it changes." },
   { name: "Quotes", description: "A shop's quotes: the list and each quote's PDF." },
   { name: "Orders", description: "Paying for an accepted quote, and the orders it makes: their stages, history, traveler and test certificate." },
   { name: "Requests", description: "Drawings and specifications a customer attaches to a request." },
@@ -37,6 +50,8 @@ export interface ApiExample {
   query?: Record<string, string>;
   /** a JSON body */
   json?: unknown;
+  /** a text body (sent as the first content type the contract's `body.text` lists, e.g. text/csv) */
+  text?: string;
   /** multipart fields: a value starting with "@" is a file to upload, as curl reads it */
   form?: Record<string, string>;
   /** where curl writes a file answer */
@@ -45,9 +60,11 @@ export interface ApiExample {
   as?: "manager" | "customer";
 }
 
-/** What a route answers when it succeeds: JSON shaped by a schema, or a file of the given types. */
+/** What a route answers when it succeeds: JSON shaped by a schema, a file of the given types, or nothing (204). */
 type Success<S extends z.ZodType> =
-  { status: 200 | 201; description: string; json: S; file?: never } | { status: 200; description: string; file: readonly string[]; json?: never };
+  | { status: 200 | 201; description: string; json: S; file?: never }
+  | { status: 200; description: string; file: readonly string[]; json?: never }
+  | { status: 204; description: string; json?: never; file?: never };
 
 export interface RouteContract<S extends z.ZodType = z.ZodType> {
   method: HttpMethod;
@@ -59,13 +76,18 @@ export interface RouteContract<S extends z.ZodType = z.ZodType> {
   /** Markdown: what it does, its bounds, who may call it */
   description: string;
   access: RouteAccess;
+  /** the scope a shop API key (`Authorization: Bearer …`) needs for this route; absent: no key may call it */
+  apiKey?: ApiKeyScope;
   params?: z.ZodObject;
   query?: z.ZodObject;
-  /** a JSON body, or a multipart form (file fields are `z.file()`) */
-  body?: { json: z.ZodType; multipart?: never } | { multipart: z.ZodObject; json?: never };
+  /** a JSON body, a multipart form (file fields are `z.file()`), or text of the listed content types (e.g. text/csv) */
+  body?:
+    | { json: z.ZodType; multipart?: never; text?: never }
+    | { multipart: z.ZodObject; json?: never; text?: never }
+    | { text: readonly string[]; json?: never; multipart?: never };
   ok: Success<S>;
   /** every refusal the route can give, with when it gives it */
-  errors: Partial<Record<ErrorStatus, string>>;
+  errors: Partial<Record<ErrorStatus, RefusalContract>>;
   examples?: readonly ApiExample[];
 }
 

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { createDocument, type ZodOpenApiOperationObject, type ZodOpenApiPathsObject, type ZodOpenApiResponsesObject } from "zod-openapi";
-import { API_TAGS, type ApiExample, type RouteContract } from "./contract";
+import { API_KEY_SCOPE_LABELS, API_KEY_SCOPES } from "@/lib/auth/api-key-scopes";
+import { API_TAGS, type ApiExample, type RefusalContract, type RouteContract } from "./contract";
 import { CONTRACTS } from "./contracts";
 import { EXAMPLE_SHOP } from "./contracts/shared";
 import { apiErrorSchema } from "./errors";
@@ -26,8 +27,10 @@ function exampleUrl(origin: string, contract: RouteContract, example: ApiExample
 /** An example as one curl command (the reference page shows it; the browser tests run it). */
 export function curlCommand(origin: string, contract: RouteContract, example: ApiExample): string {
   const parts = [`curl -s${contract.method !== "GET" ? ` -X ${contract.method}` : ""} ${shellQuote(exampleUrl(origin, contract, example))}`];
-  if (contract.access === "member") parts.push("-b cookies.txt");
+  if (contract.access !== "public") parts.push("-b cookies.txt");
   if (example.json !== undefined) parts.push("-H 'content-type: application/json'", `-d ${shellQuote(JSON.stringify(example.json))}`);
+  if (example.text !== undefined)
+    parts.push(`-H ${shellQuote(`content-type: ${contract.body?.text?.[0] ?? "text/plain"}`)}`, `--data-binary ${shellQuote(example.text)}`);
   for (const [name, value] of Object.entries(example.form ?? {})) parts.push(`-F ${shellQuote(`${name}=${value}`)}`);
   if (example.output) parts.push(`-o ${shellQuote(example.output)}`);
   return parts.join(" \\\n  ");
@@ -55,15 +58,44 @@ function overview(origin: string): string {
     signInCommand(origin),
     "```",
     "",
+    `**API keys.** A shop's own systems can instead send a key the shop's manager creates on the desk (API keys), shown once: \`Authorization: Bearer <key>\`. A key belongs to one shop and carries scopes (${API_KEY_SCOPES.map((s) => `\`${s}\``).join(", ")}); each route below that takes a key names the scope it needs, and the others do not take one. An unknown or revoked key is a 401, a key without the scope a 403, and each key has its own rate limit (429 with \`Retry-After\`). Every call with a key is in the shop's audit log.`,
+    "",
+    "```sh",
+    `curl -s ${shellQuote(`${origin}/api/v1/shops/${EXAMPLE_SHOP}/cells`)} \\\n  -H "authorization: Bearer $FARADSMITH_API_KEY"`,
+    "```",
+    "",
     "**Outbound webhooks.** A shop's manager registers endpoints on the desk (Webhooks) and picks the events each hears of; every delivery is a signed POST described under Webhooks below, and how to check the signature is in the Webhooks section at the foot of this page.",
   ].join("\n");
 }
 
 function description(contract: RouteContract, origin: string): string {
   const lines = [contract.description];
-  if (contract.access === "member") lines.push("", "Needs a member's session (see Signing in).");
+  if (contract.access === "member")
+    lines.push(
+      "",
+      contract.apiKey
+        ? `Needs a member's session (see Signing in), or a shop API key with the scope \`${contract.apiKey}\` (${API_KEY_SCOPE_LABELS[contract.apiKey].toLowerCase()}).`
+        : "Needs a member's session (see Signing in); an API key cannot call it.",
+    );
+  if (contract.access === "open") lines.push("", "Open to anyone; a member's session, when sent, may see more (see Signing in).");
   for (const example of contract.examples ?? []) lines.push("", `**Example: ${example.title}**`, "", "```sh", curlCommand(origin, contract, example), "```");
   return lines.join("\n");
+}
+
+/** The refusals a key adds to a route that takes one (a bad key, a missing scope, the key's own rate limit). */
+function withKeyRefusals(contract: RouteContract): [string, RefusalContract][] {
+  const errors: Partial<Record<string, RefusalContract>> = { ...contract.errors };
+  if (contract.apiKey) {
+    const add = (status: string, sentence: string) => {
+      const was = errors[status];
+      errors[status] =
+        was === undefined ? sentence : typeof was === "string" ? `${was} ${sentence}` : { ...was, description: `${was.description} ${sentence}` };
+    };
+    add("401", "With a key: the key is unknown or has been revoked.");
+    add("403", `With a key: the key does not hold \`${contract.apiKey}\`.`);
+    add("429", "With a key: too many calls with this key this minute; Retry-After says when to try again.");
+  }
+  return Object.entries(errors).filter((e): e is [string, RefusalContract] => e[1] !== undefined);
 }
 
 function responses(contract: RouteContract): ZodOpenApiResponsesObject {
@@ -71,18 +103,27 @@ function responses(contract: RouteContract): ZodOpenApiResponsesObject {
   const ok = contract.ok;
   out[String(ok.status) as "200"] = ok.json
     ? { description: ok.description, content: { "application/json": { schema: ok.json } } }
-    : {
-        description: ok.description,
-        content: Object.fromEntries((ok.file ?? []).map((type) => [type, { schema: { type: "string", contentMediaType: type } }])),
-      };
-  for (const [status, when] of Object.entries(contract.errors)) {
+    : ok.file
+      ? {
+          description: ok.description,
+          content: Object.fromEntries(ok.file.map((type) => [type, { schema: { type: "string", contentMediaType: type } }])),
+        }
+      : { description: ok.description };
+  for (const [status, refusal] of withKeyRefusals(contract)) {
     out[status as "400"] = {
-      description: when,
-      content: { "application/json": { schema: apiErrorSchema } },
+      description: typeof refusal === "string" ? refusal : refusal.description,
+      content: { "application/json": { schema: typeof refusal === "string" ? apiErrorSchema : refusal.json } },
       ...(status === "429" ? { headers: z.object({ "retry-after": z.string().meta({ description: "seconds to wait" }) }) } : {}),
     };
   }
   return out;
+}
+
+/** Who may call: nobody signed in, a session optionally, or a session (or a key with its scope). */
+function security(contract: RouteContract): Record<string, string[]>[] {
+  if (contract.access === "public") return [];
+  if (contract.access === "open") return [{}, { session: [] }];
+  return [{ session: [] }, ...(contract.apiKey ? [{ apiKey: [contract.apiKey] }] : [])];
 }
 
 function operation(contract: RouteContract, origin: string): ZodOpenApiOperationObject {
@@ -92,7 +133,7 @@ function operation(contract: RouteContract, origin: string): ZodOpenApiOperation
     tags: [contract.tag],
     summary: contract.summary,
     description: description(contract, origin),
-    security: contract.access === "member" ? [{ session: [] }] : [],
+    security: security(contract),
     ...(contract.params || contract.query
       ? { requestParams: { ...(contract.params ? { path: contract.params } : {}), ...(contract.query ? { query: contract.query } : {}) } }
       : {}),
@@ -105,7 +146,14 @@ function operation(contract: RouteContract, origin: string): ZodOpenApiOperation
         }
       : contract.body?.multipart
         ? { requestBody: { required: true, content: { "multipart/form-data": { schema: contract.body.multipart } } } }
-        : {}),
+        : contract.body?.text
+          ? {
+              requestBody: {
+                required: true,
+                content: Object.fromEntries(contract.body.text.map((type) => [type, { schema: { type: "string", contentMediaType: type } }])),
+              },
+            }
+          : {}),
     responses: responses(contract),
     "x-codeSamples": (contract.examples ?? []).map((example) => ({ lang: "curl", label: example.title, source: curlCommand(origin, contract, example) })),
   };
@@ -158,6 +206,11 @@ export function buildOpenApiDocument({ origin = DEFAULT_API_ORIGIN }: { origin?:
           in: "cookie",
           name: SESSION_COOKIE,
           description: `A member's session, from POST /api/auth/sign-in/email (shop ${EXAMPLE_SHOP}'s demo manager in the examples).`,
+        },
+        apiKey: {
+          type: "http",
+          scheme: "bearer",
+          description: `A shop API key its manager created on the desk, sent as \`Authorization: Bearer <key>\`. The scopes a route asks for are the key's scopes: ${API_KEY_SCOPES.map((s) => `\`${s}\` (${API_KEY_SCOPE_LABELS[s].toLowerCase()})`).join(", ")}.`,
         },
       },
     },

@@ -124,7 +124,7 @@ export interface paths {
      * The quotes a member may see
      * @description A page of quotes: a customer's own, or all of the shop's for its staff. Searches the number and the customer; filters by status; sorts by any column. A value the list does not take is a 400 naming it.
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `quotes:read` (read quotes).
      *
      *     **Example: Issued quotes, largest total first**
      *
@@ -153,7 +153,7 @@ export interface paths {
      * A quote's current revision as a PDF
      * @description The PDF the customer receives, for the customer the quote is for and for the shop's staff. Another customer's quote, or a number the shop does not have, is not found.
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `quotes:read` (read quotes).
      */
     get: operations["getQuotePdf"];
     put?: never;
@@ -177,7 +177,7 @@ export interface paths {
      * Attach a drawing or specification
      * @description One file in a multipart field named `file`: PDF, PNG, JPEG or DXF, judged by its content (not its name), at most 10 MB. For the shop's customers; the answer's `id` goes in a request's attachments.
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in); an API key cannot call it.
      *
      *     **Example: Attach drawing.pdf (signed in as a customer)**
      *
@@ -205,7 +205,7 @@ export interface paths {
      * An attached file
      * @description The file, to the customer who uploaded it and to the shop's staff; anyone else in the shop gets 404, so ids cannot be probed.
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `quotes:read` (read quotes).
      */
     get: operations["downloadAttachment"];
     put?: never;
@@ -227,7 +227,7 @@ export interface paths {
      * The shop's members
      * @description A page of the shop's members with their roles, for its managers. Searches names and e-mail addresses; filters by role.
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in); an API key cannot call it.
      *
      *     **Example: Estimators**
      *
@@ -238,6 +238,201 @@ export interface paths {
      */
     get: operations["listMembers"];
     put?: never;
+    post?: never;
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "/api/v1/shops/{shop}/cells": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /**
+     * The shop's cells
+     * @description A page of the shop's cells, offered or retired, with the fields named as in the arrangements answer's `cell` (SI units, tolerances as fractions) and what only the shop sees: `unitCost` as a decimal string in the shop's currency, `stock`, `leadTimeDays`, `active`, the `version` a change may name, and the datasheet's address. Searches SKU, maker and series; filters by technology; sorts by any column. For the shop's staff.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:read` (read the catalog and the pricing rules).
+     *
+     *     **Example: Supercapacitor (EDLC) cells, cheapest first**
+     *
+     *     ```sh
+     *     curl -s 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/cells?technology=edlc&sort=cost' \
+     *       -b cookies.txt
+     *     ```
+     */
+    get: operations["listCells"];
+    put?: never;
+    /**
+     * Add a cell
+     * @description A whole cell: its figures in SI units (a cylinder's `diameter`, a box's `length` and `width`), `unitCost` in the shop's currency, and optionally `stock`, `leadTimeDays` and `active` (offered unless it says otherwise). Every field is read by the same rules as the desk's form and the CSV import. For the shop's staff who keep the catalog.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:write` (change the catalog and the pricing rules (import, edit)).
+     */
+    post: operations["createCell"];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "/api/v1/shops/{shop}/cells/{sku}": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /**
+     * One cell
+     * @description One cell of the shop, offered or retired, with the `version` to name in a change. For the shop's staff.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:read` (read the catalog and the pricing rules).
+     *
+     *     **Example: One cell**
+     *
+     *     ```sh
+     *     curl -s 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/cells/QFS-1200R27' \
+     *       -b cookies.txt
+     *     ```
+     */
+    get: operations["getCell"];
+    put?: never;
+    post?: never;
+    delete?: never;
+    options?: never;
+    head?: never;
+    /**
+     * Change a cell
+     * @description Only the fields to change, in SI units. With `version` (from a GET), a cell someone changed since is refused with 409 and nothing is written; without it the change applies to the cell as stored (the last write wins). A new unit cost goes into the cell's cost history; issued quotes keep their prices. Retire a cell with `active: false`. For the shop's staff who keep the catalog.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:write` (change the catalog and the pricing rules (import, edit)).
+     *
+     *     **Example: Stock and lead time after a stock count**
+     *
+     *     ```sh
+     *     curl -s -X PATCH 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/cells/QFS-2000R27' \
+     *       -b cookies.txt \
+     *       -H 'content-type: application/json' \
+     *       -d '{"stock":520,"leadTimeDays":2}'
+     *     ```
+     */
+    patch: operations["updateCell"];
+    trace?: never;
+  };
+  "/api/v1/shops/{shop}/cells/{sku}/datasheet": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /**
+     * A cell's datasheet (PDF)
+     * @description The datasheet of a cell the shop offers, to anyone (it is linked from every option built from the cell). Once the cell is retired, only to the shop's staff and to the customers it was quoted to; anyone else gets 404, as for a cell without one.
+     *
+     *     Open to anyone; a member's session, when sent, may see more (see Signing in).
+     */
+    get: operations["getCellDatasheet"];
+    put?: never;
+    /**
+     * Set a cell's datasheet
+     * @description One PDF in a multipart field named `file`, judged by its content (not its name), at most 10 MB. It replaces the one the cell had. For the shop's staff who keep the catalog.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:write` (change the catalog and the pricing rules (import, edit)).
+     */
+    post: operations["uploadCellDatasheet"];
+    /**
+     * Remove a cell's datasheet
+     * @description The cell keeps no datasheet; options and quotes built from it stop linking one. For the shop's staff who keep the catalog.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:write` (change the catalog and the pricing rules (import, edit)).
+     */
+    delete: operations["removeCellDatasheet"];
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "/api/v1/shops/{shop}/cells.csv": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /**
+     * The catalog as CSV, or the import template
+     * @description Every cell as CSV: one column per field of the cells API (the same names), quantities as SI numbers, `unitCost` as a decimal in the shop's currency, `active` as true or false. `template=1` gives the header and one example row instead. Importing the file unchanged reports no changes. For the shop's staff.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:read` (read the catalog and the pricing rules).
+     *
+     *     **Example: The import template**
+     *
+     *     ```sh
+     *     curl -s 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/cells.csv?template=1' \
+     *       -b cookies.txt \
+     *       -o 'cells-template.csv'
+     *     ```
+     */
+    get: operations["exportCellsCsv"];
+    put?: never;
+    /**
+     * Import cells from CSV
+     * @description The CSV as the body (`content-type: text/csv`, at most 2 MB), in the columns of the export; quantities as SI numbers or engineering strings (`3000 F`, `0.29 mΩ`). A row with a known SKU changes that cell, one with a new SKU adds it. `dryRun=1` only says what the import would do. Without it, the import is applied in one transaction, and when any row has an error nothing at all is applied (422) unless `applyValid=1` asks for the valid rows alone. The answer counts the cells created, updated and unchanged and lists each error by row (the header is row 1), column and reason. For the shop's staff who keep the catalog.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:write` (change the catalog and the pricing rules (import, edit)).
+     *
+     *     **Example: What importing the template's example row would do**
+     *
+     *     ```sh
+     *     curl -s -X POST 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/cells.csv?dryRun=1' \
+     *       -b cookies.txt \
+     *       -H 'content-type: text/csv' \
+     *       --data-binary 'sku,manufacturer,series,technology,capacitance,toleranceMinus,tolerancePlus,ratedVoltage,surgeVoltage,esr,leakageCurrent,continuousCurrent,peakCurrent,mass,shape,diameter,length,width,height,unitCost,stock,leadTimeDays,active
+     *     NEW-CELL-01,Quillfen,Fenwall,edlc,1200 F,10 %,20 %,2.7 V,2.85 V,0.58 mΩ,2.7 mA,80 A,955 A,272 g,cylinder,60 mm,,,74 mm,23.80,240,3,true
+     *     '
+     *     ```
+     */
+    post: operations["importCellsCsv"];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "/api/v1/shops/{shop}/pricing-rules": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /**
+     * The pricing rules in force
+     * @description The shop's whole rule set (labour rate and minutes, overhead and margin, quantity breaks, enclosures, tax, currency, quote validity, deposit), money as decimal strings and percentages as numbers, with the `version` it is (0: never changed since the shop opened), why it was saved and when. For the shop's staff.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:read` (read the catalog and the pricing rules).
+     *
+     *     **Example: The rules in force**
+     *
+     *     ```sh
+     *     curl -s 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/pricing-rules' \
+     *       -b cookies.txt
+     *     ```
+     */
+    get: operations["getPricingRules"];
+    /**
+     * Save a new version of the pricing rules
+     * @description The whole rule set and the `reason` it changes, saved as a new version with who and when (the desk shows each version's changes field by field). New quotes price by it; issued quotes keep their prices. With `version` (from a GET), rules someone saved since are refused with 409 and nothing is written. For the shop's managers.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `catalog:write` (change the catalog and the pricing rules (import, edit)).
+     */
+    put: operations["putPricingRules"];
     post?: never;
     delete?: never;
     options?: never;
@@ -256,7 +451,7 @@ export interface paths {
      * Where a payment stands
      * @description Whether one checkout of the quote is still open, paid or expired, and its order's number once the payment service has confirmed it: what the payment page's return address polls. The quote's customer and the shop's staff; anyone else gets 404.
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `quotes:read` (read quotes).
      */
     get: operations["getCheckoutState"];
     put?: never;
@@ -264,7 +459,7 @@ export interface paths {
      * Pay for an accepted quote
      * @description For the quote's own customer: a hosted payment page (Stripe Checkout) for the accepted revision — the whole amount, the shop's deposit, or the balance after a deposit. While a page for the same quote is still open, the same one is given again, so two tabs pay once. Another customer's quote is not found; a superseded, expired, unaccepted or already paid quote is a 409 saying which.
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in); an API key cannot call it.
      */
     post: operations["startCheckout"];
     delete?: never;
@@ -284,7 +479,7 @@ export interface paths {
      * Orders and their history
      * @description A page of orders with what was paid and refunded, the due date and each status change: every order of the shop for its staff, a customer's own for a customer. Searches numbers and customers; filters by status (`open`: still on the floor) and timing (`late`).
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `orders:read` (read orders).
      *
      *     **Example: Late orders still on the floor**
      *
@@ -313,7 +508,7 @@ export interface paths {
      * An order's build traveler (PDF)
      * @description The shop floor's document for one order: the frozen arrangement, numbered cell positions, balancing resistors and bleeder, assembly notes, test steps with their limits, and the safety block. For the shop's staff.
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `orders:read` (read orders).
      */
     get: operations["getOrderTraveler"];
     put?: never;
@@ -335,7 +530,7 @@ export interface paths {
      * An order's test certificate (PDF)
      * @description What each built bank measured against the limits derived from the frozen specification, once every bank has passed. For the order's customer and the shop's staff; anyone else gets 404.
      *
-     *     Needs a member's session (see Signing in).
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `orders:read` (read orders).
      */
     get: operations["getOrderCertificate"];
     put?: never;
@@ -1336,7 +1531,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Not signed in (no session cookie, or it has expired). */
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
       401: {
         headers: {
           [name: string]: unknown;
@@ -1345,7 +1540,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Signed in, but not a member of this shop, or the role may not do this. */
+      /** @description Signed in, but not a member of this shop, or the role may not do this. With a key: the key does not hold `quotes:read`. */
       403: {
         headers: {
           [name: string]: unknown;
@@ -1357,6 +1552,17 @@ export interface operations {
       /** @description No shop has this address. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
           [name: string]: unknown;
         };
         content: {
@@ -1388,7 +1594,7 @@ export interface operations {
           "application/pdf": string;
         };
       };
-      /** @description Not signed in (no session cookie, or it has expired). */
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
       401: {
         headers: {
           [name: string]: unknown;
@@ -1397,7 +1603,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Signed in, but not a member of this shop, or the role may not do this. */
+      /** @description Signed in, but not a member of this shop, or the role may not do this. With a key: the key does not hold `quotes:read`. */
       403: {
         headers: {
           [name: string]: unknown;
@@ -1409,6 +1615,17 @@ export interface operations {
       /** @description No such shop, or no such quote this member may see. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
           [name: string]: unknown;
         };
         content: {
@@ -1512,7 +1729,7 @@ export interface operations {
           "image/vnd.dxf": string;
         };
       };
-      /** @description Not signed in (no session cookie, or it has expired). */
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
       401: {
         headers: {
           [name: string]: unknown;
@@ -1521,7 +1738,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Signed in, but not a member of this shop, or the role may not do this. */
+      /** @description Signed in, but not a member of this shop, or the role may not do this. With a key: the key does not hold `quotes:read`. */
       403: {
         headers: {
           [name: string]: unknown;
@@ -1533,6 +1750,17 @@ export interface operations {
       /** @description No such shop, or no such file this member may see. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
           [name: string]: unknown;
         };
         content: {
@@ -1613,6 +1841,1191 @@ export interface operations {
       };
     };
   };
+  listCells: {
+    parameters: {
+      query?: {
+        /** @description search text */
+        q?: string;
+        /** @description default all */
+        technology?: "all" | "edlc" | "hybrid" | "electrolytic" | "film";
+        /** @description default sku */
+        sort?: "sku" | "capacitance" | "voltage" | "esr" | "cost" | "stock" | "lead";
+        /** @description default: the column's useful direction */
+        dir?: "asc" | "desc";
+        /** @description default 1; past the last page answers the last page */
+        page?: number;
+        /** @description rows per page, default 25 */
+        size?: number;
+      };
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description A page of cells. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            rows: {
+              sku: string;
+              manufacturer: string;
+              series: string;
+              /** @enum {string} */
+              technology: "edlc" | "hybrid" | "electrolytic" | "film";
+              capacitance: number;
+              toleranceMinus: number;
+              tolerancePlus: number;
+              ratedVoltage: number;
+              surgeVoltage: number;
+              esr: number;
+              leakageCurrent: number;
+              continuousCurrent: number;
+              peakCurrent: number;
+              mass: number;
+              volume: number;
+              /** @enum {string} */
+              shape: "cylinder" | "box";
+              diameter: number | null;
+              length: number | null;
+              width: number | null;
+              height: number;
+              unitCost: {
+                amount: string;
+                currency: string;
+              };
+              stock: number;
+              leadTimeDays: number;
+              active: boolean;
+              version: number;
+              datasheet: string | null;
+              updatedAt: string;
+            }[];
+            total: number;
+            page: number;
+            size: number;
+          };
+        };
+      };
+      /** @description A query value the list does not take: `issues` names it. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. With a key: the key does not hold `catalog:read`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  createCell: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        "application/json": {
+          /** @description The shop's own part number; unique in the catalog. */
+          sku: string;
+          /** @description Who makes the cell; shown on quotes. */
+          manufacturer: string;
+          /** @description The maker's product family; shown on quotes. */
+          series: string;
+          /**
+           * @description edlc, hybrid, electrolytic or film: sets the engine's limits and the cautions.
+           * @enum {string}
+           */
+          technology: "edlc" | "hybrid" | "electrolytic" | "film";
+          /** @description Nominal capacitance of one cell. */
+          capacitance: number;
+          /** @description How far below nominal a cell may be (10 % or 0.1); the engine designs with the low end. */
+          toleranceMinus: number;
+          /** @description How far above nominal a cell may be (20 % or 0.2); sets the worst-case discharge time. */
+          tolerancePlus: number;
+          /** @description The highest continuous voltage across one cell. */
+          ratedVoltage: number;
+          /** @description The most a cell may briefly see while charging; at least the rated voltage. */
+          surgeVoltage: number;
+          /** @description Equivalent series resistance of a new cell; sets voltage drop and heating. */
+          esr: number;
+          /** @description Self-discharge current at rated voltage; sizes the balancing resistors. */
+          leakageCurrent: number;
+          /** @description The current one cell carries continuously. */
+          continuousCurrent: number;
+          /** @description The most one cell delivers for a short pulse; at least the continuous current. */
+          peakCurrent: number;
+          /** @description Mass of one cell. */
+          mass: number;
+          /**
+           * @description cylinder (give the diameter) or box (give length and width).
+           * @enum {string}
+           */
+          shape: "cylinder" | "box";
+          /** @description A cylinder's diameter; cylinders pack on a square grid. */
+          diameter?: number | null;
+          /** @description A box cell's length. */
+          length?: number | null;
+          /** @description A box cell's width. */
+          width?: number | null;
+          /** @description Height of one cell, terminals included. */
+          height: number;
+          /** @description What one cell costs the shop, in the shop's currency (up to 4 decimals); never shown to customers. */
+          unitCost: {
+            amount: string;
+            currency: string;
+          };
+          /**
+           * @description Cells on the shelf.
+           * @default 0
+           */
+          stock?: number;
+          /**
+           * @description Days to get more cells; a bank's lead time is its slowest part's.
+           * @default 0
+           */
+          leadTimeDays?: number;
+          /** @default true */
+          active?: boolean;
+        };
+      };
+    };
+    responses: {
+      /** @description The cell as stored. */
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            sku: string;
+            manufacturer: string;
+            series: string;
+            /** @enum {string} */
+            technology: "edlc" | "hybrid" | "electrolytic" | "film";
+            capacitance: number;
+            toleranceMinus: number;
+            tolerancePlus: number;
+            ratedVoltage: number;
+            surgeVoltage: number;
+            esr: number;
+            leakageCurrent: number;
+            continuousCurrent: number;
+            peakCurrent: number;
+            mass: number;
+            volume: number;
+            /** @enum {string} */
+            shape: "cylinder" | "box";
+            diameter: number | null;
+            length: number | null;
+            width: number | null;
+            height: number;
+            unitCost: {
+              amount: string;
+              currency: string;
+            };
+            stock: number;
+            leadTimeDays: number;
+            active: boolean;
+            version: number;
+            datasheet: string | null;
+            updatedAt: string;
+          };
+        };
+      };
+      /** @description A field is wrong, out of its bounds or missing, or `unitCost` is not in the shop's currency: `issues` names it. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. A write sent by a page of another site (Origin or Sec-Fetch-Site names another site) is refused here too. With a key: the key does not hold `catalog:write`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description The shop already has a cell with this SKU. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  getCell: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+        /** @description the cell's SKU (part number) */
+        sku: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description The cell. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            sku: string;
+            manufacturer: string;
+            series: string;
+            /** @enum {string} */
+            technology: "edlc" | "hybrid" | "electrolytic" | "film";
+            capacitance: number;
+            toleranceMinus: number;
+            tolerancePlus: number;
+            ratedVoltage: number;
+            surgeVoltage: number;
+            esr: number;
+            leakageCurrent: number;
+            continuousCurrent: number;
+            peakCurrent: number;
+            mass: number;
+            volume: number;
+            /** @enum {string} */
+            shape: "cylinder" | "box";
+            diameter: number | null;
+            length: number | null;
+            width: number | null;
+            height: number;
+            unitCost: {
+              amount: string;
+              currency: string;
+            };
+            stock: number;
+            leadTimeDays: number;
+            active: boolean;
+            version: number;
+            datasheet: string | null;
+            updatedAt: string;
+          };
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. With a key: the key does not hold `catalog:read`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). Or no cell has this SKU. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  updateCell: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+        /** @description the cell's SKU (part number) */
+        sku: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        /**
+         * @example {
+         *       "stock": 520,
+         *       "leadTimeDays": 2
+         *     }
+         */
+        "application/json": {
+          /** @description The shop's own part number; unique in the catalog. */
+          sku?: string;
+          /** @description Who makes the cell; shown on quotes. */
+          manufacturer?: string;
+          /** @description The maker's product family; shown on quotes. */
+          series?: string;
+          /**
+           * @description edlc, hybrid, electrolytic or film: sets the engine's limits and the cautions.
+           * @enum {string}
+           */
+          technology?: "edlc" | "hybrid" | "electrolytic" | "film";
+          /** @description Nominal capacitance of one cell. */
+          capacitance?: number;
+          /** @description How far below nominal a cell may be (10 % or 0.1); the engine designs with the low end. */
+          toleranceMinus?: number;
+          /** @description How far above nominal a cell may be (20 % or 0.2); sets the worst-case discharge time. */
+          tolerancePlus?: number;
+          /** @description The highest continuous voltage across one cell. */
+          ratedVoltage?: number;
+          /** @description The most a cell may briefly see while charging; at least the rated voltage. */
+          surgeVoltage?: number;
+          /** @description Equivalent series resistance of a new cell; sets voltage drop and heating. */
+          esr?: number;
+          /** @description Self-discharge current at rated voltage; sizes the balancing resistors. */
+          leakageCurrent?: number;
+          /** @description The current one cell carries continuously. */
+          continuousCurrent?: number;
+          /** @description The most one cell delivers for a short pulse; at least the continuous current. */
+          peakCurrent?: number;
+          /** @description Mass of one cell. */
+          mass?: number;
+          /**
+           * @description cylinder (give the diameter) or box (give length and width).
+           * @enum {string}
+           */
+          shape?: "cylinder" | "box";
+          /** @description A cylinder's diameter; cylinders pack on a square grid. */
+          diameter?: number | null;
+          /** @description A box cell's length. */
+          length?: number | null;
+          /** @description A box cell's width. */
+          width?: number | null;
+          /** @description Height of one cell, terminals included. */
+          height?: number;
+          /** @description What one cell costs the shop, in the shop's currency (up to 4 decimals); never shown to customers. */
+          unitCost?: {
+            amount: string;
+            currency: string;
+          };
+          /** @description Cells on the shelf. */
+          stock?: number;
+          /** @description Days to get more cells; a bank's lead time is its slowest part's. */
+          leadTimeDays?: number;
+          /** @description true: the engine builds from it; false: retired, kept for old quotes but never offered. */
+          active?: boolean;
+          version?: number;
+        };
+      };
+    };
+    responses: {
+      /** @description The cell as stored now. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            sku: string;
+            manufacturer: string;
+            series: string;
+            /** @enum {string} */
+            technology: "edlc" | "hybrid" | "electrolytic" | "film";
+            capacitance: number;
+            toleranceMinus: number;
+            tolerancePlus: number;
+            ratedVoltage: number;
+            surgeVoltage: number;
+            esr: number;
+            leakageCurrent: number;
+            continuousCurrent: number;
+            peakCurrent: number;
+            mass: number;
+            volume: number;
+            /** @enum {string} */
+            shape: "cylinder" | "box";
+            diameter: number | null;
+            length: number | null;
+            width: number | null;
+            height: number;
+            unitCost: {
+              amount: string;
+              currency: string;
+            };
+            stock: number;
+            leadTimeDays: number;
+            active: boolean;
+            version: number;
+            datasheet: string | null;
+            updatedAt: string;
+          };
+        };
+      };
+      /** @description A field is wrong or out of its bounds, or `unitCost` is not in the shop's currency: `issues` names it. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. A write sent by a page of another site (Origin or Sec-Fetch-Site names another site) is refused here too. With a key: the key does not hold `catalog:write`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). Or no cell has this SKU. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description The cell changed since the `version` sent: fetch it again and reapply the change. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  getCellDatasheet: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+        /** @description the cell's SKU (part number) */
+        sku: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description The PDF (Content-Disposition names the file). */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/pdf": string;
+        };
+      };
+      /** @description No such shop, no such cell, no datasheet for it, or a retired cell's sheet this caller may not see. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  uploadCellDatasheet: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+        /** @description the cell's SKU (part number) */
+        sku: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        "multipart/form-data": {
+          /**
+           * Format: binary
+           * @description a PDF, judged by content; at most 10 MB
+           */
+          file: Blob;
+        };
+      };
+    };
+    responses: {
+      /** @description The stored datasheet. */
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            sku: string;
+            fileName: string;
+          };
+        };
+      };
+      /** @description Not multipart, no file, too large, or not a PDF: `issues` names `file`. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. A write sent by a page of another site (Origin or Sec-Fetch-Site names another site) is refused here too. With a key: the key does not hold `catalog:write`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). Or no cell has this SKU. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  removeCellDatasheet: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+        /** @description the cell's SKU (part number) */
+        sku: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description Removed (or there was none). */
+      204: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content?: never;
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. A write sent by a page of another site (Origin or Sec-Fetch-Site names another site) is refused here too. With a key: the key does not hold `catalog:write`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). Or no cell has this SKU. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  exportCellsCsv: {
+    parameters: {
+      query?: {
+        /** @description `1`: the header and one example row, not the catalog */
+        template?: "0" | "1" | "true" | "false";
+      };
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description The CSV (Content-Disposition names the file). */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "text/csv": string;
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. With a key: the key does not hold `catalog:read`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  importCellsCsv: {
+    parameters: {
+      query?: {
+        /** @description `1`: say what the import would do, write nothing */
+        dryRun?: "0" | "1" | "true" | "false";
+        /** @description `1`: apply the valid rows even when others have errors */
+        applyValid?: "0" | "1" | "true" | "false";
+      };
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        "text/csv": string;
+        "text/plain": string;
+      };
+    };
+    responses: {
+      /** @description What the import did, or would do with `dryRun=1`. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            created: number;
+            updated: number;
+            unchanged: number;
+            errors: {
+              row: number;
+              column: string;
+              message: string;
+            }[];
+            applied: boolean;
+            dryRun: boolean;
+          };
+        };
+      };
+      /** @description The CSV contains a NUL character. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. A write sent by a page of another site (Origin or Sec-Fetch-Site names another site) is refused here too. With a key: the key does not hold `catalog:write`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description The body is larger than 2 MB. */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description The body is not sent as text/csv. */
+      415: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Rows have errors and `applyValid` was not given: nothing was applied; `errors` lists each row's problem. */
+      422: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            created: number;
+            updated: number;
+            unchanged: number;
+            errors: {
+              row: number;
+              column: string;
+              message: string;
+            }[];
+            applied: boolean;
+            dryRun: boolean;
+          };
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  getPricingRules: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description The rules in force. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            rules: {
+              currency: string;
+              labourRatePerHour: string;
+              setupMinutes: number;
+              minutesPerCell: number;
+              testMinutes: number;
+              overheadPct: string;
+              marginPct: string;
+              taxRatePct: string;
+              interconnectCostPerCell: string;
+              balancingBoardCost?: string;
+              balancingResistorCost?: string;
+              bleederCostPerWatt?: string;
+              terminalSetCost: string;
+              enclosures: {
+                name: string;
+                maxVolumeM3: number;
+                cost: string;
+              }[];
+              enclosurePackingFactor: number;
+              quantityBreaks: {
+                minQuantity: number;
+                discountPct: string;
+              }[];
+              quoteValidityDays: number;
+              depositPercent: number;
+            };
+            version: number;
+            reason: string | null;
+            savedAt: string | null;
+          };
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. With a key: the key does not hold `catalog:read`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  putPricingRules: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        "application/json": {
+          rules: {
+            currency: string;
+            labourRatePerHour: string;
+            setupMinutes: number;
+            minutesPerCell: number;
+            testMinutes: number;
+            overheadPct: string;
+            marginPct: string;
+            taxRatePct: string;
+            interconnectCostPerCell: string;
+            balancingBoardCost?: string;
+            balancingResistorCost?: string;
+            bleederCostPerWatt?: string;
+            terminalSetCost: string;
+            enclosures: {
+              name: string;
+              maxVolumeM3: number;
+              cost: string;
+            }[];
+            enclosurePackingFactor: number;
+            quantityBreaks: {
+              minQuantity: number;
+              discountPct: string;
+            }[];
+            quoteValidityDays: number;
+            depositPercent: number;
+          };
+          reason: string;
+          version?: number;
+        };
+      };
+    };
+    responses: {
+      /** @description The rules in force now. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            rules: {
+              currency: string;
+              labourRatePerHour: string;
+              setupMinutes: number;
+              minutesPerCell: number;
+              testMinutes: number;
+              overheadPct: string;
+              marginPct: string;
+              taxRatePct: string;
+              interconnectCostPerCell: string;
+              balancingBoardCost?: string;
+              balancingResistorCost?: string;
+              bleederCostPerWatt?: string;
+              terminalSetCost: string;
+              enclosures: {
+                name: string;
+                maxVolumeM3: number;
+                cost: string;
+              }[];
+              enclosurePackingFactor: number;
+              quantityBreaks: {
+                minQuantity: number;
+                discountPct: string;
+              }[];
+              quoteValidityDays: number;
+              depositPercent: number;
+            };
+            version: number;
+            reason: string | null;
+            savedAt: string | null;
+          };
+        };
+      };
+      /** @description A rule is wrong or out of its bounds, or the reason is missing: `issues` names each field. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not the shop's staff (a customer), or the role may not do this. A write sent by a page of another site (Origin or Sec-Fetch-Site names another site) is refused here too. With a key: the key does not hold `catalog:write`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or the caller is not one of its members (another shop's staff are told the same). */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description The rules changed since the `version` sent: fetch them again and reapply the change. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
   getCheckoutState: {
     parameters: {
       query: {
@@ -1658,7 +3071,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Not signed in (no session cookie, or it has expired). */
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
       401: {
         headers: {
           [name: string]: unknown;
@@ -1667,7 +3080,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Signed in, but not a member of this shop, or the role may not do this. */
+      /** @description Signed in, but not a member of this shop, or the role may not do this. With a key: the key does not hold `quotes:read`. */
       403: {
         headers: {
           [name: string]: unknown;
@@ -1679,6 +3092,17 @@ export interface operations {
       /** @description No such shop, quote or checkout this member may see. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
           [name: string]: unknown;
         };
         content: {
@@ -1853,7 +3277,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Not signed in (no session cookie, or it has expired). */
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
       401: {
         headers: {
           [name: string]: unknown;
@@ -1862,7 +3286,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Signed in, but not a member of this shop, or the role may not do this. */
+      /** @description Signed in, but not a member of this shop, or the role may not do this. With a key: the key does not hold `orders:read`. */
       403: {
         headers: {
           [name: string]: unknown;
@@ -1874,6 +3298,17 @@ export interface operations {
       /** @description No shop has this address. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
           [name: string]: unknown;
         };
         content: {
@@ -1905,7 +3340,7 @@ export interface operations {
           "application/pdf": string;
         };
       };
-      /** @description Not signed in (no session cookie, or it has expired). */
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
       401: {
         headers: {
           [name: string]: unknown;
@@ -1914,7 +3349,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Signed in, but not a member of this shop, or the role may not do this. */
+      /** @description Signed in, but not a member of this shop, or the role may not do this. With a key: the key does not hold `orders:read`. */
       403: {
         headers: {
           [name: string]: unknown;
@@ -1926,6 +3361,17 @@ export interface operations {
       /** @description No such shop or order. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
           [name: string]: unknown;
         };
         content: {
@@ -1957,7 +3403,7 @@ export interface operations {
           "application/pdf": string;
         };
       };
-      /** @description Not signed in (no session cookie, or it has expired). */
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
       401: {
         headers: {
           [name: string]: unknown;
@@ -1966,7 +3412,7 @@ export interface operations {
           "application/json": components["schemas"]["Error"];
         };
       };
-      /** @description Signed in, but not a member of this shop, or the role may not do this. */
+      /** @description Signed in, but not a member of this shop, or the role may not do this. With a key: the key does not hold `orders:read`. */
       403: {
         headers: {
           [name: string]: unknown;
@@ -1987,6 +3433,17 @@ export interface operations {
       /** @description Not every bank of the order has passed its test yet. */
       409: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
           [name: string]: unknown;
         };
         content: {

@@ -153,9 +153,9 @@ test("a request beyond the shop's auto-quote limits lands on the estimators' lis
   await page.getByRole("button", { name: "Create my account" }).click();
   await expect(page).toHaveURL(new RegExp(`/s/${K}$`));
 
-  // 60 V with 800 F stores ½·C·V² = ½ × 800 × 60² = 1.44 MJ at the requirement and about 2.1 MJ at
-  // the options' rating, beyond the default 2 MJ the shop quotes automatically.
-  await fillRequest(page, { max: "60 V", capacitance: "800 F" });
+  // 60 V with 1200 F stores ½·C·V² = ½ × 1200 × 60² = 2.16 MJ at the requirement already, so every
+  // option's energy at its rating is beyond the default 2 MJ the shop quotes automatically.
+  await fillRequest(page, { max: "60 V", capacitance: "1200 F" });
   await page.getByRole("button", { name: "Show arrangements" }).click();
   await expect(page.getByTestId("options-table")).toBeVisible();
   await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();

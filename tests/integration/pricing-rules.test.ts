@@ -37,7 +37,10 @@ describe("pricing rule versions", () => {
     });
     expect(first).toMatchObject({ ok: true, data: { version: 2 } });
     await actAs(shop.manager.email);
-    const second = await savePricingRules(shop.slug, { values: { ...formFromRules(rules), depositPercent: "30", reason: "Deposits from now on" }, version: 2 });
+    const second = await savePricingRules(shop.slug, {
+      values: { ...formFromRules(rules), depositPercent: "40", reason: "A larger deposit from now on" },
+      version: 2,
+    });
     expect(second).toMatchObject({ ok: true, data: { version: 3 } });
     // a form opened at version 2 cannot overwrite version 3
     const stale = await savePricingRules(shop.slug, { values: { ...formFromRules(rules), reason: "Late" }, version: 2 });
@@ -45,7 +48,7 @@ describe("pricing rule versions", () => {
 
     const history = await listRuleVersions(shop.id, ruleVersionList.defaults);
     expect(history.rows.map((v) => [v.version, v.reason, v.savedByName])).toEqual([
-      [3, "Deposits from now on", shop.manager.name],
+      [3, "A larger deposit from now on", shop.manager.name],
       [2, "Larger fleet orders", shop.estimator.name],
       [1, "The rules in force before changes were recorded", null],
     ]);
@@ -54,9 +57,11 @@ describe("pricing rule versions", () => {
       ["Margin on price", "26 %", "30 %"],
       ["Quantity breaks", "from 5: 3 %; from 10: 6 %; from 25: 9 %; from 50: 12 %", "from 5: 3 %; from 10: 6 %; from 25: 9 %; from 50: 12 %; from 100: 15 %"],
     ]);
-    // version 3 came from the form as first opened: it puts the margin and breaks back and adds the deposit
+    // version 3 came from the form as first opened: it puts the margin and breaks back and raises the
+    // demo shop's 30 % deposit (db/seed/pricing-rules.ts)
     expect(diffRules(v3!.previous!, v3!.rules).map((c) => c.label)).toEqual(["Margin on price", "Quantity breaks", "Deposit on acceptance"]);
-    expect((await getRulesInForce(shop.id)).rules.depositPercent).toBe(30);
+    expect(diffRules(v3!.previous!, v3!.rules).at(-1)).toMatchObject({ from: "30 %", to: "40 %" });
+    expect((await getRulesInForce(shop.id)).rules.depositPercent).toBe(40);
   });
 
   it("what a change does: the last quotes priced again — the rules in force give exactly the frozen prices — and under the proposed rules", async () => {

@@ -1,8 +1,10 @@
 import type { DefinedRoute } from "@/lib/api/contract";
 import type { z } from "zod";
+import { createCell, exportCellsCsv, getCell, getDatasheet, importCellsCsv, listCells, removeDatasheet, updateCell, uploadDatasheet } from "./catalog";
 import { openApiDescription } from "./description";
 import { analyzeFailures, evaluateNetwork, toleranceYield } from "./networks";
 import { checkoutState, listOrders, orderCertificate, orderTraveler, startCheckout } from "./orders";
+import { getPricingRules, putPricingRules } from "./pricing";
 import { downloadAttachment, listMembers, listQuotes, quotePdf, searchArrangements, uploadAttachment } from "./shops";
 
 /**
@@ -19,6 +21,17 @@ export const CONTRACTS: readonly DefinedRoute<z.ZodType>[] = [
   uploadAttachment,
   downloadAttachment,
   listMembers,
+  listCells,
+  createCell,
+  getCell,
+  updateCell,
+  getDatasheet,
+  uploadDatasheet,
+  removeDatasheet,
+  exportCellsCsv,
+  importCellsCsv,
+  getPricingRules,
+  putPricingRules,
   startCheckout,
   checkoutState,
   listOrders,

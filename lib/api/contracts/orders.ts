@@ -38,6 +38,7 @@ export const checkoutState = defineRoute({
   description:
     "Whether one checkout of the quote is still open, paid or expired, and its order's number once the payment service has confirmed it: what the payment page's return address polls. The quote's customer and the shop's staff; anyone else gets 404.",
   access: "member",
+  apiKey: "quotes:read",
   params: quoteParams,
   query: checkoutStateQuerySchema,
   ok: { status: 200, description: "The checkout's state.", json: checkoutStateSchema },
@@ -58,6 +59,7 @@ export const listOrders = defineRoute({
   description:
     "A page of orders with what was paid and refunded, the due date and each status change: every order of the shop for its staff, a customer's own for a customer. Searches numbers and customers; filters by status (`open`: still on the floor) and timing (`late`).",
   access: "member",
+  apiKey: "orders:read",
   params: shopParams,
   query: orderList.querySchema,
   ok: { status: 200, description: "A page of orders.", json: ordersResponseSchema },
@@ -74,6 +76,7 @@ export const orderTraveler = defineRoute({
   description:
     "The shop floor's document for one order: the frozen arrangement, numbered cell positions, balancing resistors and bleeder, assembly notes, test steps with their limits, and the safety block. For the shop's staff.",
   access: "member",
+  apiKey: "orders:read",
   params: orderParams,
   ok: { status: 200, description: "The traveler PDF (Content-Disposition names the file).", file: ["application/pdf"] },
   errors: { 401: REFUSED.signedOut, 403: REFUSED.notMember, 404: "No such shop or order." },
@@ -88,6 +91,7 @@ export const orderCertificate = defineRoute({
   description:
     "What each built bank measured against the limits derived from the frozen specification, once every bank has passed. For the order's customer and the shop's staff; anyone else gets 404.",
   access: "member",
+  apiKey: "orders:read",
   params: orderParams,
   ok: { status: 200, description: "The certificate PDF (Content-Disposition names the file).", file: ["application/pdf"] },
   errors: {

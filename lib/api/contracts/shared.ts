@@ -15,4 +15,7 @@ export const REFUSED = {
   noShop: "No shop has this address.",
   rateLimited: "Too many requests from this client this minute; the Retry-After header says when to try again.",
   crossSite: "A write sent by a page of another site (Origin or Sec-Fetch-Site names another site) is refused here too.",
+  /** staff routes (`{ outsiders: "not-found" }`): a customer is refused, another shop's member is not told the shop exists */
+  notStaff: "Signed in, but not the shop's staff (a customer), or the role may not do this.",
+  noShopForOutsiders: "No such shop, or the caller is not one of its members (another shop's staff are told the same).",
 } as const;

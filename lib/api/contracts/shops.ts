@@ -36,6 +36,7 @@ export const listQuotes = defineRoute({
   description:
     "A page of quotes: a customer's own, or all of the shop's for its staff. Searches the number and the customer; filters by status; sorts by any column. A value the list does not take is a 400 naming it.",
   access: "member",
+  apiKey: "quotes:read",
   params: shopParams,
   query: quoteList.querySchema,
   ok: { status: 200, description: "A page of quotes.", json: quotePageSchema },
@@ -52,6 +53,7 @@ export const quotePdf = defineRoute({
   description:
     "The PDF the customer receives, for the customer the quote is for and for the shop's staff. Another customer's quote, or a number the shop does not have, is not found.",
   access: "member",
+  apiKey: "quotes:read",
   params: shopParams.extend({ number: z.string().meta({ description: "the quote number", example: "Q-2026-0001" }) }),
   ok: { status: 200, description: "The PDF (Content-Disposition names the file).", file: ["application/pdf"] },
   errors: { 401: REFUSED.signedOut, 403: REFUSED.notMember, 404: "No such shop, or no such quote this member may see." },
@@ -100,6 +102,7 @@ export const downloadAttachment = defineRoute({
   summary: "An attached file",
   description: "The file, to the customer who uploaded it and to the shop's staff; anyone else in the shop gets 404, so ids cannot be probed.",
   access: "member",
+  apiKey: "quotes:read",
   params: shopParams.extend({ id: z.string().meta({ description: "the attachment's id (a UUID)" }) }),
   ok: { status: 200, description: "The file as uploaded.", file: ALLOWED_ATTACHMENT_TYPES },
   errors: { 401: REFUSED.signedOut, 403: REFUSED.notMember, 404: "No such shop, or no such file this member may see." },

@@ -12,6 +12,9 @@ import { describe, expect, it } from "vitest";
 import { routeFileOf } from "@/lib/api/contract";
 import { CONTRACTS } from "@/lib/api/contracts";
 import { buildOpenApiDocument } from "@/lib/api/document";
+import { API_KEY_SCOPE_FOR } from "@/lib/auth/api-key-scopes";
+import { reads } from "@/lib/auth/ownership";
+import type { Permission } from "@/lib/auth/permissions";
 import { API_TYPES_FILE, generateApiTypes } from "@/scripts/api-types";
 import { openApiChecker, type Described } from "@/tests/support/openapi-check";
 import { apiRouteFiles } from "@/tests/support/route-drift";
@@ -53,6 +56,30 @@ describe("route contracts", () => {
     }
   });
 
+  it("a route takes an API key exactly when its handler's permission maps to a key scope, and names that scope", () => {
+    // the handler states its permission once (`withShopApi(request, shop, <access>, …)`); the key
+    // scope that stands in for it comes from API_KEY_SCOPE_FOR (lib/auth/api-key-scopes.ts)
+    const access = (expression: string): Permission[] => {
+      const literal = /^"([^"]+)"$/.exec(expression);
+      if (literal) return [literal[1] as Permission];
+      const owned = /^reads\("([^"]+)"\)$/.exec(expression);
+      if (owned) return [...reads(owned[1] as Parameters<typeof reads>[0])];
+      throw new Error(`an access the test cannot read: ${expression}`);
+    };
+    let checked = 0;
+    for (const c of CONTRACTS.filter((x) => x.access === "member")) {
+      const source = fs.readFileSync(routeFileOf(c.path), "utf8");
+      const handler = source.split(/export async function /).find((chunk) => chunk.startsWith(`${c.method}(`)) ?? "";
+      const asked = /withShopApi\(\s*request,\s*\w+,\s*([^,]+?),/.exec(handler)?.[1];
+      expect(asked, `${c.operationId}: its handler goes through withShopApi`).toBeDefined();
+      const scopes = new Set(access(asked as string).flatMap((p) => API_KEY_SCOPE_FOR[p] ?? []));
+      expect(scopes.size, c.operationId).toBeLessThanOrEqual(1);
+      expect(c.apiKey, `${c.operationId} asks ${asked}`).toBe([...scopes][0]);
+      checked++;
+    }
+    expect(checked).toBeGreaterThanOrEqual(15);
+  });
+
   it("the description is a valid OpenAPI 3.1 document", async () => {
     const validator = new Validator();
     const result = await validator.validate(JSON.parse(JSON.stringify(doc)));
@@ -69,8 +96,9 @@ describe("route contracts", () => {
       const problems = checker.checkRequest({
         method: c.method,
         url,
-        requestContentType: e.json !== undefined ? "application/json" : e.form ? "multipart/form-data; boundary=x" : null,
-        requestBody: e.json !== undefined ? JSON.stringify(e.json) : null,
+        requestContentType:
+          e.json !== undefined ? "application/json" : e.form ? "multipart/form-data; boundary=x" : e.text !== undefined ? (c.body?.text?.[0] ?? null) : null,
+        requestBody: e.json !== undefined ? JSON.stringify(e.json) : (e.text ?? null),
       });
       expect(problems, `${c.operationId}: ${e.title}`).toEqual([]);
     }
@@ -78,7 +106,8 @@ describe("route contracts", () => {
 
   it("the checked-in client types are what the description generates (npm run api:types)", async () => {
     expect(fs.readFileSync(API_TYPES_FILE, "utf8") === (await generateApiTypes()), "lib/api/openapi-types.ts is stale: run npm run api:types").toBe(true);
-  });
+    // generating and formatting some 3,000 lines of types takes seconds on a busy machine
+  }, 60_000);
 });
 
 describe("the drift checker", () => {

@@ -19,11 +19,13 @@ const marlow = demoPricingRules["marlow-pulse"];
 
 describe("diffRules", () => {
   it("names each changed rule with both values as people read them, in the form's order", () => {
-    const after = { ...kestrel, labourRatePerHour: "66.50", depositPercent: 30, quantityBreaks: [{ minQuantity: 10, discountPct: "5" }] };
+    // the demo shop asks a 30 % deposit (db/seed/pricing-rules.ts); dropping it is a change people read as "none"
+    expect(kestrel.depositPercent).toBe(30);
+    const after = { ...kestrel, labourRatePerHour: "66.50", depositPercent: 0, quantityBreaks: [{ minQuantity: 10, discountPct: "5" }] };
     expect(diffRules(kestrel, after)).toEqual([
       { key: "labourRatePerHour", label: "Labour rate per hour", from: "64", to: "66.5" },
       { key: "quantityBreaks", label: "Quantity breaks", from: "from 5: 3 %; from 10: 6 %; from 25: 9 %; from 50: 12 %", to: "from 10: 5 %" },
-      { key: "depositPercent", label: "Deposit on acceptance", from: "none: the full total on acceptance", to: "30 %" },
+      { key: "depositPercent", label: "Deposit on acceptance", from: "30 %", to: "none: the full total on acceptance" },
     ]);
   });
 
@@ -35,7 +37,10 @@ describe("diffRules", () => {
   it("reads a rule set saved before the deposit existed as no deposit", () => {
     const { depositPercent: _d, ...old } = kestrel;
     expect(readPricingRules(old).depositPercent).toBe(0);
-    expect(diffRules(readPricingRules(old), kestrel)).toEqual([]);
+    // against the demo shop's 30 % the deposit is then the one difference, and nothing else moved
+    expect(diffRules(readPricingRules(old), kestrel)).toEqual([
+      { key: "depositPercent", label: "Deposit on acceptance", from: "none: the full total on acceptance", to: "30 %" },
+    ]);
   });
 });
 

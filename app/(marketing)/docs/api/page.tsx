@@ -67,6 +67,10 @@ export default function ApiDocsPage() {
           </p>
           <Code label="Signing in with curl">{signInCommand(origin)}</Code>
           <p className="text-sm text-ink-600">
+            A shop&apos;s own systems can send an API key instead, as <code>Authorization: Bearer …</code>: the shop&apos;s manager creates it on the desk with
+            the scopes it needs, and each operation below names the scope it asks for (the others take no key).
+          </p>
+          <p className="text-sm text-ink-600">
             The figures are engineering estimates; local electrical codes and licensed practice decide how a bank is built and handled.
           </p>
         </section>

@@ -2,6 +2,7 @@
 import { useRouter } from "next/navigation";
 import { useRef, useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
+import { api, apiErrorMessage, asFormData } from "@/lib/api/client";
 import { FormMessage } from "@/components/ui/field";
 import { MAX_ATTACHMENT_SIZE_TEXT } from "@/lib/validation/limits";
 
@@ -34,23 +35,26 @@ export function DatasheetPanel({
         setMessage({ tone: "error", text: "Choose a PDF first." });
         return;
       }
-      const body = new FormData();
-      body.set("file", file);
-      const res = await fetch(href, { method: "POST", body, credentials: "same-origin" }).catch(() => null);
-      if (res?.ok) {
-        setMessage({ tone: "info", text: `${file.name} is the datasheet now.` });
+      const sent = await api
+        .POST("/api/v1/shops/{shop}/cells/{sku}/datasheet", { params: { path: { shop, sku } }, body: { file }, bodySerializer: asFormData })
+        .catch(() => null);
+      if (sent?.data) {
+        setMessage({ tone: "info", text: `${sent.data.fileName} is the datasheet now.` });
         if (input.current) input.current.value = "";
         router.refresh();
       } else {
-        const refusal = (await res?.json().catch(() => null)) as { error?: string } | null;
-        setMessage({ tone: "error", text: refusal?.error ?? "The upload failed; try again." });
+        setMessage({ tone: "error", text: sent ? apiErrorMessage(sent.error, sent.response) : "The upload failed; check your connection and try again." });
       }
     });
 
   const remove = () =>
     start(async () => {
-      const res = await fetch(href, { method: "DELETE", credentials: "same-origin" });
-      setMessage(res.ok ? { tone: "info", text: "Datasheet removed." } : { tone: "error", text: "Not removed; try again." });
+      const sent = await api.DELETE("/api/v1/shops/{shop}/cells/{sku}/datasheet", { params: { path: { shop, sku } } }).catch(() => null);
+      setMessage(
+        sent?.response.ok
+          ? { tone: "info", text: "Datasheet removed." }
+          : { tone: "error", text: sent ? `Not removed: ${apiErrorMessage(sent.error, sent.response)}` : "Not removed; check your connection and try again." },
+      );
       router.refresh();
     });
 

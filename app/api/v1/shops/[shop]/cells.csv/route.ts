@@ -4,6 +4,7 @@ import { exportCellsCsv, importCells, previewCellImport } from "@/lib/catalog/ed
 import { contentDisposition } from "@/lib/attachments/content-type";
 import { jsonError } from "@/lib/http/json-error";
 import { readBodyLimited } from "@/lib/http/read-json";
+import { importCellsCsv as contract } from "@/lib/api/contracts/catalog";
 import type { CellImportResponse } from "@/lib/validation/catalog";
 import { hasNul } from "@/lib/validation/text";
 
@@ -64,8 +65,9 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
         applied: outcome.applied,
         dryRun,
       };
+      // errors kept the import from being applied: the same answer, as the contract's 422
       const refused = !dryRun && !outcome.applied && plan.errors.length > 0;
-      return Response.json(answer, { status: refused ? 422 : 200 });
+      return refused ? Response.json(answer, { status: 422 }) : contract.answer(answer);
     },
     { outsiders: "not-found" },
   );

@@ -5,6 +5,8 @@ import { cellResponseFor, shopCurrency } from "@/lib/catalog/edit";
 import { jsonError } from "@/lib/http/json-error";
 import { fromZod } from "@/lib/validation/bank";
 import type { z } from "zod";
+import type { DefinedRoute } from "@/lib/api/contract";
+import type { cellResponseSchema } from "@/lib/validation/catalog";
 
 /** A schema's refusal as the JSON error's message and issues. */
 export function zodAnswer(error: z.ZodError): { error: string; issues: { path: string; message: string }[] } {
@@ -51,12 +53,16 @@ export async function readApiCell(
 
 const STATUS: Record<string, number> = { "not-found": 404, conflict: 409, invalid: 400, forbidden: 403 };
 
-/** A write's answer: the cell as stored now, or the refusal with its status (409 for a stale version or a taken SKU). */
-export async function writeAnswer(ctx: ShopContext, result: ActionResult<{ record: CellRecord }>, okStatus = 200): Promise<Response> {
+/** A write's answer (by its route's contract): the cell as stored now, or the refusal with its status (409 for a stale version or a taken SKU). */
+export async function writeAnswer(
+  ctx: ShopContext,
+  result: ActionResult<{ record: CellRecord }>,
+  contract: DefinedRoute<typeof cellResponseSchema>,
+): Promise<Response> {
   if (!result.ok) {
     const issues = Object.entries(result.fieldErrors ?? {}).flatMap(([path, messages]) => messages.map((message) => ({ path, message })));
     return jsonError(STATUS[result.code] ?? 400, result.message ?? "Refused.", issues.length > 0 ? issues : undefined);
   }
   const cell = await cellResponseFor(ctx, result.data.record.sku);
-  return Response.json(cell, { status: okStatus });
+  return cell ? contract.answer(cell) : jsonError(404, "No such cell.");
 }

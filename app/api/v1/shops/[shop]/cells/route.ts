@@ -7,6 +7,7 @@ import { jsonError } from "@/lib/http/json-error";
 import { readJsonBody } from "@/lib/http/read-json";
 import { cellCreateSchema } from "@/lib/validation/catalog";
 import { catalogList } from "@/lib/validation/lists";
+import { createCell as createContract, listCells as listContract } from "@/lib/api/contracts/catalog";
 import { readApiCell, writeAnswer, zodAnswer, type ApiCell } from "./cell-body";
 
 /**
@@ -26,7 +27,10 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
       if (issues.length > 0) return jsonError(400, "Invalid query.", issues);
       const [page, currency, datasheets] = await Promise.all([listCatalogCells(ctx.shop.id, query), shopCurrency(ctx.shop.id), listDatasheetSkus(ctx.shop.id)]);
       const has = new Set(datasheets);
-      return Response.json({ ...page, rows: page.rows.map((r) => toCellResponse(r, { currency, shopSlug: ctx.shop.slug, hasDatasheet: has.has(r.sku) })) });
+      return listContract.answer({
+        ...page,
+        rows: page.rows.map((r) => toCellResponse(r, { currency, shopSlug: ctx.shop.slug, hasDatasheet: has.has(r.sku) })),
+      });
     },
     { outsiders: "not-found" },
   );
@@ -48,7 +52,7 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
       }
       const read = await readApiCell(ctx, parsed.data as ApiCell, null);
       if (!read.ok) return read.response;
-      return writeAnswer(ctx, await createCell(ctx, read.record), 201);
+      return writeAnswer(ctx, await createCell(ctx, read.record), createContract);
     },
     { outsiders: "not-found" },
   );

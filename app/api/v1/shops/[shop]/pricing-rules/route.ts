@@ -5,10 +5,12 @@ import { readJsonBody } from "@/lib/http/read-json";
 import { savePricingRules } from "@/lib/quoting/pricing-rules";
 import { fromZod } from "@/lib/validation/bank";
 import { putPricingRulesSchema } from "@/lib/validation/pricing";
+import { getPricingRules as contract } from "@/lib/api/contracts/pricing";
 
 async function inForce(shopId: string): Promise<Response> {
   const r = await getRulesInForce(shopId);
-  return Response.json({ rules: r.rules, version: r.version, reason: r.reason, savedAt: r.savedAt?.toISOString() ?? null });
+  // GET and PUT answer the same shape (lib/api/contracts/pricing.ts)
+  return contract.answer({ rules: r.rules, version: r.version, reason: r.reason, savedAt: r.savedAt?.toISOString() ?? null });
 }
 
 /**

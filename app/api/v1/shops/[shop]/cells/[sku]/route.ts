@@ -4,6 +4,7 @@ import { cellRecordOf, cellResponseFor, updateCell } from "@/lib/catalog/edit";
 import { jsonError } from "@/lib/http/json-error";
 import { readJsonBody } from "@/lib/http/read-json";
 import { cellPatchSchema } from "@/lib/validation/catalog";
+import { getCell as getContract, updateCell as updateContract } from "@/lib/api/contracts/catalog";
 import { readApiCell, writeAnswer, zodAnswer, type ApiCell } from "../cell-body";
 
 /**
@@ -19,7 +20,7 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
     "catalog:read",
     async (ctx) => {
       const cell = await cellResponseFor(ctx, sku);
-      return cell ? Response.json(cell) : jsonError(404, "No such cell.");
+      return cell ? getContract.answer(cell) : jsonError(404, "No such cell.");
     },
     { outsiders: "not-found" },
   );
@@ -44,7 +45,7 @@ export async function PATCH(request: Request, { params }: { params: Promise<{ sh
       const { version, ...fields } = parsed.data as ApiCell & { version?: number };
       const read = await readApiCell(ctx, fields, cellRecordOf(row));
       if (!read.ok) return read.response;
-      return writeAnswer(ctx, await updateCell(ctx, sku, read.record, version ?? null));
+      return writeAnswer(ctx, await updateCell(ctx, sku, read.record, version ?? null), updateContract);
     },
     { outsiders: "not-found" },
   );

@@ -6,7 +6,7 @@ import { contentDisposition } from "@/lib/attachments/content-type";
 import { datasheetFor, removeDatasheet, uploadDatasheet } from "@/lib/catalog/datasheet";
 import { jsonError } from "@/lib/http/json-error";
 import { readUploadedFile } from "@/lib/http/upload";
-import { datasheetUploadResponseSchema } from "@/lib/validation/catalog";
+import { uploadDatasheet as uploadContract } from "@/lib/api/contracts/catalog";
 import { MAX_ATTACHMENT_BYTES, MAX_ATTACHMENT_SIZE_TEXT } from "@/lib/validation/limits";
 
 /**
@@ -45,7 +45,7 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
       if (!file.ok) return file.response;
       const r = await uploadDatasheet(ctx, sku, file.bytes, file.name);
       if (!r.ok) return jsonError(r.code === "not-found" ? 404 : 400, r.message ?? "Refused.", [{ path: "file", message: r.message ?? "Refused." }]);
-      return Response.json(datasheetUploadResponseSchema.parse({ sku, fileName: r.data.fileName }), { status: 201 });
+      return uploadContract.answer({ sku, fileName: r.data.fileName });
     },
     { outsiders: "not-found" },
   );
