@@ -12,6 +12,7 @@ import path from "node:path";
 import * as chromeLauncher from "chrome-launcher";
 import lighthouse from "lighthouse";
 import desktopConfig from "lighthouse/core/config/desktop-config.js";
+import { CHROMIUM_LAUNCH } from "../../scripts/chromium.mjs";
 
 const RUNS = 3;
 const SHOP = "kestrel-bank-works";
@@ -19,16 +20,8 @@ const DEMO_PASSWORD = "faradsmith-demo-2026";
 /** The goal under the mobile profile. */
 const GOAL = { performance: 0.9, lcpMs: 2500, tbtMs: 200 };
 
-const CHROME_FLAGS = [
-  "--headless=new",
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-dev-shm-usage",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-  "--no-first-run",
-];
+// how every script starts Debian's Chromium, headless for Lighthouse
+const CHROME_FLAGS = ["--headless=new", ...CHROMIUM_LAUNCH.args];
 
 const median = (values) => {
   const s = [...values].sort((a, b) => a - b);
@@ -38,7 +31,7 @@ const median = (values) => {
 
 /** One Lighthouse run in a fresh Chromium; the figures the table prints. */
 async function measure(url, { desktop, cookie, keepAs }) {
-  const chrome = await chromeLauncher.launch({ chromePath: "/usr/bin/chromium", chromeFlags: CHROME_FLAGS, logLevel: "silent" });
+  const chrome = await chromeLauncher.launch({ chromePath: CHROMIUM_LAUNCH.executablePath, chromeFlags: CHROME_FLAGS, logLevel: "silent" });
   try {
     const flags = {
       port: chrome.port,
