@@ -1,6 +1,7 @@
 import { index, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { ApiKeyScope } from "@/lib/auth/api-key-scopes";
-import { shops, users } from "./auth";
+import { users } from "./auth";
+import { shopColumn, createdAtColumn } from "./columns";
 
 /**
  * A shop's API keys for its own systems (ERP, stock): named, scoped, revocable. Only a SHA-256 of
@@ -11,9 +12,7 @@ export const apiKeys = pgTable(
   "api_keys",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     name: text().notNull(),
     /** the first characters of the secret, e.g. "fsk_3kQ9x": safe to show */
     prefix: text().notNull(),
@@ -21,7 +20,7 @@ export const apiKeys = pgTable(
     secretHash: text().notNull(),
     scopes: jsonb().$type<ApiKeyScope[]>().notNull(),
     createdByUserId: text().references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
     lastUsedAt: timestamp({ withTimezone: true }),
     revokedAt: timestamp({ withTimezone: true }),
     revokedByUserId: text().references(() => users.id, { onDelete: "set null" }),

@@ -1,8 +1,8 @@
-import { sql } from "drizzle-orm";
-import { boolean, doublePrecision, index, integer, jsonb, numeric, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, doublePrecision, index, integer, jsonb, numeric, pgEnum, pgTable, text, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { TECHNOLOGIES } from "../../lib/bank/types";
 import { COMPONENT_KIND_VALUES } from "../../lib/catalog/component-fields";
-import { shops, users } from "./auth";
+import { users } from "./auth";
+import { shopColumn, createdAtColumn, updatedAtColumn } from "./columns";
 
 export const technologyEnum = pgEnum("technology", TECHNOLOGIES);
 export const cellShapeEnum = pgEnum("cell_shape", ["cylinder", "box"]);
@@ -14,9 +14,7 @@ export const catalogCells = pgTable(
   "catalog_cells",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     sku: text().notNull(),
     manufacturer: text().notNull(),
     series: text().notNull(),
@@ -55,11 +53,8 @@ export const catalogCells = pgTable(
     isActive: boolean().notNull().default(true),
     /** raised by one on every change: an edit made from an older version is refused (409), never lost */
     version: integer().notNull().default(1),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true })
-      .notNull()
-      .defaultNow()
-      .$onUpdate(() => sql`now()`),
+    createdAt: createdAtColumn(),
+    updatedAt: updatedAtColumn(),
   },
   (t) => [uniqueIndex("catalog_cells_shop_sku_uq").on(t.shopId, t.sku), index("catalog_cells_shop_active_idx").on(t.shopId, t.isActive, t.technology)],
 );
@@ -69,9 +64,7 @@ export const catalogComponents = pgTable(
   "catalog_components",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     kind: componentKindEnum().notNull(),
     sku: text().notNull(),
     name: text().notNull(),
@@ -86,11 +79,8 @@ export const catalogComponents = pgTable(
     isActive: boolean().notNull().default(true),
     /** raised by one on every change, as for cells */
     version: integer().notNull().default(1),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true })
-      .notNull()
-      .defaultNow()
-      .$onUpdate(() => sql`now()`),
+    createdAt: createdAtColumn(),
+    updatedAt: updatedAtColumn(),
   },
   (t) => [uniqueIndex("catalog_components_shop_sku_uq").on(t.shopId, t.sku), index("catalog_components_shop_kind_idx").on(t.shopId, t.kind)],
 );
@@ -104,9 +94,7 @@ export const cellDatasheets = pgTable(
   "cell_datasheets",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     cellId: uuid()
       .notNull()
       .references(() => catalogCells.id, { onDelete: "cascade" }),
@@ -115,7 +103,7 @@ export const cellDatasheets = pgTable(
     sha256: text().notNull(),
     storageKey: text().notNull(),
     uploadedByUserId: text().references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [uniqueIndex("cell_datasheets_shop_cell_uq").on(t.shopId, t.cellId)],
 );

@@ -1,8 +1,8 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { OUTBOX_STATUSES } from "../../lib/vocabulary";
-import { shops } from "./auth";
 import { orders } from "./orders";
 import { quoteRevisions } from "./quotes";
+import { shopColumn, createdAtColumn } from "./columns";
 
 export const emailStatusEnum = pgEnum("email_status", OUTBOX_STATUSES);
 
@@ -14,9 +14,7 @@ export const emailOutbox = pgTable(
   "email_outbox",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     kind: text().notNull(),
     dedupeKey: text().notNull(),
     toEmail: text().notNull(),
@@ -29,7 +27,7 @@ export const emailOutbox = pgTable(
     lastError: text(),
     messageId: text(),
     sentAt: timestamp({ withTimezone: true }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("email_outbox_shop_dedupe_uq").on(t.shopId, t.dedupeKey), index("email_outbox_shop_status_idx").on(t.shopId, t.status, t.createdAt)],

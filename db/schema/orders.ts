@@ -2,8 +2,9 @@ import { sql } from "drizzle-orm";
 import { boolean, date, index, integer, jsonb, numeric, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { TestCheck, TestLimits, TestMeasurement } from "@/lib/orders/types";
 import { ORDER_STATUSES, PAYMENT_KINDS, PAYMENT_STATUSES } from "../../lib/vocabulary";
-import { shops, users } from "./auth";
+import { users } from "./auth";
 import { quoteRevisions, quotes } from "./quotes";
+import { shopColumn, createdAtColumn, updatedAtColumn } from "./columns";
 
 export const orderStatusEnum = pgEnum("order_status", ORDER_STATUSES);
 export const paymentStatusEnum = pgEnum("payment_status", PAYMENT_STATUSES);
@@ -18,9 +19,7 @@ export const payments = pgTable(
   "payments",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     quoteId: uuid()
       .notNull()
       .references(() => quotes.id, { onDelete: "restrict" }),
@@ -44,11 +43,8 @@ export const payments = pgTable(
     paidAt: timestamp({ withTimezone: true }),
     /** the charge's running refunded total as `charge.refunded` last reported it */
     chargeRefunded: numeric({ precision: 16, scale: 4 }).notNull().default("0"),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true })
-      .notNull()
-      .defaultNow()
-      .$onUpdate(() => sql`now()`),
+    createdAt: createdAtColumn(),
+    updatedAt: updatedAtColumn(),
   },
   (t) => [
     uniqueIndex("payments_shop_session_uq").on(t.shopId, t.stripeSessionId),
@@ -65,9 +61,7 @@ export const paymentRefunds = pgTable(
   "payment_refunds",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     paymentId: uuid()
       .notNull()
       .references(() => payments.id, { onDelete: "cascade" }),
@@ -79,11 +73,8 @@ export const paymentRefunds = pgTable(
     /** why, in the manager's words ("" for a refund made outside the app) */
     reason: text().notNull().default(""),
     requestedByUserId: text().references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true })
-      .notNull()
-      .defaultNow()
-      .$onUpdate(() => sql`now()`),
+    createdAt: createdAtColumn(),
+    updatedAt: updatedAtColumn(),
   },
   (t) => [uniqueIndex("payment_refunds_shop_refund_uq").on(t.shopId, t.stripeRefundId), index("payment_refunds_shop_payment_idx").on(t.shopId, t.paymentId)],
 );
@@ -116,9 +107,7 @@ export const orders = pgTable(
   "orders",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     number: text().notNull(),
     quoteId: uuid()
       .notNull()
@@ -142,11 +131,8 @@ export const orders = pgTable(
     dueDate: date().notNull(),
     carrier: text(),
     trackingReference: text(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true })
-      .notNull()
-      .defaultNow()
-      .$onUpdate(() => sql`now()`),
+    createdAt: createdAtColumn(),
+    updatedAt: updatedAtColumn(),
   },
   (t) => [
     uniqueIndex("orders_shop_number_uq").on(t.shopId, t.number),
@@ -162,9 +148,7 @@ export const orderStatusHistory = pgTable(
   "order_status_history",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     orderId: uuid()
       .notNull()
       .references(() => orders.id, { onDelete: "cascade" }),
@@ -182,9 +166,7 @@ export const orderTestRecords = pgTable(
   "order_test_records",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     orderId: uuid()
       .notNull()
       .references(() => orders.id, { onDelete: "cascade" }),
@@ -196,7 +178,7 @@ export const orderTestRecords = pgTable(
     isPassed: boolean().notNull(),
     note: text().notNull().default(""),
     testedByUserId: text().references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [index("order_test_records_shop_order_idx").on(t.shopId, t.orderId, t.bank, t.createdAt)],
 );

@@ -1,6 +1,7 @@
-import { index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { index, integer, jsonb, pgTable, text, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { PricingRules } from "@/lib/pricing/types";
-import { shops, users } from "./auth";
+import { users } from "./auth";
+import { shopColumn, createdAtColumn } from "./columns";
 
 /**
  * Every saved version of a shop's pricing rules, numbered per shop from 1, with who saved it, when
@@ -11,9 +12,7 @@ export const pricingRuleVersions = pgTable(
   "pricing_rule_versions",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     version: integer().notNull(),
     rules: jsonb().$type<PricingRules>().notNull(),
     /** why the rules changed, as the person (or the integrator) who saved them wrote it */
@@ -21,7 +20,7 @@ export const pricingRuleVersions = pgTable(
     /** the signed-in person, or null for an API key or the rules in force before versions were kept */
     savedByUserId: text().references(() => users.id, { onDelete: "set null" }),
     savedByKeyId: text(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [
     uniqueIndex("pricing_rule_versions_shop_version_uq").on(t.shopId, t.version),

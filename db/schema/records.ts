@@ -1,6 +1,7 @@
-import { index, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { index, jsonb, pgTable, text, uuid } from "drizzle-orm/pg-core";
 import { SHOP_EVENT_TYPES } from "../../lib/vocabulary";
-import { shops, users } from "./auth";
+import { users } from "./auth";
+import { shopColumn, createdAtColumn } from "./columns";
 
 /** One changed field of an audited record: what it was and what it became. */
 export type AuditChange = { from: unknown; to: unknown };
@@ -14,9 +15,7 @@ export const auditEvents = pgTable(
   "audit_events",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     /** the signed-in person, or null when an API key or the system acted */
     actorUserId: text().references(() => users.id, { onDelete: "set null" }),
     /** the API key that acted, when one did (its id, never its secret) */
@@ -28,7 +27,7 @@ export const auditEvents = pgTable(
     /** one line a manager reads: "Unit cost of KBW-3000 from 41.20 to 39.80" */
     summary: text().notNull(),
     changes: jsonb().$type<Record<string, AuditChange>>(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [index("audit_events_shop_created_idx").on(t.shopId, t.createdAt), index("audit_events_shop_subject_idx").on(t.shopId, t.subjectType, t.subjectId)],
 );
@@ -45,12 +44,10 @@ export const shopEvents = pgTable(
   "shop_events",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     type: text({ enum: SHOP_EVENT_TYPES }).notNull(),
     payload: jsonb().$type<Record<string, unknown>>().notNull(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [index("shop_events_shop_created_idx").on(t.shopId, t.createdAt)],
 );

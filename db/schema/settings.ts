@@ -4,6 +4,7 @@ import type { DesignFactors } from "@/lib/bank/types";
 import type { PricingRules } from "@/lib/pricing/types";
 import { DEFAULT_AUTO_QUOTE_LIMITS, type AutoQuoteLimits } from "@/lib/quoting/auto-quote-limits";
 import { shops } from "./auth";
+import { createdAtColumn } from "./columns";
 
 /** One row per shop: its design factors (DESIGN.md §3.2), pricing rules (§4) and storefront text. */
 export const shopSettings = pgTable("shop_settings", {
@@ -19,7 +20,7 @@ export const shopSettings = pgTable("shop_settings", {
   autoQuoteLimits: jsonb().$type<AutoQuoteLimits>().notNull().default(DEFAULT_AUTO_QUOTE_LIMITS),
   /** failure, yield and life settings (DESIGN.md §3.5): a group of its own beside the design factors */
   reliabilitySettings: jsonb().$type<ReliabilitySettings>().notNull().default(DEFAULT_RELIABILITY_SETTINGS),
-  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAtColumn(),
   updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
 

@@ -1,8 +1,9 @@
 import { sql } from "drizzle-orm";
 import { boolean, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { SHOP_EVENT_TYPES, WEBHOOK_DELIVERY_STATES, WEBHOOK_ENDPOINT_STATES, type ShopEventType } from "../../lib/vocabulary";
-import { shops, users } from "./auth";
+import { users } from "./auth";
 import { shopEvents } from "./records";
+import { shopColumn, createdAtColumn } from "./columns";
 
 export const webhookEndpointStateEnum = pgEnum("webhook_endpoint_state", WEBHOOK_ENDPOINT_STATES);
 export const webhookDeliveryStateEnum = pgEnum("webhook_delivery_state", WEBHOOK_DELIVERY_STATES);
@@ -16,9 +17,7 @@ export const webhookEndpoints = pgTable(
   "webhook_endpoints",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     url: text().notNull(),
     description: text().notNull().default(""),
     events: text({ enum: SHOP_EVENT_TYPES }).array().$type<ShopEventType[]>().notNull(),
@@ -30,7 +29,7 @@ export const webhookEndpoints = pgTable(
     disabledAt: timestamp({ withTimezone: true }),
     disabledReason: text(),
     createdByUserId: text().references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("webhook_endpoints_shop_created_idx").on(t.shopId, t.createdAt)],
@@ -44,9 +43,7 @@ export const webhookDeliveries = pgTable(
   "webhook_deliveries",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     endpointId: uuid()
       .notNull()
       .references(() => webhookEndpoints.id, { onDelete: "cascade" }),
@@ -67,7 +64,7 @@ export const webhookDeliveries = pgTable(
     nextAttemptAt: timestamp({ withTimezone: true }),
     lastAttemptAt: timestamp({ withTimezone: true }),
     deliveredAt: timestamp({ withTimezone: true }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [

@@ -5,7 +5,7 @@
  * `readCell` and compare two versions through `diffCells`. Pure: no database, no framework.
  */
 import { MAX_CAPACITANCE, MAX_CURRENT, MAX_LENGTH, MAX_MASS, MAX_RESISTANCE, MAX_VOLTAGE, formatBound } from "../bank/bounds";
-import { TECHNOLOGIES, cellVolume, type Technology } from "../bank/types";
+import { TECHNOLOGIES, cellVolume, type EngineCell, type Technology } from "../bank/types";
 import { Dec, isDecimalString } from "../pricing/decimal";
 import { formatQuantity, parseQuantity, type QuantityUnit } from "../quantities";
 
@@ -296,21 +296,23 @@ export const CELL_FIELD_BY_NAME: Readonly<Record<CellFieldName, CellField>> = Ob
 >;
 
 /** A cell in the API's and the CSV's terms: SI numbers, tolerances as fractions, money as a decimal string. */
-export interface CellRecord {
-  sku: string;
+export interface CellRecord extends Pick<
+  EngineCell,
+  | "sku"
+  | "technology"
+  | "capacitance"
+  | "toleranceMinus"
+  | "tolerancePlus"
+  | "ratedVoltage"
+  | "surgeVoltage"
+  | "esr"
+  | "leakageCurrent"
+  | "continuousCurrent"
+  | "peakCurrent"
+  | "mass"
+> {
   manufacturer: string;
   series: string;
-  technology: Technology;
-  capacitance: number;
-  toleranceMinus: number;
-  tolerancePlus: number;
-  ratedVoltage: number;
-  surgeVoltage: number;
-  esr: number;
-  leakageCurrent: number;
-  continuousCurrent: number;
-  peakCurrent: number;
-  mass: number;
   shape: CellShape;
   diameter: number | null;
   length: number | null;

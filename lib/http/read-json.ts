@@ -1,5 +1,7 @@
 import { jsonError } from "@/lib/http/json-error";
+import { fromZod, type ParseResult } from "@/lib/validation/bank";
 import { NUL_MESSAGE, findNul } from "@/lib/validation/text";
+import type { z } from "zod";
 
 export const MAX_BODY_BYTES = 1024 * 1024;
 
@@ -47,4 +49,25 @@ export async function readJsonBody(request: Request, limit = MAX_BODY_BYTES): Pr
   const nulAt = findNul(value);
   if (nulAt !== null) return { ok: false, response: jsonError(400, "A value in the body contains a NUL character.", [{ path: nulAt, message: NUL_MESSAGE }]) };
   return { ok: true, value };
+}
+
+/**
+ * Reads a JSON body (as `readJsonBody`) and checks it with a zod schema or one of our own parsers;
+ * anything that does not fit answers 400 with the first problem as the error and every problem
+ * under `issues`, each at its path.
+ */
+export async function readJsonAs<T>(
+  request: Request,
+  check: z.ZodType<T> | ((value: unknown) => ParseResult<T>),
+  limit = MAX_BODY_BYTES,
+): Promise<{ ok: true; value: T } | { ok: false; response: Response }> {
+  const body = await readJsonBody(request, limit);
+  if (!body.ok) return body;
+  const parsed: ParseResult<T> = typeof check === "function" ? check(body.value) : fromZodResult(check.safeParse(body.value));
+  if (parsed.ok) return { ok: true, value: parsed.data };
+  return { ok: false, response: jsonError(400, parsed.error, parsed.issues) };
+}
+
+function fromZodResult<T>(result: z.ZodSafeParseResult<T>): ParseResult<T> {
+  return result.success ? { ok: true, data: result.data } : fromZod<T>(result.error);
 }

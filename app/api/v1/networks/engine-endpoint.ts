@@ -1,6 +1,6 @@
 import { jsonError } from "@/lib/http/json-error";
 import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
-import { readJsonBody } from "@/lib/http/read-json";
+import { readJsonAs } from "@/lib/http/read-json";
 import type { z } from "zod";
 import type { DefinedRoute, Sendable } from "@/lib/api/contract";
 import type { ParseResult } from "@/lib/validation/bank";
@@ -18,12 +18,10 @@ export function engineEndpoint<T, S extends z.ZodType>(
   return async function POST(request: Request): Promise<Response> {
     const gate = await limits.engine.hit(requestClient(request.headers));
     if (!gate.allowed) return tooManyRequests(gate);
-    const body = await readJsonBody(request);
-    if (!body.ok) return body.response;
-    const parsed = parse(body.value);
-    if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
+    const parsed = await readJsonAs(request, parse);
+    if (!parsed.ok) return parsed.response;
     try {
-      return contract.answer(compute(parsed.data));
+      return contract.answer(compute(parsed.value));
     } catch (error) {
       if (error instanceof RangeError) return jsonError(400, error.message, [{ path: "network", message: error.message }]);
       throw error;

@@ -1,6 +1,6 @@
 import { jsonError } from "@/lib/http/json-error";
 import { evaluateNetwork } from "@/lib/bank";
-import { readJsonBody } from "@/lib/http/read-json";
+import { readJsonAs } from "@/lib/http/read-json";
 import { parseEvaluateRequest } from "@/lib/validation/bank";
 import { evaluateNetwork as contract } from "@/lib/api/contracts/networks";
 
@@ -10,12 +10,10 @@ import { evaluateNetwork as contract } from "@/lib/api/contracts/networks";
  * `{ error, issues: [{ path, message }] }`; depth, cell count and body size are bounded.
  */
 export async function POST(request: Request) {
-  const body = await readJsonBody(request);
-  if (!body.ok) return body.response;
-  const parsed = parseEvaluateRequest(body.value);
-  if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
+  const parsed = await readJsonAs(request, parseEvaluateRequest);
+  if (!parsed.ok) return parsed.response;
   try {
-    const r = evaluateNetwork(parsed.data.network, parsed.data.appliedVoltage);
+    const r = evaluateNetwork(parsed.value.network, parsed.value.appliedVoltage);
     return contract.answer({
       capacitance: r.capacitance,
       ...(r.esr !== undefined ? { esr: r.esr } : {}),

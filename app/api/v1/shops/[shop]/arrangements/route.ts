@@ -1,9 +1,8 @@
 import { loadShopCatalog } from "@/db/queries/catalog";
 import { getShopBySlug } from "@/db/queries/shops";
 import { refusedResponse } from "@/lib/auth/guards";
-import { jsonError } from "@/lib/http/json-error";
 import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
-import { readJsonBody } from "@/lib/http/read-json";
+import { readJsonAs } from "@/lib/http/read-json";
 import { searchPricedOptions } from "@/lib/quoting/priced-search";
 import { parseArrangementRequest } from "@/lib/validation/bank";
 import { searchArrangements as contract } from "@/lib/api/contracts/shops";
@@ -19,11 +18,9 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   const { shop: slug } = await params;
   const shop = await getShopBySlug(slug);
   if (!shop) return refusedResponse("no-shop");
-  const body = await readJsonBody(request);
-  if (!body.ok) return body.response;
-  const parsed = parseArrangementRequest(body.value);
-  if (!parsed.ok) return jsonError(400, parsed.error, parsed.issues);
-  const result = searchPricedOptions(await loadShopCatalog(shop.id), parsed.data);
+  const parsed = await readJsonAs(request, parseArrangementRequest);
+  if (!parsed.ok) return parsed.response;
+  const result = searchPricedOptions(await loadShopCatalog(shop.id), parsed.value);
   return contract.answer({
     designFactors: result.designFactors,
     options: result.options,

@@ -3,16 +3,8 @@ import type { ActionResult } from "@/lib/auth/guards";
 import { readCell, type CellFieldName, type CellRecord } from "@/lib/catalog/cell-fields";
 import { cellResponseFor, shopCurrency } from "@/lib/catalog/edit";
 import { jsonError } from "@/lib/http/json-error";
-import { fromZod } from "@/lib/validation/bank";
-import type { z } from "zod";
 import type { DefinedRoute } from "@/lib/api/contract";
 import type { cellResponseSchema } from "@/lib/validation/catalog";
-
-/** A schema's refusal as the JSON error's message and issues. */
-export function zodAnswer(error: z.ZodError): { error: string; issues: { path: string; message: string }[] } {
-  const f = fromZod(error);
-  return f.ok ? { error: "Invalid body.", issues: [] } : { error: f.error, issues: f.issues };
-}
 
 /**
  * What the cells routes share: a JSON cell (SI numbers, `unitCost: { amount, currency }`) read

@@ -4,11 +4,11 @@ import { withShopApi } from "@/lib/auth/guards";
 import { toCellResponse } from "@/lib/catalog/cell-api";
 import { createCell, shopCurrency } from "@/lib/catalog/edit";
 import { jsonError } from "@/lib/http/json-error";
-import { readJsonBody } from "@/lib/http/read-json";
+import { readJsonAs } from "@/lib/http/read-json";
 import { cellCreateSchema } from "@/lib/validation/catalog";
 import { catalogList } from "@/lib/validation/lists";
 import { createCell as createContract, listCells as listContract } from "@/lib/api/contracts/catalog";
-import { readApiCell, writeAnswer, zodAnswer, type ApiCell } from "./cell-body";
+import { readApiCell, writeAnswer, type ApiCell } from "./cell-body";
 
 /**
  * GET /api/v1/shops/{shop}/cells — { rows, total, page, size }: the shop's cells, active or not, with
@@ -43,14 +43,9 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
     shop,
     "catalog:write",
     async (ctx) => {
-      const body = await readJsonBody(request);
+      const body = await readJsonAs(request, cellCreateSchema);
       if (!body.ok) return body.response;
-      const parsed = cellCreateSchema.safeParse(body.value);
-      if (!parsed.success) {
-        const f = zodAnswer(parsed.error);
-        return jsonError(400, f.error, f.issues);
-      }
-      const read = await readApiCell(ctx, parsed.data as ApiCell, null);
+      const read = await readApiCell(ctx, body.value as ApiCell, null);
       if (!read.ok) return read.response;
       return writeAnswer(ctx, await createCell(ctx, read.record), createContract);
     },

@@ -1,9 +1,8 @@
 import { getRulesInForce } from "@/db/queries/pricing-rules";
 import { withShopApi } from "@/lib/auth/guards";
 import { jsonError } from "@/lib/http/json-error";
-import { readJsonBody } from "@/lib/http/read-json";
+import { readJsonAs } from "@/lib/http/read-json";
 import { savePricingRules } from "@/lib/quoting/pricing-rules";
-import { fromZod } from "@/lib/validation/bank";
 import { putPricingRulesSchema } from "@/lib/validation/pricing";
 import { getPricingRules as contract } from "@/lib/api/contracts/pricing";
 
@@ -30,14 +29,9 @@ export async function PUT(request: Request, { params }: { params: Promise<{ shop
     shop,
     "pricing:write",
     async (ctx) => {
-      const body = await readJsonBody(request);
-      if (!body.ok) return body.response;
-      const parsed = putPricingRulesSchema.safeParse(body.value);
-      if (!parsed.success) {
-        const f = fromZod(parsed.error);
-        return jsonError(400, f.ok ? "Invalid rules." : f.error, f.ok ? undefined : f.issues);
-      }
-      const saved = await savePricingRules(ctx, parsed.data.rules, parsed.data.reason, parsed.data.version ?? null);
+      const parsed = await readJsonAs(request, putPricingRulesSchema);
+      if (!parsed.ok) return parsed.response;
+      const saved = await savePricingRules(ctx, parsed.value.rules, parsed.value.reason, parsed.value.version ?? null);
       if (!saved.ok) return jsonError(409, saved.message ?? "The rules changed since.");
       return inForce(ctx.shop.id);
     },

@@ -2,10 +2,10 @@ import { getCellBySku } from "@/db/queries/catalog-edit";
 import { withShopApi } from "@/lib/auth/guards";
 import { cellRecordOf, cellResponseFor, updateCell } from "@/lib/catalog/edit";
 import { jsonError } from "@/lib/http/json-error";
-import { readJsonBody } from "@/lib/http/read-json";
+import { readJsonAs } from "@/lib/http/read-json";
 import { cellPatchSchema } from "@/lib/validation/catalog";
 import { getCell as getContract, updateCell as updateContract } from "@/lib/api/contracts/catalog";
-import { readApiCell, writeAnswer, zodAnswer, type ApiCell } from "../cell-body";
+import { readApiCell, writeAnswer, type ApiCell } from "../cell-body";
 
 /**
  * GET /api/v1/shops/{shop}/cells/{sku} — one cell. PATCH — the fields to change (SI units); with
@@ -33,16 +33,11 @@ export async function PATCH(request: Request, { params }: { params: Promise<{ sh
     shop,
     "catalog:write",
     async (ctx) => {
-      const body = await readJsonBody(request);
+      const body = await readJsonAs(request, cellPatchSchema);
       if (!body.ok) return body.response;
-      const parsed = cellPatchSchema.safeParse(body.value);
-      if (!parsed.success) {
-        const f = zodAnswer(parsed.error);
-        return jsonError(400, f.error, f.issues);
-      }
       const row = await getCellBySku(ctx.shop.id, sku);
       if (!row) return jsonError(404, "No such cell.");
-      const { version, ...fields } = parsed.data as ApiCell & { version?: number };
+      const { version, ...fields } = body.value as ApiCell & { version?: number };
       const read = await readApiCell(ctx, fields, cellRecordOf(row));
       if (!read.ok) return read.response;
       return writeAnswer(ctx, await updateCell(ctx, sku, read.record, version ?? null), updateContract);

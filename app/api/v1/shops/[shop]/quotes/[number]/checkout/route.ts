@@ -3,7 +3,7 @@ import { getCheckoutState } from "@/db/queries/payments";
 import { withShopApi } from "@/lib/auth/guards";
 import { maySee, reads } from "@/lib/auth/ownership";
 import { jsonError } from "@/lib/http/json-error";
-import { readJsonBody } from "@/lib/http/read-json";
+import { readJsonAs } from "@/lib/http/read-json";
 import { openCheckout } from "@/lib/payments/checkout";
 import { moneyString } from "@/lib/pricing";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
@@ -23,16 +23,9 @@ const STATUS = { "not-found": 404, conflict: 409, invalid: 400, forbidden: 403, 
 export async function POST(request: Request, { params }: Params) {
   const { shop, number } = await params;
   return withShopApi(request, shop, "quote:accept", async (ctx) => {
-    const body = await readJsonBody(request, 16 * 1024);
-    if (!body.ok) return body.response;
-    const parsed = checkoutRequestSchema.safeParse(body.value);
-    if (!parsed.success)
-      return jsonError(
-        400,
-        "Invalid body.",
-        parsed.error.issues.map((i) => ({ path: i.path.join("."), message: i.message })),
-      );
-    const r = await openCheckout(ctx, { ...parsed.data, number });
+    const parsed = await readJsonAs(request, checkoutRequestSchema, 16 * 1024);
+    if (!parsed.ok) return parsed.response;
+    const r = await openCheckout(ctx, { ...parsed.value, number });
     if (!r.ok)
       return jsonError(
         STATUS[r.code],
