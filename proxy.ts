@@ -11,7 +11,8 @@ const plain = (status: number, message: string) => new NextResponse(message, { s
  * 0x00 in text, so it could only ever end in an error deeper down); refuses a server-action call
  * from another site (403) or with a body Next.js could not decode (400) instead of letting it end
  * in a 500; and gives every page a Content-Security-Policy with a nonce of its own (Next.js reads
- * it from the request header and puts it on its scripts). Static security headers for all
+ * it from the request header and puts it on its scripts), and tells the pages which path was asked
+ * for (`x-request-path`). Static security headers for all
  * responses are in next.config.ts.
  */
 export async function proxy(request: NextRequest) {
@@ -37,6 +38,8 @@ export async function proxy(request: NextRequest) {
   });
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set("x-nonce", nonce);
+  // the path asked for, so a layout that sends a signed-out visitor to sign in can bring them back to it
+  requestHeaders.set("x-request-path", request.nextUrl.pathname + request.nextUrl.search);
   requestHeaders.set("Content-Security-Policy", policy);
   const response = NextResponse.next({ request: { headers: requestHeaders } });
   response.headers.set("Content-Security-Policy", policy);

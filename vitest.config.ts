@@ -30,6 +30,18 @@ export default defineConfig({
           hookTimeout: 60_000,
         },
       },
+      {
+        // two production servers behind haproxy, started by scripts/test.mjs (CLUSTER_URL)
+        extends: true,
+        test: {
+          name: "cluster",
+          include: ["tests/cluster/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
+        },
+      },
     ],
   },
 });

@@ -3,7 +3,7 @@ import Link from "next/link";
 /** Shown (with HTTP 403) when a signed-in person asks for a page their role may not see. */
 export default function Forbidden() {
   return (
-    <main className="mx-auto max-w-lg px-4 py-20 text-center">
+    <main id="main" className="mx-auto max-w-lg px-4 py-20 text-center">
       <p className="text-sm font-semibold uppercase tracking-wide text-copper-600">Not allowed</p>
       <h1 className="mt-2 text-2xl font-semibold">This page is not open to your role</h1>
       <p className="mt-3 text-sm text-ink-600">

@@ -37,6 +37,12 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
       <body className="min-h-screen font-sans">
+        <a
+          href="#main"
+          className="sr-only rounded-md bg-white px-4 py-2 text-sm font-medium text-ink-900 shadow focus:not-sr-only focus:fixed focus:left-3 focus:top-3 focus:z-50"
+        >
+          Skip to content
+        </a>
         <BrowserZod />
         {children}
       </body>

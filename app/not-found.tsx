@@ -2,7 +2,7 @@ import Link from "next/link";
 
 export default function NotFound() {
   return (
-    <main className="mx-auto max-w-lg px-4 py-20 text-center">
+    <main id="main" className="mx-auto max-w-lg px-4 py-20 text-center">
       <p className="text-sm font-semibold uppercase tracking-wide text-copper-600">Not found</p>
       <h1 className="mt-2 text-2xl font-semibold">There is nothing at this address</h1>
       <p className="mt-3 text-sm text-ink-600">The shop or page may have moved, or the link may be mistyped.</p>

@@ -59,6 +59,12 @@ const schema = z.object({
   PAYMENTS_WORKER: z.enum(["on", "off"]).default("on"),
   MAIL_INBOX_URL: z.string().url().default("http://127.0.0.1:1080"),
   UPLOAD_DIR: z.string().default(".data/uploads"),
+  /** uploads one person may make per 10 minutes, and a shop's people together per hour */
+  UPLOAD_RATE_PER_USER: z.coerce.number().int().positive().default(30),
+  UPLOAD_RATE_PER_SHOP: z.coerce.number().int().positive().default(600),
+  /** stored attachment bytes one person may hold in a shop, and a shop in all (MB: 1,048,576 bytes) */
+  UPLOAD_USER_QUOTA_MB: z.coerce.number().positive().default(500),
+  UPLOAD_SHOP_QUOTA_MB: z.coerce.number().positive().default(20_480),
   /**
    * Stripe. The defaults point at the local stand-in (dev/stripe-standin) with its fixed test key
    * and webhook secret, which guard nothing real (the stand-in runs on loopback only). For the

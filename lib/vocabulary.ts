@@ -38,9 +38,45 @@ export const FAULT_FILTER_LABELS: Record<FaultFilter, string> = {
 export const ROLE_LABELS: Record<Role, string> = { manager: "Manager", estimator: "Estimator", customer: "Customer" };
 export const ROLE_PLURALS: Record<Role, string> = { manager: "Managers", estimator: "Estimators", customer: "Customers" };
 
-export const QUOTE_STATUSES = ["issued", "accepted", "expired", "withdrawn"] as const;
+/**
+ * The states of a quote revision (lib/quoting/quote-states.ts says which moves join them). A quote's
+ * own status is its latest revision's. "withdrawn" is the shop taking back a sent revision.
+ */
+export const QUOTE_STATUSES = ["draft", "sent", "accepted", "declined", "expired", "superseded", "withdrawn"] as const;
 export type QuoteStatus = (typeof QUOTE_STATUSES)[number];
-export const QUOTE_STATUS_LABELS: Record<QuoteStatus, string> = { issued: "Issued", accepted: "Accepted", expired: "Expired", withdrawn: "Withdrawn" };
+export const QUOTE_STATUS_LABELS: Record<QuoteStatus, string> = {
+  draft: "Draft",
+  sent: "Sent",
+  accepted: "Accepted",
+  declined: "Declined",
+  expired: "Expired",
+  superseded: "Superseded",
+  withdrawn: "Withdrawn",
+};
+/** The states a quote itself can be in (its latest issued revision's): drafts are not quotes yet and a latest revision is never superseded. */
+export const QUOTE_LIST_STATUSES = ["sent", "accepted", "declined", "expired", "withdrawn"] as const satisfies readonly QuoteStatus[];
+
+/** What a message in a quote's thread is: a plain message, a customer's request for a change, or a note the shop issued with a revision. */
+export const QUOTE_MESSAGE_KINDS = ["message", "change-request", "decline", "revision-note", "withdrawal"] as const;
+export type QuoteMessageKind = (typeof QUOTE_MESSAGE_KINDS)[number];
+export const QUOTE_MESSAGE_KIND_LABELS: Record<QuoteMessageKind, string> = {
+  message: "Message",
+  "change-request": "Change asked for",
+  decline: "Declined",
+  "revision-note": "With the new revision",
+  withdrawal: "Withdrawn by the shop",
+};
+
+/** Lines an estimator may add to a quote beside the bank itself. */
+export const EXTRA_LINE_KINDS = ["enclosure", "discharge-circuit", "engineering", "freight", "other"] as const;
+export type ExtraLineKind = (typeof EXTRA_LINE_KINDS)[number];
+export const EXTRA_LINE_LABELS: Record<ExtraLineKind, string> = {
+  enclosure: "Enclosure",
+  "discharge-circuit": "Switched discharge circuit",
+  engineering: "Engineering hours",
+  freight: "Freight",
+  other: "Other",
+};
 
 export const REQUEST_STATUSES = ["quoted", "needs-review", "closed"] as const;
 export type RequestStatus = (typeof REQUEST_STATUSES)[number];
@@ -177,4 +213,16 @@ export function describeRequirement(r: Requirement): string {
 /** A requirement as labelled rows (the quote page and its PDF). */
 export function requirementFacts(r: Requirement): LabelledValue[] {
   return requirementParts(r).map(({ label, value }) => ({ label, value }));
+}
+
+/**
+ * A "no arrangement" reason from the engine in the product's words: its leading technology key
+ * ("edlc: …") becomes the technology's name, and whole numbers of five or more digits are grouped
+ * ("20000 cells" → "20,000 cells"), as figures are everywhere else.
+ */
+export function reasonWords(reason: string): string {
+  const m = /^([a-z-]+): /.exec(reason);
+  const tech = m?.[1] as Technology | undefined;
+  const body = tech && tech in TECHNOLOGY_LABELS ? `${TECHNOLOGY_LABELS[tech]}: ${reason.slice(m?.[0].length ?? 0)}` : reason;
+  return body.replace(/(?<![\d.,])\d{5,}(?![\d.,])/g, (n) => Number(n).toLocaleString("en-GB"));
 }

@@ -1,18 +1,21 @@
 // `npm run db:backup`: a pg_dump of the database in PostgreSQL's custom format (compressed, for
 // pg_restore) into .data/backups/faradsmith-<database>-<UTC time>.dump, readable by its owner only.
-// The database is DATABASE_URL when set, otherwise the one `npm start` uses (its cluster is
-// started for the dump if it is not running, and stopped again). BACKUP_DIR moves the folder.
+// The database is MIGRATION_DATABASE_URL (or DATABASE_URL) when set, otherwise the one `npm start`
+// uses (its cluster is started for the dump if it is not running, and stopped again). It is read as
+// the tables' owner, which bypasses row-level security: the app's role would see no shop's rows.
+// BACKUP_DIR moves the folder.
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
-import { ensurePostgres, log, pgBin, root } from "./services.mjs";
+import { databaseUrls, ensurePostgres, log, pgBin, root } from "./services.mjs";
 
 const dir = process.env.BACKUP_DIR ?? path.join(root, ".data", "backups");
-let url = process.env.DATABASE_URL;
+let url = process.env.MIGRATION_DATABASE_URL ?? process.env.DATABASE_URL;
 let cluster = null;
 if (!url) {
-  cluster = await ensurePostgres({ name: "pg", port: Number(process.env.START_PG_PORT ?? 54329) });
-  url = `postgres://faradsmith@127.0.0.1:${Number(process.env.START_PG_PORT ?? 54329)}/faradsmith`;
+  const port = Number(process.env.START_PG_PORT ?? 54329);
+  cluster = await ensurePostgres({ name: "pg", port });
+  url = databaseUrls(port, "faradsmith").ownerUrl;
 }
 
 try {
@@ -23,9 +26,21 @@ try {
   const partial = `${file}.partial`;
   // the dump holds password hashes and customers' data: owner-only from the first byte
   fs.closeSync(fs.openSync(partial, "w", 0o600));
-  const r = spawnSync(path.join(pgBin(), "pg_dump"), ["--format=custom", "--no-owner", "--no-privileges", `--file=${partial}`, `--dbname=${url}`], {
-    stdio: "inherit",
-  });
+  const r = spawnSync(
+    path.join(pgBin(), "pg_dump"),
+    [
+      "--format=custom",
+      "--no-owner",
+      "--no-privileges",
+      // the job queue is rebuilt on restore: waiting e-mails are queued again from the outbox
+      "--exclude-schema=pgboss",
+      `--file=${partial}`,
+      `--dbname=${url}`,
+    ],
+    {
+      stdio: "inherit",
+    },
+  );
   if (r.status !== 0) {
     fs.rmSync(partial, { force: true });
     log("pg_dump failed; no backup written");

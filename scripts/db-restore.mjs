@@ -5,13 +5,16 @@
 //                <name>_replaced_<time> until you drop it (stop the app first: a database in use
 //                cannot be renamed);
 //   neither      into the configured database only when it holds no tables yet.
-// The configured database is DATABASE_URL, or the one `npm start` uses. A restore runs in one
-// transaction into a database nobody uses yet, so one that fails part-way changes nothing.
+// The configured database is MIGRATION_DATABASE_URL (or DATABASE_URL), or the one `npm start` uses;
+// the restore runs as that URL's role, the tables' owner. Afterwards the app's role (DATABASE_URL's
+// role when both are set, otherwise faradsmith_app) gets its rights on the restored database again
+// (db/prepare.ts). A restore runs in one transaction into a database nobody uses yet, so one that
+// fails part-way changes nothing.
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import pg from "pg";
-import { ensurePostgres, log, pgBin } from "./services.mjs";
+import { APP_ROLE, databaseUrls, ensurePostgres, log, pgBin, root } from "./services.mjs";
 
 const args = process.argv.slice(2);
 const force = args.includes("--force");
@@ -43,12 +46,24 @@ async function query(databaseUrl, sql, params = []) {
     await client.end();
   }
 }
-let url = process.env.DATABASE_URL;
-const withDatabase = (name) => {
+let url = process.env.MIGRATION_DATABASE_URL ?? process.env.DATABASE_URL;
+const appRole = process.env.MIGRATION_DATABASE_URL && process.env.DATABASE_URL ? new URL(process.env.DATABASE_URL).username : APP_ROLE;
+const withDatabase = (name, user) => {
   const u = new URL(url);
   u.pathname = `/${name}`;
+  if (user) u.username = user;
   return u.toString();
 };
+
+/** Migrations the backup predates, and the app role's rights (restored without privileges). */
+function prepareFor(database) {
+  const r = spawnSync(path.join(root, "node_modules", ".bin", "tsx"), ["scripts/db.ts", "migrate"], {
+    cwd: root,
+    stdio: "inherit",
+    env: { ...process.env, MIGRATION_DATABASE_URL: withDatabase(database), DATABASE_URL: withDatabase(database, appRole) },
+  });
+  if (r.status !== 0) log(`the restore is in place, but preparing it for the app failed; run: npm run db:migrate`);
+}
 
 let cluster = null;
 try {
@@ -56,7 +71,7 @@ try {
   if (!url) {
     const port = Number(process.env.START_PG_PORT ?? 54329);
     cluster = await ensurePostgres({ name: "pg", port });
-    url = `postgres://faradsmith@127.0.0.1:${port}/faradsmith`;
+    url = databaseUrls(port, "faradsmith").ownerUrl;
   }
   const restoreArgs = ["--no-owner", "--no-privileges", "--single-transaction", "--exit-on-error"];
   const name = decodeURIComponent(new URL(url).pathname.slice(1));
@@ -95,6 +110,7 @@ try {
     if (n > 0) log(`the data it replaced is kept as ${replaced}; drop it when you no longer need it: DROP DATABASE "${replaced}"`);
     else await query(withDatabase("postgres"), `DROP DATABASE "${replaced}"`);
   }
+  prepareFor(decodeURIComponent(new URL(target).pathname.slice(1)));
   const tables = await query(target, "SELECT count(*)::int AS n FROM information_schema.tables WHERE table_schema = 'public'");
   log(`restored ${path.basename(file)} into ${decodeURIComponent(new URL(target).pathname.slice(1))} (${tables[0].n} tables)`);
 } catch (error) {

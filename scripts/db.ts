@@ -1,30 +1,29 @@
 /**
- * Database chores for the start and test commands: `migrate` applies the committed SQL
- * migrations with Drizzle's migrator; `setup` migrates and loads the demo data when the database
- * is empty; `reset` empties every table and loads the demo data again (tests only).
+ * Database chores for the start and test commands, run as the migration role
+ * (MIGRATION_DATABASE_URL, the tables' owner; DATABASE_URL when it is not set): `migrate` applies
+ * the committed SQL migrations and prepares the app's role (DATABASE_URL) for them
+ * (db/prepare.ts); `setup` does that and loads the demo data when the database is empty; `reset`
+ * empties every table and loads the demo data again (tests only).
  */
-import path from "node:path";
 import { sql } from "drizzle-orm";
-import { migrate } from "drizzle-orm/node-postgres/migrator";
 import { createDb } from "../db/client";
+import { prepareDatabase } from "../db/prepare";
 import { isDatabaseEmpty, seedDemo } from "../db/seed";
 
-const url = process.env.DATABASE_URL;
-if (!url) throw new Error("DATABASE_URL is not set");
+const appUrl = process.env.DATABASE_URL;
+if (!appUrl) throw new Error("DATABASE_URL is not set");
+const ownerUrl = process.env.MIGRATION_DATABASE_URL ?? appUrl;
 
 async function main() {
   const command = process.argv[2] ?? "setup";
-  const { db, pool } = createDb(url!, 2);
+  await prepareDatabase({ ownerUrl, appUrl: appUrl! });
+  if (command !== "setup" && command !== "reset") return;
+  const { db, pool } = createDb(ownerUrl, 2);
   try {
-    await migrate(db, { migrationsFolder: path.join(process.cwd(), "drizzle") });
-    if (command === "reset") {
-      await db.execute(sql`TRUNCATE shops, users, verifications RESTART IDENTITY CASCADE`);
-    }
-    if (command === "setup" || command === "reset") {
-      if (await isDatabaseEmpty(db)) {
-        await seedDemo(db);
-        console.log("[faradsmith] demo data loaded");
-      }
+    if (command === "reset") await db.execute(sql`TRUNCATE shops, users, verifications RESTART IDENTITY CASCADE`);
+    if (await isDatabaseEmpty(db)) {
+      await seedDemo(db);
+      console.log("[faradsmith] demo data loaded");
     }
   } finally {
     await pool.end();

@@ -90,8 +90,9 @@ export async function waitForPort(port, label, timeoutMs = 60_000) {
 }
 
 /**
- * Starts (or reuses) a project-local PostgreSQL cluster on 127.0.0.1:port with a `faradsmith`
- * role that may create databases. Returns a stop function that stops it only if we started it.
+ * Starts (or reuses) a project-local PostgreSQL cluster on 127.0.0.1:port with the migration role
+ * (`faradsmith`, may create databases) and the app's role (`faradsmith_app`). Returns a stop
+ * function that stops it only if we started it.
  */
 export async function ensurePostgres({ name, port, fast = false }) {
   const bin = pgBin();
@@ -119,22 +120,57 @@ export async function ensurePostgres({ name, port, fast = false }) {
   await waitForPort(port, "PostgreSQL");
   const psql = (sql, db = "postgres") =>
     run("psql", ["-h", "127.0.0.1", "-p", String(port), "-U", "postgres", "-d", db, "-v", "ON_ERROR_STOP=1", "-tAc", sql], { quiet: true });
-  const hasRole = psql("SELECT 1 FROM pg_roles WHERE rolname = 'faradsmith'").stdout.trim() === "1";
-  if (!hasRole) psql("CREATE ROLE faradsmith LOGIN CREATEDB");
+  ensureRoles(psql);
   return {
     dir,
     psql,
+    /** Creates (or recreates) a database owned by the migration role; answers both roles' URLs for it. */
     async ensureDatabase(db, { recreate = false } = {}) {
       const exists = psql(`SELECT 1 FROM pg_database WHERE datname = '${db}'`).stdout.trim() === "1";
       if (exists && recreate) psql(`DROP DATABASE "${db}" WITH (FORCE)`);
-      if (!exists || recreate) psql(`CREATE DATABASE "${db}" OWNER faradsmith`);
-      return `postgres://faradsmith@127.0.0.1:${port}/${db}`;
+      if (!exists || recreate) psql(`CREATE DATABASE "${db}" OWNER ${OWNER_ROLE}`);
+      return databaseUrls(port, db);
     },
     stop() {
       if (!started) return;
       asPostgres([path.join(bin, "pg_ctl"), "-D", dir, "-m", "fast", "stop"], { quiet: true, allowFail: true });
     },
   };
+}
+
+/**
+ * The two database roles (README, "Database roles"): the migration role owns the tables, runs
+ * migrations, the demo data and backups, and bypasses row-level security; the app's role reads and
+ * writes rows only, under the policies. Local clusters trust loopback connections (no passwords).
+ */
+export const OWNER_ROLE = "faradsmith";
+export const APP_ROLE = "faradsmith_app";
+
+function ensureRoles(psql) {
+  const has = (role) => psql(`SELECT 1 FROM pg_roles WHERE rolname = '${role}'`).stdout.trim() === "1";
+  if (!has(OWNER_ROLE)) psql(`CREATE ROLE ${OWNER_ROLE} LOGIN CREATEDB BYPASSRLS`);
+  else psql(`ALTER ROLE ${OWNER_ROLE} LOGIN CREATEDB BYPASSRLS`);
+  if (!has(APP_ROLE)) psql(`CREATE ROLE ${APP_ROLE} LOGIN NOSUPERUSER NOCREATEDB NOCREATEROLE NOBYPASSRLS`);
+}
+
+/** `{ appUrl, ownerUrl }` for a database on the local cluster. */
+export function databaseUrls(port, db) {
+  return { appUrl: `postgres://${APP_ROLE}@127.0.0.1:${port}/${db}`, ownerUrl: `postgres://${OWNER_ROLE}@127.0.0.1:${port}/${db}` };
+}
+
+/**
+ * Restarts a cluster this machine runs (`pg_ctl restart -m fast`: open connections are cut, the
+ * server comes back with the same options); for the fault tests. Resolves when it accepts
+ * connections again.
+ */
+export function restartPostgres(dir) {
+  const args = [path.join(pgBin(), "pg_ctl"), "-D", dir, "-m", "fast", "-w", "-t", "60", "restart"];
+  const [cmd, ...rest] = isRoot ? ["runuser", "-u", "postgres", "--", ...args] : args;
+  return new Promise((resolve, reject) => {
+    const child = spawn(cmd, rest, { stdio: "ignore" });
+    child.once("error", reject);
+    child.once("exit", (code) => (code === 0 ? resolve() : reject(new Error(`pg_ctl restart exited with ${code}`))));
+  });
 }
 
 const children = new Set();

@@ -1,7 +1,9 @@
 // `npm start`: installs what is missing, starts PostgreSQL and the mail stand-in on loopback,
 // migrates, loads the demo data into an empty database, builds and serves the app on
 // http://127.0.0.1:3000. `npm run dev` does the same with hot reload instead of a build.
-// Ctrl-C stops everything this command started.
+// `npm run cluster` (--cluster) serves it from two production servers behind haproxy on the same
+// address (the servers on PORT+10 and PORT+11, or CLUSTER_APP_PORTS). Ctrl-C stops everything this
+// command started.
 import { spawnSync } from "node:child_process";
 import path from "node:path";
 import {
@@ -21,6 +23,7 @@ import {
 } from "./services.mjs";
 
 const dev = process.argv.includes("--dev");
+const cluster = process.argv.includes("--cluster");
 const PORT = Number(process.env.PORT ?? 3000);
 // Ports can be moved (two checkouts on one machine); the defaults are the README's.
 const PG_PORT = Number(process.env.START_PG_PORT ?? 54329);
@@ -33,11 +36,12 @@ if (await portOpen(PORT)) {
   process.exit(1);
 }
 
-ensureDebianPackages(["postgresql"]);
+ensureDebianPackages(cluster ? ["postgresql", "haproxy"] : ["postgresql"]);
 ensureNpmPackages();
 
 const pg = await ensurePostgres({ name: "pg", port: PG_PORT });
-const databaseUrl = await pg.ensureDatabase("faradsmith");
+// the app connects as a role under row-level security; migrations run as the tables' owner
+const { appUrl: databaseUrl, ownerUrl } = await pg.ensureDatabase("faradsmith");
 const appUrl = `http://127.0.0.1:${PORT}`;
 const env = {
   ...process.env,
@@ -71,9 +75,9 @@ process.on("SIGINT", () => shutdown(0));
 process.on("SIGTERM", () => shutdown(0));
 
 const bin = (name) => path.join(root, "node_modules", ".bin", name);
-const step = (label, cmd, args) => {
+const step = (label, cmd, args, extraEnv = {}) => {
   log(label);
-  const r = spawnSync(cmd, args, { cwd: root, env, stdio: "inherit" });
+  const r = spawnSync(cmd, args, { cwd: root, env: { ...env, ...extraEnv }, stdio: "inherit" });
   if (r.status !== 0) {
     log(`${label} failed`);
     shutdown(1);
@@ -82,13 +86,23 @@ const step = (label, cmd, args) => {
   return true;
 };
 
-if (step("applying migrations and demo data", bin("tsx"), ["scripts/db.ts", "setup"])) {
+// only this step holds the owner's URL; the app's processes never see it
+if (step("applying migrations and demo data", bin("tsx"), ["scripts/db.ts", "setup"], { MIGRATION_DATABASE_URL: ownerUrl })) {
   await startMaildev({ smtpPort: SMTP_PORT, webPort: INBOX_PORT, name: "maildev" });
   await startStripeStandin({ apiBase: env.STRIPE_API_BASE, webhookUrl: `${appUrl}/api/webhooks/stripe`, env });
   if (dev) {
     spawnService("next dev", bin("next"), ["dev", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
   } else if (step("building the app", bin("next"), ["build"])) {
-    spawnService("next start", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
+    if (cluster) {
+      const appPorts = (process.env.CLUSTER_APP_PORTS ?? `${PORT + 10},${PORT + 11}`).split(",").map(Number);
+      const { startCluster } = await import("./cluster.mjs");
+      await startCluster({ env, lbPort: PORT, appPorts }).catch((error) => {
+        log(`the servers did not start: ${error.message}`);
+        shutdown(1);
+      });
+    } else {
+      spawnService("next start", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(PORT)], { env, onExit: () => shutdown(0) });
+    }
   }
   if (!shuttingDown) {
     await waitForPort(PORT, "the app", 180_000);

@@ -46,7 +46,7 @@ export default async function LandingPage() {
         </div>
       </header>
 
-      <main className="mx-auto max-w-6xl space-y-12 px-4 py-12">
+      <main id="main" className="mx-auto max-w-6xl space-y-12 px-4 py-12">
         <section aria-labelledby="how" className="grid gap-6 md:grid-cols-3">
           <h2 id="how" className="sr-only">
             How it works

@@ -236,7 +236,7 @@ export function BankDiagram(props: BankDiagramProps) {
 
   return (
     <figure className={props.className}>
-      <div className="relative overflow-x-auto">
+      <div className="scroll-cue relative" role="region" aria-label="Bank diagram (scrolls sideways on a narrow screen)" tabIndex={0}>
         <svg
           role="img"
           aria-label={description}

@@ -1,4 +1,5 @@
 "use client";
+import { useId } from "react";
 import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { chargingVoltages, type CurveOption } from "@/lib/bank";
 import { formatQuantity } from "@/lib/quantities";
@@ -24,9 +25,12 @@ export function CellVoltageChart({
   const { ratedVoltage, surgeVoltage } = option.cell;
   const top = Math.max(surgeVoltage, option.worstCellVoltage) * 1.1;
   const balanced = v.balanced;
+  const id = useId();
   return (
-    <figure>
-      <figcaption className="text-sm font-medium text-ink-800">Worst-case cell voltage while charging to {formatQuantity(maxVoltage, "V")}</figcaption>
+    <figure aria-labelledby={`${id}-name`}>
+      <figcaption id={`${id}-name`} className="text-sm font-medium text-ink-800">
+        Worst-case cell voltage while charging to {formatQuantity(maxVoltage, "V")}
+      </figcaption>
       <p className="mt-1 flex flex-wrap gap-x-4 text-xs text-ink-600">
         <span>
           <span aria-hidden="true" style={{ color: C.hazard }}>
@@ -41,9 +45,9 @@ export function CellVoltageChart({
           surge {formatQuantity(surgeVoltage, "V")}
         </span>
       </p>
-      <div className="mt-2 h-56 w-full" data-testid="cell-voltage-chart">
+      <div className="mt-2 h-56 w-full" data-testid="cell-voltage-chart" role="img" aria-labelledby={`${id}-name`} aria-describedby={`${id}-summary`}>
         <ResponsiveContainer width="100%" height="100%">
-          <BarChart data={bars} margin={{ top: 8, right: 16, bottom: 16, left: 0 }}>
+          <BarChart accessibilityLayer={false} data={bars} margin={{ top: 8, right: 16, bottom: 16, left: 0 }}>
             <CartesianGrid stroke={C.grid} vertical={false} />
             <XAxis dataKey="position" tick={{ fontSize: 11 }} label={{ value: "series position", position: "insideBottom", offset: -8, fontSize: 11 }} />
             <YAxis domain={[0, Number(top.toPrecision(2))]} tick={{ fontSize: 11 }} width={44} unit=" V" />
@@ -58,7 +62,7 @@ export function CellVoltageChart({
           </BarChart>
         </ResponsiveContainer>
       </div>
-      <p className="mt-1 text-xs text-ink-600">
+      <p id={`${id}-summary`} className="mt-1 text-xs text-ink-600">
         Position 1 is the weakest (lowest capacitance within the matching tolerance): it reaches {formatQuantity(option.worstCellVoltage, "V")}; the others{" "}
         {v.others !== null ? formatQuantity(v.others, "V") : ""} (perfectly balanced: {formatQuantity(balanced, "V")}).
         {option.seriesCount > MAX_BARS ? ` Positions ${MAX_BARS + 1}–${option.seriesCount} are the same as position ${MAX_BARS}.` : ""}

@@ -1,4 +1,5 @@
 "use client";
+import { useId } from "react";
 import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { dischargeCurve, type CurveOption, type Requirement } from "@/lib/bank";
 import { formatDuration, formatQuantity } from "@/lib/quantities";
@@ -23,6 +24,7 @@ function titleOf(kind: "constant-power" | "constant-current" | "resistive", requ
  * figures), with V_min (and V_safe, the backup time) marked.
  */
 export function DischargeChart({ option, requirement, safeVoltage }: { option: CurveOption; requirement: Requirement; safeVoltage: number }) {
+  const id = useId();
   const curve = dischargeCurve(option, requirement, safeVoltage);
   if (!curve) return <p className="text-sm text-ink-600">No discharge path to chart for this option.</p>;
   const title = titleOf(curve.kind, requirement, option.discharge.bleeder !== null);
@@ -33,11 +35,13 @@ export function DischargeChart({ option, requirement, safeVoltage }: { option: C
   // the safe voltage matters after switch-off, when the bank starts above it
   const showSafe = curve.kind === "resistive" && safeVoltage < requirement.maxVoltage;
   return (
-    <figure>
-      <figcaption className="text-sm font-medium text-ink-800">{title}</figcaption>
-      <div className="mt-2 h-56 w-full" data-testid="discharge-chart">
+    <figure aria-labelledby={`${id}-name`}>
+      <figcaption id={`${id}-name`} className="text-sm font-medium text-ink-800">
+        {title}
+      </figcaption>
+      <div className="mt-2 h-56 w-full" data-testid="discharge-chart" role="img" aria-labelledby={`${id}-name`} aria-describedby={`${id}-summary`}>
         <ResponsiveContainer width="100%" height="100%">
-          <LineChart data={data} margin={{ top: 8, right: 56, bottom: 16, left: 0 }}>
+          <LineChart accessibilityLayer={false} data={data} margin={{ top: 8, right: 56, bottom: 16, left: 0 }}>
             <CartesianGrid stroke={C.grid} />
             <XAxis
               dataKey="t"
@@ -93,7 +97,7 @@ export function DischargeChart({ option, requirement, safeVoltage }: { option: C
           </LineChart>
         </ResponsiveContainer>
       </div>
-      <p className="mt-1 text-xs text-ink-600">
+      <p id={`${id}-summary`} className="mt-1 text-xs text-ink-600">
         {curve.kind === "resistive" && option.handling?.floorVoltage
           ? `Switched off, the balancing resistors take the bank to ${formatQuantity(curve.points.at(-1)?.v ?? 0, "V")}, the lowest its hybrid cells may go (below it they are damaged), after ${formatDuration(curve.seconds)} with the upper-tolerance capacitance${option.handling.standby?.seconds ? `; at the lower tolerance and with the cells' own leakage, after ${formatDuration(option.handling.standby.seconds)}` : ""}.`
           : curve.kind === "resistive"

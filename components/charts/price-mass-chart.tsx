@@ -1,5 +1,6 @@
 "use client";
-import { CartesianGrid, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis, Legend } from "recharts";
+import { useId } from "react";
+import { CartesianGrid, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis } from "recharts";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatQuantity } from "@/lib/quantities";
 import { CHART_COLORS as C } from "./colors";
@@ -22,6 +23,17 @@ interface Datum {
   price: string;
 }
 
+/** The chart in words: how many options, the price and mass spans, how many are best trade-offs. */
+function summaryOf(points: PriceMassPoint[], currency: string): string {
+  if (points.length === 0) return "No priced options to compare.";
+  const byPrice = [...points].sort((a, b) => Number(a.price) - Number(b.price));
+  const masses = points.map((p) => p.massKg);
+  const cheapest = byPrice[0] as PriceMassPoint;
+  const dearest = byPrice.at(-1) as PriceMassPoint;
+  const best = points.filter((p) => p.pareto).length;
+  return `${points.length} ${points.length === 1 ? "option" : "options"} from ${formatMoney(cheapest.price, currency)} to ${formatMoney(dearest.price, currency)} per bank, weighing ${formatQuantity(Math.min(...masses), "kg")} to ${formatQuantity(Math.max(...masses), "kg")}; ${best} of them ${best === 1 ? "is a best trade-off" : "are best trade-offs"}. The table lists each one.`;
+}
+
 /** Price per bank against mass for every priced option; the Pareto set marked, the focused one ringed. */
 export function PriceMassChart({
   points,
@@ -42,12 +54,37 @@ export function PriceMassChart({
     const id = (d as { payload?: Datum } | undefined)?.payload?.id;
     if (id && onSelect) onSelect(id);
   };
+  const id = useId();
+  const summary = summaryOf(points, currency);
   return (
-    <figure>
-      <figcaption className="text-sm font-medium text-ink-800">Price per bank against mass</figcaption>
-      <div className="mt-2 h-64 w-full" data-testid="price-mass-chart">
+    <figure aria-labelledby={`${id}-name`}>
+      <figcaption id={`${id}-name`} className="text-sm font-medium text-ink-800">
+        Price per bank against mass
+      </figcaption>
+      {/* the legend is HTML above the plot: on a phone it wraps instead of running over the axis */}
+      <ul className="mt-1 flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-600">
+        <li>
+          <span aria-hidden="true" style={{ color: C.charge }}>
+            ◆
+          </span>{" "}
+          best trade-offs (no other option is cheaper, lighter and smaller at once)
+        </li>
+        <li>
+          <span aria-hidden="true" style={{ color: C.inkLight }}>
+            ●
+          </span>{" "}
+          other options
+        </li>
+        <li>
+          <span aria-hidden="true" style={{ color: C.copper }}>
+            ★
+          </span>{" "}
+          in focus
+        </li>
+      </ul>
+      <div className="mt-2 h-64 w-full" data-testid="price-mass-chart" role="img" aria-labelledby={`${id}-name`} aria-describedby={`${id}-summary`}>
         <ResponsiveContainer width="100%" height="100%">
-          <ScatterChart margin={{ top: 8, right: 16, bottom: 16, left: 8 }}>
+          <ScatterChart accessibilityLayer={false} margin={{ top: 8, right: 16, bottom: 16, left: 8 }}>
             <CartesianGrid stroke={C.grid} />
             <XAxis
               dataKey="mass"
@@ -83,7 +120,6 @@ export function PriceMassChart({
                 );
               }}
             />
-            <Legend verticalAlign="top" height={24} wrapperStyle={{ fontSize: 11 }} />
             <Scatter
               name="Pareto set (no other option is cheaper, lighter and smaller at once)"
               data={pareto}
@@ -97,6 +133,9 @@ export function PriceMassChart({
           </ScatterChart>
         </ResponsiveContainer>
       </div>
+      <p id={`${id}-summary`} className="mt-1 text-xs text-ink-600">
+        {summary}
+      </p>
     </figure>
   );
 }

@@ -14,9 +14,9 @@ interface Datum extends RevenuePoint {
 export function RevenueChart({ points, currency }: { points: RevenuePoint[]; currency: string }) {
   const data: Datum[] = points.map((p) => ({ ...p, receivedAxis: Number(p.received), refundedAxis: Number(p.refunded) }));
   return (
-    <div className="h-64 w-full" data-testid="revenue-chart">
+    <div className="h-64 w-full" data-testid="revenue-chart" role="img" aria-label="Money received and refunded per month (the figures are in the table)">
       <ResponsiveContainer width="100%" height="100%">
-        <BarChart data={data} margin={{ top: 8, right: 8, bottom: 8, left: 8 }}>
+        <BarChart accessibilityLayer={false} data={data} margin={{ top: 8, right: 8, bottom: 8, left: 8 }}>
           <CartesianGrid stroke={C.grid} vertical={false} />
           <XAxis
             dataKey="month"

@@ -43,7 +43,7 @@ export function CheckoutProgress({ shop, number, sessionId }: { shop: string; nu
         <p className="text-sm text-ink-600">A confirmation is on its way to your inbox. You can follow every stage of the build on the order page.</p>
         <Link
           href={`/s/${shop}/orders/${data.orderNumber}`}
-          className="inline-flex rounded-md bg-copper-500 px-4 py-2 text-sm font-medium text-white hover:bg-copper-600"
+          className="inline-flex rounded-md bg-copper-600 px-4 py-2 text-sm font-medium text-white hover:bg-copper-700"
         >
           Follow order {data.orderNumber}
         </Link>

@@ -94,7 +94,7 @@ export function OrderSummary({
         </div>
         <div className="flex flex-wrap gap-2">
           {certificateHref ? (
-            <a href={certificateHref} download className="inline-flex rounded-md bg-copper-500 px-4 py-2 text-sm font-medium text-white hover:bg-copper-600">
+            <a href={certificateHref} download className="inline-flex rounded-md bg-copper-600 px-4 py-2 text-sm font-medium text-white hover:bg-copper-700">
               Download the test certificate
             </a>
           ) : null}

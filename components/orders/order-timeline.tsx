@@ -30,7 +30,7 @@ export function OrderTimeline({ status, entries, showActors }: { status: OrderSt
             key={s}
             aria-current={s === status ? "step" : undefined}
             className={`rounded-full px-2.5 py-1 text-xs font-medium ${
-              s === status ? "bg-copper-500 text-white" : reached.has(s) ? "bg-charge-100 text-charge-700" : "bg-ink-50 text-ink-400"
+              s === status ? "bg-copper-600 text-white" : reached.has(s) ? "bg-charge-100 text-charge-700" : "bg-ink-50 text-ink-600"
             }`}
           >
             {ORDER_STATUS_LABELS[s]}

@@ -78,8 +78,13 @@ export async function PaySection({
         ) : null}
       </div>
     );
-  } else if (quote.status === "withdrawn" || quote.status === "expired" || isExpired(r.validUntil, new Date())) {
-    body = <p className="text-sm text-ink-700">This quote can no longer be paid. Ask the shop for a new revision.</p>;
+  } else if ((quote.status !== "sent" && quote.status !== "accepted") || isExpired(r.validUntil, new Date())) {
+    // declined, expired, withdrawn (a latest revision is never superseded; drafts are not quotes yet)
+    body = (
+      <p className="text-sm text-ink-700" data-testid="pay-closed">
+        {quote.status === "declined" ? "You declined this quote, so it cannot be paid." : "This quote can no longer be paid."} Ask the shop for a new revision.
+      </p>
+    );
   } else {
     body = (
       <div className="space-y-3">

@@ -15,6 +15,8 @@ export function CostBuildUpPanel({ build }: { build: CostBuildUp }) {
     <section
       className="overflow-x-auto rounded-lg border-2 border-dashed border-ink-200 bg-ink-50 p-4"
       aria-labelledby="cost-title"
+      // it scrolls sideways on a phone: focusable, so a keyboard can scroll it
+      tabIndex={0}
       data-testid="cost-build-up"
     >
       <h2 id="cost-title" className="text-sm font-semibold text-ink-800">

@@ -1,6 +1,6 @@
 import { FigureRows } from "@/components/bank-depth/figure-rows";
 import { YieldHistogram } from "@/components/bank-depth/yield-histogram";
-import { NOT_RECORDED, type QuoteEngineering } from "@/lib/quoting/quote-engineering";
+import type { QuoteEngineering } from "@/lib/quoting/quote-engineering";
 import type { LabelledValue } from "@/lib/vocabulary";
 
 function Rows({ rows }: { rows: LabelledValue[] }) {
@@ -29,7 +29,7 @@ export function QuoteEngineeringSection({ e }: { e: QuoteEngineering }) {
               <li>{e.failures.open}</li>
             </ul>
           ) : (
-            <p className="mt-2 text-sm text-ink-600">One-cell failures: {NOT_RECORDED}.</p>
+            <p className="mt-2 text-sm text-ink-600">One-cell failures: {e.absent}.</p>
           )}
           <p className="mt-2 text-xs text-ink-600">At the working voltage by ideal capacitive division, without balancing, matched cells at their worst.</p>
         </section>
@@ -65,7 +65,7 @@ export function QuoteEngineeringSection({ e }: { e: QuoteEngineering }) {
               <Rows rows={e.tolerance.rows} />
             </>
           ) : (
-            <p className="mt-2 text-sm text-ink-600">Tolerance yield: {NOT_RECORDED}.</p>
+            <p className="mt-2 text-sm text-ink-600">Tolerance yield: {e.absent}.</p>
           )}
         </section>
         <section className="rounded-lg bg-white p-4 ring-1 ring-ink-100" aria-labelledby="q-handling">

@@ -5,7 +5,8 @@ import type { QuoteListRow } from "@/db/queries/quotes";
 import { formatMoney } from "@/lib/pricing";
 import type { ListState } from "@/lib/validation/list-query";
 import type { QuoteListQuery } from "@/lib/validation/lists";
-import { QUOTE_STATUS_LABELS, QUOTE_STATUSES } from "@/lib/vocabulary";
+import { QUOTE_LIST_STATUSES, QUOTE_STATUS_LABELS } from "@/lib/vocabulary";
+import { QuoteStatusBadge } from "./quote-status";
 
 /**
  * The quote list, as the desk shows every quote of the shop (with its customer) and as the
@@ -42,7 +43,7 @@ export function QuoteList({
           name: "status",
           label: "Status",
           value: q.status,
-          options: [{ value: "all", label: "All" }, ...QUOTE_STATUSES.map((s) => ({ value: s, label: QUOTE_STATUS_LABELS[s] }))],
+          options: [{ value: "all", label: "All" }, ...QUOTE_LIST_STATUSES.map((s) => ({ value: s, label: QUOTE_STATUS_LABELS[s] }))],
         },
       ]}
       columns={[
@@ -70,7 +71,10 @@ export function QuoteList({
               <span className="block text-xs text-ink-500">{r.customerEmail}</span>
             </td>
           ) : null}
-          <td className="px-3 py-2">{QUOTE_STATUS_LABELS[r.status]}</td>
+          <td className="px-3 py-2">
+            <QuoteStatusBadge status={r.status} />
+            {r.changeRequestedAt && r.status !== "accepted" ? <span className="mt-1 block text-xs font-medium text-hazard-700">Change asked for</span> : null}
+          </td>
           <td className="num px-3 py-2 text-right">{r.quantity}</td>
           <td className="num whitespace-nowrap px-3 py-2 text-right">{formatMoney(r.total, r.currency)}</td>
           <td className="num whitespace-nowrap px-3 py-2">{r.validUntil}</td>

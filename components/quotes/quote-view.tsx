@@ -1,4 +1,5 @@
 import { BankDiagram } from "@/components/bank-diagram/bank-diagram";
+import { NetworkDiagram } from "@/components/bank-diagram/network-diagram";
 import { QuoteEngineeringSection } from "./quote-engineering-section";
 import type { LabelledValue, QuoteDocument } from "@/lib/quoting/quote-document";
 import { QuotePriceLines } from "./quote-price-lines";
@@ -50,7 +51,7 @@ export function QuoteView({
           <p className="num text-3xl font-semibold text-ink-900" data-testid="quote-total">
             {doc.total}
           </p>
-          <a href={pdfHref} className="mt-2 inline-flex rounded-md bg-copper-500 px-4 py-2 text-sm font-medium text-white hover:bg-copper-600" download>
+          <a href={pdfHref} className="mt-2 inline-flex rounded-md bg-copper-600 px-4 py-2 text-sm font-medium text-white hover:bg-copper-700" download>
             Download PDF
           </a>
         </div>
@@ -67,16 +68,20 @@ export function QuoteView({
         </ul>
       </section>
 
-      <section className="overflow-x-auto rounded-lg bg-white p-4 ring-1 ring-ink-100">
+      <section className="rounded-lg bg-white p-4 ring-1 ring-ink-100">
         <h2 className="text-sm font-semibold text-ink-800">The bank</h2>
-        <BankDiagram
-          topology={o.topology}
-          seriesCount={o.seriesCount}
-          parallelCount={o.parallelCount}
-          cellLabel={o.cell.sku}
-          balancing={o.balancing}
-          bleeder={o.discharge.bleeder ? { resistance: o.discharge.bleeder.resistance, switched: o.discharge.bleeder.switched } : null}
-        />
+        {doc.design.source === "custom" ? (
+          <NetworkDiagram tree={doc.design.network} weakest={doc.design.figures.weakest.id} />
+        ) : (
+          <BankDiagram
+            topology={o.topology}
+            seriesCount={o.seriesCount}
+            parallelCount={o.parallelCount}
+            cellLabel={o.cell.sku}
+            balancing={o.balancing}
+            bleeder={o.discharge.bleeder ? { resistance: o.discharge.bleeder.resistance, switched: o.discharge.bleeder.switched } : null}
+          />
+        )}
       </section>
 
       <div className="grid gap-4 md:grid-cols-2">

@@ -1,7 +1,7 @@
 import type { ButtonHTMLAttributes } from "react";
 
 const variants = {
-  primary: "bg-copper-500 text-white hover:bg-copper-600 disabled:bg-copper-300",
+  primary: "bg-copper-600 text-white hover:bg-copper-700 disabled:bg-ink-300 disabled:text-ink-900",
   secondary: "bg-white text-ink-800 ring-1 ring-ink-200 hover:bg-ink-50 disabled:text-ink-300",
   quiet: "text-ink-700 hover:bg-ink-100",
   danger: "bg-danger-500 text-white hover:bg-danger-700",

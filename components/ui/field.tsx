@@ -31,7 +31,7 @@ export function FieldShell({ id, label, hint, error, children }: FieldShellProps
 }
 
 const inputClass = (error?: string) =>
-  `block w-full rounded-md border bg-white px-3 py-2 text-sm text-ink-900 shadow-sm placeholder:text-ink-300 ${error ? "border-danger-500" : "border-ink-200"}`;
+  `block w-full rounded-md border bg-white px-3 py-2 text-sm text-ink-900 shadow-sm placeholder:italic placeholder:text-ink-500 ${error ? "border-danger-700 ring-1 ring-danger-700" : "border-ink-200"}`;
 
 type InputProps = InputHTMLAttributes<HTMLInputElement> & { id: string; label: string; hint?: string; error?: string };
 

@@ -28,7 +28,7 @@ interface ListColumn {
   align?: "left" | "right";
 }
 
-const control = "mt-1 block rounded-md border border-ink-200 bg-white px-3 py-1.5 text-sm";
+const control = "mt-1 block max-w-full rounded-md border border-ink-200 bg-white px-3 py-1.5 text-sm";
 
 /** The filter bar: a GET form that keeps the sort and page size and starts again at page 1. */
 function FilterForm({ state, fields }: { state: ListState; fields: FilterField[] }) {
@@ -81,7 +81,7 @@ function SortHeader({ state, column, sortKey }: { state: ListState; column: List
     >
       <Link href={hrefWith(state.base, rest, { sort: sortKey, dir: nextDir })} className="inline-flex items-center gap-1 whitespace-nowrap hover:underline">
         {column.label}
-        <span aria-hidden className="text-ink-400">
+        <span aria-hidden className="text-ink-500">
           {active ? (state.dir === "asc" ? "▲" : "▼") : "↕"}
         </span>
       </Link>
@@ -104,7 +104,7 @@ function ListTable({
   children: React.ReactNode;
 }) {
   return (
-    <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-100">
+    <div className="scroll-cue rounded-lg ring-1 ring-ink-100">
       <table className="w-full text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-ink-50 text-ink-700">

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, count, desc, eq, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { emailOutbox, quoteRevisions, quotes, shops } from "@/db/schema";
-import type { Executor, Tx } from "@/db/tx";
+import { withShop, type Tx } from "@/db/tx";
 import type { OutboxListQuery } from "@/lib/validation/lists";
 import type { OutboxStatus } from "@/lib/vocabulary";
 import { containsText, ranked, readPage, sortedBy, type Page } from "./paging";
@@ -36,76 +36,81 @@ export async function listOutbox(shopId: string, q: OutboxListQuery): Promise<Pa
     q.status === "all" ? undefined : eq(emailOutbox.status, q.status),
     containsText(q.q, emailOutbox.toEmail, emailOutbox.subject),
   );
-  return readPage(
-    q,
-    () => db.select({ n: count() }).from(emailOutbox).where(where),
-    (limit, offset) =>
-      db
-        .select({
-          id: emailOutbox.id,
-          kind: emailOutbox.kind,
-          toEmail: emailOutbox.toEmail,
-          subject: emailOutbox.subject,
-          status: emailOutbox.status,
-          attempts: emailOutbox.attempts,
-          lastError: emailOutbox.lastError,
-          createdAt: emailOutbox.createdAt,
-          sentAt: emailOutbox.sentAt,
-        })
-        .from(emailOutbox)
-        .where(where)
-        .orderBy(...sortedBy(OUTBOX_SORTS, q, desc(emailOutbox.createdAt), asc(emailOutbox.id)))
-        .limit(limit)
-        .offset(offset),
+  return withShop(shopId, (tx) =>
+    readPage(
+      q,
+      () => tx.select({ n: count() }).from(emailOutbox).where(where),
+      (limit, offset) =>
+        tx
+          .select({
+            id: emailOutbox.id,
+            kind: emailOutbox.kind,
+            toEmail: emailOutbox.toEmail,
+            subject: emailOutbox.subject,
+            status: emailOutbox.status,
+            attempts: emailOutbox.attempts,
+            lastError: emailOutbox.lastError,
+            createdAt: emailOutbox.createdAt,
+            sentAt: emailOutbox.sentAt,
+          })
+          .from(emailOutbox)
+          .where(where)
+          .orderBy(...sortedBy(OUTBOX_SORTS, q, desc(emailOutbox.createdAt), asc(emailOutbox.id)))
+          .limit(limit)
+          .offset(offset),
+    ),
   );
 }
 
 export async function getOutboxRow(shopId: string, id: string) {
-  const [row] = await db
-    .select()
-    .from(emailOutbox)
-    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, id)))
-    .limit(1);
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .select()
+      .from(emailOutbox)
+      .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, id)))
+      .limit(1),
+  );
   return row ?? null;
 }
 
 /**
  * Waiting rows of every shop, oldest first, for the job queue's dispatcher. The one read across
- * shops: it runs for the queue, never for a member, and hands out only ids.
+ * shops: the database function `waiting_outbox` (drizzle/0009_row-level-security.sql) hands out
+ * only ids and shops; each row is then sent in its own shop's `withShop`.
  */
 export async function listWaitingOutboxIds(limit = 500): Promise<{ id: string; shopId: string }[]> {
-  return db
-    .select({ id: emailOutbox.id, shopId: emailOutbox.shopId })
-    .from(emailOutbox)
-    .where(eq(emailOutbox.status, "waiting"))
-    .orderBy(asc(emailOutbox.createdAt))
-    .limit(limit);
+  const rows = await db.execute<{ id: string; shop_id: string }>(sql`select id, shop_id from waiting_outbox(${limit})`);
+  return rows.rows.map((r) => ({ id: r.id, shopId: r.shop_id }));
 }
 
 /** What the "quote ready" message says, read from the frozen revision (never the live catalog). */
 export async function getQuoteReadyFacts(shopId: string, quoteRevisionId: string) {
-  const [row] = await db
-    .select({
-      shopName: shops.name,
-      shopSlug: shops.slug,
-      quoteNumber: quotes.number,
-      revision: quoteRevisions.revision,
-      currency: quoteRevisions.currency,
-      quantity: quoteRevisions.quantity,
-      total: quoteRevisions.total,
-      validUntil: quoteRevisions.validUntil,
-    })
-    .from(quoteRevisions)
-    .innerJoin(quotes, and(eq(quotes.shopId, quoteRevisions.shopId), eq(quotes.id, quoteRevisions.quoteId)))
-    .innerJoin(shops, eq(shops.id, quoteRevisions.shopId))
-    .where(and(eq(quoteRevisions.shopId, shopId), eq(quoteRevisions.id, quoteRevisionId)))
-    .limit(1);
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .select({
+        shopName: shops.name,
+        shopSlug: shops.slug,
+        quoteNumber: quotes.number,
+        revision: quoteRevisions.revision,
+        currency: quoteRevisions.currency,
+        quantity: quoteRevisions.quantity,
+        total: quoteRevisions.total,
+        validUntil: quoteRevisions.validUntil,
+      })
+      .from(quoteRevisions)
+      .innerJoin(quotes, and(eq(quotes.shopId, quoteRevisions.shopId), eq(quotes.id, quoteRevisions.quoteId)))
+      .innerJoin(shops, eq(shops.id, quoteRevisions.shopId))
+      .where(and(eq(quoteRevisions.shopId, shopId), eq(quoteRevisions.id, quoteRevisionId)))
+      .limit(1),
+  );
   return row ?? null;
 }
 
 /** How many of the shop's messages are in each state. */
 export async function countOutboxByStatus(shopId: string): Promise<Record<"waiting" | "sent" | "failed", number>> {
-  const rows = await db.select({ status: emailOutbox.status, n: count() }).from(emailOutbox).where(eq(emailOutbox.shopId, shopId)).groupBy(emailOutbox.status);
+  const rows = await withShop(shopId, (tx) =>
+    tx.select({ status: emailOutbox.status, n: count() }).from(emailOutbox).where(eq(emailOutbox.shopId, shopId)).groupBy(emailOutbox.status),
+  );
   const counts = { waiting: 0, sent: 0, failed: 0 };
   for (const r of rows) counts[r.status] = r.n;
   return counts;
@@ -118,6 +123,10 @@ export interface NewOutboxMessage {
   toEmail: string;
   subject: string;
   quoteRevisionId: string | null;
+  /** the request a "needs review" notice is about */
+  requestId?: string | null;
+  /** the thread message a "new message" notice carries */
+  quoteMessageId?: string | null;
   /** the order an order message is about */
   orderId?: string | null;
 }
@@ -152,10 +161,34 @@ export async function markOutboxSent(tx: Tx, shopId: string, outboxId: string, m
     .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId)));
 }
 
-/** Counts a failed attempt on a row that is still waiting, keeping the reason; on the last attempt marks it failed. */
-export async function recordOutboxFailure(shopId: string, outboxId: string, reason: string, final: boolean, executor: Executor = db): Promise<void> {
-  await executor
+/**
+ * Counts a failed attempt on a row that is still waiting, keeping the reason; on the last attempt
+ * marks it failed. Joins the caller's `withShop` transaction for this shop when there is one.
+ */
+export async function recordOutboxFailure(shopId: string, outboxId: string, reason: string, final: boolean): Promise<void> {
+  await withShop(shopId, (tx) =>
+    tx
+      .update(emailOutbox)
+      .set({ attempts: sql`${emailOutbox.attempts} + 1`, lastError: reason, status: final ? "failed" : "waiting", updatedAt: new Date() })
+      .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "waiting"))),
+  );
+}
+
+/**
+ * A failed row goes back to waiting, in the caller's transaction: answers what it was, or null when
+ * it is not failed (sent, waiting, gone, or another shop's). Attempts and the last reason stay.
+ */
+export async function requeueFailedOutboxRow(tx: Tx, shopId: string, outboxId: string) {
+  const [row] = await tx
     .update(emailOutbox)
-    .set({ attempts: sql`${emailOutbox.attempts} + 1`, lastError: reason, status: final ? "failed" : "waiting", updatedAt: new Date() })
-    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "waiting")));
+    .set({ status: "waiting", updatedAt: new Date() })
+    .where(and(eq(emailOutbox.shopId, shopId), eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "failed")))
+    .returning({
+      id: emailOutbox.id,
+      toEmail: emailOutbox.toEmail,
+      subject: emailOutbox.subject,
+      attempts: emailOutbox.attempts,
+      lastError: emailOutbox.lastError,
+    });
+  return row ?? null;
 }

@@ -32,6 +32,8 @@ export async function lockQuoteForCheckout(tx: Tx, shopId: string, number: strin
       validUntil: quoteRevisions.validUntil,
       pricing: quoteRevisions.pricing,
       arrangement: quoteRevisions.arrangement,
+      sheet: quoteRevisions.sheet,
+      design: quoteRevisions.design,
     })
     .from(quotes)
     .innerJoin(
@@ -307,12 +309,10 @@ export async function getQuotePaymentState(shopId: string, quoteId: string) {
  * metadata of ours (a refund made at the payment service). Serves the webhook only.
  */
 export async function findPaymentByIntent(paymentIntentId: string): Promise<{ shopId: string; paymentId: string } | null> {
-  const [row] = await db
-    .select({ shopId: payments.shopId, paymentId: payments.id })
-    .from(payments)
-    .where(eq(payments.stripePaymentIntentId, paymentIntentId))
-    .limit(1);
-  return row ?? null;
+  // a SECURITY DEFINER function (drizzle/0013_cross-shop-lookups.sql): the policies keep the app's role to one shop
+  const { rows } = await db.execute<{ shop_id: string; payment_id: string }>(sql`select shop_id, payment_id from payment_of_intent(${paymentIntentId})`);
+  const row = rows[0];
+  return row ? { shopId: row.shop_id, paymentId: row.payment_id } : null;
 }
 
 // ---- the payment service's events --------------------------------------------------------------

@@ -1,11 +1,10 @@
 import "server-only";
 import { and, asc, count, desc, eq } from "drizzle-orm";
-import { db } from "@/db";
 import { quoteLines, quoteRevisions, quotes, shops, users } from "@/db/schema";
-import type { Tx } from "@/db/tx";
+import { withShop, type Tx } from "@/db/tx";
 import type { OwnerScope } from "@/lib/auth/ownership";
-import type { PriceLine } from "@/lib/pricing";
-import type { FrozenQuote } from "@/lib/quoting/types";
+import type { PriceLine, PriceSheet } from "@/lib/pricing";
+import type { FrozenQuote, RevisionDesign } from "@/lib/quoting/types";
 import type { QuoteListQuery } from "@/lib/validation/lists";
 import type { QuoteStatus } from "@/lib/vocabulary";
 import { containsText, ranked, readPage, sortedBy, type Page } from "./paging";
@@ -22,13 +21,15 @@ export interface QuoteListRow {
   total: string;
   validUntil: string;
   createdAt: Date;
+  /** the customer asked for a change no revision has answered yet */
+  changeRequestedAt: Date | null;
 }
 
 const QUOTE_SORTS = {
   number: quotes.number,
   customer: users.name,
   // open quotes first
-  status: ranked(quotes.status, ["issued", "accepted", "expired", "withdrawn"]),
+  status: ranked(quotes.status, ["sent", "accepted", "declined", "expired", "withdrawn", "superseded", "draft"]),
   total: quoteRevisions.total,
   validUntil: quoteRevisions.validUntil,
   created: quotes.createdAt,
@@ -46,94 +47,104 @@ export async function listQuotes(shopId: string, scope: OwnerScope, q: QuoteList
     scope.all ? containsText(q.q, quotes.number, users.name, users.email) : containsText(q.q, quotes.number),
   );
   const current = and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision));
-  return readPage(
-    q,
-    () => db.select({ n: count() }).from(quotes).innerJoin(users, eq(users.id, quotes.customerUserId)).where(where),
-    (limit, offset) =>
-      db
-        .select({
-          id: quotes.id,
-          number: quotes.number,
-          status: quotes.status,
-          revision: quotes.currentRevision,
-          customerName: users.name,
-          customerEmail: users.email,
-          currency: quoteRevisions.currency,
-          quantity: quoteRevisions.quantity,
-          total: quoteRevisions.total,
-          validUntil: quoteRevisions.validUntil,
-          createdAt: quotes.createdAt,
-        })
-        .from(quotes)
-        .innerJoin(quoteRevisions, current)
-        .innerJoin(users, eq(users.id, quotes.customerUserId))
-        .where(where)
-        .orderBy(...sortedBy(QUOTE_SORTS, q, desc(quotes.number)))
-        .limit(limit)
-        .offset(offset),
+  return withShop(shopId, (tx) =>
+    readPage(
+      q,
+      () => tx.select({ n: count() }).from(quotes).innerJoin(users, eq(users.id, quotes.customerUserId)).where(where),
+      (limit, offset) =>
+        tx
+          .select({
+            id: quotes.id,
+            number: quotes.number,
+            status: quotes.status,
+            revision: quotes.currentRevision,
+            customerName: users.name,
+            customerEmail: users.email,
+            currency: quoteRevisions.currency,
+            quantity: quoteRevisions.quantity,
+            total: quoteRevisions.total,
+            validUntil: quoteRevisions.validUntil,
+            createdAt: quotes.createdAt,
+            changeRequestedAt: quotes.changeRequestedAt,
+          })
+          .from(quotes)
+          .innerJoin(quoteRevisions, current)
+          .innerJoin(users, eq(users.id, quotes.customerUserId))
+          .where(where)
+          .orderBy(...sortedBy(QUOTE_SORTS, q, desc(quotes.number)))
+          .limit(limit)
+          .offset(offset),
+    ),
   );
 }
 
 /** A quote by its number with its current revision's id; null when not in this shop. */
 export async function getQuoteByNumber(shopId: string, number: string) {
-  const [row] = await db
-    .select({
-      id: quotes.id,
-      number: quotes.number,
-      status: quotes.status,
-      customerUserId: quotes.customerUserId,
-      requestId: quotes.requestId,
-      currentRevision: quotes.currentRevision,
-      revisionId: quoteRevisions.id,
-      createdAt: quotes.createdAt,
-    })
-    .from(quotes)
-    .innerJoin(
-      quoteRevisions,
-      and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision)),
-    )
-    .where(and(eq(quotes.shopId, shopId), eq(quotes.number, number)))
-    .limit(1);
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .select({
+        id: quotes.id,
+        number: quotes.number,
+        status: quotes.status,
+        customerUserId: quotes.customerUserId,
+        requestId: quotes.requestId,
+        currentRevision: quotes.currentRevision,
+        changeRequestedAt: quotes.changeRequestedAt,
+        revisionId: quoteRevisions.id,
+        createdAt: quotes.createdAt,
+      })
+      .from(quotes)
+      .innerJoin(
+        quoteRevisions,
+        and(eq(quoteRevisions.shopId, quotes.shopId), eq(quoteRevisions.quoteId, quotes.id), eq(quoteRevisions.revision, quotes.currentRevision)),
+      )
+      .where(and(eq(quotes.shopId, shopId), eq(quotes.number, number)))
+      .limit(1),
+  );
   return row ?? null;
 }
 
 /** One frozen revision with its quote, shop, customer and lines in order; null when not in this shop. */
 export async function getRevision(shopId: string, revisionId: string) {
-  const [row] = await db
-    .select({
-      revision: quoteRevisions,
-      quoteNumber: quotes.number,
-      quoteStatus: quotes.status,
-      customerUserId: quotes.customerUserId,
-      customerName: users.name,
-      customerEmail: users.email,
-      shopName: shops.name,
-      shopSlug: shops.slug,
-    })
-    .from(quoteRevisions)
-    .innerJoin(quotes, and(eq(quotes.shopId, quoteRevisions.shopId), eq(quotes.id, quoteRevisions.quoteId)))
-    .innerJoin(users, eq(users.id, quotes.customerUserId))
-    .innerJoin(shops, eq(shops.id, quoteRevisions.shopId))
-    .where(and(eq(quoteRevisions.shopId, shopId), eq(quoteRevisions.id, revisionId)))
-    .limit(1);
-  if (!row) return null;
-  const lines = await db
-    .select()
-    .from(quoteLines)
-    .where(and(eq(quoteLines.shopId, shopId), eq(quoteLines.revisionId, revisionId)))
-    .orderBy(asc(quoteLines.position));
-  return { ...row, lines };
+  return withShop(shopId, async (tx) => {
+    const [row] = await tx
+      .select({
+        revision: quoteRevisions,
+        quoteNumber: quotes.number,
+        quoteStatus: quotes.status,
+        customerUserId: quotes.customerUserId,
+        customerName: users.name,
+        customerEmail: users.email,
+        shopName: shops.name,
+        shopSlug: shops.slug,
+      })
+      .from(quoteRevisions)
+      .innerJoin(quotes, and(eq(quotes.shopId, quoteRevisions.shopId), eq(quotes.id, quoteRevisions.quoteId)))
+      .innerJoin(users, eq(users.id, quotes.customerUserId))
+      .innerJoin(shops, eq(shops.id, quoteRevisions.shopId))
+      .where(and(eq(quoteRevisions.shopId, shopId), eq(quoteRevisions.id, revisionId)))
+      .limit(1);
+    if (!row) return null;
+    const lines = await tx
+      .select()
+      .from(quoteLines)
+      .where(and(eq(quoteLines.shopId, shopId), eq(quoteLines.revisionId, revisionId)))
+      .orderBy(asc(quoteLines.position));
+    return { ...row, lines };
+  });
 }
 
 export type RevisionWithLines = NonNullable<Awaited<ReturnType<typeof getRevision>>>;
 
 /** The quote an earlier submit with this idempotency key made in the shop, if any. */
 export async function getQuoteByIdempotencyKey(shopId: string, idempotencyKey: string) {
-  const [row] = await db
-    .select({ number: quotes.number, customerUserId: quotes.customerUserId })
-    .from(quotes)
-    .where(and(eq(quotes.shopId, shopId), eq(quotes.idempotencyKey, idempotencyKey)))
-    .limit(1);
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .select({ number: quotes.number, customerUserId: quotes.customerUserId })
+      .from(quotes)
+      .where(and(eq(quotes.shopId, shopId), eq(quotes.idempotencyKey, idempotencyKey)))
+      .limit(1),
+  );
   return row ?? null;
 }
 
@@ -161,9 +172,18 @@ export interface NewQuoteRevision {
   /** YYYY-MM-DD */
   validUntil: string;
   createdByUserId: string;
+  /** the sell prices the customer sees (lib/quoting/revision-sheet.ts) */
+  sheet: PriceSheet;
+  /** how the bank was arrived at */
+  design: RevisionDesign;
+  /** the shop's note to the customer with this revision */
+  note?: string;
 }
 
-/** Freezes a revision and its price lines (one per line of the build-up, in order); returns its id. */
+/**
+ * Freezes a revision and its price lines (one per line of the bank's build-up, in order); returns its
+ * id. The revision's totals are its sheet's: what the customer pays.
+ */
 export async function insertQuoteRevision(tx: Tx, shopId: string, r: NewQuoteRevision): Promise<string> {
   const { requirement, arrangement, cell, pricing } = r.frozen;
   const [row] = await tx
@@ -176,11 +196,14 @@ export async function insertQuoteRevision(tx: Tx, shopId: string, r: NewQuoteRev
       arrangement,
       cell,
       pricing,
-      currency: pricing.currency,
+      sheet: r.sheet,
+      design: r.design,
+      note: r.note ?? "",
+      currency: r.sheet.currency,
       quantity: pricing.quantity,
-      subtotal: pricing.subtotal,
-      tax: pricing.tax,
-      total: pricing.total,
+      subtotal: r.sheet.subtotal,
+      tax: r.sheet.tax,
+      total: r.sheet.total,
       validUntil: r.validUntil,
       createdByUserId: r.createdByUserId,
     })

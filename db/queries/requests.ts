@@ -1,8 +1,7 @@
 import "server-only";
 import { and, asc, count, desc, eq, sql } from "drizzle-orm";
-import { db } from "@/db";
 import { bankRequests, quotes, users } from "@/db/schema";
-import type { Tx } from "@/db/tx";
+import { withShop, type Tx } from "@/db/tx";
 import type { Requirement } from "@/lib/bank/types";
 import type { ChosenRecord } from "@/lib/quoting/types";
 import type { RequestListQuery } from "@/lib/validation/lists";
@@ -37,28 +36,30 @@ export async function listRequests(shopId: string, q: RequestListQuery): Promise
     q.status === "all" ? undefined : eq(bankRequests.status, q.status),
     containsText(q.q, users.name, users.email),
   );
-  const page = await readPage(
-    q,
-    () => db.select({ n: count() }).from(bankRequests).innerJoin(users, eq(users.id, bankRequests.customerUserId)).where(where),
-    (limit, offset) =>
-      db
-        .select({
-          id: bankRequests.id,
-          status: bankRequests.status,
-          customerName: users.name,
-          customerEmail: users.email,
-          requirement: bankRequests.requirement,
-          reviewReasons: bankRequests.reviewReasons,
-          quoteNumber: quotes.number,
-          createdAt: bankRequests.createdAt,
-        })
-        .from(bankRequests)
-        .innerJoin(users, eq(users.id, bankRequests.customerUserId))
-        .leftJoin(quotes, and(eq(quotes.shopId, bankRequests.shopId), eq(quotes.requestId, bankRequests.id)))
-        .where(where)
-        .orderBy(...sortedBy(REQUEST_SORTS, q, desc(bankRequests.createdAt), asc(bankRequests.id)))
-        .limit(limit)
-        .offset(offset),
+  const page = await withShop(shopId, (tx) =>
+    readPage(
+      q,
+      () => tx.select({ n: count() }).from(bankRequests).innerJoin(users, eq(users.id, bankRequests.customerUserId)).where(where),
+      (limit, offset) =>
+        tx
+          .select({
+            id: bankRequests.id,
+            status: bankRequests.status,
+            customerName: users.name,
+            customerEmail: users.email,
+            requirement: bankRequests.requirement,
+            reviewReasons: bankRequests.reviewReasons,
+            quoteNumber: quotes.number,
+            createdAt: bankRequests.createdAt,
+          })
+          .from(bankRequests)
+          .innerJoin(users, eq(users.id, bankRequests.customerUserId))
+          .leftJoin(quotes, and(eq(quotes.shopId, bankRequests.shopId), eq(quotes.requestId, bankRequests.id)))
+          .where(where)
+          .orderBy(...sortedBy(REQUEST_SORTS, q, desc(bankRequests.createdAt), asc(bankRequests.id)))
+          .limit(limit)
+          .offset(offset),
+    ),
   );
   return {
     ...page,
@@ -68,19 +69,23 @@ export async function listRequests(shopId: string, q: RequestListQuery): Promise
 
 /** Requests waiting for an estimator, counted for the desk. */
 export async function countRequestsNeedingReview(shopId: string): Promise<number> {
-  const [t] = await db
-    .select({ n: count() })
-    .from(bankRequests)
-    .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.status, "needs-review")));
+  const [t] = await withShop(shopId, (tx) =>
+    tx
+      .select({ n: count() })
+      .from(bankRequests)
+      .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.status, "needs-review"))),
+  );
   return t?.n ?? 0;
 }
 
 export async function getRequest(shopId: string, requestId: string) {
-  const [row] = await db
-    .select()
-    .from(bankRequests)
-    .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.id, requestId)))
-    .limit(1);
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .select()
+      .from(bankRequests)
+      .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.id, requestId)))
+      .limit(1),
+  );
   return row ?? null;
 }
 
@@ -107,10 +112,12 @@ export async function insertBankRequest(tx: Tx, shopId: string, r: NewBankReques
 
 /** The request an earlier submit with this idempotency key made in the shop, if any. */
 export async function getRequestByIdempotencyKey(shopId: string, idempotencyKey: string) {
-  const [row] = await db
-    .select({ id: bankRequests.id, customerUserId: bankRequests.customerUserId, status: bankRequests.status })
-    .from(bankRequests)
-    .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.idempotencyKey, idempotencyKey)))
-    .limit(1);
+  const [row] = await withShop(shopId, (tx) =>
+    tx
+      .select({ id: bankRequests.id, customerUserId: bankRequests.customerUserId, status: bankRequests.status })
+      .from(bankRequests)
+      .where(and(eq(bankRequests.shopId, shopId), eq(bankRequests.idempotencyKey, idempotencyKey)))
+      .limit(1),
+  );
   return row ?? null;
 }

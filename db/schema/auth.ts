@@ -3,7 +3,7 @@
  * plugin, which models shops. Property names are the ones better-auth expects; see
  * lib/auth/server.ts for the model-name mapping (organization → shops, member → members).
  */
-import { boolean, index, pgEnum, pgTable, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import { bigint, boolean, index, pgEnum, pgTable, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 import { ROLES } from "../../lib/auth/permissions";
 
 export const users = pgTable("users", {
@@ -77,6 +77,12 @@ export const shops = pgTable("shops", {
   logo: text(),
   metadata: text(),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  /**
+   * Moves on every change to what the arrangement search reads (cells, components, settings):
+   * database triggers bump it (drizzle/0012_catalog-version-triggers.sql), and app servers keep a loaded
+   * catalog only as long as it matches (db/queries/catalog.ts).
+   */
+  catalogVersion: bigint({ mode: "number" }).notNull().default(0),
 });
 
 export const memberRoleEnum = pgEnum("member_role", ROLES);

@@ -1,7 +1,8 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { OUTBOX_STATUSES } from "../../lib/vocabulary";
+import { quoteMessages } from "./quote-life";
 import { orders } from "./orders";
-import { quoteRevisions } from "./quotes";
+import { bankRequests, quoteRevisions } from "./quotes";
 import { shopColumn, createdAtColumn } from "./columns";
 
 export const emailStatusEnum = pgEnum("email_status", OUTBOX_STATUSES);
@@ -20,6 +21,10 @@ export const emailOutbox = pgTable(
     toEmail: text().notNull(),
     subject: text().notNull(),
     quoteRevisionId: uuid().references(() => quoteRevisions.id, { onDelete: "set null" }),
+    /** the request a "needs review" notice is about */
+    requestId: uuid().references(() => bankRequests.id, { onDelete: "set null" }),
+    /** the thread message a "new message" notice carries */
+    quoteMessageId: uuid().references(() => quoteMessages.id, { onDelete: "set null" }),
     /** the order an order message is about (confirmed, ready, shipped, delivered) */
     orderId: uuid().references(() => orders.id, { onDelete: "set null" }),
     status: emailStatusEnum().notNull().default("waiting"),

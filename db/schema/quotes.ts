@@ -1,8 +1,9 @@
 import { sql } from "drizzle-orm";
 import { date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { Requirement } from "@/lib/bank/types";
+import type { PriceSheet } from "@/lib/pricing/price-sheet";
 import type { BankPrice } from "@/lib/pricing/types";
-import type { ChosenRecord, FrozenCell, PricedOption } from "@/lib/quoting/types";
+import type { ChosenRecord, FrozenCell, PricedOption, RevisionDesign } from "@/lib/quoting/types";
 import { QUOTE_STATUSES, REQUEST_STATUSES } from "../../lib/vocabulary";
 import { shops, users } from "./auth";
 
@@ -83,8 +84,11 @@ export const quotes = pgTable(
       .notNull()
       .references(() => users.id, { onDelete: "restrict" }),
     number: text().notNull(),
-    status: quoteStatusEnum().notNull().default("issued"),
+    /** the latest revision's state (lib/quoting/quote-states.ts); each revision's own is in quote_moves */
+    status: quoteStatusEnum().notNull().default("sent"),
     currentRevision: integer().notNull().default(1),
+    /** the customer asked for a change that no revision has answered yet */
+    changeRequestedAt: timestamp({ withTimezone: true }),
     /** the client's token for one choice: a double submit finds the same quote */
     idempotencyKey: text().notNull(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -101,7 +105,10 @@ export const quotes = pgTable(
   ],
 );
 
-/** One frozen revision: arrangement, cell figures, requirement and every price. Never updated. */
+/**
+ * One frozen revision: arrangement, cell figures, requirement and every price. Never updated (a
+ * trigger refuses it); its state moves are rows in quote_moves.
+ */
 export const quoteRevisions = pgTable(
   "quote_revisions",
   {
@@ -118,8 +125,17 @@ export const quoteRevisions = pgTable(
     arrangement: jsonb().$type<PricedOption>().notNull(),
     /** the cell's catalog data at the time of the quote */
     cell: jsonb().$type<FrozenCell>().notNull(),
-    /** the full price build-up (lib/pricing BankPrice) */
+    /** the full price build-up of the bank (lib/pricing BankPrice): staff only */
     pricing: jsonb().$type<BankPrice>().notNull(),
+    /**
+     * the sell prices the customer sees: the bank line, added lines, discount, tax and total
+     * (lib/pricing/price-sheet.ts); null on revisions frozen before it was kept (revisionSheet derives it)
+     */
+    sheet: jsonb().$type<PriceSheet>(),
+    /** how the bank was arrived at, with the estimator's overrides or custom tree; null: the customer's own choice */
+    design: jsonb().$type<RevisionDesign>(),
+    /** the shop's note to the customer with this revision (what changed and why) */
+    note: text().notNull().default(""),
     currency: text().notNull(),
     quantity: integer().notNull(),
     subtotal: numeric({ precision: 16, scale: 4 }).notNull(),

@@ -34,7 +34,7 @@ export const API_TAGS = [
   { name: "Arrangements", description: "Buildable, priced arrangements from a shop's own catalog for a requirement." },
   { name: "Catalog", description: "A shop's cells: one at a time, as CSV (export, template, import with a dry run), and each cell's datasheet." },
   { name: "Pricing", description: "A shop's pricing rules: the set in force, and a new version with the reason it changes." },
-  { name: "Quotes", description: "A shop's quotes: the list and each quote's PDF." },
+  { name: "Quotes", description: "A shop's quotes: the list, asking for one, each quote's revisions as JSON, and its PDF." },
   { name: "Orders", description: "Paying for an accepted quote, and the orders it makes: their stages, history, traveler and test certificate." },
   { name: "Requests", description: "Drawings and specifications a customer attaches to a request." },
   { name: "Team", description: "The shop's members." },
@@ -86,6 +86,8 @@ export interface RouteContract<S extends z.ZodType = z.ZodType> {
     | { multipart: z.ZodObject; json?: never; text?: never }
     | { text: readonly string[]; json?: never; multipart?: never };
   ok: Success<S>;
+  /** a second success: 202, the request was taken and waits (e.g. for the shop's estimators); sent with `Response.json(body, { status: 202 })` */
+  pending?: { status: 202; description: string; json: z.ZodType };
   /** every refusal the route can give, with when it gives it */
   errors: Partial<Record<ErrorStatus, RefusalContract>>;
   examples?: readonly ApiExample[];

@@ -109,6 +109,7 @@ function responses(contract: RouteContract): ZodOpenApiResponsesObject {
           content: Object.fromEntries(ok.file.map((type) => [type, { schema: { type: "string", contentMediaType: type } }])),
         }
       : { description: ok.description };
+  if (contract.pending) out["202"] = { description: contract.pending.description, content: { "application/json": { schema: contract.pending.json } } };
   for (const [status, refusal] of withKeyRefusals(contract)) {
     out[status as "400"] = {
       description: typeof refusal === "string" ? refusal : refusal.description,

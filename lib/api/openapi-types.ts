@@ -126,14 +126,73 @@ export interface paths {
      *
      *     Needs a member's session (see Signing in), or a shop API key with the scope `quotes:read` (read quotes).
      *
-     *     **Example: Issued quotes, largest total first**
+     *     **Example: Sent quotes, largest total first**
      *
      *     ```sh
-     *     curl -s 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/quotes?status=issued&sort=total' \
+     *     curl -s 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/quotes?status=sent&sort=total' \
      *       -b cookies.txt
      *     ```
      */
     get: operations["listQuotes"];
+    put?: never;
+    /**
+     * Ask for a quote of one arrangement
+     * @description A requirement and the option chosen from it (as the arrangements endpoint lists it: cell SKU, topology, series and parallel counts) in. A signed-in customer asks for themselves; the shop's staff (or an API key with `quotes:write`) name the customer by `customerEmail`. Within the shop's auto-quote limits the quote is issued at once (201); beyond them, or when the option can no longer be priced, the request waits for the shop's estimators (202). The same `idempotencyKey` with the same body answers the same again (header `Idempotent-Replayed: true`); the key with another body is a 409. Rate-limited per client.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `quotes:write` (issue and change quotes).
+     *
+     *     **Example: A 48 V bank of 20 cells in series, for a named customer**
+     *
+     *     ```sh
+     *     curl -s -X POST 'http://127.0.0.1:3000/api/v1/shops/kestrel-bank-works/quotes' \
+     *       -b cookies.txt \
+     *       -H 'content-type: application/json' \
+     *       -d '{"requirement":{"maxVoltage":48,"minVoltage":24,"energy":20000},"choice":{"sku":"QFS-0650R27","topology":"series-of-parallel-groups","seriesCount":20,"parallelCount":1},"idempotencyKey":"erp-order-4711","customerEmail":"renske.haddow@tollmere-tramways.example"}'
+     *     ```
+     */
+    post: operations["createQuote"];
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "/api/v1/shops/{shop}/quotes/{number}": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /**
+     * A quote's latest revision
+     * @description The latest revision of the quote: arrangement (a custom bank's tree of groups and parts included), the sell-price lines, totals (the quantity break, an estimator's discount with its reason, tax), its state and the quote's, validity and every revision's state. The quote's own customer and the shop's staff (or an API key with `quotes:read`); any other member of the shop gets 404.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `quotes:read` (read quotes).
+     */
+    get: operations["getQuote"];
+    put?: never;
+    post?: never;
+    delete?: never;
+    options?: never;
+    head?: never;
+    patch?: never;
+    trace?: never;
+  };
+  "/api/v1/shops/{shop}/quotes/{number}/revisions/{n}": {
+    parameters: {
+      query?: never;
+      header?: never;
+      path?: never;
+      cookie?: never;
+    };
+    /**
+     * One revision of a quote
+     * @description Revision `n` of the quote, as it was issued (revisions never change): arrangement (a custom bank's tree of groups and parts included), the sell-price lines, totals (the quantity break, an estimator's discount with its reason, tax), its state and the quote's, validity and every revision's state. The quote's own customer and the shop's staff (or an API key with `quotes:read`); any other member of the shop gets 404.
+     *
+     *     Needs a member's session (see Signing in), or a shop API key with the scope `quotes:read` (read quotes).
+     */
+    get: operations["getQuoteRevision"];
     put?: never;
     post?: never;
     delete?: never;
@@ -1094,7 +1153,7 @@ export interface components {
         /** @example Q-2026-0001 */
         number: string;
         /** @enum {string} */
-        status: "issued" | "accepted" | "expired" | "withdrawn";
+        status: "draft" | "sent" | "accepted" | "declined" | "expired" | "superseded" | "withdrawn";
         revision: number;
         customerName: string;
         customerEmail: string;
@@ -1105,6 +1164,7 @@ export interface components {
         validUntil: string;
         /** Format: date-time */
         createdAt: string;
+        changeRequestedAt: string | null;
       }[];
       /** @description rows in the filtered set */
       total: number;
@@ -1137,6 +1197,17 @@ export interface components {
       page: number;
       size: number;
     };
+    __schema0:
+      | {
+          /** @constant */
+          kind: "cell";
+          sku: string;
+        }
+      | {
+          /** @enum {string} */
+          kind: "series" | "parallel";
+          children: components["schemas"]["__schema0"][];
+        };
   };
   responses: never;
   parameters: never;
@@ -1494,7 +1565,7 @@ export interface operations {
         /** @description search text */
         q?: string;
         /** @description default all */
-        status?: "all" | "issued" | "accepted" | "expired" | "withdrawn";
+        status?: "all" | "sent" | "accepted" | "declined" | "expired" | "withdrawn";
         /** @description default created */
         sort?: "number" | "customer" | "status" | "total" | "validUntil" | "created";
         /** @description default: the column's useful direction */
@@ -1550,6 +1621,491 @@ export interface operations {
         };
       };
       /** @description No shop has this address. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  createQuote: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+      };
+      cookie?: never;
+    };
+    requestBody: {
+      content: {
+        /**
+         * @example {
+         *       "requirement": {
+         *         "maxVoltage": 48,
+         *         "minVoltage": 24,
+         *         "energy": 20000
+         *       },
+         *       "choice": {
+         *         "sku": "QFS-0650R27",
+         *         "topology": "series-of-parallel-groups",
+         *         "seriesCount": 20,
+         *         "parallelCount": 1
+         *       },
+         *       "idempotencyKey": "erp-order-4711",
+         *       "customerEmail": "renske.haddow@tollmere-tramways.example"
+         *     }
+         */
+        "application/json": {
+          requirement: {
+            maxVoltage: number;
+            minVoltage?: number;
+            capacitance?: number;
+            energy?: number;
+            backup?: {
+              power: number;
+              seconds: number;
+            };
+            peakCurrent?: {
+              current: number;
+              maxDrop: number;
+            };
+            maxMass?: number;
+            maxVolume?: number;
+            /** @default 1 */
+            quantity?: number;
+            /** @enum {string} */
+            technology?: "edlc" | "hybrid" | "electrolytic" | "film";
+            ambientTemperature?: number;
+            rmsCurrent?: number;
+            /** @enum {string} */
+            survives?: "short" | "open" | "both";
+            minLifeYears?: number;
+            /** @enum {string} */
+            rankBy?: "price" | "life";
+          };
+          choice: {
+            sku: string;
+            /** @enum {string} */
+            topology: "series-of-parallel-groups" | "parallel-of-series-strings";
+            seriesCount: number;
+            parallelCount: number;
+          };
+          idempotencyKey: string;
+          /** Format: email */
+          customerEmail?: string;
+          /** @default  */
+          notes?: string;
+        };
+      };
+    };
+    responses: {
+      /** @description The quote was issued: its number, revision and total. */
+      201: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            number: string;
+            revision: number;
+            total: {
+              amount: string;
+              currency: string;
+            };
+          };
+        };
+      };
+      /** @description The request waits for the shop's estimators, who are e-mailed; the customer hears by e-mail. */
+      202: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            /** Format: uuid */
+            requestId: string;
+            /** @constant */
+            status: "needs-review";
+          };
+        };
+      };
+      /** @description The body is wrong, the chosen option is not among the requirement's options, or staff named no customer of this shop: `issues` names the field. */
+      400: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not a member of this shop, or the role may not do this. A customer may not name another customer. A write sent by a page of another site (Origin or Sec-Fetch-Site names another site) is refused here too. With a key: the key does not hold `quotes:write`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No shop has this address. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description This idempotency key was used with another body. */
+      409: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Too many requests from this client this minute; the Retry-After header says when to try again. With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  getQuote: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+        /** @description the quote number */
+        number: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description The latest revision. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            number: string;
+            revision: number;
+            /** @enum {string} */
+            state: "draft" | "sent" | "accepted" | "declined" | "expired" | "superseded" | "withdrawn";
+            /** @enum {string} */
+            quoteState: "draft" | "sent" | "accepted" | "declined" | "expired" | "superseded" | "withdrawn";
+            latestRevision: number;
+            issuedAt: string;
+            validUntil: string;
+            requirement: {
+              [key: string]: unknown;
+            };
+            arrangement: {
+              /** @enum {string} */
+              source: "customer-choice" | "engine" | "custom";
+              /** @enum {string} */
+              topology: "series-of-parallel-groups" | "parallel-of-series-strings";
+              seriesCount: number;
+              parallelCount: number;
+              cellCount: number;
+              cell: {
+                sku: string;
+                /** @enum {string} */
+                technology: "edlc" | "hybrid" | "electrolytic" | "film";
+                capacitance: number;
+                ratedVoltage: number;
+              };
+              capacitance: {
+                nominal: number;
+                design: number;
+              };
+              maxVoltage: number;
+              storedEnergy: number;
+              usableEnergy: number;
+              esr: {
+                new: number;
+                endOfLife: number;
+              };
+              mass: number;
+              volume: number;
+              worstCellVoltage: number;
+              leadTimeDays: number;
+              network?: components["schemas"]["__schema0"];
+            };
+            lines: {
+              code: string;
+              description: string;
+              quantity: string;
+              unit: string;
+              unitPrice: {
+                amount: string;
+                currency: string;
+              };
+              amount: {
+                amount: string;
+                currency: string;
+              };
+            }[];
+            totals: {
+              lines: {
+                amount: string;
+                currency: string;
+              };
+              quantityDiscount: {
+                amount: string;
+                currency: string;
+              };
+              discount: {
+                amount: {
+                  amount: string;
+                  currency: string;
+                };
+                reason: string;
+              } | null;
+              subtotal: {
+                amount: string;
+                currency: string;
+              };
+              tax: {
+                ratePct: string;
+                amount: {
+                  amount: string;
+                  currency: string;
+                };
+              };
+              total: {
+                amount: string;
+                currency: string;
+              };
+            };
+            cautions: string[];
+            revisions: {
+              revision: number;
+              /** @enum {string} */
+              state: "draft" | "sent" | "accepted" | "declined" | "expired" | "superseded" | "withdrawn";
+              issuedAt: string;
+            }[];
+          };
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not a member of this shop, or the role may not do this. With a key: the key does not hold `quotes:read`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, or no such quote this member may see. */
+      404: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description With a key: too many calls with this key this minute; Retry-After says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+    };
+  };
+  getQuoteRevision: {
+    parameters: {
+      query?: never;
+      header?: never;
+      path: {
+        /** @description the shop's address name, as in its storefront URL /s/{shop} */
+        shop: string;
+        /** @description the quote number */
+        number: string;
+        /** @description the revision number, from 1 */
+        n: string;
+      };
+      cookie?: never;
+    };
+    requestBody?: never;
+    responses: {
+      /** @description The revision. */
+      200: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": {
+            number: string;
+            revision: number;
+            /** @enum {string} */
+            state: "draft" | "sent" | "accepted" | "declined" | "expired" | "superseded" | "withdrawn";
+            /** @enum {string} */
+            quoteState: "draft" | "sent" | "accepted" | "declined" | "expired" | "superseded" | "withdrawn";
+            latestRevision: number;
+            issuedAt: string;
+            validUntil: string;
+            requirement: {
+              [key: string]: unknown;
+            };
+            arrangement: {
+              /** @enum {string} */
+              source: "customer-choice" | "engine" | "custom";
+              /** @enum {string} */
+              topology: "series-of-parallel-groups" | "parallel-of-series-strings";
+              seriesCount: number;
+              parallelCount: number;
+              cellCount: number;
+              cell: {
+                sku: string;
+                /** @enum {string} */
+                technology: "edlc" | "hybrid" | "electrolytic" | "film";
+                capacitance: number;
+                ratedVoltage: number;
+              };
+              capacitance: {
+                nominal: number;
+                design: number;
+              };
+              maxVoltage: number;
+              storedEnergy: number;
+              usableEnergy: number;
+              esr: {
+                new: number;
+                endOfLife: number;
+              };
+              mass: number;
+              volume: number;
+              worstCellVoltage: number;
+              leadTimeDays: number;
+              network?: components["schemas"]["__schema0"];
+            };
+            lines: {
+              code: string;
+              description: string;
+              quantity: string;
+              unit: string;
+              unitPrice: {
+                amount: string;
+                currency: string;
+              };
+              amount: {
+                amount: string;
+                currency: string;
+              };
+            }[];
+            totals: {
+              lines: {
+                amount: string;
+                currency: string;
+              };
+              quantityDiscount: {
+                amount: string;
+                currency: string;
+              };
+              discount: {
+                amount: {
+                  amount: string;
+                  currency: string;
+                };
+                reason: string;
+              } | null;
+              subtotal: {
+                amount: string;
+                currency: string;
+              };
+              tax: {
+                ratePct: string;
+                amount: {
+                  amount: string;
+                  currency: string;
+                };
+              };
+              total: {
+                amount: string;
+                currency: string;
+              };
+            };
+            cautions: string[];
+            revisions: {
+              revision: number;
+              /** @enum {string} */
+              state: "draft" | "sent" | "accepted" | "declined" | "expired" | "superseded" | "withdrawn";
+              issuedAt: string;
+            }[];
+          };
+        };
+      };
+      /** @description Not signed in (no session cookie, or it has expired). With a key: the key is unknown or has been revoked. */
+      401: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Signed in, but not a member of this shop, or the role may not do this. With a key: the key does not hold `quotes:read`. */
+      403: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description No such shop, quote this member may see, or revision. */
       404: {
         headers: {
           [name: string]: unknown;
@@ -1695,6 +2251,26 @@ export interface operations {
       /** @description No shop has this address. */
       404: {
         headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description The person's or the shop's storage quota would be exceeded, or the person has too many files not yet sent with a request. */
+      413: {
+        headers: {
+          [name: string]: unknown;
+        };
+        content: {
+          "application/json": components["schemas"]["Error"];
+        };
+      };
+      /** @description Too many uploads by this person, or by the shop's people together, lately: `Retry-After` says when to try again. */
+      429: {
+        headers: {
+          /** @description seconds to wait */
+          "retry-after": string;
           [name: string]: unknown;
         };
         content: {

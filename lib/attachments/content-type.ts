@@ -46,14 +46,38 @@ export async function detectAttachmentType(bytes: Uint8Array): Promise<Attachmen
   return { ok: false, reason: "Attach a PDF, PNG, JPEG or DXF file; this file is none of these." };
 }
 
-/** A file name safe to store and to send back in a header: no folders, no control characters. */
-export function cleanFileName(name: string, extension: string): string {
-  const base = [...(name.split(/[\\/]/).pop() ?? "")]
-    .filter((ch) => ch.charCodeAt(0) >= 0x20 && ch !== "\u007f" && ch !== '"')
-    .join("")
-    .trim()
-    .slice(0, 200);
-  return base === "" || base === "." || base === ".." ? `attachment.${extension}` : base;
+/** The file-name extensions each accepted type may carry; the first is the one we give it. */
+const EXTENSIONS: Record<AttachmentContentType, readonly string[]> = {
+  "application/pdf": ["pdf"],
+  "image/png": ["png"],
+  "image/jpeg": ["jpg", "jpeg"],
+  "image/vnd.dxf": ["dxf"],
+};
+
+/**
+ * Characters a file name never keeps: control characters (C0 and C1), format characters — among them
+ * the bidirectional overrides and isolates (U+202A–U+202E, U+2066–U+2069) that make
+ * "invoice\u202Efdp.exe" look like "invoiceexe.pdf", and zero-width characters — line and paragraph
+ * separators, and the quote that would end a header's quoted string (Unicode general categories
+ * Cc, Cf, Zl, Zp; Unicode Standard Annex #9 for the bidirectional controls).
+ */
+const UNSAFE_IN_NAME = /[\p{Cc}\p{Cf}\p{Zl}\p{Zp}"]/gu;
+
+/**
+ * A file name safe to store and to send back in a header: no folders, no control, bidirectional or
+ * invisible characters, and an extension that says what the content is (judged by
+ * `detectAttachmentType`): "drawing.exe" holding a PDF is kept as "drawing.pdf", "scan" as
+ * "scan.png". An extension another type would have is replaced, never kept in front.
+ */
+export function cleanFileName(name: string, contentType: AttachmentContentType): string {
+  const extensions = EXTENSIONS[contentType];
+  const base = (name.split(/[\\/]/).pop() ?? "").normalize("NFC").replace(UNSAFE_IN_NAME, "").trim();
+  const dot = base.lastIndexOf(".");
+  const ext = dot >= 0 ? base.slice(dot + 1).toLowerCase() : "";
+  if (extensions.includes(ext)) return `${base.slice(0, dot).slice(0, 200).trim() || "attachment"}.${ext}`;
+  // a short trailing word after a dot is an extension of some other kind: it goes
+  const stem = (/^[a-z0-9]{1,8}$/i.test(ext) ? base.slice(0, dot) : base).replace(/^\.+|\.+$/g, "").trim();
+  return `${stem.slice(0, 200).trim() || "attachment"}.${extensions[0]}`;
 }
 
 /** `attachment; filename="…"; filename*=UTF-8''…` (RFC 6266 with RFC 5987 encoding). */

@@ -1,8 +1,7 @@
 import "server-only";
 /** Attachments: the bytes of uploaded files under UPLOAD_DIR, outside public/, one folder per shop. */
 import { createHash, randomUUID } from "node:crypto";
-import { createReadStream } from "node:fs";
-import { mkdir, rm, writeFile } from "node:fs/promises";
+import { mkdir, open, rm, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { Readable } from "node:stream";
 import { env } from "@/lib/env";
@@ -24,12 +23,24 @@ export async function storeAttachmentBytes(shopId: string, bytes: Uint8Array): P
   return { id, storageKey, sha256: createHash("sha256").update(bytes).digest("hex") };
 }
 
-/** The stored bytes as a web stream for a Response body. */
-export function attachmentStream(storageKey: string): ReadableStream<Uint8Array> {
-  return Readable.toWeb(createReadStream(fileOf(storageKey))) as ReadableStream<Uint8Array>;
+/**
+ * The stored bytes as a web stream for a Response body, with their size on disk; null when the
+ * file is not there (the file is opened before anything is answered, so a missing one is a 404,
+ * never an empty reply).
+ */
+export async function openAttachment(storageKey: string): Promise<{ stream: ReadableStream<Uint8Array>; sizeBytes: number } | null> {
+  let handle;
+  try {
+    handle = await open(fileOf(storageKey), "r");
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code === "ENOENT") return null;
+    throw error;
+  }
+  const { size } = await handle.stat();
+  return { stream: Readable.toWeb(handle.createReadStream()) as ReadableStream<Uint8Array>, sizeBytes: size };
 }
 
-/** Removes stored bytes that nothing points at any more (a replaced datasheet); a missing file is fine. */
+/** Removes stored bytes nothing points at any more (an unattached upload, a replaced datasheet); one already gone is no error. */
 export async function removeStoredBytes(storageKey: string): Promise<void> {
   await rm(fileOf(storageKey), { force: true });
 }

@@ -14,7 +14,8 @@ export const STATEMENTS = {
   order: ["read-own", "read-all", "update-status", "refund"],
   team: ["read", "update-role"],
   settings: ["read", "write"],
-  outbox: ["read"],
+  outbox: ["read", "requeue"],
+  audit: ["read"],
   reports: ["read"],
   webhook: ["manage"],
   /** the shop's API keys for its own systems: make, see, revoke */

@@ -3,7 +3,8 @@ import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { nextCookies } from "better-auth/next-js";
 import { organization } from "better-auth/plugins";
-import { db } from "@/db";
+import { randomBytes } from "node:crypto";
+import { ambientDb, currentShopId } from "@/db/tx";
 import { accounts, invitations, members, sessions, shops, users, verifications } from "@/db/schema";
 import { env } from "@/lib/env";
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "@/lib/validation/limits";
@@ -18,12 +19,24 @@ import { authHooks, organizationHooks } from "./plugin-rules";
  */
 export const CLIENT_ADDRESS_HEADER = "x-faradsmith-client-address";
 
+/** An id in better-auth's own shape (32 letters and digits), e.g. for a shop about to be opened. */
+export function randomId(): string {
+  const alphabet = "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789";
+  // 248 = 4 · 62: bytes at or above it are skipped so every character is equally likely
+  let id = "";
+  while (id.length < 32) for (const b of randomBytes(48)) if (b < 248 && id.length < 32) id += alphabet[b % 62];
+  return id;
+}
+
 export const auth = betterAuth({
   appName: "Faradsmith",
   baseURL: env.BETTER_AUTH_URL,
   secret: env.BETTER_AUTH_SECRET,
   trustedOrigins: [env.BETTER_AUTH_URL, env.APP_URL],
-  database: drizzleAdapter(db, {
+  // Inside withShop / withUser the adapter works in that transaction, under its row-level security
+  // scope (db/tx.ts ambientDb): members and invitations are tenant tables. A shop created inside
+  // withShop(id) takes that id, so its founder's membership is written in its own scope.
+  database: drizzleAdapter(ambientDb, {
     provider: "pg",
     schema: { users, sessions, accounts, verifications, shops, members, invitations },
   }),
@@ -52,6 +65,7 @@ export const auth = betterAuth({
   },
   advanced: {
     ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
+    database: { generateId: ({ model }) => (model === "organization" ? (currentShopId() ?? randomId()) : randomId()) },
   },
   hooks: authHooks,
   plugins: [

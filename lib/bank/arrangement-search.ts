@@ -1,6 +1,6 @@
 import { formatDuration, formatQuantity } from "../quantities";
 import { sizeBalancing, sizeBleeder, type BalancingResult, type BleederResult } from "./balancing";
-import { MAX_CELLS_PER_BANK, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from "./bounds";
+import { MAX_CELLS_PER_BANK, MAX_LONGER_STRINGS, MAX_PARALLEL_COUNT, MAX_SERIES_COUNT } from "./bounds";
 import { constantPowerSeconds } from "./discharge";
 import { storedEnergy as storedEnergyOf, usableEnergy as usableEnergyOf } from "./energy";
 import { analyzeOptionFailures, optionFailureCases, survivesFault, type FailureModeSummary, type OptionFailureCase, type OptionFailureInput } from "./failures";
@@ -208,6 +208,11 @@ export interface ArrangementSearchInput {
    * follows the shop's price closely; exact money stays with the caller.
    */
   costModel?: CostModel;
+  /**
+   * How many strings longer than the shortest safe one to consider besides it: default 1 (the
+   * longer-life variant, DESIGN §3.2); an estimator may allow more, up to MAX_LONGER_STRINGS.
+   */
+  longerStrings?: number;
   /** the shop's failure, yield and life settings (default DEFAULT_RELIABILITY_SETTINGS) */
   reliability?: ReliabilitySettings;
 }
@@ -393,6 +398,8 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   const materialsFactor = input.costModel?.materialsFactor ?? 1;
   const labourPerCell = input.costModel?.labourPerCell ?? 0;
   const labourPerBank = input.costModel?.labourPerBank ?? 0;
+  const longerIn = input.longerStrings ?? 1;
+  const longer = Number.isFinite(longerIn) ? Math.min(MAX_LONGER_STRINGS, Math.max(0, Math.floor(longerIn))) : 1;
 
   const vMax = req.maxVoltage;
   const vMin = req.minVoltage ?? 0;
@@ -458,7 +465,7 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
   }
 
   // Candidate store: one row per (cell, N_s, topology), structure of arrays, no per-candidate objects.
-  const capacity = cells.length * 4 + 4;
+  const capacity = cells.length * 2 * (longer + 1) + 4;
   const cCell = new Int32Array(capacity);
   const cNs = new Int32Array(capacity);
   const cNp = new Int32Array(capacity);
@@ -537,8 +544,8 @@ export function searchArrangements(input: ArrangementSearchInput): ArrangementSe
       continue;
     }
 
-    // the shortest safe string, then one more as the longer-life variant
-    for (let ns = nsSafe; ns <= nsSafe + 1 && ns <= maxSeries; ns++) {
+    // the shortest safe string, then `longer` more (by default one: the longer-life variant)
+    for (let ns = nsSafe; ns <= nsSafe + longer && ns <= maxSeries; ns++) {
       if (ns > nsFloor) {
         if (tally.floorSeries === 0 || ns < tally.floorSeries) {
           tally.floorSeries = ns;

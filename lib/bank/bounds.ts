@@ -61,6 +61,9 @@ export const MAX_CELLS_PER_BANK = 20_000;
  */
 export const MAX_SERIES_COUNT = 5_000;
 
+/** Most strings longer than the shortest safe one an estimator may have the search consider (each adds one series count per cell). */
+export const MAX_LONGER_STRINGS = 8;
+
 /** Most cells in parallel (per group or strings side by side): every cell of the bank in one group. */
 export const MAX_PARALLEL_COUNT = MAX_CELLS_PER_BANK;
 

@@ -25,7 +25,7 @@ export async function uploadDatasheet(ctx: ShopContext, sku: string, bytes: Uint
       fieldErrors: { file: ["A datasheet must be a PDF file"] },
     };
   const stored = await storeAttachmentBytes(ctx.shop.id, bytes);
-  const fileName = cleanFileName(name, "pdf");
+  const fileName = cleanFileName(name, "application/pdf");
   const result = await withShop(ctx.shop.id, async (tx) => {
     const cell = await lockCellBySku(tx, ctx.shop.id, sku);
     if (!cell) return null;

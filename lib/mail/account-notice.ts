@@ -5,7 +5,7 @@ import { createElement } from "react";
 import { getShopIdentity } from "@/db/queries/shops";
 import { insertOutboxMessage } from "@/db/queries/outbox";
 import type { EmailOutboxRow } from "@/db/schema";
-import { inTransaction } from "@/db/tx";
+import { withShop } from "@/db/tx";
 import { AccountExistsEmail, accountExistsSubject, type AccountExistsEmailProps } from "@/emails/account-exists";
 import { accountKey } from "@/db/queries/sign-in-failures";
 import { mailSettings } from "./config";
@@ -31,7 +31,7 @@ async function renderNotice(props: AccountExistsEmailProps) {
  */
 export async function enqueueAccountExists({ shopId, shopName, email }: { shopId: string; shopName: string; email: string }): Promise<void> {
   const day = new Date().toISOString().slice(0, 10);
-  await inTransaction((tx) =>
+  await withShop(shopId, (tx) =>
     insertOutboxMessage(tx, shopId, {
       kind: ACCOUNT_EXISTS_KIND,
       dedupeKey: `${ACCOUNT_EXISTS_KIND}:${accountKey(email)}:${day}`,

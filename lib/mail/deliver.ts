@@ -1,6 +1,9 @@
 import "server-only";
+import { getShopSender } from "@/db/queries/mail-sender";
 import { getOutboxRow, lockWaitingOutboxRow, markOutboxSent, recordOutboxFailure } from "@/db/queries/outbox";
-import { inTransaction } from "@/db/tx";
+import { withShop } from "@/db/tx";
+import { mailSettings } from "./config";
+import { shopSenderAddress } from "./format";
 import { buildOutboxMessage } from "./messages";
 import { sendMessage } from "./transport";
 
@@ -28,12 +31,17 @@ export async function deliverOutboxRow(shopId: string, outboxId: string, { final
   let message;
   try {
     message = await buildOutboxMessage(row);
+    // sent as the shop, replies to the shop's manager
+    const sender = await getShopSender(shopId);
+    if (sender) {
+      message = { ...message, from: shopSenderAddress(sender.shopName, mailSettings().from), ...(sender.replyTo ? { replyTo: sender.replyTo } : {}) };
+    }
   } catch (error) {
     await recordOutboxFailure(shopId, outboxId, reasonOf(error), final);
     throw error;
   }
 
-  const result = await inTransaction(async (tx) => {
+  const result = await withShop(shopId, async (tx) => {
     if (!(await lockWaitingOutboxRow(tx, shopId, outboxId))) return { outcome: "skipped" as const };
     try {
       const info = await sendMessage(message);
@@ -41,7 +49,7 @@ export async function deliverOutboxRow(shopId: string, outboxId: string, { final
       return { outcome: "sent" as const };
     } catch (error) {
       // recorded in this transaction (it commits), thrown after it
-      await recordOutboxFailure(shopId, outboxId, reasonOf(error), final, tx);
+      await recordOutboxFailure(shopId, outboxId, reasonOf(error), final);
       return { outcome: "failed" as const, error };
     }
   });

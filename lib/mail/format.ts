@@ -25,3 +25,15 @@ export function formatValidity(isoDate: string): string {
 export function quotePageUrl(appUrl: string, shopSlug: string, quoteNumber: string): string {
   return `${appUrl.replace(/\/+$/, "")}/s/${encodeURIComponent(shopSlug)}/quotes/${encodeURIComponent(quoteNumber)}`;
 }
+
+/**
+ * A shop's e-mail is sent as the shop through the product's own address:
+ * "Kestrel Bank Works via Faradsmith <quotes@faradsmith.example>" (RFC 5322 §3.4 display name,
+ * quoted when it holds specials).
+ */
+export function shopSenderAddress(shopName: string, from: string): string {
+  const address = /<([^>]+)>\s*$/.exec(from)?.[1] ?? from.trim();
+  const product = /^\s*"?([^"<]*?)"?\s*</.exec(from)?.[1]?.trim() || "Faradsmith";
+  const name = `${shopName.replace(/["\\\r\n]/g, "")} via ${product}`;
+  return /[()<>@,;:.[\]]/.test(name) ? `"${name}" <${address}>` : `${name} <${address}>`;
+}

@@ -12,12 +12,14 @@ import { ACCOUNT_EXISTS_KIND, buildAccountExistsMessage } from "./account-notice
 import { buildWebhookStoppedMessage, WEBHOOK_STOPPED_KIND } from "@/lib/webhooks/stopped-notice";
 import { formatMoney } from "@/lib/pricing";
 import { mailSettings } from "./config";
+import { buildQuoteLifeMessage, isQuoteLifeKind } from "./quote-notices";
 import { formatValidity, outboxMessageId, quotePageUrl } from "./format";
 import type { OutgoingMessage } from "./transport";
 
 /** Builds the message an outbox row announces, from the records it points at. */
 export async function buildOutboxMessage(row: EmailOutboxRow): Promise<OutgoingMessage> {
   if (row.kind === ACCOUNT_EXISTS_KIND) return buildAccountExistsMessage(row);
+  if (isQuoteLifeKind(row.kind)) return buildQuoteLifeMessage(row);
   if (isOrderMessage(row.kind)) return buildOrderMessage(row);
   if (row.kind === WEBHOOK_STOPPED_KIND) return buildWebhookStoppedMessage(row);
   if (row.kind !== "quote-ready") throw new Error(`no message template for outbox kind "${row.kind}"`);

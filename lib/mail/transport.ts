@@ -3,7 +3,8 @@ import nodemailer from "nodemailer";
 import type { SendMailOptions } from "nodemailer";
 import { mailSettings } from "./config";
 
-export type OutgoingMessage = Pick<SendMailOptions, "to" | "subject" | "html" | "text" | "attachments" | "messageId" | "headers">;
+/** `from` is the product's own sender unless a message names the shop it speaks for (lib/mail/format.ts shopSenderAddress). */
+export type OutgoingMessage = Pick<SendMailOptions, "to" | "subject" | "html" | "text" | "attachments" | "messageId" | "headers" | "from" | "replyTo">;
 
 /**
  * Sends one message over SMTP with the current settings: plain SMTP on loopback (maildev),
@@ -25,7 +26,7 @@ export async function sendMessage(message: OutgoingMessage): Promise<{ messageId
     socketTimeout: timeout,
   });
   try {
-    const info = await transport.sendMail({ from: s.from, ...message });
+    const info = await transport.sendMail({ ...message, from: message.from ?? s.from });
     return { messageId: info.messageId, response: info.response };
   } finally {
     transport.close();

@@ -1,9 +1,11 @@
 import "server-only";
 import type PgBoss from "pg-boss";
 import { z } from "zod";
+import { startAttachmentSweep } from "@/lib/attachments/sweep";
 import { env } from "@/lib/env";
 import { mailSettings } from "./config";
 import { deliverOutboxRow } from "./deliver";
+import { startQuoteExpiry } from "@/lib/quoting/expiry-job";
 import { dispatchOutbox } from "./outbox";
 import { ensureQueues, getBoss, MAIL_QUEUE, stopBoss, SWEEP_QUEUE } from "./queue";
 
@@ -38,6 +40,10 @@ async function startOnce(): Promise<void> {
     await dispatchOutbox();
   });
   await boss.schedule(SWEEP_QUEUE, s.sweepCron);
+  // the job queue's other periodic work: uploads never attached to a request
+  await startAttachmentSweep(boss);
+  // the same worker runs the quotes' scheduled expiry
+  await startQuoteExpiry(boss);
   // rows committed while no server was running (or whose dispatch failed) go out now
   await dispatchOutbox();
 }

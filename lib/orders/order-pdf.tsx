@@ -1,5 +1,5 @@
 import { Document, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
-import { pdfText, registerFonts } from "@/lib/quoting/quote-pdf-layout";
+import { PDF_FONT_FAMILY, pdfText, registerFonts } from "@/lib/quoting/quote-pdf-layout";
 import type { LabelledValue } from "@/lib/vocabulary";
 import type { CertificateDocument, TravelerDocument } from "./order-document";
 
@@ -17,7 +17,7 @@ const pass = "#0f766e";
 const fail = "#b91c1c";
 
 const s = StyleSheet.create({
-  page: { fontFamily: "IBM Plex Sans", fontSize: 9, color: ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40, lineHeight: 1.35 },
+  page: { fontFamily: PDF_FONT_FAMILY, fontSize: 9, color: ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40, lineHeight: 1.35 },
   header: { flexDirection: "row", justifyContent: "space-between", borderBottomWidth: 2, borderBottomColor: copper, paddingBottom: 8, marginBottom: 10 },
   shop: { fontSize: 14, fontWeight: 600, lineHeight: 1.2, marginBottom: 3 },
   title: { fontSize: 12, fontWeight: 600, textAlign: "right" },

@@ -9,6 +9,8 @@ import type { ActionResult } from "@/lib/auth/guards";
 import type { ShopContext } from "@/lib/auth/context";
 import { env } from "@/lib/env";
 import { Dec } from "@/lib/pricing/decimal";
+import { acceptQuoteRevisionIn } from "@/lib/quoting/lifecycle";
+import { revisionSheet } from "@/lib/quoting/revision-sheet";
 import { isExpired } from "@/lib/quoting/validity";
 import { isQuoteNumber } from "@/lib/quoting/quote-number";
 import type { CheckoutRequest, CheckoutResponse } from "@/lib/validation/orders";
@@ -62,11 +64,12 @@ async function closeOpenSession(sessionId: string): Promise<"closed" | "paid"> {
  * row is locked while this runs, so two tabs take turns: the second finds the first's open
  * checkout and gets the same one; a paid quote offers nothing more to pay.
  *
- * ACCEPTANCE SEAM: accepting a revision is the quote's life, not payment's. Until that accept
- * (`acceptQuoteRevision(ctx, { number, revision })`) is wired in here, only a quote whose status
- * is already `accepted` can be paid. The storefront's "Accept and pay" button calls the
- * `startCheckout` action (app/s/[shop]/quotes/[number]/actions.ts), and so does the JSON route; both
- * come here, and this is the one place the accept goes in front of the checkout.
+ * Acceptance is the quote's life, not payment's: before the first payment the revision is accepted
+ * here through the quote's own move (`acceptQuoteRevisionIn`, lib/quoting/lifecycle.ts: only the
+ * latest sent revision, not expired, superseded, declined or withdrawn, once, with its
+ * `quote.accepted` event) in this same transaction; a revision accepted already is answered again.
+ * The storefront's "Accept and pay" button calls the `startCheckout` action
+ * (app/s/[shop]/quotes/[number]/actions.ts), and so does the JSON route; both come here.
  */
 export async function openCheckout(ctx: ShopContext, input: CheckoutRequest & { number: string }, now = new Date()): Promise<ActionResult<CheckoutResponse>> {
   if (!isQuoteNumber(input.number)) return NOT_FOUND;
@@ -82,9 +85,13 @@ export async function openCheckout(ctx: ShopContext, input: CheckoutRequest & { 
     }
     const order = await lockOrderOfQuote(tx, shopId, q.quoteId);
     if (order && ["cancelled", "refunded"].includes(order.status)) return conflict(`Order ${order.number} for this quote is ${order.status}.`);
-    // ACCEPTANCE SEAM (see above): the accept of `input.revision` goes here.
-    if (!order && q.status !== "accepted") return conflict("This quote has not been accepted yet, so it cannot be paid.");
-    if (!order && isExpired(q.validUntil, now)) return conflict(`This quote expired on ${q.validUntil}; ask the shop for a new revision.`);
+    if (!order) {
+      // the accept move (or the acceptance already made), in this transaction
+      const accepted = await acceptQuoteRevisionIn(tx, ctx, { number: q.number, revision: input.revision }, now);
+      if (!accepted.ok) return accepted;
+      // accepted but never paid, and past its validity since: the shop quotes it again
+      if (isExpired(q.validUntil, now)) return conflict(`This quote expired on ${q.validUntil}; ask the shop for a new revision.`);
+    }
 
     const totals = await paymentTotals(tx, shopId, q.quoteId);
     const money = { depositPercent, paid: totals.paid, total: q.total, currency: q.currency };
@@ -108,19 +115,24 @@ export async function openCheckout(ctx: ShopContext, input: CheckoutRequest & { 
     }
 
     const paymentId = randomUUID();
-    const pricing = q.pricing;
+    // the sell prices the customer accepted: a revision with added lines or an estimator's
+    // discount is paid as one line for its banks and those lines together
+    const sheet = revisionSheet(q);
+    const bankLine = sheet.lines[0];
+    const bank = `Capacitor bank ${arrangementLabel(q.arrangement)}, ${q.arrangement.cell.sku} cells`;
+    const composite = sheet.lines.length > 1 || sheet.discount !== null || !bankLine;
     const lines = checkoutLines({
       kind: input.kind,
       currency: q.currency,
       quoteNumber: q.number,
       revision: q.revision,
-      bankName: `Capacitor bank ${arrangementLabel(q.arrangement)}, ${q.arrangement.cell.sku} cells`,
-      quantity: q.quantity,
-      unitPrice: pricing.unitPrice,
-      discountPct: pricing.discountPct,
-      subtotal: pricing.subtotal,
-      taxPct: pricing.taxPct,
-      tax: pricing.tax,
+      bankName: composite ? `${q.quantity} × ${bank}, with the quote's other lines${sheet.discount ? " and its discount" : ""}` : bank,
+      quantity: composite ? 1 : q.quantity,
+      unitPrice: composite ? sheet.subtotal : bankLine.unitPrice,
+      discountPct: bankLine?.breakPct ?? "0",
+      subtotal: sheet.subtotal,
+      taxPct: sheet.taxPct,
+      tax: sheet.tax,
       total: q.total,
       amount,
     });

@@ -131,7 +131,9 @@ export function priceBank(bill: BankBill, rules: PricingRules, extraInputs: read
     });
   };
 
-  addMaterial("cells", bill.cell.description ? `${bill.cell.sku} — ${bill.cell.description}` : bill.cell.sku, bill.cellCount, "pc", bill.cell.unitCost);
+  const cellLabel = (c: { sku: string; description: string }) => (c.description ? `${c.sku} — ${c.description}` : c.sku);
+  if (bill.mixedCells) for (const c of bill.mixedCells) addMaterial("cells", cellLabel(c), c.count, "pc", c.unitCost);
+  else addMaterial("cells", cellLabel(bill.cell), bill.cellCount, "pc", bill.cell.unitCost);
 
   if (bill.balancingResistors) {
     const r = bill.balancingResistors;

@@ -47,6 +47,11 @@ export interface BankBill {
   cell: { sku: string; description: string; unitCost: string };
   cellCount: number;
   /**
+   * A bank of mixed cells (an estimator's custom bank): one cell line per part, whose counts add up
+   * to cellCount. When given, `cell` is not priced on its own (it names the bank's first part).
+   */
+  mixedCells?: { sku: string; description: string; unitCost: string; count: number }[];
+  /**
    * Resistance in Ω, power rating in W; the catalog part of that power class (its SKU, when it has
    * one) and its unit cost.
    */

@@ -56,6 +56,23 @@ function checkNumber(issues: Issues, path: string, value: unknown, opts: { min: 
  * unit price times its quantity is exactly the line amount).
  */
 export function validatePricingRules(rules: PricingRules): PricingIssue[] {
+  // rules frozen all the way down (a shop's loaded catalog, db/queries/catalog.ts) cannot change: checked once
+  const frozen = isObject(rules) && deeplyFrozen(rules);
+  const known = frozen ? checkedRules.get(rules) : undefined;
+  if (known) return [...known];
+  const issues = checkRules(rules);
+  if (frozen) checkedRules.set(rules, issues);
+  return [...issues];
+}
+
+const checkedRules = new WeakMap<PricingRules, readonly PricingIssue[]>();
+
+function deeplyFrozen(value: unknown): boolean {
+  if (typeof value !== "object" || value === null) return true;
+  return Object.isFrozen(value) && Object.values(value).every(deeplyFrozen);
+}
+
+function checkRules(rules: PricingRules): PricingIssue[] {
   const issues: Issues = [];
   if (!isObject(rules)) return [{ path: "", message: "rules must be an object" }];
   const r = rules as unknown as Record<string, unknown>;
@@ -151,6 +168,25 @@ export function validateBankBill(bill: BankBill): PricingIssue[] {
     checkMoney(issues, "cell.unitCost", b.cell.unitCost, null);
   }
   checkNumber(issues, "cellCount", b.cellCount, { min: 1, integer: true });
+  if (b.mixedCells !== undefined) {
+    if (!Array.isArray(b.mixedCells) || b.mixedCells.length === 0) {
+      issues.push({ path: "mixedCells", message: "must be a non-empty list when given" });
+    } else {
+      let sum = 0;
+      b.mixedCells.forEach((c: unknown, i) => {
+        const p = `mixedCells[${i}]`;
+        if (!isObject(c)) {
+          issues.push({ path: p, message: "must be an object" });
+          return;
+        }
+        if (typeof c.sku !== "string" || c.sku.trim() === "") issues.push({ path: `${p}.sku`, message: "must not be empty" });
+        checkMoney(issues, `${p}.unitCost`, c.unitCost, null);
+        checkNumber(issues, `${p}.count`, c.count, { min: 1, integer: true });
+        if (typeof c.count === "number") sum += c.count;
+      });
+      if (sum !== b.cellCount) issues.push({ path: "mixedCells", message: `the counts add up to ${sum}, not the bank's ${String(b.cellCount)} cells` });
+    }
+  }
   checkNumber(issues, "quantity", b.quantity, { min: 1, integer: true });
   checkNumber(issues, "volumeM3", b.volumeM3, { min: 0, minExclusive: true });
 

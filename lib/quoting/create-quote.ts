@@ -3,16 +3,20 @@ import { linkAttachmentsToRequest } from "@/db/queries/attachments";
 import { loadShopCatalog } from "@/db/queries/catalog";
 import { nextShopNumber } from "@/db/queries/counters";
 import { getQuoteByIdempotencyKey, insertQuote, insertQuoteRevision } from "@/db/queries/quotes";
+import { listStaffRecipients, recordQuoteMove } from "@/db/queries/quote-life";
 import { getRequestByIdempotencyKey, insertBankRequest } from "@/db/queries/requests";
-import { inTransaction, isUniqueViolation } from "@/db/tx";
+import { recordShopEvent } from "@/db/queries/shop-events";
+import { isUniqueViolation, withShop } from "@/db/tx";
 import type { Requirement } from "@/lib/bank";
 import type { ActionResult } from "@/lib/auth/guards";
 import type { ShopContext } from "@/lib/auth/context";
-import { dispatchOutbox, enqueueQuoteReady } from "@/lib/mail/outbox";
+import { dispatchAfterCommit, enqueueQuoteReady } from "@/lib/mail/outbox";
+import { enqueueReviewNeeded } from "@/lib/mail/quote-notices";
 import type { ChooseArrangementInput } from "@/lib/validation/quote";
 import { checkAutoQuoteLimits } from "./auto-quote-limits";
 import { indexOfChosen, searchPricedOptions } from "./priced-search";
 import { formatQuoteNumber, numberingYear } from "./quote-number";
+import { revisionSheet } from "./revision-sheet";
 import type { ChosenRecord } from "./types";
 import { validUntilFrom } from "./validity";
 
@@ -41,7 +45,7 @@ async function toReview(
   chosen: ChosenRecord | null,
 ): Promise<ActionResult<CreateQuoteResult>> {
   const shopId = ctx.shop.id;
-  const id = await inTransaction(async (tx) => {
+  const id = await withShop(shopId, async (tx) => {
     const requestId = await insertBankRequest(tx, shopId, {
       customerUserId: ctx.user.id,
       status: "needs-review",
@@ -51,10 +55,14 @@ async function toReview(
       chosenOption: chosen,
       idempotencyKey: input.idempotencyKey,
     });
-    if (requestId) await linkAttachmentsToRequest(tx, shopId, ctx.user.id, requestId, input.attachmentIds);
+    if (requestId) {
+      await linkAttachmentsToRequest(tx, shopId, ctx.user.id, requestId, input.attachmentIds);
+      await enqueueReviewNeeded(tx, { shopId, requestId, customerName: ctx.user.name, recipients: await listStaffRecipients(tx, shopId) });
+    }
     return requestId;
   });
   if (id === null) return (await findEarlier(shopId, ctx.user.id, input.idempotencyKey)) ?? ALREADY_SUBMITTED;
+  await dispatchAfterCommit(`review ${id}`);
   return { ok: true, data: { kind: "review", requestId: id } };
 }
 
@@ -94,7 +102,9 @@ export async function createQuoteFromChoice(ctx: ShopContext, input: ChooseArran
 
   let made: { number: string } | null;
   try {
-    made = await inTransaction(async (tx) => {
+    // the rules' own price, as the customer reads it (the same lines a revision without a sheet shows)
+    const sheet = revisionSheet({ sheet: null, pricing, arrangement: option, design: { source: "customer-choice" } });
+    made = await withShop(shopId, async (tx) => {
       const requestId = await insertBankRequest(tx, shopId, {
         customerUserId: ctx.user.id,
         status: "quoted",
@@ -111,9 +121,18 @@ export async function createQuoteFromChoice(ctx: ShopContext, input: ChooseArran
         quoteId,
         revision: 1,
         frozen: { requirement, arrangement: option, cell: record.cell, pricing },
+        sheet,
+        design: { source: "customer-choice" },
         validUntil,
         createdByUserId: ctx.user.id,
       });
+      await recordQuoteMove(
+        tx,
+        shopId,
+        { quoteId, revision: 1, fromStatus: null, toStatus: "sent", actor: "system", actorUserId: null },
+        { currentRevision: 1 },
+      );
+      await recordShopEvent(tx, shopId, "quote.issued", { number, revision: 1, total: { amount: sheet.total, currency: sheet.currency }, validUntil });
       await enqueueQuoteReady(tx, { shopId, quoteRevisionId: revisionId, quoteNumber: number, revision: 1, toEmail: ctx.user.email });
       return { number };
     });
@@ -123,11 +142,6 @@ export async function createQuoteFromChoice(ctx: ShopContext, input: ChooseArran
   }
   if (made === null) return (await findEarlier(shopId, ctx.user.id, input.idempotencyKey)) ?? ALREADY_SUBMITTED;
 
-  try {
-    await dispatchOutbox();
-  } catch (error) {
-    // the row waits in the outbox; the queue's sweep delivers it later
-    console.error("dispatchOutbox failed after quote", made.number, error);
-  }
+  await dispatchAfterCommit(`quote ${made.number}`);
   return { ok: true, data: { kind: "quote", quoteNumber: made.number } };
 }

@@ -40,13 +40,13 @@ interface Candidate extends PricedOption {
  * Searches and prices. Ranked by life (requirement.rankBy), the engine's longest-lived dozen is
  * priced and shown. Ranked by price (the default): the engine returns options in the order of a float cost estimate that the
  * cost model keeps below the exact cost (bill.ts costModelOf), so priceLowerBound(estimate) is a
- * floor under the exact price. The options are priced exactly in that order, widening the cut
- * (24, 48, 96 …) until either every feasible option is priced or the floor of the first unpriced
- * one is above the 12th best exact price so far. Then no unpriced option can enter the best dozen
+ * floor under the exact price. The options are priced exactly in that order, one at a time,
+ * widening the engine's cut (24, 48, 96 …) as needed, until either every feasible option is priced
+ * or the floor of the next unpriced one is above the 12th best exact price so far. Then no unpriced option can enter the best dozen
  * or tie with it, nor dominate a shown one (its price would be higher): the dozen and their Pareto
  * marks are exactly what pricing every option would give (a property test checks this).
  */
-export function searchPricedOptions(catalog: ShopCatalog, requirement: Requirement): PricedSearch {
+export function searchPricedOptions(catalog: ShopCatalog, requirement: Requirement, opts: { longerStrings?: number } = {}): PricedSearch {
   const { factors, rules } = catalog;
   const cells = catalog.cells.map(toEngineCell);
   const byId = new Map(catalog.cells.map((c) => [c.id, c]));
@@ -60,6 +60,7 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
       costModel: costModelOf(rules, catalog.components),
       reliability: catalog.reliability,
       limit,
+      longerStrings: opts.longerStrings,
     });
 
   if (requirement.rankBy === "life") {
@@ -71,14 +72,24 @@ export function searchPricedOptions(catalog: ShopCatalog, requirement: Requireme
   }
 
   const priced: Candidate[] = [];
+  // the floor under an option's exact price is above the dozenth best found: so is every later one
+  const beyondTheDozen = (option: ArrangementOption) => {
+    const dozenth = priced.length >= SHOWN ? nthLowestPrice(priced, SHOWN) : null;
+    return dozenth !== null && new Decimal(priceLowerBound(option.costEstimate, rules)).greaterThan(dozenth);
+  };
   let width = FIRST_CUT;
   let result = search(width);
-  for (;;) {
-    for (const option of result.options.slice(priced.length)) priced.push(priceOption(option, byId.get(option.cellId) as CatalogCell, catalog, quantity));
-    if (result.options.length < width) break; // every feasible option is priced
-    const last = result.options[result.options.length - 1] as ArrangementOption;
-    const dozenth = nthLowestPrice(priced, SHOWN);
-    if (dozenth !== null && new Decimal(priceLowerBound(last.costEstimate, rules)).greaterThan(dozenth)) break;
+  let done = false;
+  while (!done) {
+    // priced one at a time, in the order of the floor: usually a little over a dozen are needed
+    for (const option of result.options.slice(priced.length)) {
+      if (beyondTheDozen(option)) {
+        done = true;
+        break;
+      }
+      priced.push(priceOption(option, byId.get(option.cellId) as CatalogCell, catalog, quantity));
+    }
+    if (done || result.options.length < width) break; // decided, or every feasible option is priced
     width *= 2;
     result = search(width);
   }

@@ -1,10 +1,11 @@
 import type { RevisionWithLines } from "@/db/queries/quotes";
-import { formatMoney } from "@/lib/pricing";
-import { sellPresentation } from "@/lib/pricing/sell";
+import { formatMoney, type PriceSheet } from "@/lib/pricing";
 import { formatQuantity } from "@/lib/quantities";
 import { requirementFacts, TECHNOLOGY_LABELS, TOPOLOGY_LABELS, type LabelledValue } from "@/lib/vocabulary";
-import { toQuoteEngineering, type QuoteEngineering } from "./quote-engineering";
-import type { FrozenCell, PricedOption } from "./types";
+import { partsOf } from "./custom-bank";
+import { NOT_COMPUTED_FOR_CUSTOM, NOT_RECORDED, toQuoteEngineering, type QuoteEngineering } from "./quote-engineering";
+import { revisionSheet } from "./revision-sheet";
+import type { FrozenCell, PricedOption, RevisionDesign } from "./types";
 
 export type { LabelledValue };
 
@@ -47,6 +48,10 @@ export interface QuoteDocument {
   notes: string[];
   /** the frozen option, for the diagram on the page */
   option: PricedOption;
+  /** how the bank was arrived at (a custom bank's tree is drawn from it) */
+  design: RevisionDesign;
+  /** the shop's note with this revision ("" when none) */
+  note: string;
   /** one failed cell, tolerance yield, temperature and life, handling (quote-engineering.ts) */
   engineering: QuoteEngineering;
 }
@@ -74,6 +79,24 @@ function describeArrangement(o: PricedOption): LabelledValue[] {
   return rows;
 }
 
+/** A custom bank's shape: its parts and its longest series path; balancing is fitted as a line, when the estimator fits it. */
+function describeCustomArrangement(o: PricedOption, design: Extract<RevisionDesign, { source: "custom" }>): LabelledValue[] {
+  const rows = describeArrangement(o).filter((r) => r.label === "Bleeder");
+  return [
+    { label: "Built as", value: "Custom bank of series and parallel groups" },
+    {
+      label: "Parts",
+      value: partsOf(design.network)
+        .map((p) => `${p.count} × ${p.sku}`)
+        .join(", "),
+    },
+    { label: "Cells per bank", value: String(o.cellCount) },
+    { label: "Cells along the longest series path", value: String(o.seriesCount) },
+    { label: "Balancing", value: "Not sized for a custom bank; fitted and priced as a line where needed" },
+    ...rows,
+  ];
+}
+
 function describeFigures(o: PricedOption): LabelledValue[] {
   const rows: LabelledValue[] = [
     { label: "Rated voltage", value: q(o.maxVoltage, "V") },
@@ -90,7 +113,7 @@ function describeFigures(o: PricedOption): LabelledValue[] {
     { label: "Time to safe voltage (worst case)", value: o.discharge.secondsToSafe > 0 ? q(o.discharge.secondsToSafe, "s") : "Works below the safe voltage" },
     { label: "Mass", value: q(o.mass, "kg") },
     { label: "Cell volume", value: q(o.volume, "m³") },
-    { label: "Lead time", value: `${o.leadTimeDays} days` },
+    { label: "Lead time", value: o.leadTimeDays === 0 ? "from stock" : `${o.leadTimeDays} ${o.leadTimeDays === 1 ? "day" : "days"}` },
   );
   return rows;
 }
@@ -109,33 +132,28 @@ function describeCell(cell: FrozenCell, o: PricedOption): LabelledValue[] {
   ];
 }
 
-/**
- * The bank as the customer's one line: what it is, how it is built, assembled and tested
- * ("Supercapacitor (EDLC) bank rated 48.6 V, 23.1 F: 18 S × 2 P of QFS-1200R27 with balancing resistors,
- * enclosure and terminals, assembled and tested").
- */
-export function bankLineDescription(o: PricedOption): string {
-  const b = o.balancing;
-  const balancing = b.activeBoard ? "active balancing boards" : b.resistance !== null && b.count > 0 ? "balancing resistors" : null;
-  const bleeder = o.discharge.bleeder ? (o.discharge.bleeder.switched ? "a switched discharge circuit (priced apart)" : "a bleeder resistor") : null;
-  const parts = [balancing, bleeder, "enclosure and terminals"].filter(Boolean).join(", ");
-  const tech = TECHNOLOGY_LABELS[o.cell.technology] ?? o.cell.technology;
-  return `${tech} bank rated ${q(o.maxVoltage, "V")}, ${q(o.capacitance.nominal, "F")}: ${o.seriesCount} S × ${o.parallelCount} P of ${o.cell.sku} with ${parts}, assembled and tested`;
+export { bankLineDescription } from "./revision-sheet";
+
+/** The sell totals: the lines, the quantity break, a discount with its reason, tax and the total. */
+function describeTotals(s: PriceSheet): LabelledValue[] {
+  const m = (a: string) => formatMoney(a, s.currency);
+  const rows: LabelledValue[] = [];
+  const reductions = Number(s.breakDiscount) > 0 || s.discount !== null;
+  if (reductions) rows.push({ label: "Lines", value: m(s.lineTotal) });
+  const breakLine = s.lines.find((l) => Number(l.breakDiscount) > 0);
+  if (breakLine) rows.push({ label: `Quantity discount (${breakLine.breakPct ?? "0"} %)`, value: `−${m(s.breakDiscount)}` });
+  if (s.discount) rows.push({ label: `Discount: ${s.discount.reason}`, value: `−${m(s.discount.amount)}` });
+  rows.push({ label: "Subtotal", value: m(s.subtotal) }, { label: `Tax (${s.taxPct} %)`, value: m(s.tax) }, { label: "Total", value: m(s.total) });
+  return rows;
 }
 
 /** The worded quote from a revision and its lines as stored. */
 export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
   const r = rev.revision;
   const option = r.arrangement;
+  const sheet = revisionSheet(r);
   const money = (a: string) => formatMoney(a, r.currency);
-  const sell = sellPresentation(r.pricing, bankLineDescription(option));
-  const totals: LabelledValue[] = [];
-  if (sell.discount) totals.push({ label: `Quantity discount (${sell.discount.pct} %)`, value: `−${money(sell.discount.amount)}` });
-  totals.push(
-    { label: "Subtotal", value: money(sell.subtotal) },
-    { label: `Tax (${sell.taxPct} %)`, value: money(sell.tax) },
-    { label: "Total", value: money(sell.total) },
-  );
+  const totals = describeTotals(sheet);
   return {
     shopName: rev.shopName,
     number: rev.quoteNumber,
@@ -147,13 +165,14 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     currency: r.currency,
     quantity: r.quantity,
     requirement: requirementFacts(r.requirement),
-    arrangement: describeArrangement(option),
+    arrangement: r.design?.source === "custom" ? describeCustomArrangement(option, r.design) : describeArrangement(option),
     cell: describeCell(r.cell, option),
     figures: describeFigures(option),
-    lines: sell.lines.map((l, i) => ({
+    // what the customer pays for: the bank as one line and the lines the shop added (sell prices)
+    lines: sheet.lines.map((l, i) => ({
       position: i + 1,
       description: l.description,
-      quantity: String(l.quantity),
+      quantity: String(Number(l.quantity)),
       unit: l.unit,
       unitPrice: money(l.unitPrice),
       amount: money(l.amount),
@@ -163,6 +182,8 @@ export function toQuoteDocument(rev: RevisionWithLines): QuoteDocument {
     cautions: option.cautions ?? [],
     notes: option.warnings ?? [],
     option,
-    engineering: toQuoteEngineering(r.requirement, option),
+    design: r.design ?? { source: "customer-choice" },
+    note: r.note,
+    engineering: toQuoteEngineering(r.requirement, option, r.design?.source === "custom" ? NOT_COMPUTED_FOR_CUSTOM : NOT_RECORDED),
   };
 }

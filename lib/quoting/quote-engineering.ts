@@ -26,12 +26,16 @@ export interface QuoteEngineering {
   /** why there is no life section ("no life data in the catalog", "not recorded") */
   lifeNote: string | null;
   handling: { rows: LabelledValue[]; shipping: string[] };
+  /** what a missing section says (NOT_RECORDED, or NOT_COMPUTED_FOR_CUSTOM for a custom bank) */
+  absent: string;
 }
 
 export const NOT_RECORDED = "not recorded for this revision (made before these figures were computed)";
+/** A custom bank from the network editor carries no one-fault, yield or life analysis of its own. */
+export const NOT_COMPUTED_FOR_CUSTOM = "not computed for a custom bank built in the network editor; the shop's engineers check it";
 
 /** The sections from a frozen requirement and option. */
-export function toQuoteEngineering(requirement: Requirement, option: PricedOption | DepthOption): QuoteEngineering {
+export function toQuoteEngineering(requirement: Requirement, option: PricedOption | DepthOption, absent: string = NOT_RECORDED): QuoteEngineering {
   const o = option as PricedOption & DepthOption;
   let tolerance: QuoteEngineering["tolerance"] = null;
   if (hasYieldBasis(o) && o.topology && o.seriesCount && o.parallelCount) {
@@ -48,7 +52,8 @@ export function toQuoteEngineering(requirement: Requirement, option: PricedOptio
     failures: failureLines(o),
     tolerance,
     life,
-    lifeNote: life ? null : o.life === null ? lifeHeadline(null) : NOT_RECORDED,
+    lifeNote: life ? null : o.life === null ? lifeHeadline(null) : absent,
     handling: handlingRows(o),
+    absent,
   };
 }

@@ -2,7 +2,7 @@ import { Line, Rect, StyleSheet, Svg, Text, View } from "@react-pdf/renderer";
 import { formatQuantity } from "@/lib/quantities";
 import { KeyValues, PDF_COLORS } from "./pdf-parts";
 import { pdfText } from "./pdf-text";
-import { NOT_RECORDED, type QuoteEngineering } from "./quote-engineering";
+import type { QuoteEngineering } from "./quote-engineering";
 
 /**
  * The quote PDF's engineering sections, from the same worded sections as the quote page
@@ -91,7 +91,7 @@ export function QuotePdfEngineering({ e }: { e: QuoteEngineering }) {
             <Text style={styles.line}>{pdfText(e.failures.open)}</Text>
           </>
         ) : (
-          <Text style={styles.line}>One-cell failures: {NOT_RECORDED}.</Text>
+          <Text style={styles.line}>One-cell failures: {e.absent}.</Text>
         )}
         <Text style={styles.small}>At the working voltage by ideal capacitive division, without balancing, matched cells at their worst.</Text>
       </View>
@@ -108,7 +108,7 @@ export function QuotePdfEngineering({ e }: { e: QuoteEngineering }) {
             </View>
           </View>
         ) : (
-          <Text style={styles.line}>Tolerance yield: {NOT_RECORDED}.</Text>
+          <Text style={styles.line}>Tolerance yield: {e.absent}.</Text>
         )}
       </View>
       <View wrap={false}>

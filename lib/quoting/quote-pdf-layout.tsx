@@ -12,19 +12,19 @@ import { QuotePdfEngineering } from "./quote-pdf-engineering";
  */
 
 const FAMILY = "IBM Plex Sans";
+/** The same face's Greek subset, for Ω and µ-like signs the Latin files lack: the renderer falls back to it per glyph. */
+const GREEK = "IBM Plex Sans Greek";
+/** Every PDF page's font: Latin first, then Greek. */
+export const PDF_FONT_FAMILY = [FAMILY, GREEK];
 let fontsRegistered = false;
 
 export function registerFonts() {
   if (fontsRegistered) return;
   const dir = path.join(process.cwd(), "app", "fonts");
-  Font.register({
-    family: FAMILY,
-    fonts: [
-      { src: path.join(dir, "plex-sans-400.woff"), fontWeight: 400 },
-      { src: path.join(dir, "plex-sans-500.woff"), fontWeight: 500 },
-      { src: path.join(dir, "plex-sans-600.woff"), fontWeight: 600 },
-    ],
-  });
+  // the three weights the layout uses, from the Latin files and the Greek ones
+  const weights = (file: string) => [400, 500, 600].map((w) => ({ src: path.join(dir, `${file}-${w}.woff`), fontWeight: w }));
+  Font.register({ family: FAMILY, fonts: weights("plex-sans") });
+  Font.register({ family: GREEK, fonts: weights("plex-sans-greek") });
   // part numbers and figures must never be split across lines with a hyphen
   Font.registerHyphenationCallback((word) => [word]);
   fontsRegistered = true;
@@ -38,11 +38,11 @@ const rule = "#d9e2ec";
 const copper = "#b4632b";
 
 const styles = StyleSheet.create({
-  page: { fontFamily: FAMILY, fontSize: 9, color: ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40, lineHeight: 1.35 },
+  page: { fontFamily: PDF_FONT_FAMILY, fontSize: 9, color: ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40, lineHeight: 1.35 },
   header: { flexDirection: "row", justifyContent: "space-between", borderBottomWidth: 2, borderBottomColor: copper, paddingBottom: 8, marginBottom: 12 },
-  shop: { fontSize: 14, fontWeight: 600 },
-  title: { fontSize: 12, fontWeight: 600, textAlign: "right" },
-  meta: { color: muted, textAlign: "right" },
+  shop: { fontSize: 14, fontWeight: 600, lineHeight: 1.2, marginBottom: 3 },
+  title: { fontSize: 12, fontWeight: 600, textAlign: "right", lineHeight: 1.2, marginBottom: 3 },
+  meta: { color: muted, textAlign: "right", marginTop: 1 },
   h2: { fontSize: 10.5, fontWeight: 600, marginTop: 12, marginBottom: 4 },
   columns: { flexDirection: "row", gap: 16 },
   column: { flex: 1 },

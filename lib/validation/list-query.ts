@@ -16,12 +16,16 @@ export const MAX_PAGE = 10_000;
 export const MAX_PAGE_SIZE = 100;
 
 type Choices = Record<string, readonly [string, ...string[]]>;
+/** Filters whose values are not a fixed list (an action, a person's id): each value must match its shape. */
+type OpenChoices = Record<string, RegExp>;
 
-interface ListSpec<F extends Choices, S extends string> {
+interface ListSpec<F extends Choices, S extends string, O extends OpenChoices> {
   /** whether the list has a search box (`q`) */
   search: boolean;
   /** each filter's values; the first is the default (usually "all") */
   filters: F;
+  /** open filters: absent (no filter) by default; a value must match the pattern, whole */
+  open?: O;
   /** each sort key with the direction its first click sorts in (the useful one for that column) */
   sorts: Record<S, SortDir>;
   /** the sort a list opens with, in its first-click direction */
@@ -30,8 +34,11 @@ interface ListSpec<F extends Choices, S extends string> {
   size: number;
 }
 
-type ListQuery<F extends Choices, S extends string> = { q: string; sort: S; dir: SortDir; page: number; size: number } & {
+type ListQuery<F extends Choices, S extends string, O extends OpenChoices> = { q: string; sort: S; dir: SortDir; page: number; size: number } & {
   -readonly [K in keyof F]: F[K][number];
+} & {
+  /** "" when the list is not filtered by it */
+  -readonly [K in keyof O]: string;
 };
 
 interface ListIssue {
@@ -84,8 +91,9 @@ function read(input: unknown, key: string): string | undefined {
 const whole = (max: number) =>
   z.coerce.number({ error: "Use a whole number." }).int("Use a whole number.").min(1, "Use a number from 1.").max(max, `Use a number up to ${max}.`);
 
-export function defineList<const F extends Choices, const S extends string>(spec: ListSpec<F, S>) {
-  type Q = ListQuery<F, S>;
+export function defineList<const F extends Choices, const S extends string, const O extends OpenChoices = Record<never, RegExp>>(spec: ListSpec<F, S, O>) {
+  type Q = ListQuery<F, S, O>;
+  const open = Object.entries(spec.open ?? {});
   const sortKeys = Object.keys(spec.sorts) as [S, ...S[]];
   const fields: Record<string, z.ZodType> = {
     sort: z.enum(sortKeys, `Sort by one of: ${sortKeys.join(", ")}.`),
@@ -94,6 +102,10 @@ export function defineList<const F extends Choices, const S extends string>(spec
     size: whole(MAX_PAGE_SIZE),
   };
   for (const [name, values] of Object.entries(spec.filters)) fields[name] = z.enum(values, `Use one of: ${values.join(", ")}.`);
+  for (const [name, pattern] of open) {
+    const whole = new RegExp(`^(?:${pattern.source})$`, pattern.flags.replace(/[gy]/g, ""));
+    fields[name] = z.string().max(200, "Not a value this list takes.").regex(whole, "Not a value this list takes.");
+  }
 
   const defaults = {
     q: "",
@@ -102,6 +114,7 @@ export function defineList<const F extends Choices, const S extends string>(spec
     page: 1,
     size: spec.size,
     ...Object.fromEntries(Object.entries(spec.filters).map(([name, values]) => [name, values[0]])),
+    ...Object.fromEntries(open.map(([name]) => [name, ""])),
   } as Q;
 
   /** Reads a list's URL (a page's searchParams, or a URLSearchParams): never throws. */
@@ -134,6 +147,10 @@ export function defineList<const F extends Choices, const S extends string>(spec
       const v = (q as Record<string, unknown>)[name];
       if (v !== values[0]) p[name] = String(v);
     }
+    for (const [name] of open) {
+      const v = (q as Record<string, unknown>)[name];
+      if (typeof v === "string" && v !== "") p[name] = v;
+    }
     if (q.sort !== spec.sort) p.sort = q.sort;
     if (q.dir !== spec.sorts[q.sort]) p.dir = q.dir;
     if (q.page !== 1) p.page = String(q.page);
@@ -144,7 +161,10 @@ export function defineList<const F extends Choices, const S extends string>(spec
   /** The shell's state for a page of this list as the database returned it. */
   function state(base: string, q: Q, page: { page: number; size: number; total: number }): ListState {
     const shown = { ...q, page: page.page };
-    const narrowed = q.q !== "" || Object.entries(spec.filters).some(([name, values]) => (q as Record<string, unknown>)[name] !== values[0]);
+    const narrowed =
+      q.q !== "" ||
+      Object.entries(spec.filters).some(([name, values]) => (q as Record<string, unknown>)[name] !== values[0]) ||
+      open.some(([name]) => (q as Record<string, unknown>)[name] !== "");
     return {
       base,
       params: params(shown),

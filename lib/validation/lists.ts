@@ -4,6 +4,7 @@ import { COMPONENT_KIND_VALUES } from "@/lib/catalog/component-fields";
 import {
   ORDER_STATUSES,
   OUTBOX_STATUSES,
+  QUOTE_LIST_STATUSES,
   QUOTE_STATUSES,
   REQUEST_STATUSES,
   SHOP_EVENT_TYPES,
@@ -50,7 +51,7 @@ export type RequestListQuery = ListQueryOf<typeof requestList>;
 
 export const quoteList = defineList({
   search: true,
-  filters: { status: ["all", ...QUOTE_STATUSES] },
+  filters: { status: ["all", ...QUOTE_LIST_STATUSES] },
   sorts: { number: "desc", customer: "asc", status: "asc", total: "desc", validUntil: "asc", created: "desc" },
   sort: "created",
   size: 20,
@@ -71,6 +72,8 @@ export const quotePageSchema = pageSchema(
     total: decimalSchema,
     validUntil: z.iso.date(),
     createdAt: z.iso.datetime({ offset: true }),
+    /** when the customer asked for a change that no revision has answered yet; null when none is waiting */
+    changeRequestedAt: z.iso.datetime({ offset: true }).nullable(),
   }),
 ).meta({ id: "QuotePage" });
 
@@ -150,3 +153,17 @@ export const ruleVersionList = defineList({
   size: 10,
 });
 export type RuleVersionListQuery = ListQueryOf<typeof ruleVersionList>;
+
+/**
+ * The audit log. Actions, subjects and people come and go with the shop, so they are open filters:
+ * an action (`member.role`, or its family `member`), a subject type, a person's user id.
+ */
+export const auditList = defineList({
+  search: true,
+  filters: {},
+  open: { action: /[a-z][a-z0-9-]*(\.[a-z][a-z0-9-]*)*/, subject: /[a-z][a-z0-9-]*/, actor: /[A-Za-z0-9_-]{1,64}/ },
+  sorts: { created: "desc", action: "asc", actor: "asc", subject: "asc" },
+  sort: "created",
+  size: 25,
+});
+export type AuditListQuery = ListQueryOf<typeof auditList>;

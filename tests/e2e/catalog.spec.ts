@@ -16,6 +16,7 @@ async function quoteAs(page: Page, email: string): Promise<string> {
   await page.getByRole("button", { name: "Show arrangements" }).click();
   await expect(page.getByTestId("options-table")).toBeVisible();
   await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();
+  await page.getByTestId("choice-review").getByRole("button", { name: "Confirm and get the quote" }).click();
   await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/Q-\\d{4}-\\d{4}$`), { timeout: 30_000 });
   return (await page.getByTestId("quote-number").innerText()).trim();
 }

@@ -58,15 +58,17 @@ test("a visitor compares arrangements, signs up, chooses one and gets the quote 
   const rows = table.locator("tbody tr");
   expect(await rows.count()).toBeGreaterThan(1);
 
-  // The options come ranked by price; sorting by price twice turns the order round.
+  // The options come ranked by price, and the price column says so; one click turns the order round.
   const ranked = await pricesInOrder(page);
   expect(ranked).toEqual([...ranked].sort((a, b) => a - b));
   const priceHeader = table.getByRole("columnheader", { name: /Price/ });
-  await priceHeader.getByRole("button").click();
+  await expect(priceHeader).toHaveAttribute("aria-sort", "ascending");
   await priceHeader.getByRole("button").click();
   await expect(priceHeader).toHaveAttribute("aria-sort", "descending");
   const descending = await pricesInOrder(page);
   expect(descending).toEqual([...ranked].sort((a, b) => b - a));
+  await priceHeader.getByRole("button").click();
+  await expect(priceHeader).toHaveAttribute("aria-sort", "ascending");
 
   // Focus another row: its heading, diagram and charts show.
   const second = rows.nth(1);
@@ -101,6 +103,11 @@ test("a visitor compares arrangements, signs up, chooses one and gets the quote 
   // Choose: a quote, numbered per shop, for the total the storefront showed for this option.
   const shownTotal = (await page.getByTestId("focused-option").getByTestId("option-total").innerText()).trim();
   await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();
+  // Before anything is issued, the customer sees what will be quoted and confirms.
+  const review = page.getByTestId("choice-review");
+  await expect(review).toContainText(shownTotal);
+  await expect(review).toContainText(/Valid for\s*30 days/);
+  await review.getByRole("button", { name: "Confirm and get the quote" }).click();
   await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/Q-\\d{4}-\\d{4}$`), { timeout: 30_000 });
   const quoteNumber = (await page.getByTestId("quote-number").innerText()).trim();
   const total = (await page.getByTestId("quote-total").innerText()).trim();
@@ -159,6 +166,7 @@ test("a request beyond the shop's auto-quote limits lands on the estimators' lis
   await page.getByRole("button", { name: "Show arrangements" }).click();
   await expect(page.getByTestId("options-table")).toBeVisible();
   await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();
+  await page.getByTestId("choice-review").getByRole("button", { name: "Confirm and get the quote" }).click();
   await expect(page.getByTestId("review-notice")).toHaveText(/Sent to the shop's estimators; you will hear by e-mail/);
   await expect(page).toHaveURL(new RegExp(`/s/${K}$`));
 
@@ -170,4 +178,20 @@ test("a request beyond the shop's auto-quote limits lands on the estimators' lis
   await expect(row).toHaveCount(1);
   await expect(row).toContainText(/needs review/i);
   await staff.close();
+});
+
+test("a search that cannot reach the shop is explained beside the form, which keeps what was typed", async ({ page }) => {
+  await page.goto(`/s/${K}`);
+  await fillRequest(page, { max: "48 V", min: "24 V", energy: "20 kJ" });
+  // the storefront's search is a server action: a POST to the page carrying a Next-Action header
+  await page.route(`**/s/${K}`, (route) => (route.request().method() === "POST" ? route.abort("connectionreset") : route.continue()));
+  await page.getByRole("button", { name: "Show arrangements" }).click();
+  await expect(page.getByRole("alert").filter({ hasText: "could not be reached" })).toBeVisible();
+  await expect(page.getByRole("heading", { name: "Describe your bank" })).toBeVisible();
+  await expect(page.getByLabel("Maximum voltage")).toHaveValue("48 V");
+  await expect(page.getByLabel("Usable energy needed")).toHaveValue("20 kJ");
+  // back on line, the same form searches
+  await page.unroute(`**/s/${K}`);
+  await page.getByRole("button", { name: "Show arrangements" }).click();
+  await expect(page.getByTestId("options-table")).toBeVisible();
 });

@@ -63,6 +63,7 @@ test("a customer keeps the banks that survive a shorted cell, reads one's yield 
 
   // Choose the focused option: the quote page and its PDF carry the failure, yield and life sections.
   await focused.getByRole("button", { name: "Choose this arrangement" }).click();
+  await focused.getByTestId("choice-review").getByRole("button", { name: "Confirm and get the quote" }).click();
   await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/Q-\\d{4}-\\d{4}$`), { timeout: 30_000 });
   const engineering = page.getByTestId("quote-engineering");
   await expect(engineering.getByTestId("quote-failures")).toContainText(/Survives one shorted cell: yes/);

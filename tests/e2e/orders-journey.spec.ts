@@ -8,7 +8,6 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import type { Page } from "@playwright/test";
-import { Client } from "pg";
 import { expect, test } from "./fixtures";
 import { signIn, unique } from "./helpers";
 
@@ -20,21 +19,6 @@ interface InboxMail {
   subject: string;
   text?: string;
   to: { address: string }[];
-}
-
-/**
- * Until the quote's own accept move lands, the quote is accepted by the test-only shortcut
- * (db/queries/test-shortcuts.ts does the same for the integration tests); the "Accept and pay"
- * button then opens the checkout.
- */
-async function acceptQuote(number: string) {
-  const db = new Client({ connectionString: process.env.DATABASE_URL });
-  await db.connect();
-  try {
-    await db.query("update quotes set status = 'accepted' where number = $1 and shop_id = (select id from shops where slug = $2)", [number, K]);
-  } finally {
-    await db.end();
-  }
 }
 
 async function mailsTo(address: string): Promise<InboxMail[]> {
@@ -66,6 +50,7 @@ async function newCustomerQuote(page: Page, name: string, email: string, passwor
   await page.getByLabel("Usable energy needed").fill("20 kJ");
   await page.getByRole("button", { name: "Show arrangements" }).click();
   await page.getByTestId("focused-option").getByRole("button", { name: "Choose this arrangement" }).click();
+  await page.getByTestId("choice-review").getByRole("button", { name: "Confirm and get the quote" }).click();
   await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/Q-\\d{4}-\\d{4}$`), { timeout: 30_000 });
   return { quoteNumber: (await page.getByTestId("quote-number").innerText()).trim(), total: (await page.getByTestId("quote-total").innerText()).trim() };
 }
@@ -87,13 +72,11 @@ test("a customer pays on the hosted page; the manager builds, tests and ships; t
   // A new customer signs up and chooses a bank.
   const { quoteNumber, total } = await newCustomerQuote(page, "Vesna Tull", email, "larchmoor-depot-password");
 
-  // Accept, then pay the whole amount on the hosted page (declined once, then approved).
-  await acceptQuote(quoteNumber);
-  await page.reload();
+  // Accept and pay the whole amount on the hosted page (declined once, then approved).
   const pay = page.getByTestId("pay-section");
   await expect(pay.getByText("Deposit (30 %)")).toBeVisible();
   await pay.getByLabel(/The whole amount/).check();
-  await pay.getByRole("button", { name: `Pay ${total}` }).click();
+  await pay.getByRole("button", { name: `Accept and pay ${total}` }).click();
   await expect(page.getByRole("heading", { name: `Pay ${total}` })).toBeVisible({ timeout: 20_000 });
   await page.getByRole("button", { name: "Pay with the declining test card" }).click();
   await expect(page.getByRole("alert")).toContainText("declined");
@@ -192,11 +175,9 @@ test("a customer pays on the hosted page; the manager builds, tests and ships; t
 test("a customer who cancels on the hosted page comes back to the quote, with nothing charged", async ({ page }) => {
   const email = `oren.vask.${unique()}@larchmoor-rail.example`;
   const { quoteNumber } = await newCustomerQuote(page, "Oren Vask", email, "larchmoor-yard-password");
-  await acceptQuote(quoteNumber);
-  await page.reload();
   const pay = page.getByTestId("pay-section");
   await pay.getByLabel(/Deposit/).check();
-  await pay.getByRole("button", { name: /^Pay / }).click();
+  await pay.getByRole("button", { name: /^Accept and pay / }).click();
   await page.getByRole("link", { name: "Cancel and go back" }).click();
   await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/${quoteNumber}\\?checkout=cancelled$`));
   await expect(page.getByTestId("pay-section")).toContainText("Payment cancelled: nothing was charged.");

@@ -60,18 +60,34 @@ test("a manager opens a shop, a customer joins it on the storefront, and the man
   await page.getByRole("navigation", { name: "Desk" }).getByRole("link", { name: "Team" }).click();
   const row = page.getByTestId(`member-bram.${id}@tollis-cranes.example`);
   await expect(row).toContainText("Bram Tollis");
+  // Picking a role only proposes it; it is saved once confirmed.
   await row.getByLabel("Role of Bram Tollis").selectOption("estimator");
+  await expect(row.getByRole("status")).toHaveCount(0);
+  await row.getByRole("button", { name: "Change role" }).click();
   await expect(row.getByRole("status")).toHaveText("Saved");
 
-  // On their next page the former customer has the estimator's desk.
+  // On their next page the former customer has the estimator's desk, but not the audit log.
   await cpage.goto(`/desk/${slug}/catalog`);
   await expect(cpage.getByRole("heading", { name: "Catalog" })).toBeVisible();
+  await cpage.goto(`/desk/${slug}/audit`);
+  await expect(cpage.getByRole("heading", { name: "This page is not open to your role" })).toBeVisible();
   await customer.close();
+
+  // The manager's audit log has the change, with who made it; filtered by person through the URL.
+  await page.getByRole("navigation", { name: "Desk" }).getByRole("link", { name: "Audit log" }).click();
+  const entries = page.getByRole("table", { name: "Audit entries" });
+  await expect(entries.getByRole("row")).toHaveCount(2);
+  await expect(entries).toContainText(`Role of Bram Tollis (bram.${id}@tollis-cranes.example) from Customer to Estimator`);
+  await expect(entries).toContainText("Ada Quill");
+  await page.getByLabel("Who").selectOption({ label: "Ada Quill" });
+  await page.getByRole("button", { name: "Filter" }).click();
+  await expect(page).toHaveURL(/[?&]actor=/);
+  await expect(entries.getByRole("row")).toHaveCount(2);
 });
 
 test.describe("each role reaches its own pages and is refused the others'", () => {
-  const deskPages = ["", "/requests", "/quotes", "/catalog", "/pricing", "/orders", "/team", "/outbox", "/settings"];
-  const managerOnly = new Set(["/team", "/outbox", "/settings"]);
+  const deskPages = ["", "/requests", "/quotes", "/catalog", "/pricing", "/orders", "/team", "/outbox", "/audit", "/settings"];
+  const managerOnly = new Set(["/team", "/outbox", "/audit", "/settings"]);
 
   test("manager", async ({ page }) => {
     await signIn(page, kestrel.manager);
@@ -172,4 +188,13 @@ test.describe("each role reaches its own pages and is refused the others'", () =
     await expect(page.getByRole("heading", { name: "Catalog", level: 1 })).toBeVisible();
     await expect(table.getByRole("columnheader", { name: /SKU/ })).toHaveAttribute("aria-sort", "ascending");
   });
+});
+
+test("signed out, a desk deep link asks to sign in and then opens the page asked for", async ({ page }) => {
+  await page.goto(`/desk/${K}/outbox?status=failed`);
+  await expect(page).toHaveURL(/\/sign-in\?/);
+  await page.getByLabel("E-mail").fill(kestrel.manager);
+  await page.getByLabel("Password").fill("faradsmith-demo-2026");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page).toHaveURL(new RegExp(`/desk/${K}/outbox\\?status=failed$`));
 });

@@ -8,7 +8,7 @@ import { and, eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { openShop } from "@/app/(auth)/open-shop/actions";
 import { joinShop } from "@/app/s/[shop]/join/actions";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { emailOutbox, members, shops, users } from "@/db/schema";
 import { demoPeople } from "@/db/seed/people";
 import { buildOutboxMessage } from "@/lib/mail/messages";

@@ -15,7 +15,7 @@ import { createApiKey, revokeApiKey } from "@/app/desk/[shop]/api-keys/actions";
 import { GET as listCellsRoute } from "@/app/api/v1/shops/[shop]/cells/route";
 import { PATCH as patchCellRoute } from "@/app/api/v1/shops/[shop]/cells/[sku]/route";
 import { GET as rulesRoute, PUT as putRulesRoute } from "@/app/api/v1/shops/[shop]/pricing-rules/route";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { apiKeys, auditEvents, pricingRuleVersions } from "@/db/schema";
 import { hashApiKeySecret } from "@/lib/auth/api-keys";
 import { createShop, type TestShop } from "./fixtures";

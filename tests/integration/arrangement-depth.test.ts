@@ -11,7 +11,7 @@ import { exploreArrangements } from "@/app/s/[shop]/actions";
 import { saveDesignSettings } from "@/app/desk/[shop]/settings/actions";
 import { DEFAULT_AUTO_QUOTE_LIMITS } from "@/lib/quoting/auto-quote-limits";
 import { settingsFormText } from "@/lib/validation/design-settings";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { getQuoteByNumber } from "@/db/queries/quotes";
 import { catalogCells, shopSettings } from "@/db/schema";
 import { DEFAULT_DESIGN_FACTORS, DEFAULT_RELIABILITY_SETTINGS } from "@/lib/bank";

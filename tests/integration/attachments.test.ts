@@ -10,7 +10,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as downloadRoute } from "@/app/api/v1/shops/[shop]/attachments/[id]/route";
 import { POST as uploadRoute } from "@/app/api/v1/shops/[shop]/attachments/route";
 import { chooseArrangement } from "@/app/s/[shop]/actions";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { getAttachment } from "@/db/queries/attachments";
 import { requestAttachments } from "@/db/schema";
 import { env } from "@/lib/env";
@@ -64,16 +64,16 @@ describe("attachments", () => {
   });
 
   it.each([
-    ["drawing.pdf", PDF, "application/pdf"],
-    ["photo.png", PNG, "image/png"],
-    ["outline.dxf", DXF, "image/vnd.dxf"],
-    // the name does not decide: a PDF called .png is a PDF
-    ["misnamed.png", PDF, "application/pdf"],
-  ])("accepts %s and stores it outside public/ with its SHA-256", async (name, bytes, type) => {
+    ["drawing.pdf", PDF, "application/pdf", "drawing.pdf"],
+    ["photo.png", PNG, "image/png", "photo.png"],
+    ["outline.dxf", DXF, "image/vnd.dxf", "outline.dxf"],
+    // the name does not decide: a PDF called .png is a PDF, and is named so
+    ["misnamed.png", PDF, "application/pdf", "misnamed.pdf"],
+  ])("accepts %s and stores it outside public/ with its SHA-256", async (name, bytes, type, storedName) => {
     const res = await upload(kCustomer, K, name, bytes);
     expect(res.status).toBe(201);
     const body = (await res.json()) as { id: string; fileName: string; sizeBytes: number; contentType: string };
-    expect(body).toMatchObject({ fileName: name, sizeBytes: bytes.byteLength, contentType: type });
+    expect(body).toMatchObject({ fileName: storedName, sizeBytes: bytes.byteLength, contentType: type });
     const row = await getAttachment(kShopId, body.id);
     expect(row?.storageKey.startsWith(`${kShopId}/`)).toBe(true);
     const file = path.resolve(env.UPLOAD_DIR, row!.storageKey);

@@ -10,10 +10,11 @@ import { GET as authGet, POST as authPost } from "@/app/api/auth/[...all]/route"
 import { openShop } from "@/app/(auth)/open-shop/actions";
 import { joinShop } from "@/app/s/[shop]/join/actions";
 import { changeMemberRole } from "@/app/desk/[shop]/team/actions";
-import { db } from "@/db";
+import { withShop } from "@/db/tx";
+import { ownerDb as db } from "./owner-db";
 import { members, shopSettings, shops, users } from "@/db/schema";
 import { DEMO_PASSWORD, demoPeople } from "@/db/seed/people";
-import { auth } from "@/lib/auth/server";
+import { auth, randomId } from "@/lib/auth/server";
 import { env } from "@/lib/env";
 import { actAs, memberOf, sessionCookie, shopBySlug } from "./helpers";
 
@@ -172,6 +173,10 @@ describe("better-auth endpoints over HTTP", () => {
 });
 
 describe("the plugin called by our own server code obeys our rules", () => {
+  // Our server code calls the plugin inside the shop's row-level security scope (db/tx.ts): a new
+  // shop in withShop(its new id), everything else in withShop(the shop's id). Its hooks must hold there.
+  const inNewShop = <T>(fn: () => Promise<T>) => withShop(randomId(), fn);
+  const inShop = <T>(fn: () => Promise<T>) => withShop(kShopId, fn);
   let kShopId = "";
   let founderId = "";
   beforeAll(async () => {
@@ -181,13 +186,15 @@ describe("the plugin called by our own server code obeys our rules", () => {
   const headersOf = async (email: string) => new Headers({ cookie: await sessionCookie(email) });
 
   it.each(["desk", "sign-in", "api", "ab", "X..Y", "a/../x", "north--coast", "-edge"])("refuses to create a shop with the slug %j", async (slug) => {
-    await expect(auth.api.createOrganization({ body: { name: "Probe Works", slug, userId: founderId } })).rejects.toMatchObject({ statusCode: 400 });
+    await expect(inNewShop(() => auth.api.createOrganization({ body: { name: "Probe Works", slug, userId: founderId } }))).rejects.toMatchObject({
+      statusCode: 400,
+    });
     expect(await db.select({ id: shops.id }).from(shops).where(eq(shops.slug, slug))).toEqual([]);
   });
 
   it("never leaves a shop without its settings row", async () => {
     const slug = `settings-check-${Date.now().toString(36)}`;
-    const shop = await auth.api.createOrganization({ body: { name: "Settings Check", slug, userId: founderId } });
+    const shop = await inNewShop(() => auth.api.createOrganization({ body: { name: "Settings Check", slug, userId: founderId } }));
     const [settings] = await db.select({ currency: shopSettings.currency }).from(shopSettings).where(eq(shopSettings.shopId, shop!.id));
     expect(settings?.currency).toBe("EUR");
   });
@@ -195,7 +202,7 @@ describe("the plugin called by our own server code obeys our rules", () => {
   it("refuses a slug change to a reserved or malformed address", async () => {
     for (const slug of ["api", "a/../x", "Desk"]) {
       await expect(
-        auth.api.updateOrganization({ body: { organizationId: kShopId, data: { slug } }, headers: await headersOf(people.manager) }),
+        inShop(async () => auth.api.updateOrganization({ body: { organizationId: kShopId, data: { slug } }, headers: await headersOf(people.manager) })),
       ).rejects.toMatchObject({ statusCode: 400 });
     }
     expect((await shopBySlug(K)).slug).toBe(K);
@@ -205,9 +212,9 @@ describe("the plugin called by our own server code obeys our rules", () => {
     const customer = await memberOf(K, demoPeople[K].customers[1].email);
     const founder = await memberOf(K, people.manager);
     const h = await headersOf(people.manager);
-    await expect(auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: customer.id, role: "manager" }, headers: h })).rejects.toMatchObject({
-      statusCode: 403,
-    });
+    await expect(
+      inShop(() => auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: customer.id, role: "manager" }, headers: h })),
+    ).rejects.toMatchObject({ statusCode: 403 });
     expect((await memberOf(K, demoPeople[K].customers[1].email)).role).toBe("customer");
     // a shop with a second manager (the data allows one): the co-manager cannot demote the founder
     const coManagerEmail = demoPeople[K].customers[0].email;
@@ -215,24 +222,30 @@ describe("the plugin called by our own server code obeys our rules", () => {
     await db.update(members).set({ role: "manager" }).where(eq(members.id, coManager.id));
     try {
       await expect(
-        auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: founder.id, role: "customer" }, headers: await headersOf(coManagerEmail) }),
+        inShop(async () =>
+          auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: founder.id, role: "customer" }, headers: await headersOf(coManagerEmail) }),
+        ),
       ).rejects.toMatchObject({ statusCode: 403 });
       await expect(
-        auth.api.removeMember({ body: { organizationId: kShopId, memberIdOrEmail: people.manager }, headers: await headersOf(coManagerEmail) }),
+        inShop(async () =>
+          auth.api.removeMember({ body: { organizationId: kShopId, memberIdOrEmail: people.manager }, headers: await headersOf(coManagerEmail) }),
+        ),
       ).rejects.toMatchObject({ statusCode: 403 });
     } finally {
       await db.update(members).set({ role: "customer" }).where(eq(members.id, coManager.id));
     }
     expect((await memberOf(K, people.manager)).role).toBe("manager");
     // the one move the team page makes, also through the plugin
-    await auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: customer.id, role: "estimator" }, headers: h });
+    await inShop(() => auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: customer.id, role: "estimator" }, headers: h }));
     expect((await memberOf(K, demoPeople[K].customers[1].email)).role).toBe("estimator");
-    await auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: customer.id, role: "customer" }, headers: h });
+    await inShop(() => auth.api.updateMemberRole({ body: { organizationId: kShopId, memberId: customer.id, role: "customer" }, headers: h }));
   });
 
   it("adds nobody as manager to a shop that has one, and invites nobody", async () => {
     const [outsider] = await db.select({ id: users.id }).from(users).where(eq(users.email, demoPeople[M].customers[1].email));
-    await expect(auth.api.addMember({ body: { userId: outsider!.id, organizationId: kShopId, role: "manager" } })).rejects.toMatchObject({ statusCode: 403 });
+    await expect(inShop(() => auth.api.addMember({ body: { userId: outsider!.id, organizationId: kShopId, role: "manager" } }))).rejects.toMatchObject({
+      statusCode: 403,
+    });
     expect(
       await db
         .select({ id: members.id })
@@ -240,24 +253,45 @@ describe("the plugin called by our own server code obeys our rules", () => {
         .where(and(eq(members.shopId, kShopId), eq(members.userId, outsider!.id))),
     ).toEqual([]);
     await expect(
-      auth.api.createInvitation({
-        body: { organizationId: kShopId, email: "probe@nowhere.example", role: "estimator" },
-        headers: await headersOf(people.manager),
-      }),
+      inShop(async () =>
+        auth.api.createInvitation({
+          body: { organizationId: kShopId, email: "probe@nowhere.example", role: "estimator" },
+          headers: await headersOf(people.manager),
+        }),
+      ),
     ).rejects.toMatchObject({ statusCode: 403 });
   });
 
   it("lists a shop's members to its manager only: not to a customer, an estimator or another shop's manager", async () => {
     for (const email of [people.customer, people.estimator, people.otherManager]) {
-      await expect(auth.api.listMembers({ query: { organizationId: kShopId }, headers: await headersOf(email) }), email).rejects.toMatchObject({
-        statusCode: 403,
-      });
-      await expect(auth.api.getFullOrganization({ query: { organizationId: kShopId }, headers: await headersOf(email) }), email).rejects.toMatchObject({
+      const h = await headersOf(email);
+      await expect(
+        inShop(() => auth.api.listMembers({ query: { organizationId: kShopId }, headers: h })),
+        email,
+      ).rejects.toMatchObject({ statusCode: 403 });
+      await expect(
+        inShop(() => auth.api.getFullOrganization({ query: { organizationId: kShopId }, headers: h })),
+        email,
+      ).rejects.toMatchObject({
         statusCode: 403,
       });
     }
-    const list = await auth.api.listMembers({ query: { organizationId: kShopId }, headers: await headersOf(people.manager) });
+    const h = await headersOf(people.manager);
+    const list = await inShop(() => auth.api.listMembers({ query: { organizationId: kShopId }, headers: h }));
     expect(list.members.length).toBeGreaterThan(2);
+  });
+
+  it("outside any shop's scope the plugin cannot touch members at all: the database refuses", async () => {
+    const [outsider] = await db.select({ id: users.id }).from(users).where(eq(users.email, demoPeople[M].customers[1].email));
+    await expect(auth.api.addMember({ body: { userId: outsider!.id, organizationId: kShopId, role: "customer" } })).rejects.toMatchObject({
+      cause: { code: "42501", message: expect.stringMatching(/outside withShop/) },
+    });
+    expect(
+      await db
+        .select({ id: members.id })
+        .from(members)
+        .where(and(eq(members.shopId, kShopId), eq(members.userId, outsider!.id))),
+    ).toEqual([]);
   });
 
   it("the app's own uses keep working: open a shop, join it, change a role", async () => {

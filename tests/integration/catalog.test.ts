@@ -10,7 +10,7 @@ import { and, eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { GET as cellRoute, PATCH as patchCellRoute } from "@/app/api/v1/shops/[shop]/cells/[sku]/route";
 import { GET as exportRoute, POST as importRoute } from "@/app/api/v1/shops/[shop]/cells.csv/route";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { getQuoteByNumber, getRevision } from "@/db/queries/quotes";
 import { auditEvents, catalogCells, shopEvents } from "@/db/schema";
 import { createCell, listCostHistory, updateCell } from "@/lib/catalog/edit";

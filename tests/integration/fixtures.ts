@@ -5,7 +5,7 @@
  */
 import { randomUUID } from "node:crypto";
 import { hashPassword } from "better-auth/crypto";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { DEMO_PASSWORD, demoCatalogs, demoPricingRules, seedShop } from "@/db/seed";
 import type { ShopContext } from "@/lib/auth/context";
 import type { Role } from "@/lib/auth/permissions";

@@ -3,7 +3,8 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { and, eq } from "drizzle-orm";
-import { db } from "@/db";
+import { Client } from "pg";
+import { ownerDb as db } from "./owner-db";
 import { members, shops, users } from "@/db/schema";
 import { DEMO_PASSWORD } from "@/db/seed/people";
 import { auth } from "@/lib/auth/server";
@@ -69,6 +70,19 @@ export async function pageAnswer(render: () => Promise<unknown>): Promise<string
     if (typeof digest === "string" && digest.startsWith("NEXT_HTTP_ERROR_FALLBACK;")) return digest.split(";")[1] ?? digest;
     if (typeof digest === "string" && digest.startsWith("NEXT_REDIRECT;")) return `redirect ${digest.split(";")[2] ?? ""}`;
     throw error;
+  }
+}
+
+/** Runs one statement on the test cluster's maintenance database (CREATE DATABASE, DROP DATABASE, …). */
+export async function adminStatement(statement: string): Promise<void> {
+  const url = new URL(process.env.DATABASE_URL ?? "");
+  url.pathname = "/postgres";
+  const client = new Client({ connectionString: url.toString() });
+  await client.connect();
+  try {
+    await client.query(statement);
+  } finally {
+    await client.end();
   }
 }
 

@@ -6,7 +6,7 @@
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { chooseArrangement } from "@/app/s/[shop]/actions";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { listCatalogCells } from "@/db/queries/catalog";
 import { listMembers } from "@/db/queries/members";
 import { listOutbox } from "@/db/queries/outbox";

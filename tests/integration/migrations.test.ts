@@ -1,32 +1,21 @@
 import path from "node:path";
 import { sql } from "drizzle-orm";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
-import { Client } from "pg";
 import { afterAll, describe, expect, it } from "vitest";
 import { createDb } from "@/db/client";
+import { adminStatement } from "./helpers";
 
-const base = new URL(process.env.DATABASE_URL!);
+// the tables' owner creates and migrates databases
+const base = new URL(process.env.MIGRATION_DATABASE_URL!);
 const scratch = `faradsmith_migrate_${process.pid}`;
-
-async function admin(statement: string) {
-  const url = new URL(base);
-  url.pathname = "/postgres";
-  const client = new Client({ connectionString: url.toString() });
-  await client.connect();
-  try {
-    await client.query(statement);
-  } finally {
-    await client.end();
-  }
-}
 
 describe("migrations", () => {
   afterAll(async () => {
-    await admin(`DROP DATABASE IF EXISTS "${scratch}" WITH (FORCE)`);
+    await adminStatement(`DROP DATABASE IF EXISTS "${scratch}" WITH (FORCE)`);
   });
 
   it("apply to an empty database, twice without harm, and every tenant table leads its indexes with shop_id", async () => {
-    await admin(`CREATE DATABASE "${scratch}"`);
+    await adminStatement(`CREATE DATABASE "${scratch}"`);
     const url = new URL(base);
     url.pathname = `/${scratch}`;
     const { db, pool } = createDb(url.toString(), 1);

@@ -10,7 +10,7 @@ import { cancelOrder, moveOrder, recordTest, refundOrder } from "@/app/desk/[sho
 import { GET as certificateRoute } from "@/app/api/v1/shops/[shop]/orders/[number]/certificate/route";
 import { GET as travelerRoute } from "@/app/api/v1/shops/[shop]/orders/[number]/traveler/route";
 import { GET as ordersRoute } from "@/app/api/v1/shops/[shop]/orders/route";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { getOrderDetail } from "@/db/queries/orders";
 import { auditEvents, emailOutbox, orderStatusHistory, shopEvents } from "@/db/schema";
 import { buildOutboxMessage } from "@/lib/mail/messages";

@@ -11,9 +11,9 @@ import type Stripe from "stripe";
 import { afterAll, beforeAll, beforeEach } from "vitest";
 import { POST as webhookRoute } from "@/app/api/webhooks/stripe/route";
 import type { Standin } from "@/dev/stripe-standin/server";
-import { db } from "@/db";
-import { markQuoteAcceptedForTests } from "@/db/queries/test-shortcuts";
+import { ownerDb as db } from "./owner-db";
 import { orders, payments, quotes } from "@/db/schema";
+import { acceptQuoteRevision } from "@/lib/quoting/lifecycle";
 import { openCheckout } from "@/lib/payments/checkout";
 import { configureStripe } from "@/lib/payments/stripe";
 import type { Requirement } from "@/lib/bank";
@@ -84,10 +84,11 @@ export function usePaymentRig(): PaymentRig {
   return rig;
 }
 
-/** A quote of the customer's, accepted (through the test-only shortcut until acceptance lands). */
+/** A quote of the customer's, accepted by the customer through the quote's own accept move. */
 export async function acceptedQuote(shop: TestShop, customer: TestPerson = shop.customers[0], requirement: Requirement = KESTREL_REQUIREMENT): Promise<string> {
   const number = await createQuote(shop, customer, requirement);
-  await markQuoteAcceptedForTests(shop.id, number);
+  const accepted = await acceptQuoteRevision(contextOf(shop, customer, "customer"), { number, revision: 1 });
+  if (!accepted.ok) throw new Error(`accept refused: ${JSON.stringify(accepted)}`);
   return number;
 }
 

@@ -9,16 +9,21 @@ import Stripe from "stripe";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as checkoutRoute, GET as checkoutStateRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/checkout/route";
 import { POST as webhookRoute } from "@/app/api/webhooks/stripe/route";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { getStripeEvent } from "@/db/queries/payments";
+import { getQuoteByNumber } from "@/db/queries/quotes";
 import { emailOutbox, orderStatusHistory, quoteRevisions, quotes, shopEvents, stripeEvents } from "@/db/schema";
 import { env } from "@/lib/env";
 import { openCheckout } from "@/lib/payments/checkout";
+import { issueQuoteRevision } from "@/lib/quoting/issue-revision";
+import { declineQuoteRevision } from "@/lib/quoting/lifecycle";
+import { NO_OVERRIDES } from "@/lib/quoting/review-search";
+import { issueRevisionSchema } from "@/lib/validation/workbench";
 import { reconcileStripeEvents } from "@/lib/payments/reconcile";
 import { requestRefund } from "@/lib/payments/refunds";
 import { fromMinorUnits, toMinorUnits } from "@/lib/pricing";
 import { Dec } from "@/lib/pricing/decimal";
-import { contextOf, createShop, type TestShop } from "./fixtures";
+import { cheapestOption, contextOf, createQuote, createShop, KESTREL_REQUIREMENT, type TestShop } from "./fixtures";
 import { request, sessionCookie } from "./helpers";
 import { acceptedQuote, checkoutFor, ordersOfQuote, payAndSettle, paymentOf, usePaymentRig } from "./payments-support";
 import { control, settle } from "./stripe-standin/helpers";
@@ -90,16 +95,55 @@ describe("checkout", () => {
     expect((await rig.sdk.events.list({ type: "checkout.session.*" } as Stripe.EventListParams)).data).toEqual([]);
   });
 
-  it("refuses a quote not accepted, an expired one and a superseded revision, and a malformed body", async () => {
+  it("accepts a sent revision through the quote's accept move, once, and refuses a declined quote, an expired one, a superseded revision and a malformed body", async () => {
     const cookie = await sessionCookie(K.customers[0].email);
-    const fresh = await acceptedQuote(K);
-    await db
-      .update(quotes)
-      .set({ status: "issued" })
-      .where(and(eq(quotes.shopId, K.id), eq(quotes.number, fresh)));
-    const notAccepted = await postCheckout(K, fresh, cookie);
-    expect(notAccepted.status).toBe(409);
-    expect(((await notAccepted.json()) as { error: string }).error).toMatch(/not been accepted/);
+    const customer = contextOf(K, K.customers[0], "customer");
+    const acceptedEvents = async (number: string) =>
+      (
+        await db
+          .select({ payload: shopEvents.payload })
+          .from(shopEvents)
+          .where(and(eq(shopEvents.shopId, K.id), eq(shopEvents.type, "quote.accepted")))
+      ).filter((e) => (e.payload as { number?: string }).number === number).length;
+    // "Accept and pay" on a sent quote: the checkout accepts revision 1, and a second tab finds the same acceptance and page
+    const sent = await createQuote(K, K.customers[0]);
+    const first = await postCheckout(K, sent, cookie);
+    expect(first.status).toBe(200);
+    const again = await postCheckout(K, sent, cookie);
+    expect(((await again.json()) as { sessionId: string }).sessionId).toBe(((await first.json()) as { sessionId: string }).sessionId);
+    expect(
+      (
+        await db
+          .select({ status: quotes.status })
+          .from(quotes)
+          .where(and(eq(quotes.shopId, K.id), eq(quotes.number, sent)))
+      )[0]?.status,
+    ).toBe("accepted");
+    expect(await acceptedEvents(sent)).toBe(1);
+
+    // a declined quote cannot be accepted by paying it
+    const declined = await createQuote(K, K.customers[0]);
+    expect(await declineQuoteRevision(customer, { number: declined, revision: 1, reason: "Bought elsewhere" })).toMatchObject({ ok: true });
+    const refusedDeclined = await postCheckout(K, declined, cookie);
+    expect(refusedDeclined.status).toBe(409);
+    expect(await acceptedEvents(declined)).toBe(0);
+
+    // a sent revision past its validity is expired by the attempt, not accepted
+    const late = await createQuote(K, K.customers[0]);
+    const pastValidity = new Date(Date.now() + 400 * 86_400_000);
+    expect(await openCheckout(customer, { number: late, revision: 1, kind: "full" }, pastValidity)).toMatchObject({
+      ok: false,
+      code: "conflict",
+      message: expect.stringMatching(/expired/),
+    });
+    expect(
+      (
+        await db
+          .select({ status: quotes.status })
+          .from(quotes)
+          .where(and(eq(quotes.shopId, K.id), eq(quotes.number, late)))
+      )[0]?.status,
+    ).toBe("expired");
 
     const expiring = await acceptedQuote(K);
     const later = new Date(Date.now() + 400 * 86_400_000);
@@ -130,6 +174,42 @@ describe("checkout", () => {
     const m = await acceptedQuote(M, M.customers[0], { maxVoltage: 800, capacitance: 10e-6, quantity: 1 });
     const refused = await openCheckout(contextOf(M, M.customers[0], "customer"), { number: m, revision: 1, kind: "deposit" });
     expect(refused).toMatchObject({ ok: false, code: "conflict", message: expect.stringMatching(/not offered/) });
+  });
+});
+
+describe("checkout of an estimator's revision", () => {
+  it("charges the revision's sheet: the bank, an added line and the discount with its reason, tax included", async () => {
+    const number = await createQuote(K, K.customers[0]);
+    const quote = await getQuoteByNumber(K.id, number);
+    const o = await cheapestOption(K.id, KESTREL_REQUIREMENT);
+    const draft = {
+      bank: {
+        kind: "engine",
+        choice: { sku: o.cell.sku, topology: o.topology, seriesCount: o.seriesCount, parallelCount: o.parallelCount },
+        overrides: NO_OVERRIDES,
+      },
+      bankPrice: null,
+      lines: [{ kind: "freight", description: "Pallet freight", quantity: "1", unit: "lot", unitPrice: "85.00" }],
+      discount: { kind: "percent", value: "5", reason: "Repeat order" },
+      validityDays: 30,
+      note: "",
+    };
+    const issued = await issueQuoteRevision(
+      contextOf(K, K.estimator, "estimator"),
+      issueRevisionSchema.parse({ requestId: quote!.requestId, draft, basedOnRevision: 1 }),
+    );
+    expect(issued).toMatchObject({ ok: true, data: { revision: 2 } });
+    const [rev2] = await db
+      .select()
+      .from(quoteRevisions)
+      .where(and(eq(quoteRevisions.shopId, K.id), eq(quoteRevisions.quoteId, quote!.id), eq(quoteRevisions.revision, 2)));
+    const sheetTotal = rev2!.sheet!.total;
+    // the price rules alone would ask another amount: the sheet's total is what is charged
+    expect(sheetTotal).not.toBe(rev2!.pricing.total);
+    const opened = await openCheckout(contextOf(K, K.customers[0], "customer"), { number, revision: 2, kind: "full" });
+    if (!opened.ok) throw new Error(JSON.stringify(opened));
+    const session = await rig.sdk.checkout.sessions.retrieve(opened.data.sessionId);
+    expect(session.amount_total).toBe(toMinorUnits(sheetTotal, "EUR"));
   });
 });
 

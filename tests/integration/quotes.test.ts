@@ -9,7 +9,7 @@ import { describe, expect, it } from "vitest";
 import { GET as pdfRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/pdf/route";
 import { GET as quotesRoute } from "@/app/api/v1/shops/[shop]/quotes/route";
 import { chooseArrangement } from "@/app/s/[shop]/actions";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { getQuoteByNumber, getRevision } from "@/db/queries/quotes";
 import { listRequests } from "@/db/queries/requests";
 import { bankRequests, catalogCells, emailOutbox, quotes, shopSettings } from "@/db/schema";

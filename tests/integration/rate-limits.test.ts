@@ -18,13 +18,13 @@ vi.hoisted(() => {
 
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { POST as arrangementsRoute } from "@/app/api/v1/shops/[shop]/arrangements/route";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { createDb } from "@/db/client";
 import { rateLimits, signInFailures } from "@/db/schema";
 import { DEMO_PASSWORD, demoPeople } from "@/db/seed/people";
 import { accountKey } from "@/db/queries/sign-in-failures";
 import { env } from "@/lib/env";
-import { createPostgresRateLimitStore, sweepRateLimits } from "@/db/queries/rate-limits";
+import { createPostgresRateLimitStore, leaseSize, sweepRateLimits } from "@/db/queries/rate-limits";
 
 const K = "kestrel-bank-works";
 afterAll(() => vi.unstubAllEnvs());
@@ -145,6 +145,33 @@ describe("the PostgreSQL store", () => {
       expect(decisions.filter((d) => d.allowed)).toHaveLength(10);
       const [row] = await db.select({ count: rateLimits.count }).from(rateLimits).where(eq(rateLimits.key, key));
       expect(row?.count).toBe(40);
+    } finally {
+      await a.pool.end();
+      await b.pool.end();
+    }
+  });
+
+  it("a generous limit is taken a hundredth at a time: far fewer writes, never more than the limit across two servers", async () => {
+    const a = createDb(env.DATABASE_URL, 5);
+    const b = createDb(env.DATABASE_URL, 5);
+    try {
+      const generous = { limit: 1000, windowSeconds: 60 };
+      expect(leaseSize(generous.limit)).toBe(10);
+      const stores = [createPostgresRateLimitStore(a.db), createPostgresRateLimitStore(b.db)];
+      const key = `test:lease:${peer()}`;
+      let allowed = 0;
+      for (let i = 0; i < 1000; i++) if ((await stores[i % 2]!.consume(key, generous)).allowed) allowed += 1;
+      // the count moved ten at a time: about a hundred writes for a thousand requests, not a thousand
+      const [row] = await db.select({ count: rateLimits.count }).from(rateLimits).where(eq(rateLimits.key, key));
+      expect(row!.count % 10).toBe(0);
+      expect(row!.count).toBeLessThanOrEqual(1020);
+      for (let i = 0; i < 100; i++) if ((await stores[i % 2]!.consume(key, generous)).allowed) allowed += 1;
+      // granted against the shared count: never above the limit; tokens one server took and did not
+      // use are lost, at most (servers − 1) · (lease − 1) of them
+      expect(allowed).toBeLessThanOrEqual(1000);
+      expect(allowed).toBeGreaterThanOrEqual(1000 - 9);
+      // a small limit stays exact
+      expect(leaseSize(120)).toBe(1);
     } finally {
       await a.pool.end();
       await b.pool.end();

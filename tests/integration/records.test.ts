@@ -2,7 +2,7 @@ import { sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { changedFields, listAuditForSubject, recordAudit } from "@/db/queries/audit";
 import { recordShopEvent } from "@/db/queries/shop-events";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { shopEvents } from "@/db/schema";
 import { withShop } from "@/db/tx";
 import { createShop } from "./fixtures";
@@ -45,7 +45,7 @@ describe("audit entries and shop events", () => {
         throw new Error("the change failed");
       }),
     ).rejects.toThrow("the change failed");
-    const entries = await listAuditForSubject(db, shop.id, "catalog-cell", "c1");
+    const entries = await withShop(shop.id, (tx) => listAuditForSubject(tx, shop.id, "catalog-cell", "c1"));
     expect(entries.map((e) => e.summary)).toEqual(["Unit cost from 41.20 to 39.80"]);
     const events = await db
       .select()

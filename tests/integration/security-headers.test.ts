@@ -9,7 +9,7 @@ import { NextRequest } from "next/server";
 import { describe, expect, it } from "vitest";
 import { GET as membersRoute } from "@/app/api/v1/shops/[shop]/members/route";
 import { POST as uploadRoute } from "@/app/api/v1/shops/[shop]/attachments/route";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { requestAttachments as attachments } from "@/db/schema";
 import { demoPeople } from "@/db/seed/people";
 import { env } from "@/lib/env";

@@ -5,10 +5,12 @@ import { apiRouteFiles, withDriftCheck } from "../support/route-drift";
 
 // Each test file works in a database of its own, copied from the migrated and seeded test database
 // (tests/integration/global-setup.ts): no file sees rows, queued jobs or counters another file left.
+// DATABASE_URL (the app's role) and MIGRATION_DATABASE_URL (the tables' owner) both move to the copy.
 const url = new URL(process.env.DATABASE_URL ?? "");
+const ownerUrl = new URL(process.env.MIGRATION_DATABASE_URL ?? "");
 const template = url.pathname.slice(1);
 const copy = `${template}_file_${process.pid}_${Date.now().toString(36)}`;
-const admin = new URL(url);
+const admin = new URL(ownerUrl);
 admin.pathname = "/postgres";
 const client = new Client({ connectionString: admin.toString() });
 await client.connect();
@@ -18,7 +20,9 @@ try {
   await client.end();
 }
 url.pathname = `/${copy}`;
+ownerUrl.pathname = `/${copy}`;
 process.env.DATABASE_URL = url.toString();
+process.env.MIGRATION_DATABASE_URL = ownerUrl.toString();
 
 // Server actions and server components read the request through next/headers; in tests the
 // "request" is whatever headers the test installs with `actAs` (tests/integration/helpers.ts).

@@ -9,6 +9,7 @@ import path from "node:path";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { changeMemberRole } from "@/app/desk/[shop]/team/actions";
+import { requeueMessage } from "@/app/desk/[shop]/outbox/actions";
 import { cancelOrder, moveOrder, recordTest, refundOrder } from "@/app/desk/[shop]/orders/actions";
 import DeskDashboardPage from "@/app/desk/[shop]/dashboard/page";
 import DeskOrderPage from "@/app/desk/[shop]/orders/[number]/page";
@@ -69,10 +70,17 @@ import { POST as networkFailuresRoute } from "@/app/api/v1/networks/failures/rou
 import { POST as networkToleranceRoute } from "@/app/api/v1/networks/tolerance/route";
 import { POST as arrangementsRoute } from "@/app/api/v1/shops/[shop]/arrangements/route";
 import { GET as quotePdfRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/pdf/route";
-import { GET as listQuotesRoute } from "@/app/api/v1/shops/[shop]/quotes/route";
+import { GET as listQuotesRoute, POST as createQuoteRoute } from "@/app/api/v1/shops/[shop]/quotes/route";
+import { GET as quoteRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/route";
+import { GET as quoteRevisionRoute } from "@/app/api/v1/shops/[shop]/quotes/[number]/revisions/[n]/route";
+import { replyToQuote, resendQuote, withdrawQuoteRevision } from "@/app/desk/[shop]/quotes/[number]/actions";
+import { exploreReviewOptions, issueRevision, saveReviewDraft } from "@/app/desk/[shop]/requests/[id]/actions";
+import WorkbenchPage from "@/app/desk/[shop]/requests/[id]/page";
+import { acceptQuote, declineQuote, writeQuoteMessage } from "@/app/s/[shop]/quotes/[number]/actions";
 import DeskCatalogPage from "@/app/desk/[shop]/catalog/page";
 import DeskLayout from "@/app/desk/[shop]/layout";
 import DeskOutboxPage from "@/app/desk/[shop]/outbox/page";
+import DeskAuditPage from "@/app/desk/[shop]/audit/page";
 import DeskQuotePage from "@/app/desk/[shop]/quotes/[number]/page";
 import DeskQuotesPage from "@/app/desk/[shop]/quotes/page";
 import DeskRequestsPage from "@/app/desk/[shop]/requests/page";
@@ -81,23 +89,24 @@ import { chooseArrangement, exploreArrangements } from "@/app/s/[shop]/actions";
 import { joinShop } from "@/app/s/[shop]/join/actions";
 import MyQuotesPage from "@/app/s/[shop]/quotes/page";
 import StorefrontQuotePage from "@/app/s/[shop]/quotes/[number]/page";
-import { db } from "@/db";
+import { withShop } from "@/db/tx";
+import { ownerDb as db, ownerDb } from "./owner-db";
 import { listActiveCells, listCatalogCells } from "@/db/queries/catalog";
 import { getMember, getMemberRole, listMembers, updateMemberRole } from "@/db/queries/members";
-import { listOutbox } from "@/db/queries/outbox";
+import { getOutboxRow, listOutbox } from "@/db/queries/outbox";
 import { getOrderDetail, listOrders } from "@/db/queries/orders";
 import { getQuoteByNumber, listQuotes } from "@/db/queries/quotes";
 import { getRequest, listRequests } from "@/db/queries/requests";
 import { getShopSettings, isSlugTaken } from "@/db/queries/shops";
-import { bankRequests, shops, webhookDeliveries, webhookEndpoints } from "@/db/schema";
+import { bankRequests, emailOutbox, quoteDrafts, quoteMessages, quoteRevisions, quotes, shops, webhookDeliveries, webhookEndpoints } from "@/db/schema";
 import { recordShopEvent } from "@/db/queries/shop-events";
 import { listWebhookEndpoints } from "@/db/queries/webhooks";
-import { withShop } from "@/db/tx";
 import { applyOrderMove, saveBankTest } from "@/lib/orders/moves";
 import { testLimitsOf } from "@/lib/orders/test-limits";
+import { NO_OVERRIDES } from "@/lib/quoting/review-search";
 import { catalogList, memberList, orderList, outboxList, quoteList, requestList, webhookEndpointList } from "@/lib/validation/lists";
 import { EMPTY_REQUEST_FORM } from "@/lib/validation/request-form";
-import { contextOf, createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, type TestShop } from "./fixtures";
+import { cheapestOption, contextOf, createQuote, createShop, KESTREL_REQUIREMENT, MARLOW_REQUIREMENT, type TestShop } from "./fixtures";
 import { actAs, pageAnswer, request, sessionCookie } from "./helpers";
 import { acceptedQuote, checkoutFor, ordersOfQuote, payAndSettle, usePaymentRig } from "./payments-support";
 
@@ -109,6 +118,14 @@ let B: TestShop;
 let aQuote = "";
 let bQuote = "";
 let aAttachment = "";
+let aRequest = "";
+let aQuoteKey = "";
+let aChoice = {
+  sku: "",
+  topology: "series-of-parallel-groups" as "series-of-parallel-groups" | "parallel-of-series-strings",
+  seriesCount: 1,
+  parallelCount: 1,
+};
 /** each shop's accepted quote with an open checkout (payable), and its paid, tested order */
 const pay = { aQuote: "", bQuote: "", aSession: "", bSession: "", aOrder: "", bOrder: "" };
 
@@ -217,6 +234,37 @@ const ROUTES: {
       return quotePdfRoute(request(`/api/v1/shops/${s.slug}/quotes/${number}/pdf`, { cookie }), { params: Promise.resolve({ shop: s.slug, number }) });
     },
     own: (s) => s.customers[0],
+    ok: 200,
+  },
+  {
+    name: "POST /api/v1/shops/[shop]/quotes",
+    call: (s, cookie) =>
+      createQuoteRoute(
+        request(`/api/v1/shops/${s.slug}/quotes`, {
+          method: "POST",
+          cookie,
+          // the key and body of A's quote: the shop's own customer is answered that quote again (a replay makes nothing new)
+          body: JSON.stringify({ requirement: KESTREL_REQUIREMENT, choice: aChoice, idempotencyKey: aQuoteKey }),
+        }),
+        shopParams(s.slug),
+      ),
+    own: (s) => s.customers[0],
+    ok: 201,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/quotes/[number]",
+    call: (s, cookie) =>
+      quoteRoute(request(`/api/v1/shops/${s.slug}/quotes/${aQuote}`, { cookie }), { params: Promise.resolve({ shop: s.slug, number: aQuote }) }),
+    own: (s) => s.customers[0],
+    ok: 200,
+  },
+  {
+    name: "GET /api/v1/shops/[shop]/quotes/[number]/revisions/[n]",
+    call: (s, cookie) =>
+      quoteRevisionRoute(request(`/api/v1/shops/${s.slug}/quotes/${aQuote}/revisions/1`, { cookie }), {
+        params: Promise.resolve({ shop: s.slug, number: aQuote, n: "1" }),
+      }),
+    own: (s) => s.estimator,
     ok: 200,
   },
   { name: "POST /api/v1/shops/[shop]/attachments", call: (s, cookie) => upload(s.slug, cookie), own: (s) => s.customers[0], ok: 201 },
@@ -399,6 +447,15 @@ const ACTIONS = new Set([
   "exploreArrangements",
   "joinShop",
   "openShop",
+  "acceptQuote",
+  "declineQuote",
+  "writeQuoteMessage",
+  "replyToQuote",
+  "resendQuote",
+  "withdrawQuoteRevision",
+  "exploreReviewOptions",
+  "saveReviewDraft",
+  "issueRevision",
   "startCheckout",
   "moveOrder",
   "cancelOrder",
@@ -421,6 +478,7 @@ const ACTIONS = new Set([
   "previewDesignSettings",
   "createApiKey",
   "revokeApiKey",
+  "requeueMessage",
 ]);
 
 /** The engine's network analyses: open to visitors, holding no shop's data, so every caller gets the same answer. */
@@ -476,6 +534,10 @@ beforeAll(async () => {
   pay.aQuote = await acceptedQuote(A, A.customers[0], KESTREL_REQUIREMENT);
   await createQuote(A, A.customers[0], KESTREL_REQUIREMENT);
   aQuote = await createQuote(A, A.customers[0], KESTREL_REQUIREMENT);
+  aRequest = (await getQuoteByNumber(A.id, aQuote))?.requestId ?? "";
+  aQuoteKey = (await getRequest(A.id, aRequest))?.idempotencyKey ?? "";
+  const option = await cheapestOption(A.id, KESTREL_REQUIREMENT);
+  aChoice = { sku: option.cell.sku, topology: option.topology, seriesCount: option.seriesCount, parallelCount: option.parallelCount };
   pay.aSession = (await checkoutFor(A, pay.aQuote)).sessionId;
   pay.bSession = (await checkoutFor(B, pay.bQuote)).sessionId;
   const up = await upload(A.slug, await sessionCookie(A.customers[0].email));
@@ -545,6 +607,19 @@ describe("tenancy", () => {
       params: Promise.resolve({ shop: B.slug, id: aAttachment }),
     });
     expect(file.status).toBe(404);
+    const quote = await quoteRoute(request(`/api/v1/shops/${B.slug}/quotes/${aQuote}`, { cookie: bCookie }), {
+      params: Promise.resolve({ shop: B.slug, number: aQuote }),
+    });
+    expect(quote.status).toBe(404);
+    const revision = await quoteRevisionRoute(request(`/api/v1/shops/${B.slug}/quotes/${aQuote}/revisions/1`, { cookie: bCookie }), {
+      params: Promise.resolve({ shop: B.slug, number: aQuote, n: "1" }),
+    });
+    expect(revision.status).toBe(404);
+    // another customer of the same shop: not found either
+    const other = await quoteRoute(request(`/api/v1/shops/${A.slug}/quotes/${aQuote}`, { cookie: await sessionCookie(A.customers[1].email) }), {
+      params: Promise.resolve({ shop: A.slug, number: aQuote }),
+    });
+    expect(other.status).toBe(404);
   });
 
   it("the members and quotes routes list only the shop's own rows", async () => {
@@ -659,6 +734,18 @@ describe("tenancy", () => {
       expect(await getMemberRole(B.id, B.estimator.id)).toBe("estimator");
     });
 
+    it("requeueMessage refuses the other shop's manager; the other shop's message is not found through one's own", async () => {
+      const [bMessage] = (await listOutbox(B.id, { ...outboxList.defaults, size: 1 })).rows;
+      expect(bMessage).toBeDefined();
+      await ownerDb.update(emailOutbox).set({ status: "failed" }).where(eq(emailOutbox.id, bMessage!.id));
+      await actAs(A.manager.email);
+      expect(await requeueMessage(B.slug, { outboxId: bMessage!.id })).toMatchObject({ ok: false, code: "forbidden" });
+      expect(await requeueMessage(A.slug, { outboxId: bMessage!.id })).toMatchObject({ ok: false, code: "not-found" });
+      await actAs(B.estimator.email);
+      expect(await requeueMessage(B.slug, { outboxId: bMessage!.id })).toMatchObject({ ok: false, code: "forbidden" });
+      expect((await getOutboxRow(B.id, bMessage!.id))?.status).toBe("failed");
+    });
+
     it("chooseArrangement refuses another shop's customer and makes nothing", async () => {
       const key = crypto.randomUUID();
       await actAs(A.customers[0].email);
@@ -684,6 +771,56 @@ describe("tenancy", () => {
       await actAs(B.manager.email);
       expect(await joinShop(B.slug, null)).toMatchObject({ ok: true });
       expect(await getMemberRole(B.id, B.manager.id)).toBe("manager");
+    });
+
+    it("the customer's quote moves refuse another shop's customer (forbidden) and another customer of the shop (not found), and change nothing", async () => {
+      const before = await db.select({ status: quotes.status, rev: quotes.currentRevision }).from(quotes).where(eq(quotes.number, aQuote));
+      for (const [who, code] of [
+        [B.customers[0].email, "forbidden"],
+        [A.customers[1].email, "not-found"],
+      ] as const) {
+        await actAs(who);
+        expect(await acceptQuote(A.slug, { number: aQuote, revision: 1 })).toMatchObject({ ok: false, code });
+        expect(await declineQuote(A.slug, { number: aQuote, revision: 1, reason: "Not for us" })).toMatchObject({ ok: false, code });
+        expect(await writeQuoteMessage(A.slug, { number: aQuote, body: "hello", kind: "change-request" })).toMatchObject({ ok: false, code });
+      }
+      // A's quote number sent through B's own shop by B's customer: B has no such quote
+      await actAs(B.customers[0].email);
+      expect(await acceptQuote(B.slug, { number: aQuote, revision: 1 })).toMatchObject({ ok: false, code: "not-found" });
+      expect(await db.select({ status: quotes.status, rev: quotes.currentRevision }).from(quotes).where(eq(quotes.number, aQuote))).toEqual(before);
+      expect(await db.select({ id: quoteMessages.id }).from(quoteMessages).where(eq(quoteMessages.shopId, A.id))).toEqual([]);
+    });
+
+    it("the staff's quote moves and the workbench refuse the other shop's staff, and A's records sent through B's shop are not found", async () => {
+      const draft = {
+        bank: { kind: "engine", choice: aChoice, overrides: NO_OVERRIDES },
+        bankPrice: null,
+        lines: [],
+        discount: null,
+        validityDays: 30,
+        note: "",
+      };
+      const revisions = async () => (await db.select({ id: quoteRevisions.id }).from(quoteRevisions).where(eq(quoteRevisions.shopId, A.id))).length;
+      const count = await revisions();
+      await actAs(B.manager.email);
+      for (const [slug, code] of [
+        [A.slug, "forbidden"],
+        [B.slug, "not-found"],
+      ] as const) {
+        expect(await replyToQuote(slug, { number: aQuote, body: "hello" })).toMatchObject({ ok: false, code });
+        expect(await resendQuote(slug, { number: aQuote })).toMatchObject({ ok: false, code });
+        expect(await withdrawQuoteRevision(slug, { number: aQuote, reason: "Not ours to withdraw" })).toMatchObject({ ok: false, code });
+        expect(await exploreReviewOptions(slug, { requestId: aRequest, overrides: NO_OVERRIDES })).toMatchObject({ ok: false, code });
+        expect(await saveReviewDraft(slug, { requestId: aRequest, draft, version: 0 })).toMatchObject({ ok: false, code });
+        expect(await issueRevision(slug, { requestId: aRequest, draft, basedOnRevision: 1 })).toMatchObject({ ok: false, code });
+      }
+      // a customer may not use the staff's moves in their own shop
+      await actAs(A.customers[0].email);
+      expect(await resendQuote(A.slug, { number: aQuote })).toMatchObject({ ok: false, code: "forbidden" });
+      expect(await issueRevision(A.slug, { requestId: aRequest, draft, basedOnRevision: 1 })).toMatchObject({ ok: false, code: "forbidden" });
+      expect(await revisions()).toBe(count);
+      expect(await db.select({ id: quoteDrafts.id }).from(quoteDrafts).where(eq(quoteDrafts.shopId, A.id))).toEqual([]);
+      expect((await db.select({ status: quotes.status }).from(quotes).where(eq(quotes.number, aQuote))).map((q) => q.status)).not.toContain("withdrawn");
     });
 
     it("startCheckout refuses another shop's customer, and another customer of the shop finds no such quote", async () => {
@@ -773,6 +910,8 @@ describe("tenancy", () => {
       ["catalog", (s: string) => DeskCatalogPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["team", (s: string) => DeskTeamPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["outbox", (s: string) => DeskOutboxPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
+      ["audit log", (s: string) => DeskAuditPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
+      ["workbench", (s: string) => WorkbenchPage({ params: Promise.resolve({ shop: s, id: aRequest }) })],
       ["orders board", (s: string) => DeskOrdersPage({ params: Promise.resolve({ shop: s }) })],
       ["orders list", (s: string) => DeskOrdersListPage({ params: Promise.resolve({ shop: s }), searchParams: Promise.resolve({}) })],
       ["order", (s: string) => DeskOrderPage({ params: Promise.resolve({ shop: s, number: pay.aOrder }) })],
@@ -847,7 +986,7 @@ describe("tenancy", () => {
     it("reads and updates by id do not reach another shop's rows", async () => {
       const target = await getMemberIdOf(B, B.estimator.id);
       expect(await getMember(A.id, target)).toBeNull();
-      expect(await updateMemberRole(A.id, target, "customer")).toBeNull();
+      expect(await withShop(A.id, (tx) => updateMemberRole(tx, A.id, target, "customer"))).toBeNull();
       expect(await getMemberRole(B.id, B.estimator.id)).toBe("estimator");
       const bQuoteRow = await getQuoteByNumber(B.id, bQuote);
       expect(bQuoteRow).not.toBeNull();

@@ -21,7 +21,7 @@ import {
   setWebhookEndpointState,
   updateWebhookEndpoint,
 } from "@/app/desk/[shop]/webhooks/actions";
-import { db } from "@/db";
+import { ownerDb as db } from "./owner-db";
 import { recordShopEvent } from "@/db/queries/shop-events";
 import { auditEvents, emailOutbox, webhookDeliveries, webhookEndpoints } from "@/db/schema";
 import { withShop } from "@/db/tx";

@@ -20,7 +20,7 @@ export default async function MyShopsPage({ searchParams }: { searchParams: Prom
   const preferred = rows.find((r) => r.slug === shop) ?? (rows.length === 1 ? rows[0] : undefined);
   if (preferred) redirect(homeOf(preferred.slug, preferred.role));
   return (
-    <main className="mx-auto max-w-lg px-4 py-10">
+    <main id="main" className="mx-auto max-w-lg px-4 py-10">
       <Logo />
       <h1 className="mt-8 text-xl font-semibold">Your shops</h1>
       {rows.length === 0 ? (

@@ -3,7 +3,8 @@ import { hashPassword } from "better-auth/crypto";
 import { headers } from "next/headers";
 import { deleteUserAccount, isEmailTaken, isSlugTaken, setOpeningCurrency } from "@/db/queries/shops";
 import { invalidResult, type ActionResult } from "@/lib/auth/guards";
-import { auth } from "@/lib/auth/server";
+import { withShop } from "@/db/tx";
+import { auth, randomId } from "@/lib/auth/server";
 import { limits, requestClient } from "@/lib/http/limits";
 import { sendOpenShopNotice } from "@/lib/mail/account-notice";
 import { openShopSchema } from "@/lib/validation/auth";
@@ -32,19 +33,22 @@ export async function openShop(input: unknown): Promise<ActionResult<{ slug: str
   }
 
   const signUp = await auth.api.signUpEmail({ body: { name: v.name, email: v.email, password: v.password }, headers: requestHeaders });
-  let shopId: string;
   try {
-    // a server call on the new account's behalf; the plugin's hooks check the slug and create the
-    // shop's settings row (lib/auth/plugin-rules.ts), in euros until the currency is set below
-    const shop = await auth.api.createOrganization({ body: { name: v.shopName, slug: v.slug, userId: signUp.user.id } });
-    if (!shop) throw new Error("shop not created");
-    shopId = shop.id;
+    // A server call on the new account's behalf, in one transaction scoped to the new shop (its id
+    // chosen here, so the founder's membership is written under the shop's own row-level policy):
+    // the shop, its founder, its settings row (the plugin's hooks, lib/auth/plugin-rules.ts) and
+    // the opener's currency commit together or not at all.
+    const shopId = randomId();
+    await withShop(shopId, async () => {
+      const shop = await auth.api.createOrganization({ body: { name: v.shopName, slug: v.slug, userId: signUp.user.id } });
+      if (!shop || shop.id !== shopId) throw new Error("shop not created");
+      await setOpeningCurrency(shopId, v.currency);
+    });
   } catch (error) {
     // The slug was taken between the check and the insert: undo the account so nothing is left behind.
     await deleteUserAccount(signUp.user.id);
     if (await isSlugTaken(v.slug)) return { ok: false, code: "conflict", fieldErrors: { slug: ["That address is taken; choose another."] } };
     throw error;
   }
-  await setOpeningCurrency(shopId, v.currency);
   return { ok: true, data: { slug: v.slug } };
 }

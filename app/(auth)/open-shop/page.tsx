@@ -6,7 +6,7 @@ export const metadata: Metadata = { title: "Open a shop" };
 
 export default function OpenShopPage() {
   return (
-    <main className="mx-auto max-w-xl px-4 py-10">
+    <main id="main" className="mx-auto max-w-xl px-4 py-10">
       <Logo />
       <div className="mt-6 rounded-lg bg-white p-6 shadow-sm ring-1 ring-ink-100">
         <h1 className="text-xl font-semibold">Open a shop on Faradsmith</h1>

@@ -12,7 +12,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   const sp = await searchParams;
   const shop = sp.shop && /^[a-z0-9-]{1,40}$/.test(sp.shop) ? sp.shop : undefined;
   return (
-    <main className="mx-auto flex min-h-screen max-w-md flex-col justify-center px-4 py-10">
+    <main id="main" className="mx-auto flex min-h-screen max-w-md flex-col justify-center px-4 py-10">
       <div className="mb-6 text-ink-900">
         <Logo />
       </div>

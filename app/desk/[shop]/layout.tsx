@@ -1,3 +1,4 @@
+import { headers } from "next/headers";
 import Link from "next/link";
 import { SignOutButton } from "@/components/auth/sign-out-button";
 import { Logo } from "@/components/brand/logo";
@@ -10,7 +11,9 @@ import { DESK_SECTIONS } from "./_components/desk-sections";
 /** The staff desk shell: navigation by role. Each page checks its own permission as well. */
 export default async function DeskLayout({ children, params }: { children: React.ReactNode; params: Promise<{ shop: string }> }) {
   const { shop } = await params;
-  const ctx = await requireShopPage(shop, "desk:enter");
+  // signed out, sign in and come back to the page asked for (proxy.ts names it), not the desk's home
+  const asked = (await headers()).get("x-request-path");
+  const ctx = await requireShopPage(shop, "desk:enter", asked?.startsWith(`/desk/${shop}`) ? asked : undefined);
   const items = DESK_SECTIONS.filter((s) => can(ctx.role, s.permission)).map(({ path, label }) => ({ path, label }));
   return (
     <div className="min-h-screen md:flex">
@@ -32,7 +35,9 @@ export default async function DeskLayout({ children, params }: { children: React
             <SignOutButton />
           </div>
         </header>
-        <main className="p-6">{children}</main>
+        <main id="main" className="p-6">
+          {children}
+        </main>
       </div>
     </div>
   );

@@ -6,7 +6,7 @@ import { getShopBySlug } from "@/db/queries/shops";
 import { invalidResult, refusedResult, shopAction, type ActionResult } from "@/lib/auth/guards";
 import type { DesignFactors, Requirement } from "@/lib/bank";
 import { limits, requestClient } from "@/lib/http/limits";
-import { searchPricedOptions } from "@/lib/quoting/priced-search";
+import { memoizedSearch } from "@/lib/quoting/search-memo";
 import type { PricedOption } from "@/lib/quoting/types";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { arrangementRequestSchema } from "@/lib/validation/bank";
@@ -24,6 +24,8 @@ export interface ExploreResult {
   reasons: string[];
   /** SKUs of the shown options' cells that have a datasheet to download */
   datasheets: string[];
+  /** how long a quote issued from this search stays valid (the shop's pricing rules) */
+  quoteValidityDays: number;
 }
 
 /**
@@ -42,8 +44,8 @@ export async function exploreArrangements(shopSlug: string, input: unknown): Pro
   const checked = arrangementRequestSchema.safeParse(parsed.data.requirement);
   if (!checked.success) return invalidResult(checked.error);
   const requirement = { ...parsed.data.requirement, quantity: checked.data.quantity };
-  const [catalog, datasheetSkus] = await Promise.all([loadShopCatalog(shop.id), listDatasheetSkus(shop.id)]);
-  const result = searchPricedOptions(catalog, requirement);
+  const [catalog, datasheetSkus] = await Promise.all([loadShopCatalog(shop.id, shop.catalogVersion), listDatasheetSkus(shop.id)]);
+  const result = memoizedSearch(shop.id, shop.catalogVersion, catalog, requirement);
   const shownSkus = new Set(result.options.map((o) => o.cell.sku));
   return {
     ok: true,
@@ -55,6 +57,7 @@ export async function exploreArrangements(shopSlug: string, input: unknown): Pro
       options: result.options,
       reasons: result.options.length === 0 ? result.reasons : [],
       datasheets: datasheetSkus.filter((sku) => shownSkus.has(sku)),
+      quoteValidityDays: catalog.rules.quoteValidityDays,
     },
   };
 }

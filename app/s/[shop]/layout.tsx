@@ -56,7 +56,7 @@ export default async function StorefrontLayout({ children, params }: { children:
                 <Link href={`/sign-in?shop=${slug}&next=/s/${slug}`} className="hover:underline">
                   Sign in
                 </Link>
-                <Link href={`/s/${slug}/join`} className="rounded-md bg-copper-500 px-3 py-1.5 font-medium text-white hover:bg-copper-600">
+                <Link href={`/s/${slug}/join`} className="rounded-md bg-copper-600 px-3 py-1.5 font-medium text-white hover:bg-copper-700">
                   Create an account
                 </Link>
               </>
@@ -64,7 +64,9 @@ export default async function StorefrontLayout({ children, params }: { children:
           </nav>
         </div>
       </header>
-      <div className="mx-auto w-full max-w-6xl flex-1 px-4 py-8">{children}</div>
+      <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-4 py-8">
+        {children}
+      </main>
       <footer className="border-t border-ink-200 bg-white py-4 text-center text-xs text-ink-500">
         {shop?.name} · quotes by{" "}
         <Link href="/" className="hover:underline">

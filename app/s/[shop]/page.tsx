@@ -1,10 +1,16 @@
+import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { countActiveCellsByTechnology } from "@/db/queries/catalog";
-import { getShopSettings } from "@/db/queries/shops";
+import { getShopBySlug, getShopSettings } from "@/db/queries/shops";
 import { getShopContext } from "@/lib/auth/context";
 import { TECHNOLOGY_LABELS } from "@/lib/vocabulary";
 import { StorefrontJourney } from "./_components/storefront-journey";
 import type { Viewer } from "./_components/viewer";
+
+export async function generateMetadata({ params }: { params: Promise<{ shop: string }> }): Promise<Metadata> {
+  const shop = await getShopBySlug((await params).shop);
+  return { title: shop ? `Design a bank with ${shop.name}` : "Design a bank" };
+}
 
 export default async function StorefrontPage({ params, searchParams }: { params: Promise<{ shop: string }>; searchParams: Promise<{ resume?: string }> }) {
   const { shop: slug } = await params;
@@ -30,13 +36,15 @@ export default async function StorefrontPage({ params, searchParams }: { params:
       </section>
       <section aria-labelledby="stock">
         <h2 id="stock" className="text-sm font-semibold uppercase tracking-wide text-ink-500">
-          Cells in stock to build from
+          Cell types in stock to build from
         </h2>
         <ul className="mt-3 grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
           {families.map((f) => (
             <li key={f.technology} className="rounded-lg bg-white p-4 ring-1 ring-ink-100">
               <p className="text-2xl font-semibold num">{f.lines}</p>
-              <p className="text-sm text-ink-600">{TECHNOLOGY_LABELS[f.technology]}</p>
+              <p className="text-sm text-ink-600">
+                {TECHNOLOGY_LABELS[f.technology]} cell {f.lines === 1 ? "type" : "types"}
+              </p>
             </li>
           ))}
         </ul>

@@ -5,6 +5,7 @@ import { openApiDescription } from "./description";
 import { analyzeFailures, evaluateNetwork, toleranceYield } from "./networks";
 import { checkoutState, listOrders, orderCertificate, orderTraveler, startCheckout } from "./orders";
 import { getPricingRules, putPricingRules } from "./pricing";
+import { createQuote, getQuote, getQuoteRevision } from "./quotes";
 import { downloadAttachment, listMembers, listQuotes, quotePdf, searchArrangements, uploadAttachment } from "./shops";
 
 /**
@@ -17,6 +18,9 @@ export const CONTRACTS: readonly DefinedRoute<z.ZodType>[] = [
   toleranceYield,
   searchArrangements,
   listQuotes,
+  createQuote,
+  getQuote,
+  getQuoteRevision,
   quotePdf,
   uploadAttachment,
   downloadAttachment,

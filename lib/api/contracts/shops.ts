@@ -41,7 +41,7 @@ export const listQuotes = defineRoute({
   query: quoteList.querySchema,
   ok: { status: 200, description: "A page of quotes.", json: quotePageSchema },
   errors: { 400: "A query value the list does not take: `issues` names it.", 401: REFUSED.signedOut, 403: REFUSED.notMember, 404: REFUSED.noShop },
-  examples: [{ title: "Issued quotes, largest total first", params: { shop: EXAMPLE_SHOP }, query: { status: "issued", sort: "total" } }],
+  examples: [{ title: "Sent quotes, largest total first", params: { shop: EXAMPLE_SHOP }, query: { status: "sent", sort: "total" } }],
 });
 
 export const quotePdf = defineRoute({
@@ -90,6 +90,8 @@ export const uploadAttachment = defineRoute({
     401: REFUSED.signedOut,
     403: `${REFUSED.notMember} ${REFUSED.crossSite}`,
     404: REFUSED.noShop,
+    413: "The person's or the shop's storage quota would be exceeded, or the person has too many files not yet sent with a request.",
+    429: "Too many uploads by this person, or by the shop's people together, lately: `Retry-After` says when to try again.",
   },
   examples: [{ title: "Attach drawing.pdf (signed in as a customer)", params: { shop: EXAMPLE_SHOP }, form: { file: "@drawing.pdf" }, as: "customer" }],
 });

@@ -62,6 +62,8 @@ describe("route contracts", () => {
     const access = (expression: string): Permission[] => {
       const literal = /^"([^"]+)"$/.exec(expression);
       if (literal) return [literal[1] as Permission];
+      const list = /^\[(.*)\]$/.exec(expression);
+      if (list) return (list[1] ?? "").split(",").flatMap((item) => access(item.trim()));
       const owned = /^reads\("([^"]+)"\)$/.exec(expression);
       if (owned) return [...reads(owned[1] as Parameters<typeof reads>[0])];
       throw new Error(`an access the test cannot read: ${expression}`);
@@ -70,7 +72,7 @@ describe("route contracts", () => {
     for (const c of CONTRACTS.filter((x) => x.access === "member")) {
       const source = fs.readFileSync(routeFileOf(c.path), "utf8");
       const handler = source.split(/export async function /).find((chunk) => chunk.startsWith(`${c.method}(`)) ?? "";
-      const asked = /withShopApi\(\s*request,\s*\w+,\s*([^,]+?),/.exec(handler)?.[1];
+      const asked = /withShopApi\(\s*request,\s*\w+,\s*(\[[^\]]*\]|[^,]+?),/.exec(handler)?.[1];
       expect(asked, `${c.operationId}: its handler goes through withShopApi`).toBeDefined();
       const scopes = new Set(access(asked as string).flatMap((p) => API_KEY_SCOPE_FOR[p] ?? []));
       expect(scopes.size, c.operationId).toBeLessThanOrEqual(1);

@@ -49,13 +49,35 @@ describe("attachment types by content", () => {
 
 describe("file names", () => {
   it.each([
-    ["../../etc/passwd", "passwd"],
+    ["../../etc/passwd", "passwd.pdf"],
     ["C:\\drawings\\bank.pdf", "bank.pdf"],
-    ['we"ird\u0007.png', "weird.png"],
+    ["Bank.PDF", "Bank.pdf"],
+    ['we"ird\u0007.pdf', "weird.pdf"],
     ["", "attachment.pdf"],
     ["..", "attachment.pdf"],
-  ])("%j is stored as %j", (input, out) => {
-    expect(cleanFileName(input, "pdf")).toBe(out);
+    [".pdf", "attachment.pdf"],
+    // the extension says what the content is: another type's goes, a missing one is added
+    ["drawing.exe", "drawing.pdf"],
+    ["drawing.png", "drawing.pdf"],
+    ["spec", "spec.pdf"],
+    ["rev 2.1 final", "rev 2.1 final.pdf"],
+    ["bank.v2", "bank.pdf"],
+    // a right-to-left override (U+202E) would show "invoiceexe.pdf"; isolates, zero-width and C1 controls go too
+    ["invoice\u202Efdp.exe", "invoicefdp.pdf"],
+    ["a\u2066b\u2069c\u200Bd\u200Fe\uFEFF\u0085f.pdf", "abcdef.pdf"],
+    ["line\u2028break.pdf", "linebreak.pdf"],
+  ])("%j holding a PDF is stored as %j", (input, out) => {
+    expect(cleanFileName(input, "application/pdf")).toBe(out);
+  });
+
+  it.each([
+    ["image/jpeg", "photo.jpeg", "photo.jpeg"],
+    ["image/jpeg", "photo.JPG", "photo.jpg"],
+    ["image/jpeg", "photo.png", "photo.jpg"],
+    ["image/png", "plan", "plan.png"],
+    ["image/vnd.dxf", "layout.dwg", "layout.dxf"],
+  ] as const)("a %s named %j is stored as %j", (type, input, out) => {
+    expect(cleanFileName(input, type)).toBe(out);
   });
 
   it("sends non-ASCII names encoded per RFC 5987 with an ASCII fallback (RFC 6266)", () => {

@@ -28,6 +28,8 @@ describe("role permissions", () => {
     ["team:update-role", true, false, false],
     ["settings:write", true, false, false],
     ["outbox:read", true, false, false],
+    ["outbox:requeue", true, false, false],
+    ["audit:read", true, false, false],
     ["apikey:manage", true, false, false],
   ];
   it.each(table)("%s → manager %s, estimator %s, customer %s", (permission, manager, estimator, customer) => {

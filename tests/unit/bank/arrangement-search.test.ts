@@ -50,6 +50,12 @@ describe("searchArrangements: hand-worked example (DESIGN §3.2)", () => {
       [19, false],
       [20, true],
     ]);
+    // an estimator may allow longer strings (0 keeps only the shortest safe one; the cap is MAX_LONGER_STRINGS)
+    const series = (longerStrings: number) =>
+      searchArrangements({ requirement, cells: [edlc()], factors, longerStrings, limit: 50 }).options.map((x) => x.seriesCount);
+    expect(series(0)).toEqual([19]);
+    expect(series(3)).toEqual([19, 20, 21, 22]);
+    expect(series(1e9)).toEqual([19, 20, 21, 22, 23, 24, 25, 26, 27]);
     const o = options[0]!;
     expect(o.seriesCount).toBe(19);
     expect(o.parallelCount).toBe(1); // C_d = 350·1·0.8 = 280 F; 280/19 = 14.7 F ≥ 10 F

@@ -2,7 +2,8 @@ import { render } from "@react-email/render";
 import { createElement } from "react";
 import { describe, expect, it } from "vitest";
 import { QuoteReadyEmail, SAFETY_LINE, type QuoteReadyEmailProps } from "@/emails/quote-ready";
-import { formatValidity, outboxMessageId, quotePageUrl, senderDomain } from "@/lib/mail/format";
+import { formatValidity, outboxMessageId, quotePageUrl, senderDomain, shopSenderAddress } from "@/lib/mail/format";
+import addressparser from "nodemailer/lib/addressparser";
 
 // Invented shop and quote.
 const props: QuoteReadyEmailProps = {
@@ -81,6 +82,17 @@ describe("message details", () => {
     expect(a).toMatch(/^<[^<>@\s]+@[^<>@\s]+>$/);
     expect(senderDomain("quotes@shop.example")).toBe("shop.example");
     expect(senderDomain("no address")).toBe("faradsmith.invalid");
+  });
+
+  // read back with nodemailer's own RFC 5322 address parser (nodemailer/lib/addressparser)
+  it.each([
+    ["Kestrel Bank Works", "Faradsmith <quotes@faradsmith.example>", "Kestrel Bank Works via Faradsmith"],
+    ["Marlow Pulse Ltd.", "Faradsmith <quotes@faradsmith.example>", "Marlow Pulse Ltd. via Faradsmith"],
+    ['Smith "& Sons", Coils', '"Quotes Desk" <q@x.example>', "Smith & Sons, Coils via Quotes Desk"],
+    ["Kestrel Bank Works", "quotes@faradsmith.example", "Kestrel Bank Works via Faradsmith"],
+  ])("a shop's mail is sent as %j through the product's address", (shop, from, name) => {
+    const [parsed] = addressparser(shopSenderAddress(shop, from)) as { name: string; address: string }[];
+    expect(parsed).toEqual({ name, address: /<([^>]+)>/.exec(from)?.[1] ?? from });
   });
 
   it("validity dates read as stored, whatever the server's time zone", () => {

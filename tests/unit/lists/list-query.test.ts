@@ -30,7 +30,7 @@ describe("the list-query parser", () => {
   });
 
   it("takes the first of repeated values, strips control characters and bounds the search", () => {
-    const { query } = quoteList.parse({ status: ["expired", "issued"], q: `\u0000a\tb${"c".repeat(500)}` });
+    const { query } = quoteList.parse({ status: ["expired", "sent"], q: `\u0000a\tb${"c".repeat(500)}` });
     expect(query.status).toBe("expired");
     expect(query.q.startsWith("a b")).toBe(true);
     expect(query.q).toHaveLength(MAX_LIST_SEARCH_LENGTH);
@@ -42,7 +42,7 @@ describe("the list-query parser", () => {
     fc.assert(
       fc.property(fc.dictionary(key, value), (input) => {
         const { query } = quoteList.parse(input);
-        expect(["all", "issued", "accepted", "expired", "withdrawn"]).toContain(query.status);
+        expect(["all", "sent", "accepted", "declined", "expired", "withdrawn"]).toContain(query.status);
         expect(Object.keys(quoteList.spec.sorts)).toContain(query.sort);
         expect(["asc", "desc"]).toContain(query.dir);
         expect(Number.isInteger(query.page) && query.page >= 1 && query.page <= MAX_PAGE).toBe(true);
@@ -57,7 +57,7 @@ describe("the list-query parser", () => {
   it("writes a query back into the URL so that reading it gives the same query, keeping only what differs from the defaults", () => {
     const queries = fc.record({
       q: fc.constantFrom("", "Q-2026", "haddow"),
-      status: fc.constantFrom("all", "issued", "accepted", "expired", "withdrawn"),
+      status: fc.constantFrom("all", "sent", "accepted", "declined", "expired", "withdrawn"),
       sort: fc.constantFrom(...(Object.keys(quoteList.spec.sorts) as (keyof typeof quoteList.spec.sorts)[])),
       dir: fc.constantFrom("asc", "desc"),
       page: fc.integer({ min: 1, max: MAX_PAGE }),

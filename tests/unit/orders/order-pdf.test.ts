@@ -54,7 +54,7 @@ describe("build traveler", () => {
     const rows = o.topology === "series-of-parallel-groups" ? o.seriesCount : o.parallelCount;
     for (let i = 1; i <= Math.min(rows, 20); i++) expect(text).toMatch(new RegExp(`\\b${prefix}${i}-c1\\b`));
     const limits = testLimitsOf(o, f.requirement);
-    for (const step of doc.tests) expect(text.replace(/\s+/g, " ")).toContain(step.limit.replace(/Ω/g, "Ohm"));
+    for (const step of doc.tests) expect(text.replace(/\s+/g, " ")).toContain(step.limit);
     expect(limits.positions.length).toBeGreaterThan(1);
     expect(text).toMatch(/short the terminals before touching/);
     expect(text).toMatch(/shorting link/);

@@ -12,23 +12,13 @@ import {
   type BankPrice,
   type PricingRules,
 } from "@/lib/pricing";
+import { sixCellBill } from "./six-cell-bill";
 
 // All parts, part numbers and shops below are invented.
 const rules = (over: Partial<PricingRules> = {}): PricingRules => ({
   ...DEFAULT_PRICING_RULES,
   ...over,
 });
-
-const sixCellBill: BankBill = {
-  cell: { sku: "QX-350F-2V7", description: "EDLC cell 350 F 2.7 V", unitCost: "6.40" },
-  cellCount: 6,
-  // resistor unit costs as the catalog's 0.25 W part and 2 W part carry them (invented)
-  balancingResistors: { count: 6, resistance: 1000, powerRating: 0.25, sku: "RS-0W25", unitCost: "0.35" },
-  bleeder: { resistance: 330, power: 2, sku: "RS-2W", unitCost: "1.80" },
-  activeBoards: null,
-  volumeM3: 0.000528,
-  quantity: 10,
-};
 
 const lineAmounts = (p: BankPrice): Record<string, string> => Object.fromEntries(p.lines.map((l) => [l.code, l.amount]));
 
@@ -448,6 +438,36 @@ describe("active balancing boards", () => {
     delete noFallback.balancingBoardCost;
     const result = tryPriceBank(withBoards(""), noFallback);
     expect(result.ok === false && result.code).toBe("missing-board-cost");
+  });
+});
+
+describe("a bank of mixed cells", () => {
+  // The six-cell bank with two of its cells swapped for a dearer part: cells 4 × 6.40 + 2 × 9.15 =
+  // 25.60 + 18.30 = 43.90 instead of 38.40; every other line is the same (interconnects and assembly
+  // count all six cells).
+  const mixed: BankBill = {
+    ...sixCellBill,
+    mixedCells: [
+      { sku: "QX-350F-2V7", description: "EDLC cell 350 F 2.7 V", unitCost: "6.40", count: 4 },
+      { sku: "QX-400F-2V7", description: "EDLC cell 400 F 2.7 V", unitCost: "9.15", count: 2 },
+    ],
+  };
+  it("prices one cell line per part and everything else as for one part", () => {
+    const one = priceBank(sixCellBill, rules());
+    const two = priceBank(mixed, rules());
+    expect(two.lines.filter((l) => l.code === "cells").map((l) => [l.quantity, l.unitPrice, l.amount])).toEqual([
+      [4, "6.40", "25.60"],
+      [2, "9.15", "18.30"],
+    ]);
+    expect(two.lines.filter((l) => l.code !== "cells")).toEqual(
+      one.lines.filter((l) => l.code !== "cells").map((l) => (l.code === "overhead" ? expect.anything() : l)),
+    );
+    // materials rise by exactly 43.90 − 38.40 = 5.50
+    expect(Number(two.materials) - Number(one.materials)).toBeCloseTo(5.5, 9);
+  });
+  it("refuses counts that do not add up to the bank's cells", () => {
+    const r = tryPriceBank({ ...mixed, cellCount: 7 }, rules());
+    expect(r).toMatchObject({ ok: false, code: "invalid-bill", issues: [{ path: "mixedCells" }] });
   });
 });
 

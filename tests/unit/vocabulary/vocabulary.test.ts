@@ -3,6 +3,7 @@ import type { Requirement } from "@/lib/bank";
 import {
   describeRequirement,
   OUTBOX_STATUS_LABELS,
+  reasonWords,
   QUOTE_STATUS_LABELS,
   REQUEST_STATUS_LABELS,
   requirementFacts,
@@ -57,5 +58,18 @@ describe("labels", () => {
   ])("%s are distinct", (_name, labels) => {
     const values = Object.values(labels as Record<string, string>);
     expect(new Set(values.map((v) => v.toLowerCase())).size).toBe(values.length);
+  });
+});
+
+describe("reasonWords", () => {
+  it.each([
+    ["edlc: no cell reaches 2 MJ usable within 20000 cells", "Supercapacitor (EDLC): no cell reaches 2 MJ usable within 20,000 cells"],
+    ["hybrid: no hybrid cells in the catalog", `${TECHNOLOGY_LABELS.hybrid}: no hybrid cells in the catalog`],
+    // decimals, short numbers and numbers inside other figures stay as they are
+    ["film: even one string of 120 cells in series is beyond 12.5 kg", `${TECHNOLOGY_LABELS.film}: even one string of 120 cells in series is beyond 12.5 kg`],
+    ["Stored energy 600000.5 J", "Stored energy 600000.5 J"],
+    ["not a technology: 123456", "not a technology: 123,456"],
+  ])("%s", (raw, words) => {
+    expect(reasonWords(raw)).toBe(words);
   });
 });

@@ -19,7 +19,7 @@ const EXAMPLE_EVENT = {
 
 function Code({ children, label }: { children: string; label: string }) {
   return (
-    <pre aria-label={label} className="overflow-x-auto rounded-md bg-ink-900 p-4 font-mono text-xs leading-relaxed text-ink-50">
+    <pre aria-label={label} tabIndex={0} className="overflow-x-auto rounded-md bg-ink-900 p-4 font-mono text-xs leading-relaxed text-ink-50">
       <code>{children}</code>
     </pre>
   );
@@ -49,7 +49,7 @@ export default function ApiDocsPage() {
           </nav>
         </div>
       </header>
-      <main className="mx-auto max-w-6xl space-y-10 px-4 py-8">
+      <main id="main" className="mx-auto max-w-6xl space-y-10 px-4 py-8">
         <section className="max-w-3xl space-y-3">
           <h1 className="text-3xl font-semibold tracking-tight">Build on Faradsmith</h1>
           <p className="text-ink-700">

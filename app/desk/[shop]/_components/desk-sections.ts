@@ -16,6 +16,7 @@ export const DESK_SECTIONS: { path: string; label: string; permission: Permissio
   { path: "dashboard", label: "Dashboard", permission: "reports:read", summary: "Quotes, conversion, revenue by month, orders per stage and late orders." },
   { path: "team", label: "Team", permission: "team:read", summary: "The shop's members and their roles." },
   { path: "outbox", label: "Outbox", permission: "outbox:read", summary: "E-mail sent, waiting and failed." },
+  { path: "audit", label: "Audit log", permission: "audit:read", summary: "Who changed what in the shop, and when." },
   {
     path: "webhooks",
     label: "Webhooks",

@@ -57,7 +57,7 @@ export default async function ApiKeysPage({
         ]}
       >
         {page.rows.map((k) => (
-          <tr key={k.id} className={`border-t border-ink-100 align-top ${k.revokedAt ? "text-ink-400" : ""}`}>
+          <tr key={k.id} className={`border-t border-ink-100 align-top ${k.revokedAt ? "text-ink-500" : ""}`}>
             <td className="px-3 py-2">
               {k.name}
               <span className="block font-mono text-xs text-ink-500">{k.prefix}…</span>

@@ -73,7 +73,7 @@ export default async function CatalogPage({
         ]}
       >
         {page.rows.map((c) => (
-          <tr key={c.id} className={`border-t border-ink-100 ${c.isActive ? "" : "text-ink-400"}`}>
+          <tr key={c.id} className={`border-t border-ink-100 ${c.isActive ? "" : "text-ink-500"}`}>
             <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">
               <Link href={`/desk/${shop}/catalog/cells/${encodeURIComponent(c.sku)}`} className="text-copper-600 hover:underline">
                 {c.sku}
@@ -88,7 +88,7 @@ export default async function CatalogPage({
             </td>
             <td className="num whitespace-nowrap px-3 py-2">
               {formatQuantity(c.capacitanceF, "F")}{" "}
-              <span className="text-ink-400">
+              <span className="text-ink-500">
                 −{c.toleranceMinusPct}/+{c.tolerancePlusPct} %
               </span>
             </td>

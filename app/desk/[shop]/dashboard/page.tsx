@@ -64,7 +64,7 @@ export default async function DashboardPage({ params }: { params: Promise<{ shop
         <RevenueChart points={series} currency={currency} />
         <details className="mt-2 text-sm">
           <summary className="cursor-pointer text-ink-600">The figures</summary>
-          <div className="overflow-x-auto">
+          <div className="scroll-cue" role="region" aria-label="Revenue by month, the figures" tabIndex={0}>
             <table className="mt-2 w-full text-sm">
               <thead className="text-ink-600">
                 <tr>

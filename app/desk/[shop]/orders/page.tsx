@@ -7,7 +7,7 @@ import { isLate } from "@/lib/orders/stages";
 import { OrderBoard } from "./_components/order-board";
 import { OrdersViews } from "./_components/orders-views";
 
-export const metadata: Metadata = { title: "Orders" };
+export const metadata: Metadata = { title: "Orders board" };
 
 /** The orders board: every order on the floor by stage, and those closed in the last 30 days. */
 export default async function OrdersBoardPage({ params }: { params: Promise<{ shop: string }> }) {

@@ -5,7 +5,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { listRequests } from "@/db/queries/requests";
 import { requireShopPage } from "@/lib/auth/guards";
 import { requestList } from "@/lib/validation/lists";
-import { describeRequirement, REQUEST_STATUS_LABELS, REQUEST_STATUSES, type RequestStatus } from "@/lib/vocabulary";
+import { describeRequirement, reasonWords, REQUEST_STATUS_LABELS, REQUEST_STATUSES, type RequestStatus } from "@/lib/vocabulary";
 
 export const metadata: Metadata = { title: "Requests" };
 
@@ -30,7 +30,8 @@ export default async function DeskRequestsPage({
   return (
     <div className="space-y-6">
       <PageHeader title="Requests">
-        Customers&apos; bank requests. Those beyond the shop&apos;s auto-quote limits, or with no option that fits, wait here for an estimator.
+        Customers&apos; bank requests. Those beyond the shop&apos;s auto-quote limits, with no option that fits, or whose customer asked for a change to their
+        quote, wait here for an estimator: open one to quote it in the workbench.
       </PageHeader>
       <ListView
         state={state}
@@ -62,12 +63,23 @@ export default async function DeskRequestsPage({
           >
             <td className="num whitespace-nowrap px-3 py-2 text-ink-600">{r.createdAt.toISOString().slice(0, 16).replace("T", " ")}</td>
             <td className="px-3 py-2">
-              {r.customerName}
+              <Link
+                href={`/desk/${shop}/requests/${r.id}`}
+                className="font-medium text-copper-700 hover:underline"
+                aria-label={`Open the request of ${r.customerName} in the workbench`}
+              >
+                {r.customerName}
+              </Link>
               <span className="block text-xs text-ink-500">{r.customerEmail}</span>
             </td>
             <td className="num px-3 py-2">{describeRequirement(r.requirement)}</td>
             <td className="px-3 py-2">
               <span className={`inline-flex whitespace-nowrap rounded-full px-2 py-0.5 text-xs ${BADGE[r.status]}`}>{REQUEST_STATUS_LABELS[r.status]}</span>
+              {r.status === "needs-review" ? (
+                <Link href={`/desk/${shop}/requests/${r.id}`} className="mt-1 block text-xs font-medium text-copper-700 hover:underline">
+                  Review in the workbench
+                </Link>
+              ) : null}
             </td>
             <td className="px-3 py-2">
               {r.quoteNumber ? (
@@ -77,7 +89,7 @@ export default async function DeskRequestsPage({
               ) : r.reviewReasons.length > 0 ? (
                 <ul className="list-disc space-y-0.5 pl-4 text-ink-700">
                   {r.reviewReasons.map((reason) => (
-                    <li key={reason}>{reason}</li>
+                    <li key={reason}>{reasonWords(reason)}</li>
                   ))}
                 </ul>
               ) : (

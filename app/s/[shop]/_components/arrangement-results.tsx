@@ -8,12 +8,14 @@ import {
   LazyDischargeChart as DischargeChart,
   LazyPriceMassChart as PriceMassChart,
 } from "@/components/charts/lazy-charts";
+import { formatMoney } from "@/lib/pricing/currency";
 import { formatQuantity as q } from "@/lib/quantities";
 import { optionId } from "@/lib/validation/quote";
-import { arrangementLabel, describeRequirement, TOPOLOGY_LABELS } from "@/lib/vocabulary";
+import { arrangementLabel, describeRequirement, reasonWords, TOPOLOGY_LABELS } from "@/lib/vocabulary";
 import type { ExploreResult } from "../actions";
 import { ChoosePanel } from "./choose-panel";
 import { OptionDepthPanel } from "./option-depth-panel";
+import { OptionGlossary } from "./option-glossary";
 import { OptionCautions, OptionFigures } from "./option-figures";
 import { MAX_COMPARED, OptionTable } from "./option-table";
 import type { Viewer } from "./viewer";
@@ -72,7 +74,7 @@ export function ArrangementResults({
         <p className="text-sm text-ink-600">For {describeRequirement(requirement)}:</p>
         <ul className="list-disc space-y-1 pl-5 text-sm text-ink-800" data-testid="no-fit-reasons">
           {result.reasons.map((r) => (
-            <li key={r}>{r}</li>
+            <li key={r}>{reasonWords(r)}</li>
           ))}
         </ul>
         <p className="text-sm text-ink-600">The shop&apos;s estimators can look at it: they may order other cells or suggest a change.</p>
@@ -99,18 +101,23 @@ export function ArrangementResults({
         <h2 id="results" className="text-xl font-semibold">
           {options.length} arrangement{options.length === 1 ? "" : "s"} from stock
         </h2>
-        <p className="text-sm text-ink-600">For {describeRequirement(requirement)}. Ranked by price; choose a row to see it drawn and charted.</p>
+        <p className="text-sm text-ink-600">
+          For {describeRequirement(requirement)}. Ranked by {requirement.rankBy === "life" ? "expected life" : "price"}; choose a row to see it drawn and
+          charted.
+        </p>
       </div>
       <OptionTable
         options={options}
         currency={currency}
         focus={id}
+        rankedBy={requirement.rankBy === "life" ? "life" : "price"}
         onFocus={onFocus}
         compare={compare}
         onCompareChange={(optionKey, on) =>
           setPicked((now) => (on ? [...now.filter((p) => ids.has(p)), optionKey].slice(0, MAX_COMPARED) : now.filter((p) => p !== optionKey)))
         }
       />
+      <OptionGlossary />
       <div className="flex flex-wrap items-center gap-3 text-sm" data-testid="compare-bar">
         <p className="text-ink-600">
           {compare.length === 0
@@ -171,6 +178,12 @@ export function ArrangementResults({
                 attachmentIds={attachmentIds}
                 onBeforeSignIn={() => onBeforeSignIn(shownId)}
                 onQuoted={onQuoted}
+                summary={{
+                  title: `${shown.cell.sku}: ${arrangementLabel(shown)}, ${TOPOLOGY_LABELS[shown.topology].toLowerCase()}`,
+                  quantity: requirement.quantity,
+                  total: shown.price ? formatMoney(shown.price.amount, currency) : null,
+                  validityDays: result.quoteValidityDays,
+                }}
               />
             </div>
             <OptionCautions option={shown} />

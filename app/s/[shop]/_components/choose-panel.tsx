@@ -9,10 +9,22 @@ import type { ChosenOption } from "@/lib/validation/quote";
 import { chooseArrangement } from "../actions";
 import type { Viewer } from "./viewer";
 
+/** What the customer is shown before a quote is issued and e-mailed. */
+export interface ChoiceSummary {
+  /** e.g. "KC-3000: 18 S × 2 P, string of parallel groups" */
+  title: string;
+  quantity: number;
+  /** the total as shown ("€1,208.30"), or null when the option has no price */
+  total: string | null;
+  validityDays: number;
+}
+
 /**
  * Choosing an arrangement (or, with no option, sending the request for review). Visitors are sent to
  * sign in or sign up and come back to the same search; customers get a quote or a review notice.
- * One idempotency key per choice, kept while retrying, so a double submit makes one quote.
+ * One idempotency key per choice, kept while retrying, so a double submit makes one quote. A customer
+ * choosing an option first sees what will be quoted (the arrangement, quantity, total, validity)
+ * and confirms: the quote is issued and e-mailed at once.
  */
 export function ChoosePanel({
   slug,
@@ -24,6 +36,7 @@ export function ChoosePanel({
   attachmentIds,
   onBeforeSignIn,
   onQuoted,
+  summary = null,
 }: {
   slug: string;
   viewer: Viewer;
@@ -35,6 +48,7 @@ export function ChoosePanel({
   attachmentIds: string[];
   onBeforeSignIn: () => void;
   onQuoted: () => void;
+  summary?: ChoiceSummary | null;
 }) {
   const router = useRouter();
   const keys = useRef(new Map<string, string>());
@@ -43,6 +57,7 @@ export function ChoosePanel({
   const [askSignIn, setAskSignIn] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
   const [review, setReview] = useState(false);
+  const [confirming, setConfirming] = useState(false);
   const label = option ? "Choose this arrangement" : "Send to the shop for review";
   const back = `/s/${slug}?resume=1`;
 
@@ -54,11 +69,15 @@ export function ChoosePanel({
     );
   }
 
-  async function choose() {
+  async function choose(confirmed = false) {
     if (inFlight.current) return;
     if (viewer.kind === "visitor" || viewer.kind === "not-member") {
       onBeforeSignIn();
       setAskSignIn(true);
+      return;
+    }
+    if (summary && !confirmed) {
+      setConfirming(true);
       return;
     }
     inFlight.current = true;
@@ -96,8 +115,50 @@ export function ChoosePanel({
     <div className="space-y-3">
       {viewer.kind === "staff" ? (
         <p className="text-sm text-ink-600">You are signed in as staff ({viewer.email}); quotes are requested from a customer account.</p>
+      ) : confirming && summary ? (
+        <section
+          aria-labelledby={`confirm-${choiceId}`}
+          className="max-w-sm rounded-md bg-copper-50 px-4 py-3 text-sm ring-1 ring-copper-100"
+          data-testid="choice-review"
+        >
+          <h4 id={`confirm-${choiceId}`} className="font-semibold text-ink-900">
+            Your quote will be
+          </h4>
+          <dl className="mt-2 space-y-1">
+            <div className="flex justify-between gap-4">
+              <dt className="text-ink-600">Bank</dt>
+              <dd className="text-right font-medium">{summary.title}</dd>
+            </div>
+            <div className="flex justify-between gap-4">
+              <dt className="text-ink-600">Quantity</dt>
+              <dd className="num text-right font-medium">{summary.quantity}</dd>
+            </div>
+            <div className="flex justify-between gap-4">
+              <dt className="text-ink-600">Total</dt>
+              <dd className="num text-right font-medium">{summary.total ?? "priced by the shop"}</dd>
+            </div>
+            <div className="flex justify-between gap-4">
+              <dt className="text-ink-600">Valid for</dt>
+              <dd className="num text-right font-medium">
+                {summary.validityDays} {summary.validityDays === 1 ? "day" : "days"}
+              </dd>
+            </div>
+          </dl>
+          <p className="mt-2 text-xs text-ink-600">
+            Confirming issues the numbered quote and e-mails it to you (a bank beyond what the shop quotes automatically goes to its estimators first). Nothing
+            is ordered or paid yet.
+          </p>
+          <div className="mt-3 flex flex-wrap gap-2">
+            <Button type="button" onClick={() => void choose(true)} disabled={pending} aria-busy={pending}>
+              {pending ? "Preparing your quote…" : "Confirm and get the quote"}
+            </Button>
+            <Button type="button" variant="secondary" disabled={pending} onClick={() => setConfirming(false)}>
+              Back
+            </Button>
+          </div>
+        </section>
       ) : (
-        <Button type="button" onClick={choose} disabled={pending} aria-busy={pending}>
+        <Button type="button" onClick={() => void choose()} disabled={pending} aria-busy={pending}>
           {pending ? (option ? "Preparing your quote…" : "Sending…") : label}
         </Button>
       )}

@@ -158,7 +158,7 @@ export default function CompareView({
           </Button>
         </div>
       </div>
-      <div className="mt-4 overflow-x-auto">
+      <div className="scroll-cue mt-4" role="region" aria-label="Comparison table (scrolls sideways on a narrow screen)" tabIndex={0}>
         <table className="w-full min-w-[36rem] border-collapse text-left text-sm">
           <caption className="sr-only">Chosen arrangements compared row by row</caption>
           <thead>

@@ -111,8 +111,8 @@ export function optionColumns(currency: string) {
       ...first(true),
       cell: (c) =>
         c.getValue() ? (
-          <span title="No other option is cheaper, lighter and smaller at once" className="text-charge-700">
-            ◆<span className="sr-only">on the Pareto set</span>
+          <span title="A best trade-off: no other option is cheaper, lighter and smaller at once" className="text-charge-700">
+            ◆<span className="sr-only">a best trade-off (on the Pareto set)</span>
           </span>
         ) : null,
     }),

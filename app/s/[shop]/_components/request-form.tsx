@@ -85,7 +85,7 @@ export function RequestForm({
         <TextField
           id="maxVoltage"
           label="Maximum voltage"
-          placeholder="48 V"
+          placeholder="e.g. 48 V"
           hint="The highest voltage the bank is charged to."
           error={errors.maxVoltage?.message}
           {...register("maxVoltage")}
@@ -93,7 +93,7 @@ export function RequestForm({
         <TextField
           id="minVoltage"
           label="Minimum voltage (optional)"
-          placeholder="24 V"
+          placeholder="e.g. 24 V"
           hint="The lowest voltage your load still works at; empty means 0 V."
           error={errors.minVoltage?.message}
           {...register("minVoltage")}
@@ -116,18 +116,18 @@ export function RequestForm({
         <p className="text-sm text-ink-600">{choice?.explain}</p>
         <div className="grid gap-4 sm:grid-cols-2">
           {sizeFor === "energy" ? (
-            <TextField id="energy" label="Usable energy needed" placeholder="20 kJ" error={errors.energy?.message} {...register("energy")} />
+            <TextField id="energy" label="Usable energy needed" placeholder="e.g. 20 kJ" error={errors.energy?.message} {...register("energy")} />
           ) : null}
           {sizeFor === "capacitance" ? (
-            <TextField id="capacitance" label="Capacitance needed" placeholder="58 F" error={errors.capacitance?.message} {...register("capacitance")} />
+            <TextField id="capacitance" label="Capacitance needed" placeholder="e.g. 58 F" error={errors.capacitance?.message} {...register("capacitance")} />
           ) : null}
           {sizeFor === "backup" ? (
             <>
-              <TextField id="backupPower" label="Backup power" placeholder="5 kW" error={errors.backupPower?.message} {...register("backupPower")} />
+              <TextField id="backupPower" label="Backup power" placeholder="e.g. 5 kW" error={errors.backupPower?.message} {...register("backupPower")} />
               <TextField
                 id="backupTime"
                 label="Backup time"
-                placeholder="30 s"
+                placeholder="e.g. 30 s"
                 hint="Seconds, or 2 min."
                 error={errors.backupTime?.message}
                 {...register("backupTime")}
@@ -143,7 +143,7 @@ export function RequestForm({
         <TextField
           id="peakCurrent"
           label="Peak current"
-          placeholder="200 A"
+          placeholder="e.g. 200 A"
           hint="The largest current the load draws."
           error={errors.peakCurrent?.message}
           {...register("peakCurrent")}
@@ -151,7 +151,7 @@ export function RequestForm({
         <TextField
           id="maxDrop"
           label="Allowed voltage drop at that current"
-          placeholder="4 V"
+          placeholder="e.g. 4 V"
           hint="Sets the most ESR the bank may have."
           error={errors.maxDrop?.message}
           {...register("maxDrop")}
@@ -163,7 +163,7 @@ export function RequestForm({
         <TextField
           id="ambientTemperature"
           label="Ambient temperature"
-          placeholder="40 °C"
+          placeholder="e.g. 40 °C"
           hint="Around the bank where it works; sets the cells' temperature and expected life (25 °C if empty)."
           error={errors.ambientTemperature?.message}
           {...register("ambientTemperature")}
@@ -171,7 +171,7 @@ export function RequestForm({
         <TextField
           id="rmsCurrent"
           label="RMS current in service"
-          placeholder="30 A"
+          placeholder="e.g. 30 A"
           hint="The current the bank carries on average (rms); sizes the cells' self-heating."
           error={errors.rmsCurrent?.message}
           {...register("rmsCurrent")}
@@ -180,8 +180,8 @@ export function RequestForm({
 
       <fieldset className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <legend className="mb-2 text-sm font-semibold uppercase tracking-wide text-ink-500">Limits and quantity</legend>
-        <TextField id="maxMass" label="Mass limit (optional)" placeholder="25 kg" error={errors.maxMass?.message} {...register("maxMass")} />
-        <TextField id="maxVolume" label="Volume limit (optional)" placeholder="12 L" error={errors.maxVolume?.message} {...register("maxVolume")} />
+        <TextField id="maxMass" label="Mass limit (optional)" placeholder="e.g. 25 kg" error={errors.maxMass?.message} {...register("maxMass")} />
+        <TextField id="maxVolume" label="Volume limit (optional)" placeholder="e.g. 12 L" error={errors.maxVolume?.message} {...register("maxVolume")} />
         <TextField
           id="quantity"
           label="Quantity"

@@ -64,7 +64,14 @@ export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: st
       setMessage(null);
       void loadResults();
       startSearch(async () => {
-        const r = await exploreArrangements(slug, values);
+        let r: Awaited<ReturnType<typeof exploreArrangements>>;
+        try {
+          r = await exploreArrangements(slug, values);
+        } catch {
+          // a dropped connection or a server fault: say so here and keep the form as typed
+          setMessage("The shop could not be reached, so no arrangements were found; what you typed is kept. Try again in a moment.");
+          return;
+        }
         if (!r.ok) {
           for (const [field, messages] of Object.entries(r.fieldErrors ?? {})) {
             const name = field.split(".")[0] as RequestFormField;

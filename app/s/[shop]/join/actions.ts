@@ -4,10 +4,16 @@ import { headers } from "next/headers";
 import { deleteUserAccount, isEmailTaken } from "@/db/queries/shops";
 import { resolveShopContext } from "@/lib/auth/context";
 import { invalidResult, refusedResult, type ActionResult } from "@/lib/auth/guards";
+import { withShop } from "@/db/tx";
 import { auth } from "@/lib/auth/server";
 import { limits, requestClient } from "@/lib/http/limits";
 import { enqueueAccountExists } from "@/lib/mail/account-notice";
 import { joinShopSchema } from "@/lib/validation/auth";
+
+/** The plugin adds the member inside the shop's scope: `members` is a tenant table (db/tx.ts ambientDb). */
+function addCustomer(shopId: string, userId: string) {
+  return withShop(shopId, () => auth.api.addMember({ body: { userId, organizationId: shopId, role: "customer" } }));
+}
 
 /**
  * A customer joins a shop from its storefront: a new account (or the signed-in one) becomes a
@@ -23,7 +29,7 @@ export async function joinShop(shopSlug: string, input: unknown): Promise<Action
   if (r.status === "no-shop") return refusedResult("no-shop");
   if (r.status === "ok") return { ok: true, data: { slug: r.ctx.shop.slug } };
   if (r.status === "not-member") {
-    await auth.api.addMember({ body: { userId: r.user.id, organizationId: r.shop.id, role: "customer" } });
+    await addCustomer(r.shop.id, r.user.id);
     return { ok: true, data: { slug: r.shop.slug } };
   }
   const gate = await limits.signUp.hit(requestClient(requestHeaders));
@@ -39,7 +45,7 @@ export async function joinShop(shopSlug: string, input: unknown): Promise<Action
   }
   const signUp = await auth.api.signUpEmail({ body: { name: v.name, email: v.email, password: v.password }, headers: requestHeaders });
   try {
-    await auth.api.addMember({ body: { userId: signUp.user.id, organizationId: r.shop.id, role: "customer" } });
+    await addCustomer(r.shop.id, signUp.user.id);
   } catch (error) {
     await deleteUserAccount(signUp.user.id);
     throw error;

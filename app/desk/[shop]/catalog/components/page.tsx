@@ -67,7 +67,7 @@ export default async function ComponentsPage({
         ]}
       >
         {page.rows.map((c) => (
-          <tr key={c.id} className={`border-t border-ink-100 ${c.isActive ? "" : "text-ink-400"}`}>
+          <tr key={c.id} className={`border-t border-ink-100 ${c.isActive ? "" : "text-ink-500"}`}>
             <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">
               <Link href={`/desk/${shop}/catalog/components/${encodeURIComponent(c.sku)}`} className="text-copper-600 hover:underline">
                 {c.sku}

@@ -20,7 +20,7 @@ export function OrderBoard({ shop, rows, today }: { shop: string; rows: OrderLis
     columns.find((c) => c.key === stage)?.rows.push(r);
   }
   return (
-    <div className="-mx-6 overflow-x-auto px-6 pb-2" data-testid="order-board">
+    <div className="-mx-6 overflow-x-auto px-6 pb-2" data-testid="order-board" role="region" aria-label="Orders by stage (scrolls sideways)" tabIndex={0}>
       <div className="flex min-w-max gap-3">
         {columns.map((c) => (
           <section key={c.key} className="w-60 shrink-0 rounded-lg bg-ink-50 p-2" aria-labelledby={`col-${c.key}`} data-testid={`board-${c.key}`}>
@@ -52,7 +52,7 @@ export function OrderBoard({ shop, rows, today }: { shop: string; rows: OrderLis
                   </Link>
                 </li>
               ))}
-              {c.rows.length === 0 ? <li className="px-1 text-xs text-ink-400">None</li> : null}
+              {c.rows.length === 0 ? <li className="px-1 text-xs text-ink-500">None</li> : null}
             </ul>
           </section>
         ))}

@@ -48,7 +48,7 @@ export function TestResults({ quantity, tests }: { quantity: number; tests: Late
               {t.createdAt.toISOString().slice(0, 16).replace("T", " ")} UTC · {t.testedBy ?? "—"}
             </span>
           </p>
-          <div className="overflow-x-auto">
+          <div className="scroll-cue" role="region" aria-label="Test readings" tabIndex={0}>
             <table className="w-full text-sm">
               <thead className="text-xs text-ink-600">
                 <tr>

@@ -7,7 +7,7 @@ import { isoDay } from "@/lib/orders/due-date";
 import { orderList } from "@/lib/validation/lists";
 import { OrdersViews } from "../_components/orders-views";
 
-export const metadata: Metadata = { title: "Orders" };
+export const metadata: Metadata = { title: "Orders list" };
 
 /** Every order of the shop as a list: searched, filtered by status and lateness, sorted and paged through the URL. */
 export default async function OrdersListPage({

@@ -1,4 +1,5 @@
 "use client";
+import { reasonWords } from "@/lib/vocabulary";
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
@@ -185,7 +186,7 @@ function OptionList({ title, list, currency }: { title: string; list: { options:
       {list.options.length === 0 ? (
         <ul className="mt-2 list-disc pl-5 text-sm text-ink-600">
           {(list.reasons.length ? list.reasons : ["No option fits."]).map((r) => (
-            <li key={r}>{r}</li>
+            <li key={r}>{reasonWords(r)}</li>
           ))}
         </ul>
       ) : (

@@ -3,7 +3,7 @@ import { getShopBySlug } from "@/db/queries/shops";
 import { refusedResponse } from "@/lib/auth/guards";
 import { limits, requestClient, tooManyRequests } from "@/lib/http/limits";
 import { readJsonAs } from "@/lib/http/read-json";
-import { searchPricedOptions } from "@/lib/quoting/priced-search";
+import { memoizedSearch } from "@/lib/quoting/search-memo";
 import { parseArrangementRequest } from "@/lib/validation/bank";
 import { searchArrangements as contract } from "@/lib/api/contracts/shops";
 
@@ -20,7 +20,8 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
   if (!shop) return refusedResponse("no-shop");
   const parsed = await readJsonAs(request, parseArrangementRequest);
   if (!parsed.ok) return parsed.response;
-  const result = searchPricedOptions(await loadShopCatalog(shop.id), parsed.value);
+  // the catalog and a search repeated lately are kept while the shop's catalog version is current
+  const result = memoizedSearch(shop.id, shop.catalogVersion, await loadShopCatalog(shop.id, shop.catalogVersion), parsed.value);
   return contract.answer({
     designFactors: result.designFactors,
     options: result.options,

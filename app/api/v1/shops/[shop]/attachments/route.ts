@@ -1,9 +1,8 @@
-import { createAttachment } from "@/db/queries/attachments";
 import { withShopApi } from "@/lib/auth/guards";
 import { jsonError } from "@/lib/http/json-error";
 import { readBodyLimited } from "@/lib/http/read-json";
-import { storeAttachmentBytes } from "@/lib/attachments/storage";
 import { cleanFileName, detectAttachmentType } from "@/lib/attachments/content-type";
+import { acceptUpload } from "@/lib/attachments/upload";
 import { MAX_ATTACHMENT_BYTES, MAX_ATTACHMENT_SIZE_TEXT } from "@/lib/validation/limits";
 import { uploadAttachment as contract } from "@/lib/api/contracts/shops";
 
@@ -15,7 +14,9 @@ const tooLarge = () =>
 
 /**
  * POST /api/v1/shops/{shop}/attachments — multipart `file`: a drawing or specification (PDF, PNG,
- * JPEG, DXF; at most 10 MB; judged by content) → 201 { id, fileName, sizeBytes, contentType }.
+ * JPEG, DXF; at most 10 MB; judged by content) → 201 { id, fileName, sizeBytes, contentType }. The
+ * name is stored without control or bidirectional characters and with the extension of its content.
+ * 429 past the upload rates, 413 past a quota (lib/attachments/upload.ts).
  */
 export async function POST(request: Request, { params }: { params: Promise<{ shop: string }> }) {
   const { shop } = await params;
@@ -38,16 +39,15 @@ export async function POST(request: Request, { params }: { params: Promise<{ sho
     const bytes = new Uint8Array(await file.arrayBuffer());
     const type = await detectAttachmentType(bytes);
     if (!type.ok) return jsonError(400, type.reason, [{ path: "file", message: type.reason }]);
-    const stored = await storeAttachmentBytes(ctx.shop.id, bytes);
-    const row = await createAttachment(ctx.shop.id, {
-      id: stored.id,
-      uploadedByUserId: ctx.user.id,
-      fileName: cleanFileName(file.name, type.extension),
+    const outcome = await acceptUpload(ctx.shop.id, ctx.user.id, {
+      fileName: cleanFileName(file.name, type.contentType),
       contentType: type.contentType,
-      sizeBytes: bytes.byteLength,
-      sha256: stored.sha256,
-      storageKey: stored.storageKey,
+      bytes,
     });
-    return contract.answer({ ...row, contentType: type.contentType });
+    if (!outcome.ok) {
+      const headers = outcome.retryAfterSeconds ? { "retry-after": String(outcome.retryAfterSeconds) } : undefined;
+      return jsonError(outcome.status, outcome.message, [{ path: "file", message: outcome.message }], { headers });
+    }
+    return contract.answer(outcome.attachment);
   });
 }

@@ -62,7 +62,7 @@ export default async function CellPage({ params }: { params: Promise<{ shop: str
           {history.length === 0 ? (
             <p className="mt-2 text-sm text-ink-600">No change recorded yet.</p>
           ) : (
-            <div className="overflow-x-auto">
+            <div className="scroll-cue" role="region" aria-label="Unit-cost history" tabIndex={0}>
               <table className="mt-2 w-full text-sm" data-testid="cost-history">
                 <thead className="text-ink-600">
                   <tr>

@@ -1,7 +1,7 @@
 import { getShopBySlug } from "@/db/queries/shops";
 import { resolveShopContext } from "@/lib/auth/context";
 import { refusedResponse, withShopApi } from "@/lib/auth/guards";
-import { attachmentStream } from "@/lib/attachments/storage";
+import { openAttachment } from "@/lib/attachments/storage";
 import { contentDisposition } from "@/lib/attachments/content-type";
 import { datasheetFor, removeDatasheet, uploadDatasheet } from "@/lib/catalog/datasheet";
 import { jsonError } from "@/lib/http/json-error";
@@ -22,11 +22,13 @@ export async function GET(request: Request, { params }: { params: Promise<{ shop
   const who = await resolveShopContext(request.headers, slug);
   const reader = who.status === "ok" ? { userId: who.ctx.user.id, role: who.ctx.role } : null;
   const sheet = await datasheetFor(shop.id, sku, reader);
-  if (!sheet) return jsonError(404, "No datasheet for this cell.");
-  return new Response(attachmentStream(sheet.storageKey), {
+  // a row whose file is gone answers 404 like no datasheet, never an empty reply
+  const file = sheet ? await openAttachment(sheet.storageKey) : null;
+  if (!sheet || !file) return jsonError(404, "No datasheet for this cell.");
+  return new Response(file.stream, {
     headers: {
       "content-type": "application/pdf",
-      "content-length": String(sheet.sizeBytes),
+      "content-length": String(file.sizeBytes),
       "content-disposition": contentDisposition(sheet.fileName),
       "x-content-type-options": "nosniff",
       "cache-control": "private, no-store",

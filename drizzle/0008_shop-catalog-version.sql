@@ -1,0 +1,1 @@
+ALTER TABLE "shops" ADD COLUMN "catalog_version" bigint DEFAULT 0 NOT NULL;
