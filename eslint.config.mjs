@@ -70,6 +70,18 @@ export default tseslint.config(
       ],
     },
   },
+  {
+    // Forms take zodResolver from lib/validation/zod-resolver.ts, which sets zod up for the page's
+    // Content-Security-Policy in the browser; nothing else loads zod on a page that has no form.
+    files: ["app/**", "components/**", "lib/**"],
+    ignores: ["lib/validation/zod-resolver.ts"],
+    rules: {
+      "@typescript-eslint/no-restricted-imports": [
+        "error",
+        { paths: [{ name: "@hookform/resolvers/zod", message: "Import zodResolver from @/lib/validation/zod-resolver (it sets zod up for the CSP)." }] },
+      ],
+    },
+  },
   // formatting is Prettier's (npm run format); lint leaves it alone
   prettier,
 );

@@ -11,8 +11,11 @@
 // servers behind haproxy, and the storefront journey in headless Chromium.
 //   npm run bench [-- --profile] [-- --reuse-build] [-- --http] [-- --quick]
 // --http skips the engine, PDF and browser figures; --quick also runs each load for 5 s only.
+// --pages prints only the page-speed figures (Lighthouse, mobile and desktop profiles, median of
+// three, against the production build) and each route's first-load JavaScript; --mobile leaves out
+// the desktop column.
 // --profile also runs one server under `node --cpu-prof` while the arrangements endpoint is under
-// load (a new requirement every request) and prints where its CPU time went. Ports: BENCH_APP_PORT (3200; the haproxy run uses the
+// load (a new requirement every request) and prints where its CPU time went. Ports: BENCH_PORT or BENCH_APP_PORT (3200; the haproxy run uses the
 // next three), BENCH_PG_PORT (54339).
 import { spawnSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
@@ -24,13 +27,14 @@ import { startCluster } from "./cluster.mjs";
 import { arrangements, chooseCheapest, gapFree, percentile, serverActionIds, signIn } from "./http-client.mjs";
 import { ensureDebianPackages, ensureNpmPackages, ensurePostgres, log, root, spawnService, stopAll, waitForPort } from "./services.mjs";
 
-const APP_PORT = Number(process.env.BENCH_APP_PORT ?? 3200);
+const APP_PORT = Number(process.env.BENCH_PORT ?? process.env.BENCH_APP_PORT ?? 3200);
 const PG_PORT = Number(process.env.BENCH_PG_PORT ?? 54339);
 // a build folder of its own (".next-slot-*" is ignored everywhere a build folder must be)
 const DIST_DIR = ".next-slot-bench";
 const args = process.argv.slice(2);
 const quick = args.includes("--quick");
 const httpOnly = quick || args.includes("--http");
+const onlyPages = args.includes("--pages");
 const DURATION = quick ? 5 : 15;
 const CONNECTIONS = 20;
 const SHOP = "kestrel-bank-works";
@@ -40,7 +44,7 @@ const bin = (name) => path.join(root, "node_modules", ".bin", name);
 ensureDebianPackages(["postgresql", "chromium", "haproxy"]);
 ensureNpmPackages();
 
-if (!httpOnly) {
+if (!httpOnly && !onlyPages) {
   log("engine");
   const engine = spawnSync(bin("tsx"), ["tests/bench/engine-bench.ts"], { cwd: root, stdio: "inherit" });
   if (engine.status !== 0) process.exit(engine.status ?? 1);
@@ -171,88 +175,98 @@ try {
   await waitForPort(APP_PORT, "the app", 120_000);
   await fetch(`${appUrl}/api/health`);
 
-  log(`one server, ${CONNECTIONS} connections, ${DURATION} s each, loopback (${os.cpus().length} cores, load average ${os.loadavg()[0].toFixed(1)})`);
-  const arrangementsUrl = `${appUrl}/api/v1/shops/${SHOP}/arrangements`;
-  const r = await interleaved({
-    health: { url: `${appUrl}/api/health` },
-    arrangements: { url: arrangementsUrl, method: "POST", body: JSON.stringify(REQUIREMENT) },
-    // 40.00 V to 59.99 V by hundredths: every request a requirement not searched before
-    varied: { url: arrangementsUrl, method: "POST", vary: (i) => ({ ...REQUIREMENT, maxVoltage: 40 + (i % 2000) / 100 }) },
-    evaluate: { url: `${appUrl}/api/v1/networks/evaluate`, method: "POST", body: evaluateBody },
-  });
-  console.log(line("GET /api/health (framework + one query)", r.health));
-  console.log(line("POST /api/v1/shops/{shop}/arrangements", r.arrangements));
-  // each round's two figures were taken a few seconds apart: the median of their ratios
-  const ratioOf = (a, b) => {
-    const rs = a.rounds.map((x, i) => x / b.rounds[i]).sort((p, q) => p - q);
-    return rs[Math.floor(rs.length / 2)];
-  };
-  const ratio = ratioOf(r.arrangements, r.health);
-  console.log(`  arrangements / health = ${ratio.toFixed(2)} (median of the rounds) — target at least 0.5: ${ratio >= 0.5 ? "holds" : "MISSED"}`);
-  console.log(line("  … a new requirement every request", r.varied));
-  console.log(`  new requirements / health = ${ratioOf(r.varied, r.health).toFixed(2)} (median of the rounds)`);
-  console.log(line("POST /api/v1/networks/evaluate (72 cells)", r.evaluate));
+  if (!onlyPages) {
+    log(`one server, ${CONNECTIONS} connections, ${DURATION} s each, loopback (${os.cpus().length} cores, load average ${os.loadavg()[0].toFixed(1)})`);
+    const arrangementsUrl = `${appUrl}/api/v1/shops/${SHOP}/arrangements`;
+    const r = await interleaved({
+      health: { url: `${appUrl}/api/health` },
+      arrangements: { url: arrangementsUrl, method: "POST", body: JSON.stringify(REQUIREMENT) },
+      // 40.00 V to 59.99 V by hundredths: every request a requirement not searched before
+      varied: { url: arrangementsUrl, method: "POST", vary: (i) => ({ ...REQUIREMENT, maxVoltage: 40 + (i % 2000) / 100 }) },
+      evaluate: { url: `${appUrl}/api/v1/networks/evaluate`, method: "POST", body: evaluateBody },
+    });
+    console.log(line("GET /api/health (framework + one query)", r.health));
+    console.log(line("POST /api/v1/shops/{shop}/arrangements", r.arrangements));
+    // each round's two figures were taken a few seconds apart: the median of their ratios
+    const ratioOf = (a, b) => {
+      const rs = a.rounds.map((x, i) => x / b.rounds[i]).sort((p, q) => p - q);
+      return rs[Math.floor(rs.length / 2)];
+    };
+    const ratio = ratioOf(r.arrangements, r.health);
+    console.log(`  arrangements / health = ${ratio.toFixed(2)} (median of the rounds) — target at least 0.5: ${ratio >= 0.5 ? "holds" : "MISSED"}`);
+    console.log(line("  … a new requirement every request", r.varied));
+    console.log(`  new requirements / health = ${ratioOf(r.varied, r.health).toFixed(2)} (median of the rounds)`);
+    console.log(line("POST /api/v1/networks/evaluate (72 cells)", r.evaluate));
 
-  log("50 quotes made at once (storefront server action over HTTP, one customer)");
-  const actionId = serverActionIds(path.join(root, DIST_DIR)).chooseArrangement;
-  // a demo customer of the shop (README, "Demo sign-ins")
-  const cookie = await signIn(appUrl, "renske.haddow@tollmere-tramways.example", "faradsmith-demo-2026");
-  const option = (await arrangements(appUrl, SHOP, REQUIREMENT)).body.options[0];
-  const t0 = performance.now();
-  const made = await Promise.all(
-    Array.from({ length: 50 }, async () => {
-      const s = performance.now();
-      const r = await chooseCheapest(appUrl, { shop: SHOP, actionId, cookie, requirement: { ...REQUIREMENT, quantity: 1 }, option });
-      return { ms: performance.now() - s, number: r.ok && r.data.kind === "quote" ? r.data.quoteNumber : null };
-    }),
-  );
-  const wall = performance.now() - t0;
-  const times = made.map((m) => m.ms).sort((a, b) => a - b);
-  const numbers = made.map((m) => m.number).filter(Boolean);
-  console.log(
-    `50 concurrent quote creations: ${wall.toFixed(0)} ms in all (${((50 * 1000) / wall).toFixed(1)} quotes/s), each p50 ${percentile(times, 50).toFixed(0)} ms, p99 ${percentile(times, 99).toFixed(0)} ms; ${numbers.length} quotes, numbers ${numbers.length === 50 && gapFree(numbers) ? "unique and gap-free" : "NOT gap-free"} (${[...numbers].sort()[0]} … ${[...numbers].sort().at(-1)})`,
-  );
-
-  if (args.includes("--profile")) {
-    log("profile: one more server under node --cpu-prof, arrangements endpoint under load");
-    const dir = fs.mkdtempSync(path.join(os.tmpdir(), "faradsmith-profile-"));
-    const port = APP_PORT + 4;
-    const child = startServer(port, ["--cpu-prof", `--cpu-prof-dir=${dir}`]);
-    await waitForPort(port, "the profiled app", 120_000);
-    // a new requirement every request: the search itself, not the memory of it
-    const r = await load(
-      `http://127.0.0.1:${port}/api/v1/shops/${SHOP}/arrangements`,
-      { method: "POST", vary: (i) => ({ ...REQUIREMENT, maxVoltage: 40 + (i % 2000) / 100 }) },
-      10,
+    log("50 quotes made at once (storefront server action over HTTP, one customer)");
+    const actionId = serverActionIds(path.join(root, DIST_DIR)).chooseArrangement;
+    // a demo customer of the shop (README, "Demo sign-ins")
+    const cookie = await signIn(appUrl, "renske.haddow@tollmere-tramways.example", "faradsmith-demo-2026");
+    const option = (await arrangements(appUrl, SHOP, REQUIREMENT)).body.options[0];
+    const t0 = performance.now();
+    const made = await Promise.all(
+      Array.from({ length: 50 }, async () => {
+        const s = performance.now();
+        const r = await chooseCheapest(appUrl, { shop: SHOP, actionId, cookie, requirement: { ...REQUIREMENT, quantity: 1 }, option });
+        return { ms: performance.now() - s, number: r.ok && r.data.kind === "quote" ? r.data.quoteNumber : null };
+      }),
     );
-    console.log(line("arrangements (new requirements) under the profiler", r));
-    const exited = new Promise((resolve) => child.once("exit", resolve));
-    process.kill(-child.pid, "SIGINT");
-    await exited;
-    const file = fs.readdirSync(dir).find((f) => f.endsWith(".cpuprofile"));
-    if (file) {
-      console.log(`where its CPU time went (self time; the profile is ${path.join(dir, file)}):`);
-      for (const l of summarizeProfile(path.join(dir, file))) console.log(l);
+    const wall = performance.now() - t0;
+    const times = made.map((m) => m.ms).sort((a, b) => a - b);
+    const numbers = made.map((m) => m.number).filter(Boolean);
+    console.log(
+      `50 concurrent quote creations: ${wall.toFixed(0)} ms in all (${((50 * 1000) / wall).toFixed(1)} quotes/s), each p50 ${percentile(times, 50).toFixed(0)} ms, p99 ${percentile(times, 99).toFixed(0)} ms; ${numbers.length} quotes, numbers ${numbers.length === 50 && gapFree(numbers) ? "unique and gap-free" : "NOT gap-free"} (${[...numbers].sort()[0]} … ${[...numbers].sort().at(-1)})`,
+    );
+
+    if (args.includes("--profile")) {
+      log("profile: one more server under node --cpu-prof, arrangements endpoint under load");
+      const dir = fs.mkdtempSync(path.join(os.tmpdir(), "faradsmith-profile-"));
+      const port = APP_PORT + 4;
+      const child = startServer(port, ["--cpu-prof", `--cpu-prof-dir=${dir}`]);
+      await waitForPort(port, "the profiled app", 120_000);
+      // a new requirement every request: the search itself, not the memory of it
+      const r = await load(
+        `http://127.0.0.1:${port}/api/v1/shops/${SHOP}/arrangements`,
+        { method: "POST", vary: (i) => ({ ...REQUIREMENT, maxVoltage: 40 + (i % 2000) / 100 }) },
+        10,
+      );
+      console.log(line("arrangements (new requirements) under the profiler", r));
+      const exited = new Promise((resolve) => child.once("exit", resolve));
+      process.kill(-child.pid, "SIGINT");
+      await exited;
+      const file = fs.readdirSync(dir).find((f) => f.endsWith(".cpuprofile"));
+      if (file) {
+        console.log(`where its CPU time went (self time; the profile is ${path.join(dir, file)}):`);
+        for (const l of summarizeProfile(path.join(dir, file))) console.log(l);
+      }
     }
+
+    log("two servers behind haproxy (same database, same machine)");
+    const lbPort = APP_PORT + 1;
+    const lbUrl = `http://127.0.0.1:${lbPort}`;
+    await startCluster({ env: { ...env, APP_URL: lbUrl, BETTER_AUTH_URL: lbUrl }, lbPort, appPorts: [APP_PORT + 2, APP_PORT + 3], label: "bench-app" });
+    const lb = await interleaved({
+      health: { url: `${lbUrl}/api/health` },
+      arrangements: { url: `${lbUrl}/api/v1/shops/${SHOP}/arrangements`, method: "POST", body: JSON.stringify(REQUIREMENT) },
+      varied: { url: `${lbUrl}/api/v1/shops/${SHOP}/arrangements`, method: "POST", vary: (i) => ({ ...REQUIREMENT, maxVoltage: 60 - (i % 2000) / 100 }) },
+    });
+    console.log(line("GET /api/health via haproxy, 2 servers", lb.health));
+    console.log(line("POST arrangements via haproxy, 2 servers", lb.arrangements));
+    console.log(line("  … a new requirement every request", lb.varied));
   }
 
-  log("two servers behind haproxy (same database, same machine)");
-  const lbPort = APP_PORT + 1;
-  const lbUrl = `http://127.0.0.1:${lbPort}`;
-  await startCluster({ env: { ...env, APP_URL: lbUrl, BETTER_AUTH_URL: lbUrl }, lbPort, appPorts: [APP_PORT + 2, APP_PORT + 3], label: "bench-app" });
-  const lb = await interleaved({
-    health: { url: `${lbUrl}/api/health` },
-    arrangements: { url: `${lbUrl}/api/v1/shops/${SHOP}/arrangements`, method: "POST", body: JSON.stringify(REQUIREMENT) },
-    varied: { url: `${lbUrl}/api/v1/shops/${SHOP}/arrangements`, method: "POST", vary: (i) => ({ ...REQUIREMENT, maxVoltage: 60 - (i % 2000) / 100 }) },
-  });
-  console.log(line("GET /api/health via haproxy, 2 servers", lb.health));
-  console.log(line("POST arrangements via haproxy, 2 servers", lb.arrangements));
-  console.log(line("  … a new requirement every request", lb.varied));
-
-  if (!httpOnly) {
+  if (!httpOnly && !onlyPages) {
     log("storefront: submitting the request form to options on screen, headless Chromium");
     const { runJourneyBench } = await import(path.join(root, "tests", "bench", "journey-bench.mjs"));
     await runJourneyBench({ appUrl, databaseUrl, root });
+  }
+  if (!httpOnly) {
+    log("page speed: Lighthouse, mobile and desktop profiles, against the production build");
+    const { runPageBench } = await import(path.join(root, "tests", "bench", "page-bench.mjs"));
+    await runPageBench({ appUrl, root, env, desktop: !args.includes("--mobile") });
+    log("first-load JavaScript per route (this build)");
+    const { routeScripts, printRouteScripts } = await import(path.join(root, "scripts", "route-js.mjs"));
+    printRouteScripts(routeScripts({ distDir: DIST_DIR }).filter((r) => r.route === "/" || r.route.startsWith("/s/")));
   }
 } finally {
   stopAll();

@@ -1,8 +1,8 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { authClient } from "@/lib/auth/client";
 
+/** Signing out is rare: the auth client loads on the click, not with every page that shows the button. */
 export function SignOutButton({ to = "/", className = "" }: { to?: string; className?: string }) {
   const router = useRouter();
   const [busy, setBusy] = useState(false);
@@ -13,6 +13,7 @@ export function SignOutButton({ to = "/", className = "" }: { to?: string; class
       className={`text-sm underline-offset-4 hover:underline ${className}`}
       onClick={async () => {
         setBusy(true);
+        const { authClient } = await import("@/lib/auth/client");
         await authClient.signOut();
         router.push(to);
         router.refresh();

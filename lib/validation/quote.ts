@@ -27,10 +27,8 @@ export const chooseArrangementSchema = z.object({
   option: chosenOptionSchema.optional(),
 });
 
-/** The identity of an option: what the customer chooses and the server finds again. */
-export function optionId(o: { cell: { sku: string }; topology: string; seriesCount: number; parallelCount: number }): string {
-  return `${o.cell.sku}|${o.topology}|${o.seriesCount}|${o.parallelCount}`;
-}
+// kept beside the choice schema for its readers; it lives in a module without zod
+export { optionId } from "@/lib/quoting/option-id";
 
 export type ChooseArrangementInput = z.infer<typeof chooseArrangementSchema>;
 export type ChosenOption = z.infer<typeof chosenOptionSchema>;

@@ -1,46 +1,47 @@
-import { z } from "zod";
 import { formatBound, MAX_AMBIENT_TEMPERATURE, MAX_BY_UNIT, MAX_LIFE_YEARS, MIN_AMBIENT_TEMPERATURE } from "../bank/bounds";
 import { backupEnergy, capacitanceForEnergy, maxEsrFor, storedEnergy, usableEnergy as usableEnergyOf } from "../bank/energy";
-import { FAULT_FILTERS, RANK_BY, type Requirement, type Technology } from "../bank/types";
+import type { FaultFilter, RankBy, Requirement, Technology } from "../bank/types";
 import { parseQuantity, type QuantityUnit } from "../quantities";
-import { technologySchema } from "./bank";
-import { MAX_NOTES_LENGTH, MAX_QUANTITY } from "./limits";
+import { MAX_QUANTITY } from "./limits";
 
 /**
  * The storefront's request form: what people type (`48 V`, `20 kJ`, `470 µF`, `5 kW`, `30 s`,
  * `25 kg`, `12 L`) checked field by field and turned into the engine's SI `Requirement`.
- * The same schema runs in the browser (react-hook-form) and in the server action.
+ * The reading here has no zod in it, so the storefront's first load carries none: the schema
+ * (`request-form-schema.ts`) wraps it, and runs in the browser (react-hook-form, loaded on the
+ * first check) and in the server action.
  */
 
 export const SIZE_FOR = ["capacitance", "energy", "backup"] as const;
 export type SizeFor = (typeof SIZE_FOR)[number];
 
-const text = z.string().max(60, "Keep this under 60 characters");
-
-export const requestFormFieldsSchema = z.object({
-  maxVoltage: text,
-  minVoltage: text,
-  sizeFor: z.enum(SIZE_FOR, { message: "Choose what to size the bank for" }),
-  capacitance: text,
-  energy: text,
-  backupPower: text,
-  backupTime: text,
-  peakCurrent: text,
-  maxDrop: text,
-  maxMass: text,
-  maxVolume: text,
-  quantity: text,
-  technology: z.union([z.literal(""), technologySchema], { message: "Choose a technology from the list" }),
-  notes: z.string().max(MAX_NOTES_LENGTH, `Keep the notes under ${MAX_NOTES_LENGTH} characters`),
+/**
+ * What the form holds: every field as typed. The zod schema of these fields
+ * (`lib/validation/request-form-schema.ts`) checks their shapes and is held to this type.
+ */
+export type RequestFormValues = {
+  maxVoltage: string;
+  minVoltage: string;
+  sizeFor: SizeFor;
+  capacitance: string;
+  energy: string;
+  backupPower: string;
+  backupTime: string;
+  peakCurrent: string;
+  maxDrop: string;
+  maxMass: string;
+  maxVolume: string;
+  quantity: string;
+  technology: "" | Technology;
+  notes: string;
   // service conditions (optional) and the customer's filters over the options
-  ambientTemperature: text,
-  rmsCurrent: text,
-  survives: z.union([z.literal(""), z.enum(FAULT_FILTERS)], { message: "Choose which failure the bank must survive" }),
-  minLifeYears: text,
-  rankBy: z.enum(RANK_BY, { message: "Choose price or life" }),
-});
+  ambientTemperature: string;
+  rmsCurrent: string;
+  survives: "" | FaultFilter;
+  minLifeYears: string;
+  rankBy: RankBy;
+};
 
-export type RequestFormValues = z.infer<typeof requestFormFieldsSchema>;
 export type RequestFormField = keyof RequestFormValues;
 
 export const EMPTY_REQUEST_FORM: RequestFormValues = {
@@ -240,20 +241,8 @@ export function readRequestForm(values: RequestFormValues): { ok: true; data: Re
   return issues.length > 0 ? { ok: false, issues } : { ok: true, data: { requirement, notes: values.notes.trim() } };
 }
 
-/** The form schema: the fields' shapes, then every value read as a quantity; outputs the SI requirement. */
-export const requestFormSchema = requestFormFieldsSchema
-  .superRefine((values, ctx) => {
-    const r = readRequestForm(values);
-    if (!r.ok) for (const issue of r.issues) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
-  })
-  .transform((values): RequestFormResult => {
-    const r = readRequestForm(values);
-    // superRefine has refused every failing input before the transform runs
-    if (!r.ok) throw new Error("unreachable: request form refused after refinement");
-    return r.data;
-  });
-
-export type RequestFormOutput = z.output<typeof requestFormSchema>;
+/** What the form gives once every field reads: the SI requirement and the notes. */
+export type RequestFormOutput = RequestFormResult;
 
 /** Figures derived live as people type (ideal capacitor, ESR neglected). */
 export interface DerivedFigures {

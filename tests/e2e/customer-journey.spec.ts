@@ -78,6 +78,8 @@ test("a visitor compares arrangements, signs up, chooses one and gets the quote 
   const focused = page.getByTestId("focused-option");
   await expect(focused.getByRole("heading", { level: 3 })).toContainText(`${sku}: ${seriesCount} S × ${parallelCount} P`);
   await expect(focused.getByTestId("bank-diagram")).toBeVisible();
+  // each chart loads as its place scrolls into view
+  for (const slot of ["cell-voltage", "discharge", "price-mass"]) await page.locator(`[data-chart-slot="${slot}"]`).scrollIntoViewIfNeeded();
   await expect(focused.getByTestId("cell-voltage-chart").locator("svg").first()).toBeVisible();
   await expect(focused.getByTestId("discharge-chart").locator("svg").first()).toBeVisible();
   await expect(page.getByTestId("price-mass-chart").locator("svg").first()).toBeVisible();

@@ -11,7 +11,7 @@ import type { PricedOption } from "@/lib/quoting/types";
 import { createQuoteFromChoice } from "@/lib/quoting/create-quote";
 import { arrangementRequestSchema } from "@/lib/validation/bank";
 import { chooseArrangementSchema } from "@/lib/validation/quote";
-import { requestFormSchema } from "@/lib/validation/request-form";
+import { requestFormSchema } from "@/lib/validation/request-form-schema";
 
 export interface ExploreResult {
   /** the requirement in SI units, as the server read the form */

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { deriveFigures, EMPTY_REQUEST_FORM, readRequestForm, requestFormSchema, type RequestFormValues } from "@/lib/validation/request-form";
+import { deriveFigures, EMPTY_REQUEST_FORM, readRequestForm, type RequestFormValues } from "@/lib/validation/request-form";
+import { requestFormSchema } from "@/lib/validation/request-form-schema";
 import { arrangementRequestSchema } from "@/lib/validation/bank";
 import { MAX_NOTES_LENGTH, MAX_QUANTITY } from "@/lib/validation/limits";
 

@@ -3,9 +3,11 @@ import dynamic from "next/dynamic";
 import { useDeferredValue, useEffect, useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { BankDiagram } from "@/components/bank-diagram/bank-diagram";
-import { CellVoltageChart } from "@/components/charts/cell-voltage-chart";
-import { DischargeChart } from "@/components/charts/discharge-chart";
-import { PriceMassChart } from "@/components/charts/price-mass-chart";
+import {
+  LazyCellVoltageChart as CellVoltageChart,
+  LazyDischargeChart as DischargeChart,
+  LazyPriceMassChart as PriceMassChart,
+} from "@/components/charts/lazy-charts";
 import { formatMoney } from "@/lib/pricing/currency";
 import { formatQuantity as q } from "@/lib/quantities";
 import { optionId } from "@/lib/validation/quote";

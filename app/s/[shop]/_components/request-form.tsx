@@ -2,7 +2,7 @@
 import { useWatch, type UseFormReturn } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { FieldShell, SelectField, TextField } from "@/components/ui/field";
-import { TECHNOLOGIES } from "@/lib/bank";
+import { TECHNOLOGIES } from "@/lib/bank/types";
 import { formatQuantity } from "@/lib/quantities";
 import { TECHNOLOGY_LABELS } from "@/lib/vocabulary";
 import { MAX_NOTES_LENGTH } from "@/lib/validation/limits";

@@ -1,11 +1,10 @@
 "use client";
-import { zodResolver } from "@hookform/resolvers/zod";
 import dynamic from "next/dynamic";
 import { useCallback, useEffect, useRef, useState, useTransition } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, type Resolver } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
-import { optionId } from "@/lib/validation/quote";
-import { EMPTY_REQUEST_FORM, requestFormSchema, type RequestFormField, type RequestFormOutput, type RequestFormValues } from "@/lib/validation/request-form";
+import { optionId } from "@/lib/quoting/option-id";
+import { EMPTY_REQUEST_FORM, readRequestForm, type RequestFormField, type RequestFormOutput, type RequestFormValues } from "@/lib/validation/request-form";
 import { exploreArrangements, type ExploreResult } from "../actions";
 import { OptionFilters } from "./option-filters";
 import { RequestForm } from "./request-form";
@@ -19,6 +18,13 @@ const ArrangementResults = dynamic(loadResults, {
   loading: () => <div className="h-96 animate-pulse rounded-lg bg-white ring-1 ring-ink-100" aria-hidden="true" />,
 });
 
+// The form's checks (zod and its schema) load on the first check, a field left or the form sent,
+// not with the page: a phone shows the form and takes typing before any of it has arrived.
+const resolver: Resolver<RequestFormValues, unknown, RequestFormOutput> = async (values, context, options) => {
+  const { requestFormResolver } = await import("./request-form-resolver");
+  return requestFormResolver(values, context, options);
+};
+
 /**
  * The storefront's request → arrangements journey. What is entered is kept in sessionStorage, so
  * it survives sign-in and sign-up; `resume` (back from signing in) re-runs the search with the
@@ -26,7 +32,7 @@ const ArrangementResults = dynamic(loadResults, {
  */
 export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: string; shopName: string; viewer: Viewer; resume: boolean }) {
   const form = useForm<RequestFormValues, unknown, RequestFormOutput>({
-    resolver: zodResolver(requestFormSchema),
+    resolver,
     defaultValues: EMPTY_REQUEST_FORM,
     mode: "onTouched",
   });
@@ -95,8 +101,8 @@ export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: st
     setAttachments(saved.attachments);
     attachmentsRef.current = saved.attachments;
     if (resume) {
-      const parsed = requestFormSchema.safeParse(saved.values);
-      if (parsed.success) search(saved.values, saved.focus);
+      // the server checks the fields again; a request that no longer reads is not searched
+      if (readRequestForm(saved.values).ok) search(saved.values, saved.focus);
       window.history.replaceState(null, "", `/s/${slug}`);
     }
   }, [slug, resume, form, search]);

@@ -1,5 +1,5 @@
 "use client";
-import { zodResolver } from "@hookform/resolvers/zod";
+import { zodResolver } from "@/lib/validation/zod-resolver";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { FieldShell, FormMessage, SelectField, TextField } from "@/components/ui/field";
