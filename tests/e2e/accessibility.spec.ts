@@ -40,6 +40,8 @@ async function showOptions(page: Page) {
   const focused = page.getByTestId("focused-option");
   await expect(page.getByTestId("options-table")).toBeVisible();
   await expect(focused.getByTestId("bank-diagram")).toBeVisible();
+  // each chart loads as its place scrolls into view
+  for (const slot of ["cell-voltage", "discharge", "price-mass"]) await page.locator(`[data-chart-slot="${slot}"]`).scrollIntoViewIfNeeded();
   await expect(focused.getByTestId("cell-voltage-chart").locator("svg").first()).toBeVisible();
   await expect(focused.getByTestId("discharge-chart").locator("svg").first()).toBeVisible();
   await expect(page.getByTestId("price-mass-chart").locator("svg").first()).toBeVisible();
