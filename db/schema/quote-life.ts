@@ -2,8 +2,9 @@ import { sql } from "drizzle-orm";
 import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { WorkbenchDraft } from "@/lib/validation/workbench";
 import { QUOTE_MESSAGE_KINDS } from "../../lib/vocabulary";
-import { shops, users } from "./auth";
+import { users } from "./auth";
 import { bankRequests, quotes, quoteStatusEnum } from "./quotes";
+import { shopColumn, createdAtColumn } from "./columns";
 
 export const quoteMessageKindEnum = pgEnum("quote_message_kind", QUOTE_MESSAGE_KINDS);
 export const quoteActorEnum = pgEnum("quote_actor", ["customer", "staff", "system"]);
@@ -16,9 +17,7 @@ export const quoteMoves = pgTable(
   "quote_moves",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     quoteId: uuid()
       .notNull()
       .references(() => quotes.id, { onDelete: "cascade" }),
@@ -30,7 +29,7 @@ export const quoteMoves = pgTable(
     actorUserId: text().references(() => users.id, { onDelete: "set null" }),
     /** a decline's or a withdrawal's reason */
     reason: text(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [
     index("quote_moves_shop_quote_idx").on(t.shopId, t.quoteId, t.createdAt),
@@ -46,9 +45,7 @@ export const quoteMessages = pgTable(
   "quote_messages",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     quoteId: uuid()
       .notNull()
       .references(() => quotes.id, { onDelete: "cascade" }),
@@ -59,7 +56,7 @@ export const quoteMessages = pgTable(
     side: text({ enum: ["customer", "shop"] }).notNull(),
     kind: quoteMessageKindEnum().notNull(),
     body: text().notNull(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [index("quote_messages_shop_quote_idx").on(t.shopId, t.quoteId, t.createdAt)],
 );
@@ -72,16 +69,14 @@ export const quoteDrafts = pgTable(
   "quote_drafts",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     requestId: uuid()
       .notNull()
       .references(() => bankRequests.id, { onDelete: "cascade" }),
     body: jsonb().$type<WorkbenchDraft>().notNull(),
     version: integer().notNull().default(1),
     updatedByUserId: text().references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("quote_drafts_shop_request_uq").on(t.shopId, t.requestId)],

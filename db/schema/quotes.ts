@@ -1,11 +1,11 @@
-import { sql } from "drizzle-orm";
 import { date, index, integer, jsonb, numeric, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { Requirement } from "@/lib/bank/types";
 import type { PriceSheet } from "@/lib/pricing/price-sheet";
 import type { BankPrice } from "@/lib/pricing/types";
 import type { ChosenRecord, FrozenCell, PricedOption, RevisionDesign } from "@/lib/quoting/types";
 import { QUOTE_STATUSES, REQUEST_STATUSES } from "../../lib/vocabulary";
-import { shops, users } from "./auth";
+import { users } from "./auth";
+import { shopColumn, createdAtColumn, updatedAtColumn } from "./columns";
 
 export const requestStatusEnum = pgEnum("request_status", REQUEST_STATUSES);
 export const quoteStatusEnum = pgEnum("quote_status", QUOTE_STATUSES);
@@ -16,9 +16,7 @@ export const bankRequests = pgTable(
   "bank_requests",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     customerUserId: text()
       .notNull()
       .references(() => users.id, { onDelete: "restrict" }),
@@ -31,11 +29,8 @@ export const bankRequests = pgTable(
     chosenOption: jsonb().$type<ChosenRecord>(),
     /** the client's token for one submit: a double submit finds the same request */
     idempotencyKey: text(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true })
-      .notNull()
-      .defaultNow()
-      .$onUpdate(() => sql`now()`),
+    createdAt: createdAtColumn(),
+    updatedAt: updatedAtColumn(),
   },
   (t) => [
     index("bank_requests_shop_status_idx").on(t.shopId, t.status, t.createdAt),
@@ -49,9 +44,7 @@ export const requestAttachments = pgTable(
   "request_attachments",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     uploadedByUserId: text()
       .notNull()
       .references(() => users.id, { onDelete: "restrict" }),
@@ -61,7 +54,7 @@ export const requestAttachments = pgTable(
     sizeBytes: integer().notNull(),
     sha256: text().notNull(),
     storageKey: text().notNull(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [
     index("request_attachments_shop_request_idx").on(t.shopId, t.requestId),
@@ -74,9 +67,7 @@ export const quotes = pgTable(
   "quotes",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     requestId: uuid()
       .notNull()
       .references(() => bankRequests.id, { onDelete: "restrict" }),
@@ -91,11 +82,8 @@ export const quotes = pgTable(
     changeRequestedAt: timestamp({ withTimezone: true }),
     /** the client's token for one choice: a double submit finds the same quote */
     idempotencyKey: text().notNull(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true })
-      .notNull()
-      .defaultNow()
-      .$onUpdate(() => sql`now()`),
+    createdAt: createdAtColumn(),
+    updatedAt: updatedAtColumn(),
   },
   (t) => [
     uniqueIndex("quotes_shop_number_uq").on(t.shopId, t.number),
@@ -113,9 +101,7 @@ export const quoteRevisions = pgTable(
   "quote_revisions",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     quoteId: uuid()
       .notNull()
       .references(() => quotes.id, { onDelete: "cascade" }),
@@ -143,7 +129,7 @@ export const quoteRevisions = pgTable(
     total: numeric({ precision: 16, scale: 4 }).notNull(),
     validUntil: date().notNull(),
     createdByUserId: text().references(() => users.id, { onDelete: "set null" }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [uniqueIndex("quote_revisions_shop_quote_rev_uq").on(t.shopId, t.quoteId, t.revision)],
 );
@@ -152,9 +138,7 @@ export const quoteLines = pgTable(
   "quote_lines",
   {
     id: uuid().primaryKey().defaultRandom(),
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     revisionId: uuid()
       .notNull()
       .references(() => quoteRevisions.id, { onDelete: "cascade" }),
@@ -174,9 +158,7 @@ export const quoteLines = pgTable(
 export const shopCounters = pgTable(
   "shop_counters",
   {
-    shopId: text()
-      .notNull()
-      .references(() => shops.id, { onDelete: "cascade" }),
+    shopId: shopColumn(),
     kind: text().notNull(),
     year: integer().notNull(),
     value: integer().notNull().default(0),
