@@ -302,8 +302,9 @@ export async function deleteQuoteDraft(tx: Tx, shopId: string, requestId: string
 
 /**
  * Sent quotes whose latest revision's last valid day is before `today` (YYYY-MM-DD), across shops,
- * for the expiry job: the one read across shops, run by the job queue and never for a member, and
- * it hands out only ids. Each is expired in its own shop-scoped transaction.
+ * for the expiry job, through the narrow SECURITY DEFINER function `quotes_past_validity`
+ * (drizzle/0017): run by the job queue, never for a member, it hands out only shops and numbers.
+ * Each is expired in its own shop-scoped transaction.
  */
 export async function listQuotesPastValidity(today: string, limit = 500): Promise<{ shopId: string; number: string }[]> {
   const { rows } = await db.execute<{ shop_id: string; number: string }>(sql`select shop_id, number from quotes_past_validity(${today}::date, ${limit})`);

@@ -14,6 +14,7 @@ import { bankRequests, catalogCells, emailOutbox, members, quotes } from "@/db/s
 import { listShopsOfUser } from "@/db/queries/members";
 import { listPublicShops } from "@/db/queries/shops";
 import { listWaitingOutboxIds } from "@/db/queries/outbox";
+import { listQuotesPastValidity } from "@/db/queries/quote-life";
 import { findPaymentByIntent } from "@/db/queries/payments";
 import { listDueDeliveries } from "@/db/queries/webhooks";
 import { withShop, withUser } from "@/db/tx";
@@ -37,12 +38,13 @@ const databaseError = (error: unknown) => {
 
 let A: TestShop;
 let B: TestShop;
+let bQuote = "";
 
 beforeAll(async () => {
   A = await createShop("kestrel");
   B = await createShop("marlow");
   await createQuote(A, A.customers[0]);
-  await createQuote(B, B.customers[0], MARLOW_REQUIREMENT);
+  bQuote = await createQuote(B, B.customers[0], MARLOW_REQUIREMENT);
 });
 
 describe("a query that forgets its where shop_id", () => {
@@ -129,6 +131,10 @@ describe("a query that forgets its where shop_id", () => {
     const due = await listDueDeliveries(5);
     expect(due.every((d) => Object.keys(d).sort().join() === "id,shopId")).toBe(true);
     expect(await findPaymentByIntent("pi_nobody_has_this")).toBeNull();
+    // the quote expiry's lookup: every sent quote is past a far-off day, in every shop, as shop and number only
+    const past = await listQuotesPastValidity("9999-12-31", 5000);
+    expect(past).toContainEqual({ shopId: B.id, number: bQuote });
+    expect(past.every((q) => Object.keys(q).sort().join() === "number,shopId")).toBe(true);
   });
 });
 

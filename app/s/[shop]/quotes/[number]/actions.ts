@@ -47,7 +47,7 @@ export async function writeQuoteMessage(shopSlug: string, input: unknown) {
 
 /**
  * "Accept and pay": the quote's own customer accepts the revision and is handed the Checkout
- * Session to pay it (the whole amount, the deposit or the balance). Acceptance itself is the
- * quote's life: lib/payments/checkout.ts marks the ACCEPTANCE SEAM where the accept move goes.
+ * Session to pay it (the whole amount, the deposit or the balance). `openCheckout` accepts the
+ * latest sent revision through the quote's own move (`acceptQuoteRevisionIn`) in its transaction.
  */
 export const startCheckout = shopAction(startCheckoutSchema, "quote:accept", async (ctx, input) => openCheckout(ctx, input));
