@@ -1,6 +1,6 @@
 "use client";
 import Link from "next/link";
-import { useId, useState } from "react";
+import { useEffect, useId, useRef, useState } from "react";
 import { api, apiErrorMessage, asFormData } from "@/lib/api/client";
 import { MAX_ATTACHMENT_SIZE_TEXT, MAX_ATTACHMENTS_PER_REQUEST } from "@/lib/validation/limits";
 import type { UploadedFile } from "./saved-request";
@@ -27,26 +27,7 @@ export function AttachmentsField({
   const id = useId();
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
-
-  if (viewer.kind !== "customer") {
-    return (
-      <div className="space-y-1">
-        <p className="text-sm font-medium text-ink-800">Drawings and specifications</p>
-        <p className="text-sm text-ink-600">
-          {viewer.kind === "staff" ? (
-            "Attachments are for customers' requests."
-          ) : (
-            <>
-              <Link className="font-medium text-copper-700 hover:underline" href={`/sign-in?shop=${slug}&next=${encodeURIComponent(`/s/${slug}`)}`}>
-                Sign in
-              </Link>{" "}
-              to attach drawings (PDF, PNG, JPEG or DXF, up to {MAX_ATTACHMENT_SIZE_TEXT} each). What you typed here is kept.
-            </>
-          )}
-        </p>
-      </div>
-    );
-  }
+  const input = useRef<HTMLInputElement>(null);
 
   async function upload(list: FileList | null) {
     if (!list || list.length === 0) return;
@@ -75,12 +56,43 @@ export function AttachmentsField({
     }
   }
 
+  // a file picked before the page's script took over the field is uploaded now, not lost
+  useEffect(() => {
+    const el = input.current;
+    if (el?.files && el.files.length > 0) {
+      void upload(el.files);
+      el.value = "";
+    }
+    // once, when the field comes alive
+  }, []);
+
+  if (viewer.kind !== "customer") {
+    return (
+      <div className="space-y-1">
+        <p className="text-sm font-medium text-ink-800">Drawings and specifications</p>
+        <p className="text-sm text-ink-600">
+          {viewer.kind === "staff" ? (
+            "Attachments are for customers' requests."
+          ) : (
+            <>
+              <Link className="font-medium text-copper-700 hover:underline" href={`/sign-in?shop=${slug}&next=${encodeURIComponent(`/s/${slug}`)}`}>
+                Sign in
+              </Link>{" "}
+              to attach drawings (PDF, PNG, JPEG or DXF, up to {MAX_ATTACHMENT_SIZE_TEXT} each). What you typed here is kept.
+            </>
+          )}
+        </p>
+      </div>
+    );
+  }
+
   return (
     <div className="space-y-2">
       <label htmlFor={id} className="block text-sm font-medium text-ink-800">
         Drawings and specifications (optional)
       </label>
       <input
+        ref={input}
         id={id}
         type="file"
         multiple
