@@ -8,6 +8,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import type { Page } from "@playwright/test";
+import { expectNoSeriousA11y } from "./a11y";
 import { expect, test } from "./fixtures";
 import { signIn, unique } from "./helpers";
 
@@ -86,9 +87,11 @@ test("a customer pays on the hosted page; the manager builds, tests and ships; t
   await expect(page).toHaveURL(new RegExp(`/s/${K}/quotes/${quoteNumber}/paid\\?session=cs_`));
   await expect(page.getByTestId("payment-confirmed")).toContainText(/order O-\d{4}-\d{4} has started/, { timeout: 30_000 });
   const orderNumber = ((await page.getByTestId("payment-confirmed").innerText()).match(/O-\d{4}-\d{4}/) ?? [""])[0];
+  await expectNoSeriousA11y(page, "the page after paying");
   await page.getByRole("link", { name: `Follow order ${orderNumber}` }).click();
   await expect(page.getByTestId("order-status")).toHaveText("Paid");
   await expect(page.getByTestId("order-paid")).toHaveText(total);
+  await expectNoSeriousA11y(page, "the customer's order");
   await waitForMail(email, new RegExp(`Order ${orderNumber} confirmed`));
 
   // The manager moves it through every stage, entering test results.
@@ -98,6 +101,7 @@ test("a customer pays on the hosted page; the manager builds, tests and ships; t
   await desk.goto(`/desk/${K}/orders`);
   await desk.getByTestId(`card-${orderNumber}`).click();
   await expect(desk.getByTestId("order-number")).toHaveText(orderNumber);
+  await expectNoSeriousA11y(desk, "the order on the desk");
   for (const [stage, note] of [
     ["Kitting", "Cells pulled from graded stock"],
     ["Assembling", ""],
@@ -151,6 +155,7 @@ test("a customer pays on the hosted page; the manager builds, tests and ships; t
   for (const stage of ["Paid", "Kitting", "Assembling", "Testing", "Ready to ship", "Shipped", "Delivered"]) await expect(timeline).toContainText(stage);
   await expect(timeline).toContainText("Cells pulled from graded stock");
   await expect(page.getByText("Tollway Freight, tracking TW-55812-KB")).toBeVisible();
+  await expectNoSeriousA11y(page, "the delivered order with its timeline");
   const href = await page.getByRole("link", { name: "Download the test certificate" }).getAttribute("href");
   const pdf = await page.request.get(href ?? "");
   expect(pdf.status()).toBe(200);

@@ -1,5 +1,0 @@
-import { PageSkeleton } from "@/components/ui/skeleton";
-
-export default function Loading() {
-  return <PageSkeleton label="Loading the storefront" />;
-}

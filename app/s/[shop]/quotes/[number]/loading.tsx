@@ -1,5 +1,0 @@
-import { DocumentSkeleton } from "@/components/ui/skeleton";
-
-export default function Loading() {
-  return <DocumentSkeleton label="Loading the quote" />;
-}
