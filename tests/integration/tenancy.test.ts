@@ -87,7 +87,7 @@ import DeskRequestsPage from "@/app/desk/[shop]/requests/page";
 import DeskTeamPage from "@/app/desk/[shop]/team/page";
 import { chooseArrangement, exploreArrangements } from "@/app/s/[shop]/actions";
 import { joinShop } from "@/app/s/[shop]/join/actions";
-import MyQuotesPage from "@/app/s/[shop]/quotes/page";
+import MyQuotesPage from "@/app/s/[shop]/quotes/(list)/page";
 import StorefrontQuotePage from "@/app/s/[shop]/quotes/[number]/page";
 import { withShop } from "@/db/tx";
 import { ownerDb as db, ownerDb } from "./owner-db";

@@ -1,6 +1,6 @@
 "use client";
 import dynamic from "next/dynamic";
-import { useCallback, useEffect, useRef, useState, useTransition } from "react";
+import { Fragment, useCallback, useEffect, useRef, useState, useTransition } from "react";
 import { useForm, type Resolver } from "react-hook-form";
 import { FormMessage } from "@/components/ui/field";
 import { optionId } from "@/lib/quoting/option-id";
@@ -10,6 +10,9 @@ import { OptionFilters } from "./option-filters";
 import { RequestForm } from "./request-form";
 import { clearSavedRequest, loadSavedRequest, saveRequest, type UploadedFile } from "./saved-request";
 import type { Viewer } from "./viewer";
+
+/** how values are typed, shown in the form's introduction (in the text face: no second font before the form is usable) */
+const UNIT_EXAMPLES = ["48 V", "20 kJ", "470 µF", "5 kW", "30 s", "25 kg", "12 L"];
 
 // The results (table, diagram, charts) are needed only after a search: they load then, so the
 // storefront's first load carries the form alone. A search starts fetching them at once.
@@ -124,9 +127,14 @@ export function StorefrontJourney({ slug, shopName, viewer, resume }: { slug: st
         </h2>
         <p className="mt-1 max-w-3xl text-sm text-ink-600">
           Say what the bank must do and compare the arrangements {shopName} can build from its stock, with their figures, cautions and prices. Exploring needs
-          no account; choosing an arrangement asks you to sign in. Type values with their units: <span className="font-mono">48 V</span>,{" "}
-          <span className="font-mono">20 kJ</span>, <span className="font-mono">470 µF</span>, <span className="font-mono">5 kW</span>,{" "}
-          <span className="font-mono">30 s</span>, <span className="font-mono">25 kg</span>, <span className="font-mono">12 L</span>.
+          no account; choosing an arrangement asks you to sign in. Type values with their units:{" "}
+          {UNIT_EXAMPLES.map((example, i) => (
+            <Fragment key={example}>
+              {i > 0 ? ", " : null}
+              <kbd className="rounded bg-ink-100 px-1 font-sans whitespace-nowrap text-ink-800">{example}</kbd>
+            </Fragment>
+          ))}
+          .
         </p>
         <RequestForm
           form={form}
