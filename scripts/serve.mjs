@@ -42,7 +42,6 @@ const STATIC_TYPES = {
   ".js": "application/javascript; charset=UTF-8",
   ".css": "text/css; charset=UTF-8",
   ".svg": "image/svg+xml",
-  ".json": "application/json",
 };
 /** url path ("/_next/static/chunks/….js") → its brotli body and headers */
 const precompressed = new Map();
