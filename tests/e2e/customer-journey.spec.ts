@@ -3,6 +3,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import type { Page } from "@playwright/test";
+import { expectNoSeriousA11y } from "./a11y";
 import { expect, test } from "./fixtures";
 import { signIn, unique } from "./helpers";
 
@@ -113,6 +114,7 @@ test("a visitor compares arrangements, signs up, chooses one and gets the quote 
   const total = (await page.getByTestId("quote-total").innerText()).trim();
   expect(quoteNumber).toMatch(/^Q-\d{4}-\d{4}$/);
   expect(total).toBe(shownTotal);
+  await expectNoSeriousA11y(page, "the customer's quote at desktop width");
 
   // The PDF downloads from the quote page and holds the number and the total shown.
   const href = await page.getByRole("link", { name: /Download PDF/ }).getAttribute("href");
